@@ -1,0 +1,4 @@
+// The engine's one entry (engine contract). Pure: no I/O, no DOM.
+export * from "./errors";
+export * from "./composite";
+export * from "./geometry";
