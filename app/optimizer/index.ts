@@ -2,3 +2,6 @@
 export * from "./errors";
 export * from "./composite";
 export * from "./geometry";
+export * from "./schema";
+export * from "./properties";
+export { findInputViolation, type Violation } from "./validate";

@@ -1,0 +1,358 @@
+// sectionProperties: every field of the contract's SectionProperties table.
+//
+// Two paths, same formulas for everything derived (finish()):
+// - plates input: checked by hand, packed into a module scratch buffer, run through the
+//   allocation-free plate kernel; plastic axes found exactly (area above a line is piecewise
+//   linear between plate edges). This is the path the bench and the search's callers hit.
+// - polygons and families: a Shape (plates + root fillets + rings) summed piece by piece;
+//   the equal-area axis by bisection to machine precision (the modulus is stationary there,
+//   so its error is second order).
+// zod is not used here: callers at the edges parse with sectionInputSchema; this function
+// re-checks structure by hand (validate.ts) so it never trusts a cast.
+import {
+  compositeKernel,
+  plateQAbove,
+  plateWidthAt,
+  KERNEL_OUT,
+  K_AREA,
+  K_CY,
+  K_CZ,
+  K_IY,
+  K_IYZ,
+  K_IZ,
+  K_MAXY,
+  K_MAXZ,
+  K_MINY,
+  K_MINZ,
+  PLATE_STRIDE,
+} from "./composite";
+import { EngineInputError } from "./errors";
+import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
+import { DEFAULT_DENSITY, type SectionInput } from "./schema";
+import { buildShape, shapeAbove, shapeBBox, shapeIntegrals, shapeWidth, transposeShape, type Ring, type Shape } from "./shape";
+import { findInputViolation, pathText } from "./validate";
+
+export type Jmethod = "open-thin-walled" | "closed-bredt" | "polygon-approximate";
+
+export interface SectionProperties {
+  area: number;
+  centroid: { z: number; y: number };
+  extremes: { top: number; bottom: number; left: number; right: number };
+  Iz: number;
+  Iy: number;
+  Iyz: number;
+  principal: { I1: number; I2: number; angleDeg: number };
+  Sz: { top: number; bottom: number };
+  Sy: { left: number; right: number };
+  Zz: number;
+  Zy: number;
+  rz: number;
+  ry: number;
+  Qz: number;
+  widthAtNeutralAxis: number;
+  J: number;
+  Jmethod: Jmethod;
+  massPerMetre: number;
+}
+
+/** Every property of one section. Throws EngineInputError naming the field on bad input. */
+export function sectionProperties(input: SectionInput): SectionProperties {
+  const plates = (input as { plates?: unknown }).plates;
+  if (Array.isArray(plates)) return platesProperties(input as { plates: PlateObj[]; density?: number });
+  const bad = findInputViolation(input);
+  if (bad) throw new EngineInputError(pathText(bad.path) || "input", bad.message);
+  const shape = buildShape(input);
+  return shapeProperties(shape, densityOf(input));
+}
+
+function densityOf(input: unknown): number {
+  const d = (input as { density?: number }).density;
+  return d === undefined ? DEFAULT_DENSITY : d;
+}
+
+// ------------------------------------------------------------------ plates fast path
+
+type PlateObj = { b: number; h: number; z: number; y: number };
+
+let buf = new Float64Array(16 * PLATE_STRIDE);
+let tbuf = new Float64Array(16 * PLATE_STRIDE);
+const kout = new Float64Array(KERNEL_OUT);
+
+const fin = Number.isFinite;
+
+function platesProperties(input: { plates: PlateObj[]; density?: number }): SectionProperties {
+  const ps = input.plates;
+  const n = ps.length;
+  if (n > buf.length / PLATE_STRIDE) {
+    buf = new Float64Array(n * 2 * PLATE_STRIDE);
+    tbuf = new Float64Array(n * 2 * PLATE_STRIDE);
+  }
+  let ok = n > 0;
+  for (let i = 0; i < n && ok; i++) {
+    const p = ps[i];
+    if (typeof p !== "object" || p === null) {
+      ok = false;
+      break;
+    }
+    const b = p.b,
+      h = p.h,
+      z = p.z,
+      y = p.y;
+    // typeof checks first: Number.isFinite alone rejects strings too, but keep it explicit
+    if (!(typeof b === "number" && typeof h === "number" && fin(b) && fin(h) && fin(z) && fin(y) && b > 0 && h > 0)) ok = false;
+    const k = i * PLATE_STRIDE;
+    buf[k] = b;
+    buf[k + 1] = h;
+    buf[k + 2] = z;
+    buf[k + 3] = y;
+    tbuf[k] = h;
+    tbuf[k + 1] = b;
+    tbuf[k + 2] = y;
+    tbuf[k + 3] = z;
+  }
+  const dens = input.density;
+  if (dens !== undefined && !(typeof dens === "number" && fin(dens) && dens > 0)) ok = false;
+  // Overlap test on the packed numbers (interiors only: touching plates are fine).
+  for (let i = 1; i < n && ok; i++) {
+    const a = i * PLATE_STRIDE;
+    for (let j = 0; j < i; j++) {
+      const c = j * PLATE_STRIDE;
+      if (buf[a + 2] < buf[c + 2] + buf[c] && buf[c + 2] < buf[a + 2] + buf[a] && buf[a + 3] < buf[c + 3] + buf[c + 1] && buf[c + 3] < buf[a + 3] + buf[a + 1]) {
+        ok = false;
+        break;
+      }
+    }
+  }
+  if (!ok) {
+    // Slow path only to word the message.
+    const bad = findInputViolation(input);
+    throw new EngineInputError(bad ? pathText(bad.path) || "input" : "plates", bad ? bad.message : "invalid plates");
+  }
+  compositeKernel(buf, n, kout);
+  const A = kout[K_AREA],
+    cz = kout[K_CZ],
+    cy = kout[K_CY];
+  const Iz = kout[K_IZ],
+    Iy = kout[K_IY],
+    Iyz = kout[K_IYZ];
+  const minZ = kout[K_MINZ],
+    maxZ = kout[K_MAXZ],
+    minY = kout[K_MINY],
+    maxY = kout[K_MAXY];
+  const Zz = platesPlasticModulus(buf, n, A);
+  const Zy = platesPlasticModulus(tbuf, n, A);
+  const Qz = plateQAbove(buf, n, cy, cy);
+  const wa = plateWidthAt(buf, n, cy, 1),
+    wb = plateWidthAt(buf, n, cy, -1);
+  let J = 0;
+  for (let i = 0; i < n * PLATE_STRIDE; i += PLATE_STRIDE) {
+    const b = buf[i],
+      h = buf[i + 1];
+    J += b > h ? (b * h * h * h) / 3 : (h * b * b * b) / 3;
+  }
+  return finish(A, cz, cy, Iz, Iy, Iyz, minZ, maxZ, minY, maxY, Zz, Zy, Qz, wa < wb ? wa : wb, J, "open-thin-walled", dens === undefined ? DEFAULT_DENSITY : dens);
+}
+
+/**
+ * Plastic modulus about the horizontal equal-area axis, exact: area above a line is linear
+ * between consecutive plate edges, so the axis is found by bracketing between edges and
+ * interpolating; Z = Σ b·∫|y − p| dy per plate in closed form.
+ */
+export function platesPlasticModulus(p: Float64Array, n: number, A: number): number {
+  const half = A / 2;
+  let lo = -Infinity,
+    loA = 0,
+    hi = Infinity,
+    hiA = 0;
+  const m = n * PLATE_STRIDE;
+  for (let e = 0; e < 2 * m; e += PLATE_STRIDE) {
+    const k = e < m ? e : e - m;
+    const y = e < m ? p[k + 3] : p[k + 3] + p[k + 1];
+    let a = 0;
+    for (let i = 0; i < m; i += PLATE_STRIDE) {
+      const bot = p[i + 3],
+        top = bot + p[i + 1];
+      if (top > y) a += p[i] * (top - (bot > y ? bot : y));
+    }
+    if (a >= half && y > lo) {
+      lo = y;
+      loA = a;
+    }
+    if (a <= half && y < hi) {
+      hi = y;
+      hiA = a;
+    }
+  }
+  const pna = loA === hiA ? 0.5 * (lo + hi) : lo + ((loA - half) / (loA - hiA)) * (hi - lo);
+  let Z = 0;
+  for (let i = 0; i < m; i += PLATE_STRIDE) {
+    const b = p[i],
+      h = p[i + 1],
+      bot = p[i + 3],
+      top = bot + h;
+    if (pna <= bot) Z += b * h * (bot + 0.5 * h - pna);
+    else if (pna >= top) Z += b * h * (pna - bot - 0.5 * h);
+    else Z += (0.5 * b * ((pna - bot) * (pna - bot) + (top - pna) * (top - pna)));
+  }
+  return Z;
+}
+
+// ------------------------------------------------------------------ general path
+
+const acc = new Float64Array(INTEGRALS);
+const two = new Float64Array(2);
+
+export function shapeProperties(s: Shape, density: number): SectionProperties {
+  const [minZ, maxZ, minY, maxY] = shapeBBox(s);
+  // Two passes: integrals about a corner give the centroid; about the centroid give I's
+  // without the cancellation of Σy²A − A·ȳ².
+  shapeIntegrals(s, minZ, minY, acc);
+  const A = acc[I_A];
+  if (!(A > 0)) throw new EngineInputError("polygons", "section has no net area (holes cancel the solids)");
+  const cz = minZ + acc[I_Z] / A,
+    cy = minY + acc[I_Y] / A;
+  shapeIntegrals(s, cz, cy, acc);
+  const Iz = acc[I_YY],
+    Iy = acc[I_ZZ],
+    Iyz = acc[I_ZY];
+  const t = transposeShape(s);
+  const Zz = plasticModulus(s, A, cy, minY, maxY);
+  const Zy = plasticModulus(t, A, cz, minZ, maxZ);
+  shapeAbove(s, cy, cy, two);
+  const Qz = two[1];
+  const wa = shapeWidth(s, cy, 1),
+    wb = shapeWidth(s, cy, -1);
+  const [J, Jm] = torsionConstant(s);
+  return finish(A, cz, cy, Iz, Iy, Iyz, minZ, maxZ, minY, maxY, Zz, Zy, Qz, Math.min(wa, wb), J, Jm, density);
+}
+
+/** Z = ∫|y − p| dA = 2·U(p) − A(ȳ − p), U(p) = ∫_{y>p} (y − p) dA, with p the equal-area axis. */
+function plasticModulus(s: Shape, A: number, cbar: number, lo: number, hi: number): number {
+  const half = A / 2;
+  for (let k = 0; k < 200; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (mid <= lo || mid >= hi) break;
+    shapeAbove(s, mid, 0, two);
+    if (two[0] > half) lo = mid;
+    else hi = mid;
+  }
+  const p = 0.5 * (lo + hi);
+  shapeAbove(s, p, p, two);
+  return 2 * two[1] - A * (cbar - p);
+}
+
+function torsionConstant(s: Shape): [number, Jmethod] {
+  if (s.torsion === "box" && s.box) {
+    // Bredt's formula for one closed cell on the wall midlines: J = 4·Am² / ∮ds/t
+    // (Timoshenko & Goodier, Theory of Elasticity, thin-walled tubes).
+    const { d, b, tf, tw } = s.box;
+    const Am = (b - tw) * (d - tf);
+    return [(4 * Am * Am) / ((2 * (b - tw)) / tf + (2 * (d - tf)) / tw), "closed-bredt"];
+  }
+  if (s.torsion === "open") {
+    // Open thin-walled: Σ b·t³/3 over plates, long side b, short side t (fillets ignored).
+    let J = 0;
+    for (let i = 0; i < s.plateCount * PLATE_STRIDE; i += PLATE_STRIDE) {
+      const b = Math.max(s.plates[i], s.plates[i + 1]),
+        t = Math.min(s.plates[i], s.plates[i + 1]);
+      J += (b * t * t * t) / 3;
+    }
+    return [J, "open-thin-walled"];
+  }
+  return [polygonTorsion(s.rings), "polygon-approximate"];
+}
+
+/**
+ * Polygons carry no wall thickness, so J is approximate (Jmethod says so). Per solid ring:
+ * with exactly one hole, Bredt on a mean wall (Am = mean of the two areas, wall t = net
+ * area ÷ mean perimeter); otherwise Saint-Venant's approximation J ≈ A⁴/(4π²·Ip) about the
+ * part's own centroid (exact for a circle and an ellipse; Saint-Venant 1855, quoted in
+ * Roark's Formulas for Stress and Strain, torsion chapter).
+ */
+function polygonTorsion(rings: Ring[]): number {
+  let J = 0;
+  const solids = rings.filter((r) => !r.hole);
+  const holes = rings.filter((r) => r.hole);
+  for (const s of solids) {
+    const mine = holes.filter((h) => ringInside(h.pts, s.pts));
+    if (mine.length === 1) {
+      const Ao = ringArea(s), Ai = ringArea(mine[0]);
+      const pm = (perimeter(s.pts) + perimeter(mine[0].pts)) / 2;
+      const Am = (Ao + Ai) / 2, t = (Ao - Ai) / pm;
+      J += (4 * Am * Am * t) / pm;
+      continue;
+    }
+    const parts = [s, ...mine];
+    const g = new Float64Array(INTEGRALS);
+    for (const r of parts) ringIntegrals(r.pts, 0, 0, r.hole ? -1 : 1, g);
+    const a = g[I_A], zc = g[I_Z] / a, yc = g[I_Y] / a;
+    const Ip = g[I_YY] - a * yc * yc + g[I_ZZ] - a * zc * zc;
+    J += (a * a * a * a) / (4 * Math.PI * Math.PI * Ip);
+  }
+  return J;
+}
+
+function ringArea(r: Ring): number {
+  const g = new Float64Array(INTEGRALS);
+  ringIntegrals(r.pts, 0, 0, 1, g);
+  return g[I_A];
+}
+
+function perimeter(p: Float64Array): number {
+  let L = 0;
+  for (let i = 0; i < p.length; i += 2) {
+    const j = i + 2 === p.length ? 0 : i + 2;
+    L += Math.hypot(p[j] - p[i], p[j + 1] - p[i + 1]);
+  }
+  return L;
+}
+
+// ------------------------------------------------------------------ shared finish
+
+/** Relative size below which Iyz and Iz − Iy count as rounding noise (symmetric sections). */
+const NOISE = 1e-12;
+
+function finish(
+  A: number, cz: number, cy: number, Iz: number, Iy: number, Iyz: number,
+  minZ: number, maxZ: number, minY: number, maxY: number,
+  Zz: number, Zy: number, Qz: number, width: number, J: number, Jmethod: Jmethod, density: number,
+): SectionProperties {
+  const scale = Iz + Iy;
+  // Snap rounding noise so symmetric sections report Iyz = 0 and a clean principal angle.
+  if (Math.abs(Iyz) <= NOISE * scale) Iyz = 0;
+  const dI = Math.abs(Iz - Iy) <= NOISE * scale ? 0 : Iz - Iy;
+  const c = 0.5 * (Iz + Iy),
+    R = Math.hypot(0.5 * dI, Iyz);
+  // I(θ) about an axis at θ from z (counter-clockwise) = c + (dI/2)·cos2θ − Iyz·sin2θ,
+  // largest at 2θ = atan2(−2·Iyz, dI); atan2's range (−π, π] gives θ in (−90°, 90°] as the
+  // contract asks, and 0 for Iz = Iy, Iyz = 0. "+ 0" turns −0 into +0 (else −90°).
+  let angleDeg = (0.5 * Math.atan2(-2 * Iyz + 0, dI) * 180) / Math.PI;
+  if (angleDeg <= -90) angleDeg += 180;
+  const top = maxY - cy,
+    bottom = cy - minY,
+    left = cz - minZ,
+    right = maxZ - cz;
+  const out: SectionProperties = {
+    area: A,
+    centroid: { z: cz - minZ, y: cy - minY },
+    extremes: { top, bottom, left, right },
+    Iz,
+    Iy,
+    Iyz,
+    principal: { I1: c + R, I2: c - R, angleDeg },
+    Sz: { top: Iz / top, bottom: Iz / bottom },
+    Sy: { left: Iy / left, right: Iy / right },
+    Zz,
+    Zy,
+    rz: Math.sqrt(Iz / A),
+    ry: Math.sqrt(Iy / A),
+    Qz,
+    widthAtNeutralAxis: width,
+    J,
+    Jmethod,
+    massPerMetre: A * density * 1e-6,
+  };
+  if (!(fin(A) && fin(Iz) && fin(Iy) && fin(Iyz) && fin(Zz) && fin(Zy) && fin(J) && fin(out.massPerMetre) && Iz > 0 && Iy > 0))
+    throw new EngineInputError("input", "dimensions are out of the range double precision can handle");
+  return out;
+}

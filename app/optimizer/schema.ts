@@ -1,0 +1,91 @@
+// zod schemas for SectionInput (engine contract): the single source of truth for forms,
+// API routes and workers. The geometry rules come from validate.ts, shared with the
+// engine's own hand-written fast check.
+import { z } from "zod";
+import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, type Family } from "./geometry";
+import { familyViolation, findInputViolation, platesOverlap, polygonsViolation } from "./validate";
+
+const finite = (what: string) => z.number({ error: `${what} must be a finite number` }).refine(Number.isFinite, `${what} must be a finite number`);
+const positive = (what: string) => finite(what).refine((x) => x > 0, `${what} must be positive`);
+
+/** kg/m³; steel 7850 by default (EN 1993-1-1 §3.2.6 gives 7850 kg/m³ for structural steel). */
+export const DEFAULT_DENSITY = 7850;
+const density = positive("density").optional();
+
+export const plateSchema = z.object({ b: positive("b"), h: positive("h"), z: finite("z"), y: finite("y") });
+
+export const platesInputSchema = z
+  .object({ plates: z.array(plateSchema).min(1, "plates needs at least one plate"), density })
+  .superRefine((v, ctx) => {
+    const bad = platesOverlap(v.plates);
+    if (bad) ctx.addIssue({ code: "custom", path: bad.path, message: bad.message });
+  });
+
+export const pointSchema = z.tuple([finite("z"), finite("y")], { error: "a point must be a pair [z, y] of finite numbers" });
+
+export const polygonSchema = z.object({
+  points: z.array(pointSchema).min(3, "a polygon needs at least 3 points"),
+  hole: z.boolean().default(false),
+});
+
+export const polygonsInputSchema = z
+  .object({ polygons: z.array(polygonSchema).min(1, "polygons needs at least one polygon"), density })
+  .superRefine((v, ctx) => {
+    const bad = polygonsViolation(v.polygons);
+    if (bad) ctx.addIssue({ code: "custom", path: bad.path, message: bad.message });
+  });
+
+function familyObject<F extends Family>(family: F) {
+  const dims: Record<string, z.ZodNumber> = {};
+  for (const k of FAMILY_DIMENSIONS[family]) dims[k] = positive(`${family}: ${k}`);
+  const extra = FILLETED_FAMILIES.includes(family)
+    ? { r: finite(`${family}: r`).refine((x) => x >= 0, `${family}: r must be ≥ 0`).optional() }
+    : {};
+  return z.object({
+    family: z.literal(family),
+    ...(dims as { [K in (typeof FAMILY_DIMENSIONS)[F][number]]: z.ZodNumber }),
+    ...extra,
+    flip: z.boolean().default(false),
+    density,
+  });
+}
+
+const familyObjects = [
+  familyObject("rectangle"),
+  familyObject("i"),
+  familyObject("mono-i"),
+  familyObject("channel"),
+  familyObject("channel-down"),
+  familyObject("tee"),
+  familyObject("box"),
+  familyObject("angle"),
+] as const;
+
+export const familyInputSchema = z
+  .discriminatedUnion("family", familyObjects, { error: `family must be one of ${FAMILIES.join(", ")}` })
+  .superRefine((v, ctx) => {
+    const bad = familyViolation(v as Record<string, unknown>);
+    if (bad) ctx.addIssue({ code: "custom", path: bad.path, message: bad.message });
+  });
+
+/**
+ * Any SectionInput. When every form fails, zod reports a bare union failure at the root; the
+ * error function replaces it with the first real problem of the form the value was aiming at
+ * (found by hand in validate.ts), so the message still names the field.
+ */
+export const sectionInputSchema = z.union([platesInputSchema, polygonsInputSchema, familyInputSchema], {
+  error: (iss) => {
+    if (iss.code !== "invalid_union") return undefined;
+    const v = findInputViolation(iss.input);
+    // validate.ts messages already name the field
+    return v ? v.message : "section input needs plates, polygons or family";
+  },
+});
+
+/** What callers may pass (flip, hole, density optional). */
+export type SectionInput = z.input<typeof sectionInputSchema>;
+/** What the schema returns (defaults filled in). */
+export type ParsedSectionInput = z.output<typeof sectionInputSchema>;
+export type PlatesInput = z.input<typeof platesInputSchema>;
+export type PolygonsInput = z.input<typeof polygonsInputSchema>;
+export type FamilyInput = z.input<typeof familyInputSchema>;
