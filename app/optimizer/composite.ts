@@ -198,3 +198,79 @@ export function packPlates(plates: readonly PlateRect[], into?: Float64Array): F
   }
   return buf;
 }
+
+/**
+ * Plastic modulus about the horizontal equal-area axis, exact. Area above a line is linear
+ * between consecutive plate edges (slope −width), so starting at the elastic centroid the
+ * walk solves the linear equation inside the current band, or steps to the band's edge and
+ * tries the next band; a few O(n) steps, no sorting, no allocation. Then
+ * Z = Σ b·∫|y − p| dy per plate in closed form.
+ */
+export function platePlasticModulus(plates: Float64Array, count: number, A: number, start?: number): number {
+  const half = 0.5 * A;
+  const m = count * PLATE_STRIDE;
+  let p = start === undefined ? plateCentroidY(plates, count) : start;
+  for (let guard = 0; guard <= 2 * count + 2; guard++) {
+    let a = 0,
+      wUp = 0,
+      wDown = 0,
+      eUp = Infinity,
+      eDown = -Infinity;
+    for (let i = 0; i < m; i += PLATE_STRIDE) {
+      const b = plates[i],
+        bot = plates[i + 3],
+        top = bot + plates[i + 1];
+      if (top > p) a += b * (top - (bot > p ? bot : p));
+      if (bot <= p && p < top) wUp += b;
+      if (bot < p && p <= top) wDown += b;
+      if (bot > p && bot < eUp) eUp = bot;
+      if (top > p && top < eUp) eUp = top;
+      if (top < p && top > eDown) eDown = top;
+      if (bot < p && bot > eDown) eDown = bot;
+    }
+    if (a === half) break;
+    if (a > half) {
+      if (wUp > 0) {
+        const y = p + (a - half) / wUp;
+        if (y <= eUp) {
+          p = y;
+          break;
+        }
+      }
+      if (eUp === Infinity) break;
+      p = eUp;
+    } else {
+      if (wDown > 0) {
+        const y = p - (half - a) / wDown;
+        if (y >= eDown) {
+          p = y;
+          break;
+        }
+      }
+      if (eDown === -Infinity) break;
+      p = eDown;
+    }
+  }
+  let Z = 0;
+  for (let i = 0; i < m; i += PLATE_STRIDE) {
+    const b = plates[i],
+      h = plates[i + 1],
+      bot = plates[i + 3],
+      top = bot + h;
+    if (p <= bot) Z += b * h * (bot + 0.5 * h - p);
+    else if (p >= top) Z += b * h * (p - bot - 0.5 * h);
+    else Z += 0.5 * b * ((p - bot) * (p - bot) + (top - p) * (top - p));
+  }
+  return Z;
+}
+
+function plateCentroidY(plates: Float64Array, count: number): number {
+  let a = 0,
+    s = 0;
+  for (let i = 0; i < count * PLATE_STRIDE; i += PLATE_STRIDE) {
+    const ar = plates[i] * plates[i + 1];
+    a += ar;
+    s += ar * (plates[i + 3] + 0.5 * plates[i + 1]);
+  }
+  return s / a;
+}

@@ -11,6 +11,7 @@
 // re-checks structure by hand (validate.ts) so it never trusts a cast.
 import {
   compositeKernel,
+  platePlasticModulus,
   plateQAbove,
   plateWidthAt,
   KERNEL_OUT,
@@ -139,8 +140,8 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     maxZ = kout[K_MAXZ],
     minY = kout[K_MINY],
     maxY = kout[K_MAXY];
-  const Zz = platesPlasticModulus(buf, n, A);
-  const Zy = platesPlasticModulus(tbuf, n, A);
+  const Zz = platePlasticModulus(buf, n, A, cy);
+  const Zy = platePlasticModulus(tbuf, n, A, cz);
   const Qz = plateQAbove(buf, n, cy, cy);
   const wa = plateWidthAt(buf, n, cy, 1),
     wb = plateWidthAt(buf, n, cy, -1);
@@ -151,50 +152,6 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     J += b > h ? (b * h * h * h) / 3 : (h * b * b * b) / 3;
   }
   return finish(A, cz, cy, Iz, Iy, Iyz, minZ, maxZ, minY, maxY, Zz, Zy, Qz, wa < wb ? wa : wb, J, "open-thin-walled", dens === undefined ? DEFAULT_DENSITY : dens);
-}
-
-/**
- * Plastic modulus about the horizontal equal-area axis, exact: area above a line is linear
- * between consecutive plate edges, so the axis is found by bracketing between edges and
- * interpolating; Z = Σ b·∫|y − p| dy per plate in closed form.
- */
-export function platesPlasticModulus(p: Float64Array, n: number, A: number): number {
-  const half = A / 2;
-  let lo = -Infinity,
-    loA = 0,
-    hi = Infinity,
-    hiA = 0;
-  const m = n * PLATE_STRIDE;
-  for (let e = 0; e < 2 * m; e += PLATE_STRIDE) {
-    const k = e < m ? e : e - m;
-    const y = e < m ? p[k + 3] : p[k + 3] + p[k + 1];
-    let a = 0;
-    for (let i = 0; i < m; i += PLATE_STRIDE) {
-      const bot = p[i + 3],
-        top = bot + p[i + 1];
-      if (top > y) a += p[i] * (top - (bot > y ? bot : y));
-    }
-    if (a >= half && y > lo) {
-      lo = y;
-      loA = a;
-    }
-    if (a <= half && y < hi) {
-      hi = y;
-      hiA = a;
-    }
-  }
-  const pna = loA === hiA ? 0.5 * (lo + hi) : lo + ((loA - half) / (loA - hiA)) * (hi - lo);
-  let Z = 0;
-  for (let i = 0; i < m; i += PLATE_STRIDE) {
-    const b = p[i],
-      h = p[i + 1],
-      bot = p[i + 3],
-      top = bot + h;
-    if (pna <= bot) Z += b * h * (bot + 0.5 * h - pna);
-    else if (pna >= top) Z += b * h * (pna - bot - 0.5 * h);
-    else Z += (0.5 * b * ((pna - bot) * (pna - bot) + (top - pna) * (top - pna)));
-  }
-  return Z;
 }
 
 // ------------------------------------------------------------------ general path
