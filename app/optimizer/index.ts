@@ -5,3 +5,4 @@ export * from "./geometry";
 export * from "./schema";
 export * from "./properties";
 export { findInputViolation, type Violation } from "./validate";
+export * from "./stress";
