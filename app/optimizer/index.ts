@@ -6,3 +6,8 @@ export * from "./schema";
 export * from "./properties";
 export { findInputViolation, type Violation } from "./validate";
 export * from "./stress";
+export * from "./search-schema";
+export { searchSections } from "./search";
+export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
+export { bruteForceSearch } from "./brute-force";
+export { candidateChecks, type CheckResult, type CandidateVerdict } from "./checks";

@@ -1,0 +1,177 @@
+// What the brute-force reference and the fast search share: the grid a problem defines
+// (engine contract, SearchProblem "The grid"), the options, and how raw candidates become
+// the contract's SearchResult.
+import { candidateChecks, makeCheckContext, type CheckContext, type CheckResult } from "./checks";
+import { FAMILY_KERNELS, N_CHECKS, dimsObject, type FamilyKernel } from "./family-kernel";
+import { Front, compareAcross, type RawCandidate } from "./front";
+import type { Family } from "./geometry";
+import { sectionProperties, type SectionProperties } from "./properties";
+import { CHECK_NAMES, gridValues, type CheckName, type SearchProblem } from "./search-schema";
+
+export interface SearchOptions {
+  onProgress?: (done: number, total: number) => void;
+  /** Checked every few thousand evaluations; an aborted search throws the signal's reason (an AbortError DOMException by default). */
+  signal?: AbortSignal;
+  /**
+   * Fast search only: evaluate the whole grid (the brute-force reference), so `front` and
+   * `counts.feasible` are over every feasible candidate. `best` is the same either way.
+   */
+  exhaustive?: boolean;
+  /** Search only depth-grid indices in [from, to) (used to split a search across threads). */
+  depthIndexRange?: [number, number];
+}
+
+export interface SearchCandidate {
+  family: Family;
+  dimensions: Record<string, number>;
+  area: number;
+  massPerMetre: number;
+  /** per metre, in the stock list's currency; present when objective is "cost" */
+  cost?: number;
+  utilisation: number;
+  governing: CheckName;
+  checks: CheckResult[];
+  properties: SectionProperties;
+}
+
+export interface SearchResult {
+  best: SearchCandidate | null;
+  reason?: string;
+  bestByFamily: Partial<Record<Family, SearchCandidate | null>>;
+  front: SearchCandidate[];
+  counts: { grid: number; evaluated: number; feasible: number };
+}
+
+export interface PreparedFamily {
+  fi: number;
+  fk: FamilyKernel;
+  /** grid values for each dimension, table order */
+  axes: Float64Array[];
+}
+
+export interface Prepared {
+  problem: SearchProblem;
+  ctx: CheckContext;
+  depths: Float64Array;
+  widths: Float64Array;
+  /** stock thicknesses, ascending, duplicates dropped (a duplicate would count shapes twice) */
+  thicknesses: Float64Array;
+  families: PreparedFamily[];
+}
+
+export function prepare(problem: SearchProblem, depthIndexRange?: [number, number]): Prepared {
+  let depths = gridValues(problem.depth);
+  if (depthIndexRange) depths = depths.slice(Math.max(0, depthIndexRange[0]), Math.min(depths.length, depthIndexRange[1]));
+  const widths = gridValues(problem.width);
+  const thicknesses = Float64Array.from([...new Set(problem.thicknesses)].sort((a, b) => a - b));
+  const families = problem.families.map((f, fi) => {
+    const fk = FAMILY_KERNELS[f];
+    return { fi, fk, axes: fk.roles.map((r) => (r === "depth" ? depths : r === "width" ? widths : thicknesses)) };
+  });
+  return { problem, ctx: makeCheckContext(problem), depths, widths, thicknesses, families };
+}
+
+export function copyCandidate(c: RawCandidate): RawCandidate {
+  return { ...c, v: Float64Array.from(c.v) };
+}
+
+/** Bookkeeping both searches fill in the same way. */
+export class Tally {
+  evaluated = 0;
+  feasible = 0;
+  grid = 0;
+  /** candidates ruled out, by the check that ruled them out (for `reason`) */
+  ruledOut = new Float64Array(N_CHECKS);
+  bestByFamily: (RawCandidate | null)[];
+  front = new Front();
+  constructor(nFamilies: number) {
+    this.bestByFamily = new Array(nFamilies).fill(null);
+  }
+}
+
+function toOutput(p: Prepared, c: RawCandidate): SearchCandidate {
+  const family = c.fk.family;
+  const dimensions = dimsObject(c.fk, c.v);
+  const verdict = candidateChecks(family, dimensions, p.problem);
+  const properties = sectionProperties({ family, ...dimensions, density: p.problem.density } as Parameters<typeof sectionProperties>[0]);
+  const out: SearchCandidate = {
+    family,
+    dimensions,
+    area: c.area,
+    massPerMetre: c.area * p.problem.density * 1e-6,
+    utilisation: c.utilisation,
+    governing: CHECK_NAMES[c.governing],
+    checks: verdict.checks,
+    properties,
+  };
+  if (p.ctx.cost) out.cost = c.objective;
+  return out;
+}
+
+const CHECK_WORDS: Record<CheckName, string> = {
+  "bending-compression": "the compressive bending stress exceeds allowable.compression",
+  "bending-tension": "the tensile bending stress exceeds allowable.tension",
+  shear: "the shear stress exceeds allowable.shear",
+  "slenderness-outstand": "a flange outstand (or angle leg) is more slender than slenderness.outstand",
+  "slenderness-internal": "an internal plate is more slender than slenderness.internal",
+  "slenderness-web": "the web is more slender than slenderness.web",
+  "slenderness-stem": "the stem (or leg) is more slender than slenderness.stem",
+  deflection: "the deflection exceeds span / deflection.limitRatio",
+};
+
+const CHECK_HINTS: Record<CheckName, string> = {
+  "bending-compression": "allow deeper or wider sections, thicker plates, or a higher allowable stress",
+  "bending-tension": "allow deeper or wider sections, thicker plates, or a higher allowable stress",
+  shear: "allow thicker webs, deeper sections, or a higher allowable shear stress",
+  "slenderness-outstand": "allow thicker flanges or narrower widths, or relax the outstand limit",
+  "slenderness-internal": "allow thicker plates or narrower widths, or relax the internal limit",
+  "slenderness-web": "allow thicker webs or shallower depths, or relax the web limit",
+  "slenderness-stem": "allow thicker stems or shallower depths, or relax the stem limit",
+  deflection: "allow deeper sections or relax the deflection limit",
+};
+
+function reasonText(p: Prepared, t: Tally): string {
+  if (t.grid === 0)
+    return "No shape in the grid has valid geometry: every combination of depth, width and thickness leaves a plate with no clear length (e.g. depth not above twice the flange thickness). Widen the depth or width range or list thinner plates.";
+  let g = 0;
+  for (let c = 1; c < N_CHECKS; c++) if (t.ruledOut[c] > t.ruledOut[g]) g = c;
+  const name = CHECK_NAMES[g];
+  const share = t.grid > 0 ? Math.min(1, t.ruledOut[g] / t.grid) : 0;
+  const pct = share >= 0.9995 ? "every one" : `${(share * 100).toFixed(1)}%`;
+  return `No candidate passes every check. The ${name} limit rules out ${pct} of the ${t.grid.toLocaleString("en")} shapes in the grid: ${CHECK_WORDS[name]}. To find a section, ${CHECK_HINTS[name]}.`;
+}
+
+export function buildResult(p: Prepared, t: Tally): SearchResult {
+  let best: RawCandidate | null = null;
+  for (const c of t.bestByFamily) if (c && (!best || compareAcross(c, best) < 0)) best = c;
+  const bestByFamily: Partial<Record<Family, SearchCandidate | null>> = {};
+  p.families.forEach((pf, i) => {
+    const c = t.bestByFamily[i];
+    bestByFamily[pf.fk.family] = c ? toOutput(p, c) : null;
+  });
+  const front = [...t.front.items]
+    .sort((a, b) => a.objective - b.objective || a.utilisation - b.utilisation || compareAcross(a, b))
+    .map((c) => toOutput(p, c));
+  const res: SearchResult = {
+    best: best ? bestByFamily[best.fk.family]! : null,
+    bestByFamily,
+    front,
+    counts: { grid: t.grid, evaluated: t.evaluated, feasible: t.feasible },
+  };
+  if (!best) res.reason = reasonText(p, t);
+  return res;
+}
+
+/** Offers a feasible candidate to the family best and the front (copies only what it keeps). */
+export function offerFeasible(t: Tally, c: RawCandidate): void {
+  t.feasible++;
+  const cur = t.bestByFamily[c.fi];
+  if (!cur || compareAcross(c, cur) < 0) t.bestByFamily[c.fi] = copyCandidate(c);
+  t.front.offer(c, copyCandidate);
+}
+
+export const ABORT_EVERY = 4096;
+
+export function checkAbort(signal: AbortSignal | undefined): void {
+  if (signal?.aborted) signal.throwIfAborted();
+}

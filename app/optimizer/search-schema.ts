@@ -1,0 +1,197 @@
+// The SearchProblem schema (engine contract, `SearchProblem`) plus the issue's extensions
+// (deflection check, cost objective). Single source of truth for the brief form, the API
+// routes, the queue and the search itself. Units as the contract: mm, kN·m, kN, MPa, kg/m³;
+// the deflection span is in m and its load in kN/m (the way beam tables state them).
+import { z } from "zod";
+import { FAMILIES, FAMILY_DIMENSIONS, type Family } from "./geometry";
+import { DEFAULT_DENSITY } from "./schema";
+
+/**
+ * Largest grid one request may define, counted as the plain product of the axes per family
+ * (before the geometry rules drop invalid shapes), summed over the families.
+ *
+ * Why 1e11 and not something like 5e7: the exact search never walks the grid (it bounds
+ * whole rows of it), so its run time follows how many shapes come near the optimum, not the
+ * grid size; a mono-i grid at 1 mm steps (≈ 5e10) is an intended use. The cap stops requests
+ * whose axes alone would be absurd. Brute force (the test/benchmark reference) has its own,
+ * much smaller cap, BRUTE_FORCE_MAX_GRID in brute-force.ts.
+ */
+export const MAX_GRID_CANDIDATES = 1e11;
+/** At most this many values per axis (depth or width), so the grid arrays stay small. */
+export const MAX_AXIS_VALUES = 100_000;
+/** At most this many distinct plate thicknesses in the stock list. */
+export const MAX_THICKNESSES = 100;
+
+// Values within this fraction of a step of `max` count as landing on `max` (floating point:
+// 0.1 + 2·0.1 > 0.3). The value itself is still min + k·step, as the contract says.
+const GRID_EPS = 1e-9;
+
+const finite = (name: string) =>
+  z.number({ error: `${name} must be a number` }).refine(Number.isFinite, { message: `${name} must be a finite number` });
+const positive = (name: string) => finite(name).refine((x) => x > 0, { message: `${name} must be > 0` });
+const nonNegative = (name: string) => finite(name).refine((x) => x >= 0, { message: `${name} must be ≥ 0` });
+
+const axisSchema = (name: string) =>
+  z
+    .object({
+      min: positive(`${name}.min`),
+      max: positive(`${name}.max`),
+      step: positive(`${name}.step`),
+    })
+    .superRefine((a, ctx) => {
+      if (!(a.max >= a.min)) ctx.addIssue({ code: "custom", path: ["max"], message: `${name}.max must be ≥ ${name}.min` });
+      else if (axisCount(a) > MAX_AXIS_VALUES)
+        ctx.addIssue({
+          code: "custom",
+          path: ["step"],
+          message: `${name}: ${axisCount(a).toLocaleString("en")} values; at most ${MAX_AXIS_VALUES.toLocaleString("en")} per axis (raise ${name}.step)`,
+        });
+    });
+
+export const familySchema = z.enum(FAMILIES, { error: (iss) => `unknown family "${String(iss.input)}" (one of ${FAMILIES.join(", ")})` });
+
+export const CHECK_NAMES = [
+  "bending-compression",
+  "bending-tension",
+  "shear",
+  "slenderness-outstand",
+  "slenderness-internal",
+  "slenderness-web",
+  "slenderness-stem",
+  "deflection",
+] as const;
+export type CheckName = (typeof CHECK_NAMES)[number];
+
+export const searchProblemSchema = z
+  .object({
+    moment: z.object({
+      sagging: nonNegative("moment.sagging").default(0),
+      hogging: nonNegative("moment.hogging").default(0),
+    }),
+    shear: nonNegative("shear").optional(),
+    allowable: z.object({
+      tension: positive("allowable.tension"),
+      compression: positive("allowable.compression"),
+      shear: positive("allowable.shear").optional(),
+    }),
+    depth: axisSchema("depth"),
+    width: axisSchema("width"),
+    thicknesses: z
+      .array(positive("thicknesses[]"), { error: "thicknesses must be a list of numbers" })
+      .min(1, { message: "thicknesses must list at least one plate thickness" })
+      .max(MAX_THICKNESSES, { message: `thicknesses: at most ${MAX_THICKNESSES} values` }),
+    families: z
+      .array(familySchema, { error: "families must be a list of family names" })
+      .min(1, { message: "families must name at least one family" }),
+    slenderness: z
+      .object({
+        outstand: positive("slenderness.outstand").optional(),
+        internal: positive("slenderness.internal").optional(),
+        web: positive("slenderness.web").optional(),
+        stem: positive("slenderness.stem").optional(),
+      })
+      .optional(),
+    density: positive("density").default(DEFAULT_DENSITY),
+    /** Simply supported span under uniform service load: 5·w·L⁴/(384·E·I) ≤ L/limitRatio. */
+    deflection: z
+      .object({
+        span: positive("deflection.span"),
+        serviceLoad: nonNegative("deflection.serviceLoad"),
+        limitRatio: positive("deflection.limitRatio"),
+        E: positive("deflection.E"),
+      })
+      .optional(),
+    /** "mass" (the contract's least area) or "cost": Σ plate mass × price of that plate's thickness. */
+    objective: z.enum(["mass", "cost"], { error: 'objective must be "mass" or "cost"' }).default("mass"),
+    /** Stock-list prices per kg by plate thickness; needed for every thickness when objective is "cost". */
+    prices: z
+      .array(z.object({ thickness: positive("prices[].thickness"), pricePerKg: positive("prices[].pricePerKg") }))
+      .optional(),
+  })
+  .superRefine((p, ctx) => {
+    if (!(p.moment.sagging > 0 || p.moment.hogging > 0))
+      ctx.addIssue({ code: "custom", path: ["moment"], message: "moment: sagging or hogging must be > 0" });
+    if (p.shear !== undefined && p.shear > 0 && p.allowable.shear === undefined)
+      ctx.addIssue({ code: "custom", path: ["allowable", "shear"], message: "allowable.shear is required when shear is given" });
+    const seen = new Set<string>();
+    p.families.forEach((f, i) => {
+      if (seen.has(f)) ctx.addIssue({ code: "custom", path: ["families", i], message: `families lists "${f}" twice` });
+      seen.add(f);
+    });
+    if (p.objective === "cost") {
+      if (!p.prices || p.prices.length === 0)
+        ctx.addIssue({ code: "custom", path: ["prices"], message: 'prices are required when objective is "cost"' });
+      else
+        for (const t of p.thicknesses)
+          if (!p.prices.some((q) => q.thickness === t))
+            ctx.addIssue({ code: "custom", path: ["prices"], message: `prices: no price for thickness ${t}` });
+      if (p.families.includes("rectangle"))
+        ctx.addIssue({
+          code: "custom",
+          path: ["families"],
+          message: 'families: "rectangle" is not cut from stock plate, so it has no price; remove it or use objective "mass"',
+        });
+    }
+    const okAxes = p.depth.max >= p.depth.min && p.width.max >= p.width.min;
+    if (okAxes) {
+      const n = rawGridSize(p);
+      if (n > MAX_GRID_CANDIDATES)
+        ctx.addIssue({
+          code: "custom",
+          path: ["grid"],
+          message: `grid: ${n.toExponential(2)} candidates, over the maximum of ${MAX_GRID_CANDIDATES.toExponential(0)} per request (coarsen the steps or list fewer thicknesses or families)`,
+        });
+    }
+  });
+
+export type SearchProblemInput = z.input<typeof searchProblemSchema>;
+export type SearchProblem = z.output<typeof searchProblemSchema>;
+export interface GridAxis {
+  min: number;
+  max: number;
+  step: number;
+}
+
+/** Number of grid values min + k·step not exceeding max (see GRID_EPS). */
+export function axisCount(a: GridAxis): number {
+  if (!(a.max >= a.min) || !(a.step > 0)) return 0;
+  return Math.floor((a.max - a.min) / a.step + GRID_EPS) + 1;
+}
+
+/** The axis values, each computed as the product min + k·step (never by repeated addition). */
+export function gridValues(a: GridAxis): Float64Array {
+  const n = axisCount(a);
+  const out = new Float64Array(n);
+  for (let k = 0; k < n; k++) out[k] = a.min + k * a.step;
+  return out;
+}
+
+/** Which grid each dimension comes from (engine contract: d from depth, widths from width, the rest from thicknesses). */
+export type DimRole = "depth" | "width" | "thickness";
+export function dimRole(family: Family, dim: string): DimRole {
+  if (dim === "d") return "depth";
+  if (dim === "b" || dim === "bt" || dim === "bb") return "width";
+  return "thickness";
+}
+
+/** Plain product of the axes per family, summed: the figure MAX_GRID_CANDIDATES caps. */
+export function rawGridSize(p: Pick<SearchProblem, "depth" | "width" | "thicknesses" | "families">): number {
+  const nd = axisCount(p.depth),
+    nw = axisCount(p.width),
+    nt = new Set(p.thicknesses).size;
+  let total = 0;
+  for (const f of p.families) {
+    let n = 1;
+    for (const dim of FAMILY_DIMENSIONS[f]) {
+      const r = dimRole(f, dim);
+      n *= r === "depth" ? nd : r === "width" ? nw : nt;
+    }
+    total += n;
+  }
+  return total;
+}
+
+/** Parses or throws a zod error whose issues name the field (routes turn it into a 400). */
+export function parseSearchProblem(input: unknown): SearchProblem {
+  return searchProblemSchema.parse(input);
+}
