@@ -11,3 +11,4 @@ export { searchSections } from "./search";
 export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 export { bruteForceSearch } from "./brute-force";
 export { candidateChecks, type CheckResult, type CandidateVerdict } from "./checks";
+export * from "./units";
