@@ -31,7 +31,7 @@ import { EngineInputError } from "./errors";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
 import { buildShape, shapeAbove, shapeBBox, shapeIntegrals, shapeWidth, transposeShape, type Ring, type Shape } from "./shape";
-import { findInputViolation, pathText } from "./validate";
+import { findInputViolation, pathText, platesOverlapAt } from "./validate";
 
 export type Jmethod = "open-thin-walled" | "closed-bredt" | "polygon-approximate";
 
@@ -118,7 +118,11 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     const a = i * PLATE_STRIDE;
     for (let j = 0; j < i; j++) {
       const c = j * PLATE_STRIDE;
-      if (buf[a + 2] < buf[c + 2] + buf[c] && buf[c + 2] < buf[a + 2] + buf[a] && buf[a + 3] < buf[c + 3] + buf[c + 1] && buf[c + 3] < buf[a + 3] + buf[a + 1]) {
+      // cheap strict test first; the slack-aware one (validate.ts) only for candidates
+      if (
+        buf[a + 2] < buf[c + 2] + buf[c] && buf[c + 2] < buf[a + 2] + buf[a] && buf[a + 3] < buf[c + 3] + buf[c + 1] && buf[c + 3] < buf[a + 3] + buf[a + 1] &&
+        platesOverlapAt(buf[a + 2], buf[a + 3], buf[a], buf[a + 1], buf[c + 2], buf[c + 3], buf[c], buf[c + 1])
+      ) {
         ok = false;
         break;
       }

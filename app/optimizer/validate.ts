@@ -18,14 +18,30 @@ const bad = (path: (string | number)[], message: string): Violation => ({ path, 
 
 type PlateLike = { b: number; h: number; z: number; y: number };
 
-/** Plates may touch; interiors may not overlap. The message names both plates. */
+/**
+ * Plates may touch; interiors may not overlap. "Touching" allows a relative slack of 1e-9:
+ * decimal inputs do not add up exactly (a plate at y = 0.1 with h = 0.2 ends at
+ * 0.30000000000000004, above a plate starting at 0.3), and that is not an overlap anyone meant.
+ */
+export const TOUCH_SLACK = 1e-9;
+
+export function platesOverlapAt(
+  az: number, ay: number, ab: number, ah: number,
+  bz: number, by: number, bb: number, bh: number,
+): boolean {
+  const oz = Math.min(az + ab, bz + bb) - Math.max(az, bz);
+  if (!(oz > TOUCH_SLACK * (Math.abs(az) + Math.abs(bz) + ab + bb))) return false;
+  const oy = Math.min(ay + ah, by + bh) - Math.max(ay, by);
+  return oy > TOUCH_SLACK * (Math.abs(ay) + Math.abs(by) + ah + bh);
+}
+
+/** The first overlapping pair; the message names both plates. */
 export function platesOverlap(plates: readonly PlateLike[]): Violation | null {
   for (let i = 1; i < plates.length; i++) {
     const p = plates[i];
     for (let j = 0; j < i; j++) {
       const q = plates[j];
-      if (p.z < q.z + q.b && q.z < p.z + p.b && p.y < q.y + q.h && q.y < p.y + p.h)
-        return bad(["plates", i], `plates[${i}] overlaps plates[${j}]`);
+      if (platesOverlapAt(p.z, p.y, p.b, p.h, q.z, q.y, q.b, q.h)) return bad(["plates", i], `plates[${i}] overlaps plates[${j}]`);
     }
   }
   return null;

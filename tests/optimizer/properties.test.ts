@@ -231,6 +231,9 @@ describe("bad input throws EngineInputError naming the field", () => {
     expect((err as EngineInputError).field).toBe(field);
     expect((err as EngineInputError).message).toBe(message);
   });
+  it("plates touching up to decimal rounding (0.1 + 0.2 ≠ 0.3) are not an overlap", () => {
+    expect(sectionProperties({ plates: [{ b: 1, h: 0.2, z: 0, y: 0.1 }, { b: 1, h: 1, z: 0, y: 0.3 }] }).area).toBeCloseTo(1.2, 14);
+  });
   it("touching plates are fine", () => {
     expect(sectionProperties({ plates: [{ b: 10, h: 10, z: 0, y: 0 }, { b: 10, h: 10, z: 10, y: 0 }] }).area).toBe(200);
   });

@@ -52,7 +52,7 @@ describe("section input and properties at the edge", () => {
   it("family and polygon inputs convert every length; flip and family are kept", () => {
     const f = sectionInputToSI({ family: "i", d: 10, b: 5, tf: 0.5, tw: 0.25, r: 0.3, flip: true }, "us");
     const want = { d: 254, b: 127, tf: 12.7, tw: 6.35, r: 7.62 };
-    for (const [k, v] of Object.entries(want)) expect((f as Record<string, number>)[k]).toBeCloseTo(v, 12);
+    for (const [k, v] of Object.entries(want)) expect((f as unknown as Record<string, number>)[k]).toBeCloseTo(v, 12);
     expect(f.family).toBe("i");
     expect(f.flip).toBe(true);
     const g = sectionInputToSI({ polygons: [{ points: [[0, 0], [1, 0], [0, 1]], hole: false }] }, "us");
