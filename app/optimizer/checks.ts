@@ -3,18 +3,15 @@
 // search and the calculation record all call evaluateCandidate, so their verdicts cannot drift.
 // Each check is demand vs capacity; utilisation = demand/capacity; a check passes when
 // demand ≤ capacity (compared directly, not through the rounded ratio).
-import { compositeKernel, maxShearFactor, KERNEL_OUT, K_AREA, K_CY, K_CZ, K_IY, K_IYZ, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } from "./composite";
+import * as composite from "./composite";
 import type { Family } from "./geometry";
-import {
-  C_COMP,
-  C_DEFL,
-  C_SHEAR,
-  C_TENS,
-  FAMILY_KERNELS,
-  N_CHECKS,
-  type FamilyKernel,
-} from "./family-kernel";
+import * as fkm from "./family-kernel";
+import type { FamilyKernel } from "./family-kernel";
 import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
+
+// Local copies of imported bindings (module transforms make each imported-name access a getter call).
+const { compositeKernel, maxShearFactor, KERNEL_OUT, K_AREA, K_CY, K_CZ, K_IY, K_IYZ, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
+const { C_COMP, C_DEFL, C_SHEAR, C_TENS, FAMILY_KERNELS, N_CHECKS } = fkm;
 
 export interface CheckContext {
   /** Design moments, N·mm (kN·m × 10⁶). */

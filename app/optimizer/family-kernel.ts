@@ -3,7 +3,7 @@
 // free width, the slenderness ratios, and which way the centroid moves as the free width grows.
 // The plate layout is geometry.ts's (familyPlates); tests/optimizer/search.test.ts checks the
 // two agree plate by plate, and that the validity rules here agree with familyRuleViolation.
-import { PLATE_STRIDE } from "./composite";
+import * as composite from "./composite";
 import { FAMILY_DIMENSIONS, type Family } from "./geometry";
 import { dimRole, type DimRole } from "./search-schema";
 
@@ -53,6 +53,9 @@ export interface FamilyKernel {
   /** Dimension indices in tie-break order: depth, then widths, then thicknesses, each in table order. */
   tieOrder: readonly number[];
 }
+
+// local copy: module transforms make each imported-name access a getter call
+const PLATE_STRIDE = composite.PLATE_STRIDE;
 
 function put(p: Float64Array, i: number, b: number, h: number, z: number, y: number): void {
   const k = i * PLATE_STRIDE;

@@ -48,19 +48,28 @@
 // per-candidate fraction). Abort: the signal is checked every 4096 heap steps; an aborted
 // search throws the signal's reason (an AbortError DOMException unless the caller gave one).
 import { Scratch, evaluateCandidate, plateObjective, type CheckContext } from "./checks";
-import { compositeKernel, plateQAbove, plateWidthAt, K_CY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } from "./composite";
+import * as composite from "./composite";
 import { bruteForceSearch } from "./brute-force";
-import { C_COMP, C_DEFL, C_SHEAR, C_TENS, type FamilyKernel } from "./family-kernel";
+import * as fkm from "./family-kernel";
+import type { FamilyKernel } from "./family-kernel";
 import type { RawCandidate } from "./front";
 import { ABORT_EVERY, Tally, buildResult, checkAbort, offerFeasible, prepare, type PreparedFamily, type SearchOptions, type SearchResult } from "./grid";
 import { searchProblemSchema, type SearchProblemInput } from "./search-schema";
 
 export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 
+// Local copies of imported bindings: module transforms (tsx, vite-node) turn each access to an
+// imported name into a getter call, which costs more than the arithmetic in these loops.
+const { compositeKernel, plateQAbove, plateWidthAt, K_CY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
+const { C_COMP, C_DEFL, C_SHEAR, C_TENS } = fkm;
+const evaluate = evaluateCandidate,
+  objectiveOf = plateObjective;
+
 const REL = 1e-9;
 const KIND_READY = 0,
   KIND_RAW = 1,
-  KIND_SUPER = 2;
+  KIND_SUPER = 2,
+  KIND_SUPER_RAW = 3;
 
 /** Binary min-heap on typed arrays: key, row id, k (next free-width index), kHi, kind. */
 class Heap {
@@ -82,6 +91,16 @@ class Heap {
     this.k = g(this.k, Int32Array);
     this.hi = g(this.hi, Int32Array);
     this.kind = g(this.kind, Int8Array);
+  }
+  /** Appends without ordering (the seed list uses the same arrays as a plain buffer). */
+  append(key: number, id: number, k: number, hi: number, kind: number) {
+    if (this.size === this.key.length) this.grow();
+    const i = this.size++;
+    this.key[i] = key;
+    this.id[i] = id;
+    this.k[i] = k;
+    this.hi[i] = hi;
+    this.kind[i] = kind;
   }
   push(key: number, id: number, k: number, hi: number, kind: number) {
     if (this.size === this.key.length) this.grow();
@@ -179,6 +198,8 @@ class FamilySearch {
   readonly kout = new Float64Array(16);
   readonly scratch = new Scratch();
   readonly heap = new Heap();
+  /** every row (or mono-i super node) with its first, cheap key, before it enters the heap */
+  readonly seeds = new Heap();
   readonly groupDims: number[];
   readonly radix: number[];
   readonly sym: boolean;
@@ -228,7 +249,7 @@ class FamilySearch {
   objectiveAt(k: number): number {
     this.v[this.fk.free] = this.W[k];
     this.fk.fill(this.v, this.plates);
-    return plateObjective(this.fk, this.v, this.plates, this.ctx);
+    return objectiveOf(this.fk, this.v, this.plates, this.ctx);
   }
 
   /** Base I requirement from (2) and (3) for depth d (relaxed by REL later). */
@@ -320,17 +341,14 @@ class FamilySearch {
           cBot = cy - ko[K_MINY];
         const cTopLb = fk.centroidDir > 0 ? cTopHi : cTop;
         const cBotLb = fk.centroidDir > 0 ? cBot : cBotHi;
-        const terms = [
-          [(ctx.Ms * cTopLb) / ctx.aC, C_COMP],
-          [(ctx.Ms * cBotLb) / ctx.aT, C_TENS],
-          [(ctx.Mh * cTopLb) / ctx.aT, C_TENS],
-          [(ctx.Mh * cBotLb) / ctx.aC, C_COMP],
-        ];
-        for (const [r, c] of terms)
-          if (r > req) {
-            req = r;
-            cause = c;
-          }
+        const r1 = (ctx.Ms * cTopLb) / ctx.aC,
+          r2 = (ctx.Ms * cBotLb) / ctx.aT,
+          r3 = (ctx.Mh * cTopLb) / ctx.aT,
+          r4 = (ctx.Mh * cBotLb) / ctx.aC;
+        if (r1 > req) (req = r1), (cause = C_COMP);
+        if (r2 > req) (req = r2), (cause = C_TENS);
+        if (r3 > req) (req = r3), (cause = C_TENS);
+        if (r4 > req) (req = r4), (cause = C_COMP);
       }
       req *= 1 - REL;
       if (Iz >= req) break;
@@ -408,6 +426,42 @@ class FamilySearch {
     if (this.pf.axes.some((a) => a.length === 0)) return;
     if (fk.second >= 0) this.seedSupers();
     else this.seedRows();
+    // Phases, same answer as pushing every seed at once: first the seeds with the ~2000 least
+    // keys (cheap to order; they usually hold a good incumbent), then 4× more, and so on until
+    // an incumbent exists; then only the seeds that can still beat it. A seed above the
+    // incumbent could never be popped, so it never needs to enter the heap.
+    const sd = this.seeds,
+      n = sd.size;
+    const sample = new Float64Array(Math.min(n, 4096));
+    for (let i = 0; i < sample.length; i++) sample[i] = sd.key[Math.floor((i * n) / sample.length)];
+    sample.sort();
+    let lo = -Infinity;
+    for (let quota = 2000; ; quota *= 4) {
+      const q = Math.ceil((sample.length * quota) / n);
+      const thr = q >= sample.length ? Infinity : sample[q];
+      const hi = Math.min(thr, this.incumbent());
+      for (let i = 0; i < n; i++) {
+        const key = sd.key[i];
+        if (key > lo && key <= hi) this.heap.push(key, sd.id[i], sd.k[i], sd.hi[i], sd.kind[i]);
+      }
+      this.loop(signal);
+      lo = hi;
+      if (hi === Infinity || this.incumbent() <= lo) break;
+      if (this.incumbent() < Infinity) {
+        // an incumbent now exists: the rest can only matter up to it
+        const inc = this.incumbent();
+        for (let i = 0; i < n; i++) {
+          const key = sd.key[i];
+          if (key > lo && key <= inc) this.heap.push(key, sd.id[i], sd.k[i], sd.hi[i], sd.kind[i]);
+        }
+        this.loop(signal);
+        break;
+      }
+    }
+  }
+
+  private loop(signal: AbortSignal | undefined): void {
+    const fk = this.fk;
     const h = this.heap;
     let steps = 0;
     while (h.size > 0) {
@@ -418,6 +472,11 @@ class FamilySearch {
         k = h.outK,
         kHi = h.outHi;
       this.decode(id);
+      if (h.outKind === KIND_SUPER_RAW) {
+        const bound = this.superBound(id);
+        if (bound !== null && bound <= this.incumbent()) h.push(bound, id, 0, 0, KIND_SUPER);
+        continue;
+      }
       if (h.outKind === KIND_SUPER) {
         this.expandSuper(id);
         continue;
@@ -430,7 +489,7 @@ class FamilySearch {
       this.v[fk.free] = this.W[k];
       this.t.evaluated++;
       const s = this.scratch;
-      if (evaluateCandidate(fk, this.v, this.ctx, s, false)) {
+      if (evaluate(fk, this.v, this.ctx, s, false)) {
         const c = this.cand;
         c.objective = s.objective;
         c.area = s.area;
@@ -446,7 +505,42 @@ class FamilySearch {
     // Rows left in the heap are pruned by the incumbent, which exists whenever anything was left.
   }
 
-  /** Every valid row: counts the grid and seeds the heap with a cheap key (the row's least objective). */
+  /**
+   * A row's first key, by (4) with y0 at mid-depth: I_mid is affine in the free width and
+   * Iz ≤ I_mid, so the row needs at least the width where I_mid reaches the base requirement;
+   * the objective (also affine) there is a lower bound. NaN when no width in the row can reach
+   * it (the row is then ruled out by bending or deflection). Exact for shapes symmetric about z.
+   */
+  rowRawKey(kLo: number, kHi: number): number {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      p = this.plates,
+      n = fk.nPlates,
+      f = fk.free;
+    const d = this.depthOf();
+    const req = this.baseIreq(d) * (1 - REL);
+    v[f] = W[kLo];
+    fk.fill(v, p);
+    const i0 = iAbout(p, n, d / 2),
+      o0 = objectiveOf(fk, v, p, this.ctx);
+    if (i0 >= req) return o0;
+    if (kHi === kLo) return this.deadRaw(kLo, kHi);
+    v[f] = W[kHi];
+    fk.fill(v, p);
+    const i1 = iAbout(p, n, d / 2),
+      o1 = objectiveOf(fk, v, p, this.ctx);
+    if (i1 < req) return this.deadRaw(kLo, kHi);
+    const x = (req - i0) / (i1 - i0);
+    return (o0 + (o1 - o0) * x) * (1 - REL);
+  }
+
+  private deadRaw(kLo: number, kHi: number): number {
+    this.t.ruledOut[this.Idefl > this.baseIreq(this.depthOf()) * 0.999999 ? C_DEFL : this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP] += kHi - kLo + 1;
+    return NaN;
+  }
+
+  /** Every valid row: counts the grid and seeds it with a cheap key. */
   seedRows(): void {
     const fk = this.fk,
       gd = this.groupDims,
@@ -462,7 +556,10 @@ class FamilySearch {
         if (kLo < W.length) {
           this.t.grid += W.length - kLo;
           const kHi = this.rowHi(kLo);
-          if (kHi >= 0) this.heap.push(this.objectiveAt(kLo), id, kLo, kHi, KIND_RAW);
+          if (kHi >= 0) {
+            const key = this.rowRawKey(kLo, kHi);
+            if (key === key) this.seeds.append(key, id, kLo, kHi, KIND_RAW);
+          }
         }
       }
       id++;
@@ -527,9 +624,7 @@ class FamilySearch {
         const nBb = W.length - kLo;
         if (nBt > 0 && nBb > 0) {
           this.t.grid += nBt * nBb;
-          const id = this.encode(idx);
-          const bound = this.superBound(id);
-          if (bound !== null) this.heap.push(bound, id, 0, 0, KIND_SUPER);
+          this.seeds.append(this.superRawKey(W[W.length - nBt], W[kLo]), this.encode(idx), 0, 0, KIND_SUPER_RAW);
         }
       }
       let o = outer.length - 1;
@@ -546,6 +641,38 @@ class FamilySearch {
       }
       if (o < 0) break;
     }
+  }
+
+  /**
+   * Cheap first key of a mono-i super node (d, tft, tfb, tw), no plates: every point of the
+   * section lies within d/2 of mid-depth and the web's I about mid-depth is at most tw·d³/12
+   * (its I grows with its height, at most d), so I_mid ≤ A_flanges·d²/4 + tw·d³/12; with
+   * Iz ≤ I_mid, (4), the flanges need A_f ≥ 4·(I_req − tw·d³/12)/d² (the thin-flange relation
+   * A_f ≈ M/(σ·d) − A_web/6 read as a bound). Objective = that flange area at its cheapest
+   * price plus the web.
+   */
+  superRawKey(btLo: number, bbLo: number): number {
+    const v = this.v,
+      ctx = this.ctx;
+    const d = v[0],
+      tft = v[2],
+      tfb = v[4],
+      tw = v[5];
+    const req = this.baseIreq(d);
+    const afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
+    const at0 = btLo * tft,
+      ab0 = bbLo * tfb,
+      aw = tw * (d - tft - tfb);
+    let key: number;
+    if (!ctx.cost) key = Math.max(afNeed, at0 + ab0) + aw;
+    else {
+      const pt = ctx.prices.get(tft)!,
+        pb = ctx.prices.get(tfb)!,
+        pw = ctx.prices.get(tw)!;
+      const extra = Math.max(0, afNeed - at0 - ab0);
+      key = (pt * at0 + pb * ab0 + extra * Math.min(pt, pb) + pw * aw) * ctx.density * 1e-6;
+    }
+    return key * (1 - REL);
   }
 
   encode(idx: Int32Array): number {
@@ -594,33 +721,32 @@ class FamilySearch {
       v[f] = bb0;
       fk.fill(v, p);
       const i00 = iAbout(p, n, y0),
-        o00 = plateObjective(fk, v, p, this.ctx);
+        o00 = objectiveOf(fk, v, p, this.ctx);
       v[sec] = bt1;
       fk.fill(v, p);
       const it = bt1 > bt0 ? (iAbout(p, n, y0) - i00) / (bt1 - bt0) : 0,
-        ot = bt1 > bt0 ? (plateObjective(fk, v, p, this.ctx) - o00) / (bt1 - bt0) : 0;
+        ot = bt1 > bt0 ? (objectiveOf(fk, v, p, this.ctx) - o00) / (bt1 - bt0) : 0;
       v[sec] = bt0;
       v[f] = bb1;
       fk.fill(v, p);
       const ib = bb1 > bb0 ? (iAbout(p, n, y0) - i00) / (bb1 - bb0) : 0,
-        ob = bb1 > bb0 ? (plateObjective(fk, v, p, this.ctx) - o00) / (bb1 - bb0) : 0;
+        ob = bb1 > bb0 ? (objectiveOf(fk, v, p, this.ctx) - o00) / (bb1 - bb0) : 0;
       // fractional knapsack: cheapest I per unit objective first
       let deficit = req - i00;
       let bt = bt0,
         bb = bb0,
         obj = o00;
       if (deficit > 0) {
-        const order: [number, number, number, number][] = [
-          [it, ot, bt1 - bt0, 0],
-          [ib, ob, bb1 - bb0, 1],
-        ];
-        order.sort((a, b) => (b[0] > 0 ? b[0] / b[1] : 0) - (a[0] > 0 ? a[0] / a[1] : 0));
-        for (const [di, dobj, room, which] of order) {
-          if (deficit <= 0 || di <= 0) continue;
-          const x = Math.min(room, deficit / di);
+        // take the width with more I per unit objective first (both objective slopes are > 0)
+        const topFirst = (it > 0 ? it / ot : 0) >= (ib > 0 ? ib / ob : 0);
+        for (let pass = 0; pass < 2; pass++) {
+          const top = (pass === 0) === topFirst;
+          const di = top ? it : ib;
+          if (deficit <= 0 || !(di > 0)) continue;
+          const x = Math.min(top ? bt1 - bt0 : bb1 - bb0, deficit / di);
           deficit -= x * di;
-          obj += x * dobj;
-          if (which === 0) bt += x;
+          obj += x * (top ? ot : ob);
+          if (top) bt += x;
           else bb += x;
         }
         if (deficit > REL * req) {
