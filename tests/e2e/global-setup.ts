@@ -1,0 +1,50 @@
+import { execFileSync, spawn, type ChildProcess } from "node:child_process";
+import type { TestProject } from "vitest/node";
+
+// The browser suite runs the production build against a fresh seeded database of its own.
+let server: ChildProcess | undefined;
+
+export default async function setup(project: TestProject) {
+  const name = process.env.E2E_DB_NAME ?? "sparwise_e2e";
+  const port = Number(process.env.E2E_PORT ?? 3100);
+  execFileSync("bash", ["db/start.sh"], { stdio: "inherit" });
+  execFileSync("bash", ["db/create-database.sh", name, "--fresh"], { stdio: "inherit" });
+  // Migrations are TypeScript: run them under tsx, not in this process.
+  execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { stdio: "inherit", env: { ...process.env, DB_NAME: name } });
+  server = spawn("npx", ["react-router-serve", "./build/server/index.js"], {
+    env: { ...process.env, DB_NAME: name, PORT: String(port), NODE_ENV: "production" },
+    stdio: ["ignore", "inherit", "inherit"],
+    detached: true,
+  });
+  const base = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    try {
+      const res = await fetch(`${base}/healthz`);
+      if (res.ok) break;
+    } catch {
+      // not up yet
+    }
+    if (Date.now() > deadline) {
+      if (server.pid) process.kill(-server.pid, "SIGTERM");
+      throw new Error("the app server did not start for the browser tests");
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  project.provide("baseUrl", base);
+  return async () => {
+    if (server?.pid) {
+      try {
+        process.kill(-server.pid, "SIGTERM");
+      } catch {
+        // already gone
+      }
+    }
+  };
+}
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}

@@ -1,0 +1,43 @@
+import { defineConfig } from "vitest/config";
+import { fileURLToPath } from "node:url";
+
+// Kept apart from vite.config.ts so the React Router plugin is not loaded in tests.
+const alias = { "~": fileURLToPath(new URL("./app", import.meta.url)) };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "unit", include: ["tests/optimizer/**/*.test.ts", "tests/unit/**/*.test.ts"], environment: "node" },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          // One MariaDB database is shared by the integration files: run them one at a time.
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          globalSetup: ["tests/integration/global-setup.ts"],
+          env: { DB_NAME: process.env.TEST_DB_NAME ?? "sparwise_test" },
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          globalSetup: ["tests/e2e/global-setup.ts"],
+        },
+      },
+    ],
+  },
+});
