@@ -25,6 +25,9 @@ export const UNITS = {
   stress: { si: "MPa", us: "ksi", factor: KIP / (IN * IN) }, // N/mm²
   massPerLength: { si: "kg/m", us: "lb/ft", factor: LB / (FT / 1000) },
   density: { si: "kg/m³", us: "lb/ft³", factor: LB / (FT / 1000) ** 3 },
+  // Spans and uniform line loads as briefs state them (the deflection check takes m and kN/m).
+  span: { si: "m", us: "ft", factor: FT / 1000 },
+  lineLoad: { si: "kN/m", us: "kip/ft", factor: KIP / 1e3 / (FT / 1000) },
   angle: { si: "°", us: "°", factor: 1 },
 } as const;
 
