@@ -1,0 +1,248 @@
+// The brief editor's form ↔ the engine's SearchProblem. The form's field names are the
+// SearchProblem's own dotted paths ("depth.max", "allowable.shear", …), so every issue the
+// engine's schema raises lands on the field that caused it; the form schema only converts
+// units at the edge (units.ts) and turns text into numbers. The rules themselves live in
+// searchProblemSchema and are not repeated here.
+import { z } from "zod";
+import { FAMILIES, type Family } from "~/optimizer/geometry";
+import { searchProblemSchema, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
+import { fromSI, toSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+
+/** Which quantity each numeric field holds (for conversion and for the unit shown beside it). */
+export const FIELD_QUANTITIES = {
+  "moment.sagging": "moment",
+  "moment.hogging": "moment",
+  shear: "force",
+  "allowable.tension": "stress",
+  "allowable.compression": "stress",
+  "allowable.shear": "stress",
+  "depth.min": "length",
+  "depth.max": "length",
+  "depth.step": "length",
+  "width.min": "length",
+  "width.max": "length",
+  "width.step": "length",
+  density: "density",
+  "deflection.span": "span",
+  "deflection.serviceLoad": "lineLoad",
+  "deflection.E": "stress",
+  memberLength: "span",
+} as const satisfies Record<string, Quantity>;
+export type NumericField = keyof typeof FIELD_QUANTITIES;
+
+export const SLENDERNESS_KEYS = ["outstand", "internal", "web", "stem"] as const;
+
+export function fieldUnit(field: NumericField | "thicknesses", units: UnitSystem): string {
+  return unitLabel(field === "thicknesses" ? "length" : FIELD_QUANTITIES[field], units);
+}
+
+const num = (name: string) => z.number({ error: `${name} must be a number` }).optional();
+
+/**
+ * Thicknesses are typed as a list ("6, 8, 10"). Each entry must be a number; the engine's
+ * schema then applies its own rules (positive, at most 100, at least one).
+ */
+export function parseThicknessList(text: string): { values: number[]; error?: string } {
+  const parts = text
+    .split(/[\s,;]+/)
+    .map((s) => s.trim())
+    .filter(Boolean);
+  const values: number[] = [];
+  for (const [i, p] of parts.entries()) {
+    const x = Number(p);
+    if (!Number.isFinite(x)) return { values, error: `thicknesses: entry ${i + 1} ("${p.slice(0, 20)}") is not a number` };
+    values.push(x);
+  }
+  return { values };
+}
+
+const formFields = z.object({
+  name: z
+    .string({ error: "name is required" })
+    .trim()
+    .min(1, "name is required")
+    .max(160, "name: at most 160 characters"),
+  units: z.enum(["si", "us"], { error: 'units must be "si" or "us"' }).default("si"),
+  material: z.string().max(80).optional(),
+  stockListId: z.number().int().positive().optional(),
+  memberLength: num("memberLength"),
+  memberCount: z.number({ error: "memberCount must be a whole number" }).int("memberCount must be a whole number").min(1, "memberCount must be ≥ 1").max(100000, "memberCount: at most 100000").optional(),
+  moment: z.object({ sagging: num("moment.sagging"), hogging: num("moment.hogging") }).default({}),
+  shear: num("shear"),
+  allowable: z.object({ tension: num("allowable.tension"), compression: num("allowable.compression"), shear: num("allowable.shear") }).default({}),
+  depth: z.object({ min: num("depth.min"), max: num("depth.max"), step: num("depth.step") }).default({}),
+  width: z.object({ min: num("width.min"), max: num("width.max"), step: num("width.step") }).default({}),
+  thicknesses: z.string({ error: "thicknesses: list at least one plate thickness" }).max(2000, "thicknesses: list too long"),
+  families: z.array(z.string(), { error: "families must name at least one family" }).default([]),
+  slenderness: z.object({ outstand: num("slenderness.outstand"), internal: num("slenderness.internal"), web: num("slenderness.web"), stem: num("slenderness.stem") }).default({}),
+  density: num("density"),
+  deflection: z
+    .object({ span: num("deflection.span"), serviceLoad: num("deflection.serviceLoad"), limitRatio: num("deflection.limitRatio"), E: num("deflection.E") })
+    .default({}),
+});
+export type BriefFormValues = z.output<typeof formFields>;
+
+export interface BriefMeta {
+  name: string;
+  units: UnitSystem;
+  material?: string;
+  stockListId?: number;
+  /** SI (m), as the briefs table stores it */
+  memberLengthM?: number;
+  memberCount?: number;
+}
+
+/** Form values (in the chosen units) → a SearchProblem input in SI, not yet validated. */
+export function formToProblemInput(f: BriefFormValues): Record<string, unknown> {
+  const u = f.units;
+  const si = (field: NumericField, v: number | undefined) => (v === undefined ? undefined : toSI(FIELD_QUANTITIES[field], v, u));
+  const thick = parseThicknessList(f.thicknesses).values.map((t) => toSI("length", t, u));
+  const slenderness = Object.fromEntries(SLENDERNESS_KEYS.filter((k) => f.slenderness[k] !== undefined).map((k) => [k, f.slenderness[k]]));
+  const d = f.deflection;
+  const anyDeflection = d.span !== undefined || d.serviceLoad !== undefined || d.limitRatio !== undefined || d.E !== undefined;
+  const out: Record<string, unknown> = {
+    moment: { sagging: si("moment.sagging", f.moment.sagging) ?? 0, hogging: si("moment.hogging", f.moment.hogging) ?? 0 },
+    allowable: {
+      tension: si("allowable.tension", f.allowable.tension),
+      compression: si("allowable.compression", f.allowable.compression),
+      ...(f.allowable.shear !== undefined ? { shear: si("allowable.shear", f.allowable.shear) } : {}),
+    },
+    depth: { min: si("depth.min", f.depth.min), max: si("depth.max", f.depth.max), step: si("depth.step", f.depth.step) },
+    width: { min: si("width.min", f.width.min), max: si("width.max", f.width.max), step: si("width.step", f.width.step) },
+    thicknesses: thick,
+    families: f.families,
+  };
+  if (f.shear !== undefined) out.shear = si("shear", f.shear);
+  if (Object.keys(slenderness).length) out.slenderness = slenderness;
+  if (f.density !== undefined) out.density = si("density", f.density);
+  // A partly filled deflection block goes to the engine as given, so its schema names the missing field.
+  if (anyDeflection)
+    out.deflection = {
+      span: si("deflection.span", d.span),
+      serviceLoad: si("deflection.serviceLoad", d.serviceLoad),
+      limitRatio: d.limitRatio,
+      E: si("deflection.E", d.E),
+    };
+  return out;
+}
+
+/**
+ * The form schema: text → numbers (Conform coerces), then units → SI, then the engine's
+ * searchProblemSchema, whose issues are copied onto the same paths.
+ */
+export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta; problem: SearchProblem } => {
+  const t = parseThicknessList(f.thicknesses);
+  if (t.error) ctx.addIssue({ code: "custom", path: ["thicknesses"], message: t.error });
+  const r = searchProblemSchema.safeParse(formToProblemInput(f));
+  if (!r.success) {
+    for (const issue of r.error.issues) {
+      // Array items (thicknesses[3], families[1]) belong to the list's one field; the grid cap to the steps.
+      let path = issue.path.filter((p) => typeof p === "string") as string[];
+      if (path[0] === "grid") path = ["depth", "step"];
+      ctx.addIssue({ code: "custom", path, message: issue.message });
+    }
+    return z.NEVER;
+  }
+  if (t.error) return z.NEVER;
+  const meta: BriefMeta = { name: f.name, units: f.units };
+  if (f.material) meta.material = f.material;
+  if (f.stockListId) meta.stockListId = f.stockListId;
+  if (f.memberLength !== undefined) {
+    if (!(f.memberLength > 0)) {
+      ctx.addIssue({ code: "custom", path: ["memberLength"], message: "memberLength must be > 0" });
+      return z.NEVER;
+    }
+    meta.memberLengthM = toSI("span", f.memberLength, f.units);
+  }
+  if (f.memberCount !== undefined) meta.memberCount = f.memberCount;
+  return { meta, problem: r.data };
+});
+
+/** Rounds a converted value for display so 165 MPa shows as 23.9313 ksi, not 23.931326… */
+export function displayNumber(x: number): number {
+  if (!Number.isFinite(x) || x === 0) return x;
+  return Number(x.toPrecision(6));
+}
+
+/** A stored SI problem → the form's default values in `units` (for editing and rechecks). */
+export function problemToFormDefaults(problem: SearchProblem, meta: Partial<BriefMeta> & { units: UnitSystem }): Record<string, unknown> {
+  const u = meta.units;
+  const v = (field: NumericField, x: number | undefined) => (x === undefined ? undefined : displayNumber(fromSI(FIELD_QUANTITIES[field], x, u)));
+  const s = problem.slenderness ?? {};
+  const d = problem.deflection;
+  return {
+    name: meta.name ?? "",
+    units: u,
+    material: meta.material ?? "",
+    stockListId: meta.stockListId,
+    memberLength: meta.memberLengthM === undefined ? undefined : v("memberLength", meta.memberLengthM),
+    memberCount: meta.memberCount,
+    moment: { sagging: v("moment.sagging", problem.moment.sagging), hogging: v("moment.hogging", problem.moment.hogging) },
+    shear: v("shear", problem.shear),
+    allowable: {
+      tension: v("allowable.tension", problem.allowable.tension),
+      compression: v("allowable.compression", problem.allowable.compression),
+      shear: v("allowable.shear", problem.allowable.shear),
+    },
+    depth: { min: v("depth.min", problem.depth.min), max: v("depth.max", problem.depth.max), step: v("depth.step", problem.depth.step) },
+    width: { min: v("width.min", problem.width.min), max: v("width.max", problem.width.max), step: v("width.step", problem.width.step) },
+    thicknesses: problem.thicknesses.map((t) => displayNumber(fromSI("length", t, u))).join(", "),
+    families: [...problem.families],
+    slenderness: { outstand: s.outstand, internal: s.internal, web: s.web, stem: s.stem },
+    density: v("density", problem.density),
+    deflection: d
+      ? { span: v("deflection.span", d.span), serviceLoad: v("deflection.serviceLoad", d.serviceLoad), limitRatio: d.limitRatio, E: v("deflection.E", d.E) }
+      : {},
+  };
+}
+
+/**
+ * Sensible defaults for a new brief: the engine contract's example problem, asking for the
+ * lightest channel. The slenderness limits are the contract's example values (common practice
+ * order of magnitude, not a code's classification limits).
+ */
+export const DEFAULT_PROBLEM: SearchProblem = searchProblemSchema.parse({
+  moment: { sagging: 120, hogging: 0 },
+  shear: 80,
+  allowable: { tension: 165, compression: 165, shear: 100 },
+  depth: { min: 100, max: 400, step: 10 },
+  width: { min: 50, max: 300, step: 10 },
+  thicknesses: [6, 8, 10, 12, 15, 20, 25],
+  families: ["channel"],
+  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
+  density: 7850,
+});
+
+export const FAMILY_LABELS: Record<Family, string> = {
+  rectangle: "Rectangle (solid bar)",
+  i: "I (equal flanges)",
+  "mono-i": "Mono-symmetric I",
+  channel: "Channel",
+  "channel-down": "Channel, web on top",
+  tee: "Tee",
+  box: "Box",
+  angle: "Angle",
+};
+export const SEARCH_FAMILIES: readonly Family[] = FAMILIES;
+
+/** The grid size the preview shows (the engine's own count, before invalid geometry is dropped). */
+export function previewGridSize(problem: SearchProblem): number {
+  return rawGridSize(problem);
+}
+
+/** Problem paths whose values differ between two problems (for the recheck comparison). */
+export function changedLimits(a: SearchProblem, b: SearchProblem): { path: string; before: unknown; after: unknown }[] {
+  const flat = (p: SearchProblem) => {
+    const out: Record<string, unknown> = {};
+    const walk = (o: unknown, prefix: string) => {
+      if (o && typeof o === "object" && !Array.isArray(o)) for (const [k, x] of Object.entries(o)) walk(x, prefix ? `${prefix}.${k}` : k);
+      else out[prefix] = Array.isArray(o) ? o.join(", ") : o;
+    };
+    walk(p, "");
+    return out;
+  };
+  const fa = flat(a),
+    fb = flat(b);
+  const keys = [...new Set([...Object.keys(fa), ...Object.keys(fb)])].sort();
+  return keys.filter((k) => fa[k] !== fb[k]).map((k) => ({ path: k, before: fa[k], after: fb[k] }));
+}

@@ -1,0 +1,59 @@
+import { describe, expect, it } from "vitest";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { briefFormSchema, changedLimits, DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
+import { searchProblemSchema } from "~/optimizer/search-schema";
+
+function formData(values: Record<string, unknown>, prefix = ""): FormData {
+  const fd = new FormData();
+  const walk = (o: unknown, p: string) => {
+    if (Array.isArray(o)) for (const x of o) fd.append(p, String(x));
+    else if (o && typeof o === "object") for (const [k, v] of Object.entries(o)) walk(v, p ? `${p}.${k}` : k);
+    else if (o !== undefined) fd.append(p, String(o));
+  };
+  walk(values, prefix);
+  return fd;
+}
+
+describe("brief form ↔ SearchProblem", () => {
+  it("round-trips the default problem in SI", () => {
+    const fd = formData({ ...problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "Roof beam" }) });
+    const s = parseWithZod(fd, { schema: briefFormSchema });
+    expect(s.status).toBe("success");
+    if (s.status === "success") expect(s.value.problem).toEqual(DEFAULT_PROBLEM);
+  });
+  it("converts US customary at the edge (NIST SP 811 factors: 1 in = 25.4 mm, 1 ksi = 6.894757 MPa)", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "us", name: "B" }) as Record<string, any>;
+    d.depth = { min: 4, max: 16, step: 1 };
+    d.allowable = { tension: 24, compression: 24, shear: 14.5 };
+    const s = parseWithZod(formData(d), { schema: briefFormSchema });
+    expect(s.status).toBe("success");
+    if (s.status === "success") {
+      expect(s.value.problem.depth).toEqual({ min: 101.6, max: 406.4, step: 25.4 });
+      expect(s.value.problem.allowable.tension).toBeCloseTo(24 * 6.894757, 4);
+      expect(s.value.meta.units).toBe("us");
+    }
+  });
+  it("puts the engine's own messages on the field that broke the rule", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "B" }) as Record<string, any>;
+    d.depth = { min: 400, max: 100, step: 10 };
+    d.families = [];
+    const s = parseWithZod(formData(d), { schema: briefFormSchema });
+    expect(s.status).toBe("error");
+    expect(s.error?.["depth.max"]).toEqual(["depth.max must be ≥ depth.min"]);
+    expect(s.error?.families?.[0]).toMatch(/at least one family/);
+  });
+  it("names text in a number field and a bad thickness", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "B" }) as Record<string, any>;
+    d.moment = { sagging: "lots", hogging: 0 };
+    const s = parseWithZod(formData(d), { schema: briefFormSchema });
+    expect(s.error?.["moment.sagging"]).toEqual(["moment.sagging must be a number"]);
+    d.moment = { sagging: 120, hogging: 0 };
+    d.thicknesses = "6, eight";
+    const t = parseWithZod(formData(d), { schema: briefFormSchema });
+    expect(t.error?.thicknesses?.[0]).toMatch(/entry 2 \("eight"\) is not a number/);
+  });
+  it("lists changed limits", () => {
+    const b = searchProblemSchema.parse({ ...DEFAULT_PROBLEM, depth: { ...DEFAULT_PROBLEM.depth, max: 350 } });
+    expect(changedLimits(DEFAULT_PROBLEM, b)).toEqual([{ path: "depth.max", before: 400, after: 350 }]);
+  });
+});
