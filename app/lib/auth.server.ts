@@ -1,0 +1,251 @@
+import { createHash, randomBytes } from "node:crypto";
+import bcrypt from "bcryptjs";
+import { redirect } from "react-router";
+import { Authenticator } from "remix-auth";
+import { FormStrategy } from "remix-auth-form";
+import { z } from "zod";
+import { db } from "~/lib/db.server";
+import { can, isRole, type Permission, type Role } from "~/lib/roles";
+import { destroySession, getSession } from "~/lib/session.server";
+import { clientAddress, recordSignInFailure, recordSignInSuccess, signInWait, tooManyMessage } from "~/lib/rate-limit.server";
+
+export type { Role, Permission } from "~/lib/roles";
+
+export interface SessionUser {
+  id: number;
+  email: string;
+  name: string;
+  teamId: number;
+  teamName: string;
+  role: Role;
+}
+
+// ---------------------------------------------------------------- tokens and passwords
+
+const BCRYPT_ROUNDS = 10;
+export const MIN_PASSWORD_LENGTH = 10;
+
+export function hashPassword(password: string): Promise<string> {
+  return bcrypt.hash(password, BCRYPT_ROUNDS);
+}
+
+/** sha256 hex: invitation, reset and API tokens are stored only as this, so a leaked table grants nothing. */
+export function hashToken(token: string): string {
+  return createHash("sha256").update(token, "utf8").digest("hex");
+}
+
+/** 32 random bytes, URL-safe; the prefix lets a leaked API token be recognised in logs. */
+export function newToken(prefix = ""): string {
+  return prefix + randomBytes(32).toString("base64url");
+}
+
+export function normaliseEmail(email: string): string {
+  return email.trim().toLowerCase();
+}
+
+// ---------------------------------------------------------------- loading the signed-in user
+
+interface UserRow {
+  id: number;
+  email: string;
+  name: string;
+  session_version: number;
+  team_id: number;
+  team_name: string;
+  role: string;
+}
+
+/** The user with their first team membership, or null when disabled or belonging to no team. */
+async function loadUser(userId: number): Promise<(SessionUser & { sessionVersion: number }) | null> {
+  const row = (await db("users")
+    .join("memberships", "memberships.user_id", "users.id")
+    .join("teams", "teams.id", "memberships.team_id")
+    .where("users.id", userId)
+    .whereNull("users.disabled_at")
+    .orderBy("memberships.id")
+    .first(
+      "users.id",
+      "users.email",
+      "users.name",
+      "users.session_version",
+      "memberships.team_id",
+      "teams.name as team_name",
+      "memberships.role",
+    )) as UserRow | undefined;
+  if (!row || !isRole(row.role)) return null;
+  return {
+    id: row.id,
+    email: row.email,
+    name: row.name,
+    teamId: row.team_id,
+    teamName: row.team_name,
+    role: row.role,
+    sessionVersion: row.session_version,
+  };
+}
+
+// A loader and its parent layout often both ask; one query per request is enough.
+const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
+
+export function getUser(request: Request): Promise<SessionUser | null> {
+  let pending = perRequest.get(request);
+  if (!pending) {
+    pending = (async () => {
+      const session = await getSession(request);
+      const userId = session.get("userId");
+      const sv = session.get("sv");
+      if (typeof userId !== "number" || typeof sv !== "number") return null;
+      const user = await loadUser(userId);
+      // A cookie minted before the last sign-out or password reset is dead.
+      if (!user || user.sessionVersion !== sv) return null;
+      const { sessionVersion: _sv, ...rest } = user;
+      return rest;
+    })();
+    perRequest.set(request, pending);
+  }
+  return pending;
+}
+
+function forbidden(message: string): Response {
+  return new Response(message, { status: 403, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+}
+
+export async function requireUser(request: Request): Promise<SessionUser> {
+  const user = await getUser(request);
+  if (user) return user;
+  const url = new URL(request.url);
+  const next = url.pathname + url.search;
+  throw redirect(next && next !== "/" ? `/sign-in?next=${encodeURIComponent(next)}` : "/sign-in");
+}
+
+const PERMISSION_WORDS: Record<Permission, string> = {
+  read: "read this team's work",
+  createProject: "create projects",
+  editBrief: "edit briefs",
+  runSweep: "run sweeps",
+  saveOption: "save options",
+  requestReview: "request reviews",
+  recheck: "run rechecks",
+  review: "review options",
+  cancelAnySweep: "cancel other members' sweeps",
+  manageTeam: "manage the team",
+};
+
+/** The user, when a member of teamId whose role grants permission; otherwise a thrown 403 (or sign-in redirect). */
+export async function requireTeamRole(request: Request, teamId: number, permission: Permission): Promise<SessionUser> {
+  const user = await requireUser(request);
+  if (user.teamId !== teamId) throw forbidden("You are not a member of this team.");
+  if (!can(user.role, permission)) {
+    throw forbidden(`Your role (${user.role}) may not ${PERMISSION_WORDS[permission]}.`);
+  }
+  return user;
+}
+
+/** requireTeamRole for the signed-in user's own team. */
+export async function requirePermission(request: Request, permission: Permission): Promise<SessionUser> {
+  const user = await requireUser(request);
+  return requireTeamRole(request, user.teamId, permission);
+}
+
+/** API routes: the session cookie or `Authorization: Bearer <token>`; failures are JSON 401/403. */
+export async function requireApiUser(request: Request, permission?: Permission): Promise<SessionUser> {
+  const header = request.headers.get("authorization");
+  let user: SessionUser | null = null;
+  if (header) {
+    const match = /^Bearer\s+(\S+)\s*$/i.exec(header);
+    if (!match) throw Response.json({ error: "Authorization header must be 'Bearer <token>'" }, { status: 401 });
+    user = await userForApiToken(match[1]!);
+    if (!user) throw Response.json({ error: "API token is unknown or revoked" }, { status: 401 });
+  } else {
+    user = await getUser(request);
+    if (!user) throw Response.json({ error: "sign in or send an API token" }, { status: 401 });
+  }
+  if (permission && !can(user.role, permission)) {
+    throw Response.json({ error: `role ${user.role} may not ${PERMISSION_WORDS[permission]}` }, { status: 403 });
+  }
+  return user;
+}
+
+async function userForApiToken(token: string): Promise<SessionUser | null> {
+  if (token.length > 200) return null;
+  const row = await db("api_tokens").where({ token_hash: hashToken(token) }).whereNull("revoked_at").first("id", "user_id", "team_id");
+  if (!row) return null;
+  const user = await loadUser(row.user_id);
+  // The token is bound to the team it was made in; a member who left that team loses it.
+  if (!user || user.teamId !== row.team_id) return null;
+  await db("api_tokens").where({ id: row.id }).update({ last_used_at: db.fn.now() });
+  const { sessionVersion: _sv, ...rest } = user;
+  return rest;
+}
+
+// ---------------------------------------------------------------- sign-in (remix-auth 4)
+
+export class SignInError extends Error {
+  constructor(
+    message: string,
+    readonly status: number,
+    readonly field: "email" | "password" | "form",
+  ) {
+    super(message);
+    this.name = "SignInError";
+  }
+}
+
+export const signInSchema = z.object({
+  email: z.string({ error: "Enter your e-mail address." }).trim().max(254, "E-mail address is too long.").pipe(z.email("Enter a valid e-mail address.")),
+  password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200, "Password is too long."),
+});
+
+// Compared against when the address is unknown, so a wrong address takes as long as a wrong password.
+const DUMMY_HASH = bcrypt.hashSync("not-a-real-password", BCRYPT_ROUNDS);
+
+export interface VerifiedUser {
+  id: number;
+  sessionVersion: number;
+}
+
+export async function verifyCredentials(form: FormData, request: Request): Promise<VerifiedUser> {
+  const parsed = signInSchema.safeParse({ email: form.get("email") ?? undefined, password: form.get("password") ?? undefined });
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]!;
+    const field = issue.path[0] === "password" ? "password" : "email";
+    throw new SignInError(issue.message, 400, field);
+  }
+  const email = normaliseEmail(parsed.data.email);
+  const ip = clientAddress(request);
+  const wait = await signInWait(email, ip);
+  if (wait > 0) throw new SignInError(tooManyMessage(wait), 429, "form");
+  const row = await db("users").where({ email }).whereNull("disabled_at").first("id", "password_hash", "session_version");
+  const ok = await bcrypt.compare(parsed.data.password, row?.password_hash ?? DUMMY_HASH);
+  if (!row || !row.password_hash || !ok) {
+    await recordSignInFailure(email, ip);
+    throw new SignInError("E-mail address or password is wrong.", 401, "password");
+  }
+  if (!(await loadUser(row.id))) {
+    throw new SignInError("This account is not a member of any team. Ask your admin for an invitation.", 403, "email");
+  }
+  await recordSignInSuccess(email, ip);
+  return { id: row.id, sessionVersion: row.session_version };
+}
+
+export const authenticator = new Authenticator<VerifiedUser>();
+authenticator.use(new FormStrategy<VerifiedUser>(({ form, request }) => verifyCredentials(form, request)), "form");
+
+// ---------------------------------------------------------------- sign-out
+
+/** Kills every session of the user (bumps session_version) and clears this cookie. */
+export async function signOut(request: Request): Promise<Response> {
+  const session = await getSession(request);
+  const userId = session.get("userId");
+  if (typeof userId === "number") {
+    await db("users").where({ id: userId }).increment("session_version", 1);
+  }
+  return redirect("/sign-in", { headers: { "Set-Cookie": await destroySession(session) } });
+}
+
+/** Bumps session_version (e.g. after a password reset) so older cookies stop working. */
+export async function invalidateSessions(userId: number): Promise<number> {
+  await db("users").where({ id: userId }).increment("session_version", 1);
+  const row = await db("users").where({ id: userId }).first("session_version");
+  return row.session_version as number;
+}

@@ -1,0 +1,124 @@
+import { data } from "react-router";
+import type { z } from "zod";
+
+// Every action reads its body through here, so an oversized or malformed post becomes a clear
+// 4xx before any handler logic runs (never a 500, never half a record).
+
+export const DEFAULT_FORM_LIMIT = 64 * 1024;
+export const DEFAULT_JSON_LIMIT = 256 * 1024;
+
+export type FieldErrors = Record<string, string>;
+
+function kB(bytes: number): string {
+  return `${Math.round(bytes / 1024)} kB`;
+}
+
+function plain(status: number, message: string): Response {
+  return new Response(message, { status, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+}
+
+/** Reads at most maxBytes of the body, whatever Content-Length claims (it may be absent or lie). */
+async function readCapped(request: Request, maxBytes: number, tooBig: () => Response): Promise<Uint8Array> {
+  const declared = Number(request.headers.get("content-length") ?? "");
+  if (Number.isFinite(declared) && declared > maxBytes) throw tooBig();
+  if (!request.body) return new Uint8Array();
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw tooBig();
+    }
+    chunks.push(value);
+  }
+  const out = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
+}
+
+/** The posted form, or a thrown 413/415/400 text Response the error boundary can show. */
+export async function readForm(request: Request, maxBytes = DEFAULT_FORM_LIMIT): Promise<FormData> {
+  const type = (request.headers.get("content-type") ?? "").toLowerCase();
+  const bytes = await readCapped(request, maxBytes, () => plain(413, `The form is too large: body over ${kB(maxBytes)}.`));
+  if (bytes.byteLength === 0) return new FormData();
+  if (!type.startsWith("application/x-www-form-urlencoded") && !type.startsWith("multipart/form-data")) {
+    throw plain(415, "The body is not a form: send application/x-www-form-urlencoded or multipart/form-data.");
+  }
+  try {
+    return await new Request("http://form.invalid/", {
+      method: "POST",
+      body: bytes as unknown as BodyInit,
+      headers: { "content-type": request.headers.get("content-type") ?? "" },
+    }).formData();
+  } catch {
+    throw plain(400, "The form body is malformed and could not be read.");
+  }
+}
+
+/** The posted JSON value, or a thrown JSON error Response (413 / 400) for API routes. */
+export async function readJson(request: Request, maxBytes = DEFAULT_JSON_LIMIT): Promise<unknown> {
+  const bytes = await readCapped(request, maxBytes, () =>
+    Response.json({ error: `body over ${kB(maxBytes)}` }, { status: 413 }),
+  );
+  const text = new TextDecoder().decode(bytes);
+  if (!text.trim()) throw Response.json({ error: "body is empty: send a JSON object" }, { status: 400 });
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw Response.json({ error: "body is not valid JSON" }, { status: 400 });
+  }
+}
+
+/** The standard answer to a form with field errors: `{ errors: { field: message } }`, status 400. */
+export function badRequest(fieldErrors: FieldErrors, status = 400) {
+  return data({ errors: fieldErrors }, { status });
+}
+
+/**
+ * FormData → plain object for zod. Blank text fields become undefined so "required" reads as
+ * required rather than as a type error; repeated keys become arrays.
+ */
+export function formToObject(form: FormData): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const key of new Set(form.keys())) {
+    const values = form.getAll(key).map((v) => (typeof v === "string" && v.trim() === "" ? undefined : v));
+    const present = values.filter((v) => v !== undefined);
+    out[key] = values.length > 1 ? present : values[0];
+  }
+  return out;
+}
+
+function humanise(field: string): string {
+  const words = field.replace(/([a-z])([A-Z])/g, "$1 $2").replace(/[_.]/g, " ").toLowerCase();
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+/** zod issues → one message per field (the first), each naming its field. */
+export function fieldErrorsFrom(error: z.ZodError, input?: Record<string, unknown>): FieldErrors {
+  const errors: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.map(String).join(".") : "form";
+    if (errors[key]) continue;
+    const missing = input && issue.path.length === 1 && input[String(issue.path[0])] === undefined;
+    errors[key] = missing ? `${humanise(key)} is required.` : `${humanise(key)}: ${issue.message}`;
+  }
+  return errors;
+}
+
+export type Parsed<T> = { ok: true; data: T } | { ok: false; errors: FieldErrors };
+
+/** zod safeParse over a form, with field-named messages. */
+export function parseForm<S extends z.ZodType>(form: FormData, schema: S): Parsed<z.output<S>> {
+  const input = formToObject(form);
+  const result = schema.safeParse(input);
+  if (result.success) return { ok: true, data: result.data };
+  return { ok: false, errors: fieldErrorsFrom(result.error, input) };
+}

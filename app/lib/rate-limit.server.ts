@@ -1,0 +1,71 @@
+import { createHash } from "node:crypto";
+import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { db, getDb } from "~/lib/db.server";
+
+// Failed sign-ins are counted per account and per client address in MariaDB (table
+// login_limits, migration 20261201_0010), so the limit holds across app processes and restarts.
+// Only failures count; a success clears the account's counter (not the address's).
+export const ACCOUNT_FAILURES = Number(process.env.SIGNIN_ACCOUNT_FAILURES ?? 5);
+export const ADDRESS_FAILURES = Number(process.env.SIGNIN_ADDRESS_FAILURES ?? 20);
+export const WINDOW_SECONDS = 15 * 60;
+
+let limiters: { account: RateLimiterMySQL; address: RateLimiterMySQL; dbName: string } | undefined;
+
+function getLimiters() {
+  const dbName = String((getDb().client.config.connection as { database?: string }).database ?? "sparwise");
+  if (!limiters || limiters.dbName !== dbName) {
+    const common = { storeClient: db, storeType: "knex", dbName, tableName: "login_limits", tableCreated: true, duration: WINDOW_SECONDS };
+    limiters = {
+      dbName,
+      account: new RateLimiterMySQL({ ...common, keyPrefix: "acct", points: ACCOUNT_FAILURES }),
+      address: new RateLimiterMySQL({ ...common, keyPrefix: "addr", points: ADDRESS_FAILURES }),
+    };
+  }
+  return limiters;
+}
+
+// Keys stay short and carry no address in clear text.
+const key = (value: string) => createHash("sha256").update(value).digest("hex");
+
+/**
+ * The client's address as the first X-Forwarded-For hop (or X-Real-IP). react-router-serve gives
+ * route code no socket address, so behind no proxy every client shares the "direct" bucket —
+ * the per-account limit still applies to each account.
+ */
+export function clientAddress(request: Request): string {
+  const forwarded = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
+  return forwarded || request.headers.get("x-real-ip")?.trim() || "direct";
+}
+
+/** "Too many sign-in attempts; try again in N minutes." for a wait of ms. */
+export function tooManyMessage(ms: number): string {
+  const n = Math.max(1, Math.ceil(ms / 60_000));
+  return `Too many sign-in attempts; try again in ${n} minute${n === 1 ? "" : "s"}.`;
+}
+
+/** Milliseconds until the next attempt is allowed: 0 when neither counter is spent. */
+export async function signInWait(email: string, ip: string): Promise<number> {
+  const { account, address } = getLimiters();
+  const [a, b] = await Promise.all([account.get(key(email)), address.get(key(ip))]);
+  const blocked = [
+    a && a.consumedPoints >= ACCOUNT_FAILURES ? a.msBeforeNext : 0,
+    b && b.consumedPoints >= ADDRESS_FAILURES ? b.msBeforeNext : 0,
+  ];
+  return Math.max(...blocked);
+}
+
+export async function recordSignInFailure(email: string, ip: string): Promise<void> {
+  const { account, address } = getLimiters();
+  await Promise.all(
+    [account.consume(key(email)), address.consume(key(ip))].map((p) =>
+      p.catch((e: unknown) => {
+        // Spending the last point rejects with RateLimiterRes: that is the count doing its job.
+        if (!(e instanceof RateLimiterRes)) throw e;
+      }),
+    ),
+  );
+}
+
+export async function recordSignInSuccess(email: string, _ip: string): Promise<void> {
+  await getLimiters().account.delete(key(email));
+}

@@ -1,0 +1,82 @@
+import { createCookieSessionStorage, redirect, type Session } from "react-router";
+import "~/lib/db.server"; // loads .env (through knexfile) before the secret is read
+
+// The cookie carries the user id and the user's session_version at sign-in. Sign-out (and a
+// password reset) bumps users.session_version, so every cookie issued before dies at once —
+// a cookie session cannot be revoked any other way.
+export interface SessionData {
+  userId: number;
+  sv: number;
+}
+export interface SessionFlash {
+  notice: string;
+}
+
+const SESSION_DAYS = 14;
+let storage: ReturnType<typeof createCookieSessionStorage<SessionData, SessionFlash>> | undefined;
+
+function sessionSecret(): string {
+  const secret = process.env.SESSION_SECRET;
+  if (secret && secret.length >= 16) return secret;
+  if (process.env.NODE_ENV === "production") {
+    throw new Error("SESSION_SECRET is missing or shorter than 16 characters: run `npm run up` to generate .env");
+  }
+  // Development and tests without .env only; production refuses to start above.
+  return "sparwise-development-only-secret";
+}
+
+export function getSessionStorage() {
+  storage ??= createCookieSessionStorage<SessionData, SessionFlash>({
+    cookie: {
+      name: "__sparwise",
+      httpOnly: true,
+      sameSite: "lax",
+      path: "/",
+      // Off by default: the local server speaks plain http. Set SESSION_SECURE=1 behind https.
+      secure: process.env.SESSION_SECURE === "1",
+      secrets: [sessionSecret()],
+      maxAge: SESSION_DAYS * 24 * 3600,
+    },
+  });
+  return storage;
+}
+
+export function getSession(request: Request): Promise<Session<SessionData, SessionFlash>> {
+  return getSessionStorage().getSession(request.headers.get("Cookie"));
+}
+
+export function commitSession(session: Session<SessionData, SessionFlash>): Promise<string> {
+  return getSessionStorage().commitSession(session);
+}
+
+export function destroySession(session: Session<SessionData, SessionFlash>): Promise<string> {
+  return getSessionStorage().destroySession(session);
+}
+
+/** Only same-site paths: "/x" but never "//evil" or "https://…", so ?next= cannot redirect away. */
+export function safeRedirect(to: unknown, fallback = "/"): string {
+  if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
+  return to;
+}
+
+/** A fresh session for a user who just proved who they are; redirects with the cookie set. */
+export async function createUserSession(request: Request, user: { id: number; sessionVersion: number }, redirectTo: string) {
+  const session = await getSession(request);
+  session.set("userId", user.id);
+  session.set("sv", user.sessionVersion);
+  return redirect(safeRedirect(redirectTo), { headers: { "Set-Cookie": await commitSession(session) } });
+}
+
+/** A Set-Cookie header value for a session that is not bound to a request (tests, scripts). */
+export async function sessionCookieFor(userId: number, sessionVersion: number): Promise<string> {
+  const session = await getSessionStorage().getSession();
+  session.set("userId", userId);
+  session.set("sv", sessionVersion);
+  return commitSession(session);
+}
+
+export async function flashNotice(request: Request, notice: string): Promise<string> {
+  const session = await getSession(request);
+  session.flash("notice", notice);
+  return commitSession(session);
+}
