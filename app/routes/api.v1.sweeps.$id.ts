@@ -1,0 +1,13 @@
+import { requireApiUser } from "~/lib/auth.server";
+import { requireTeamSweep, sweepIdParam } from "~/workers/sweep-api.server";
+
+// GET /api/v1/sweeps/:id: status, progress (done/total, elapsed, estimate), counts, best. The
+// sweep page polls this. Another team's sweep is a 404.
+export async function loader({ request, params }: { request: Request; params: { id?: string } }) {
+  const user = await requireApiUser(request, "read");
+  const sweep = await requireTeamSweep(sweepIdParam(params.id), user);
+  return Response.json(
+    { ...sweep, url: `/api/v1/sweeps/${sweep.id}`, candidatesUrl: `/api/v1/sweeps/${sweep.id}/candidates`, page: `/sweeps/${sweep.id}` },
+    { headers: { "Cache-Control": "no-store" } },
+  );
+}

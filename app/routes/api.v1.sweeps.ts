@@ -1,0 +1,39 @@
+import { requireApiUser } from "~/lib/auth.server";
+import { readJson } from "~/lib/forms.server";
+import { db } from "~/lib/db.server";
+import { SWEEP_BODY_LIMIT, createSweepFromRequest } from "~/workers/sweep-api.server";
+
+// POST /api/v1/sweeps: { briefId } or { problem } (+ projectId, recheckOf); Idempotency-Key
+// header honoured per user. 202 with the sweep's id and URLs (200-series either way: a replay
+// of the same key answers 202 with created: false).
+export async function action({ request }: { request: Request }) {
+  if (request.method !== "POST") return Response.json({ error: "use POST" }, { status: 405, headers: { Allow: "GET, POST" } });
+  const user = await requireApiUser(request);
+  const body = await readJson(request, SWEEP_BODY_LIMIT);
+  const { id, created } = await createSweepFromRequest(user, body, request.headers.get("idempotency-key"));
+  const url = `/api/v1/sweeps/${id}`;
+  return Response.json({ id, created, status: "queued", url, page: `/sweeps/${id}` }, { status: 202, headers: { Location: url } });
+}
+
+// GET /api/v1/sweeps: the team's latest sweeps (for dashboards and scripts).
+export async function loader({ request }: { request: Request }) {
+  const user = await requireApiUser(request, "read");
+  const rows = await db("sweeps")
+    .where({ team_id: user.teamId })
+    .orderBy("id", "desc")
+    .limit(50)
+    .select("id", "status", "project_id", "brief_id", "owner_id", "progress_done", "progress_total", "queued_at", "finished_at");
+  return Response.json({
+    items: rows.map((r) => ({
+      id: r.id,
+      status: r.status,
+      projectId: r.project_id,
+      briefId: r.brief_id,
+      ownerId: r.owner_id,
+      progress: { done: Number(r.progress_done), total: Number(r.progress_total) },
+      queuedAt: r.queued_at,
+      finishedAt: r.finished_at,
+      url: `/api/v1/sweeps/${r.id}`,
+    })),
+  });
+}

@@ -1,0 +1,24 @@
+// Starts one sweep runner inside the app server (so `npm run up` alone runs sweeps). Imported for
+// its side effect by app/entry.server.tsx; started once per process (the flag lives on globalThis
+// so dev-server module reloads do not start a second one). SPARWISE_INPROCESS_WORKERS=0 turns it
+// off (the integration tests run their own workers; a deployment may run only `npm run worker`).
+import { SweepRunner } from "./runner.server";
+
+const g = globalThis as unknown as { __sparwiseRunner?: SweepRunner };
+
+export function startInProcessWorkers(): SweepRunner | null {
+  if (process.env.SPARWISE_INPROCESS_WORKERS === "0") return null;
+  if (process.env.NODE_ENV === "test" || process.env.VITEST) return null;
+  if (g.__sparwiseRunner) return g.__sparwiseRunner;
+  const runner = new SweepRunner().start();
+  g.__sparwiseRunner = runner;
+  const stop = (signal: NodeJS.Signals) => {
+    // Finish or release running sweeps, then exit the way the signal asked.
+    void runner.stop().finally(() => process.exit(signal === "SIGINT" ? 130 : 0));
+  };
+  process.once("SIGTERM", stop);
+  process.once("SIGINT", stop);
+  return runner;
+}
+
+startInProcessWorkers();
