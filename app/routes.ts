@@ -1,7 +1,39 @@
-import { type RouteConfig, index, route } from "@react-router/dev/routes";
+import { type RouteConfig, index, layout, route } from "@react-router/dev/routes";
 
 // Every route listed here must also appear in tests/integration/role-matrix.test.ts.
 export default [
-  index("routes/home.tsx"),
+  // Public pages: sign-in and the links sent by e-mail (AUTH).
+  route("sign-in", "routes/sign-in.tsx"),
+  route("sign-out", "routes/sign-out.tsx"),
+  route("invite/:token", "routes/invite.$token.tsx"),
+  route("forgot-password", "routes/forgot-password.tsx"),
+  route("reset-password/:token", "routes/reset-password.$token.tsx"),
   route("healthz", "routes/healthz.ts"),
+
+  // Signed-in pages share the header and navigation of app-layout.tsx.
+  layout("routes/app-layout.tsx", [
+    index("routes/dashboard.tsx"),
+    route("account", "routes/account.tsx"),
+    route("admin", "routes/admin.tsx"),
+    route("admin/outbox", "routes/admin.outbox.tsx"),
+    // BENCH pages
+    route("bench", "routes/bench.tsx"),
+    // QUEUE pages
+    // WORKFLOW pages
+    route("projects", "routes/projects.tsx"),
+    route("projects/new", "routes/projects.new.tsx"),
+    route("projects/:projectId", "routes/projects.$projectId.tsx"),
+    route("projects/:projectId/briefs/new", "routes/projects.$projectId.briefs.new.tsx"),
+    route("briefs/:briefId", "routes/briefs.$briefId.tsx"),
+  ]),
+
+  // JSON API (session cookie or Authorization: Bearer <token>; guards answer 401/403 JSON).
+  // BENCH api
+  route("api/v1/properties", "routes/api.v1.properties.ts"),
+  // QUEUE api
+  route("api/v1/sweeps", "routes/api.v1.sweeps.ts"),
+  route("api/v1/sweeps/:id", "routes/api.v1.sweeps.$id.ts"),
+  route("api/v1/sweeps/:id/candidates", "routes/api.v1.sweeps.$id.candidates.ts"),
+  route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
+  // WORKFLOW api
 ] satisfies RouteConfig;

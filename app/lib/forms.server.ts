@@ -122,3 +122,25 @@ export function parseForm<S extends z.ZodType>(form: FormData, schema: S): Parse
   if (result.success) return { ok: true, data: result.data };
   return { ok: false, errors: fieldErrorsFrom(result.error, input) };
 }
+
+/** A rule broken deep in a module (e.g. "already a member"): routes turn it into badRequest({ [field]: message }). */
+export class FieldError extends Error {
+  constructor(
+    readonly field: string,
+    message: string,
+    readonly status = 400,
+  ) {
+    super(message);
+    this.name = "FieldError";
+  }
+}
+
+/** Runs a module call; a FieldError becomes the 4xx `{ errors }` answer, anything else propagates. */
+export async function withFieldErrors<T>(run: () => Promise<T>) {
+  try {
+    return await run();
+  } catch (error) {
+    if (error instanceof FieldError) return badRequest({ [error.field]: error.message }, error.status);
+    throw error;
+  }
+}

@@ -1,0 +1,106 @@
+import { z } from "zod";
+import { db } from "~/lib/db.server";
+import { hashPassword, hashToken, MIN_PASSWORD_LENGTH, newToken, normaliseEmail } from "~/lib/auth.server";
+import { appUrl, sendEmail } from "~/lib/email.server";
+import { logActivity } from "~/lib/activity.server";
+import { FieldError } from "~/lib/forms.server";
+
+export const RESET_TTL_MS = 60 * 60 * 1000; // one hour (issue 2)
+
+export const newPasswordSchema = z
+  .object({
+    password: z
+      .string({ error: "Choose a password." })
+      .min(MIN_PASSWORD_LENGTH, `Password must be at least ${MIN_PASSWORD_LENGTH} characters.`)
+      .max(200, "Password must be at most 200 characters."),
+    confirm: z.string({ error: "Repeat the password." }),
+  })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+
+export const forgotSchema = z.object({
+  email: z.string({ error: "Enter your e-mail address." }).trim().max(254, "E-mail address is too long.").pipe(z.email("Enter a valid e-mail address.")),
+});
+
+/**
+ * Sends a reset link when the address belongs to an active member; silently does nothing
+ * otherwise, so the answer never tells whether an account exists.
+ */
+export async function requestPasswordReset(request: Request, rawEmail: string): Promise<void> {
+  const email = normaliseEmail(rawEmail);
+  const user = await db("users")
+    .leftJoin("memberships", "memberships.user_id", "users.id")
+    .where("users.email", email)
+    .whereNull("users.disabled_at")
+    .orderBy("memberships.id")
+    .first("users.id", "users.name", "memberships.team_id");
+  if (!user || !user.team_id) return;
+  const token = newToken();
+  await db.transaction(async (trx) => {
+    await trx("password_resets").insert({
+      user_id: user.id,
+      token_hash: hashToken(token),
+      expires_at: new Date(Date.now() + RESET_TTL_MS),
+    });
+    const link = appUrl(request, `/reset-password/${token}`);
+    await sendEmail(
+      {
+        teamId: user.team_id,
+        to: email,
+        subject: "Reset your Sparwise password",
+        text:
+          `Hello ${user.name},\n\nSomeone (we hope you) asked to reset the password of your Sparwise account.\n` +
+          `Choose a new password here within one hour:\n\n${link}\n\n` +
+          `The link works once. If you did not ask for it, ignore this message; your password stays as it is.\n`,
+      },
+      trx,
+    );
+  });
+}
+
+interface ResetRow {
+  id: number;
+  user_id: number;
+  expires_at: Date;
+  used_at: Date | null;
+}
+
+export type TokenState = "valid" | "unknown" | "used" | "expired";
+
+function stateOf(row: ResetRow | undefined, now = Date.now()): TokenState {
+  if (!row) return "unknown";
+  if (row.used_at) return "used";
+  if (new Date(row.expires_at).getTime() <= now) return "expired";
+  return "valid";
+}
+
+export async function resetTokenState(token: string): Promise<TokenState> {
+  if (!token || token.length > 200) return "unknown";
+  const row = (await db("password_resets").where({ token_hash: hashToken(token) }).first()) as ResetRow | undefined;
+  return stateOf(row);
+}
+
+export const TOKEN_MESSAGES: Record<Exclude<TokenState, "valid">, string> = {
+  unknown: "This link is not valid. Ask for a new one.",
+  used: "This link has already been used. Ask for a new one if you need to.",
+  expired: "This link has expired. Ask for a new one.",
+};
+
+/** Sets the new password once per token; every earlier session and unused reset link of the user dies. */
+export async function resetPassword(token: string, password: string): Promise<{ userId: number }> {
+  const passwordHash = await hashPassword(password);
+  return db.transaction(async (trx) => {
+    // FOR UPDATE: two simultaneous posts of one link cannot both succeed.
+    const row = (await trx("password_resets").where({ token_hash: hashToken(token) }).forUpdate().first()) as ResetRow | undefined;
+    const state = stateOf(row);
+    if (state !== "valid") throw new FieldError("token", TOKEN_MESSAGES[state], 400);
+    await trx("password_resets").where({ user_id: row!.user_id }).whereNull("used_at").update({ used_at: trx.fn.now() });
+    await trx("users")
+      .where({ id: row!.user_id })
+      .update({ password_hash: passwordHash, session_version: trx.raw("session_version + 1"), updated_at: trx.fn.now() });
+    const team = await trx("memberships").where({ user_id: row!.user_id }).orderBy("id").first("team_id");
+    if (team) {
+      await logActivity({ teamId: team.team_id, userId: row!.user_id, action: "password_reset", subjectType: "user", subjectId: row!.user_id }, trx);
+    }
+    return { userId: row!.user_id };
+  });
+}
