@@ -1,0 +1,232 @@
+// A cross-section drawn to scale from the engine's own geometry (buildShape: the plates, root
+// fillets and polygon rings the properties were computed from), with the centroid, the
+// horizontal centroidal axis, the inclined neutral axis of an unsymmetric section, and the
+// overall dimensions. Pure props: the same drawing serves the bench, the sweep comparison and
+// the calculation record.
+import { useId } from "react";
+import type { SectionProperties } from "~/optimizer/properties";
+import type { SectionInput } from "~/optimizer/schema";
+import { buildShape, shapeBBox } from "~/optimizer/shape";
+import { PLATE_STRIDE } from "~/optimizer/composite";
+import type { Fillet } from "~/optimizer/geometry";
+import type { UnitSystem } from "~/optimizer/units";
+import { formatQuantity } from "~/components/PropertyTable";
+
+export interface SectionOutline {
+  /** every piece in the frame the properties use: bounding box's bottom-left corner at (0, 0), mm */
+  plates: { b: number; h: number; z: number; y: number }[];
+  fillets: Fillet[];
+  rings: { points: [number, number][]; hole: boolean }[];
+  width: number;
+  depth: number;
+}
+
+/** The section's pieces, shifted so the bounding box starts at (0, 0). Throws on invalid input. */
+export function sectionOutline(section: SectionInput): SectionOutline {
+  const s = buildShape(section);
+  const [minZ, maxZ, minY, maxY] = shapeBBox(s);
+  const plates = [];
+  for (let i = 0; i < s.plateCount * PLATE_STRIDE; i += PLATE_STRIDE) {
+    plates.push({ b: s.plates[i]!, h: s.plates[i + 1]!, z: s.plates[i + 2]! - minZ, y: s.plates[i + 3]! - minY });
+  }
+  const fillets = s.fillets.map((f) => ({ ...f, z: f.z - minZ, y: f.y - minY }));
+  const rings = s.rings.map((r) => {
+    const points: [number, number][] = [];
+    for (let i = 0; i < r.pts.length; i += 2) points.push([r.pts[i]! - minZ, r.pts[i + 1]! - minY]);
+    return { points, hole: r.hole };
+  });
+  return { plates, fillets, rings, width: maxZ - minZ, depth: maxY - minY };
+}
+
+/** Fillet spandrel as a closed outline: the re-entrant corner, then the quarter arc. */
+function filletPoints(f: Fillet, steps = 12): [number, number][] {
+  const cz = f.z + f.dz * f.r,
+    cy = f.y + f.dy * f.r;
+  const pts: [number, number][] = [[f.z, f.y]];
+  // arc from (cz, f.y) to (f.z, cy) around the centre (cz, cy)
+  for (let k = 0; k <= steps; k++) {
+    const t = ((Math.PI / 2) * k) / steps;
+    pts.push([cz - f.dz * f.r * Math.sin(t), cy - f.dy * f.r * Math.cos(t)]);
+  }
+  return pts;
+}
+
+const INK = "var(--color-ink, #1d2733)";
+const ACCENT = "var(--color-accent, #0f6e6e)";
+const CAUTION = "var(--color-caution, #8a4b00)";
+
+export interface SectionDrawingProps {
+  /** the section in SI (mm), any SectionInput form */
+  section: SectionInput;
+  /** SI properties of the same section: adds the centroid, the axis and the ȳ dimension */
+  properties?: SectionProperties | null;
+  /** neutral axis angle from z (counter-clockwise), e.g. sectionStresses().neutralAxis.angleDeg; drawn when not horizontal */
+  neutralAxisAngleDeg?: number | null;
+  units?: UnitSystem;
+  /** drawing size in CSS pixels (the SVG scales to its container's width) */
+  width?: number;
+  height?: number;
+  title?: string;
+  showDimensions?: boolean;
+  className?: string;
+}
+
+export function SectionDrawing({
+  section,
+  properties,
+  neutralAxisAngleDeg,
+  units = "si",
+  width = 420,
+  height = 360,
+  title = "Cross-section, to scale",
+  showDimensions = true,
+  className = "",
+}: SectionDrawingProps) {
+  // one page may carry several drawings (comparison): ids must not collide
+  const uid = useId().replace(/[^a-zA-Z0-9_-]/g, "");
+  let outline: SectionOutline;
+  try {
+    outline = sectionOutline(section);
+  } catch (e) {
+    return (
+      <figure className={className} data-testid="section-drawing">
+        <div className="flex items-center justify-center rounded border border-dashed border-ink/40 p-8 text-sm text-ink/70" style={{ minHeight: height / 2 }}>
+          No drawing: {e instanceof Error ? e.message : "the section is not valid"}
+        </div>
+      </figure>
+    );
+  }
+  const { width: bw, depth: bh } = outline;
+  // Margins leave room for the dimension lines and their labels in screen pixels, so text
+  // keeps its size whatever the section's scale.
+  const ml = showDimensions ? 70 : 16,
+    mr = showDimensions ? 56 : 16,
+    mt = 20,
+    mb = showDimensions ? 48 : 16;
+  const scale = Math.min((width - ml - mr) / bw, (height - mt - mb) / bh);
+  const ox = ml + (width - ml - mr - bw * scale) / 2;
+  const oy = mt + (height - mt - mb - bh * scale) / 2;
+  const X = (z: number) => ox + z * scale;
+  const Y = (y: number) => oy + (bh - y) * scale;
+  const poly = (pts: [number, number][]) => pts.map(([z, y], i) => `${i ? "L" : "M"}${X(z).toFixed(2)},${Y(y).toFixed(2)}`).join("") + "Z";
+
+  const c = properties ? { z: properties.centroid.z, y: properties.centroid.y } : null;
+  const inclined = c && neutralAxisAngleDeg != null && Number.isFinite(neutralAxisAngleDeg) && Math.abs(neutralAxisAngleDeg) > 1e-6;
+  const fmtL = (v: number) => formatQuantity("length", v, units);
+  const titleId = `sd-title-${uid}`;
+  const arrow = `url(#sd-arrow-${uid})`;
+
+  return (
+    <figure className={className} data-testid="section-drawing">
+      <svg viewBox={`0 0 ${width} ${height}`} width="100%" role="img" aria-labelledby={titleId} className="max-w-full" style={{ maxWidth: width }}>
+        <title id={titleId}>
+          {`${title}: ${fmtL(bw)} wide, ${fmtL(bh)} deep${c ? `, centroid ${fmtL(c.y)} above the bottom edge` : ""}`}
+        </title>
+        <defs>
+          <marker id={`sd-arrow-${uid}`} viewBox="0 0 10 10" refX="10" refY="5" markerWidth="7" markerHeight="7" orient="auto-start-reverse">
+            <path d="M0,0 L10,5 L0,10 z" fill={INK} />
+          </marker>
+        </defs>
+        {/* material */}
+        <g fill={ACCENT} fillOpacity={0.22} stroke={INK} strokeWidth={1.25}>
+          {outline.plates.map((p, i) => (
+            <rect key={`p${i}`} x={X(p.z)} y={Y(p.y + p.h)} width={p.b * scale} height={p.h * scale} />
+          ))}
+          {outline.rings.length > 0 ? <path d={outline.rings.map((r) => poly(r.points)).join("")} fillRule="evenodd" /> : null}
+        </g>
+        {outline.fillets.map((f, i) => (
+          <path key={`f${i}`} d={poly(filletPoints(f))} fill={ACCENT} fillOpacity={0.22} stroke="none" />
+        ))}
+        {/* dimensions */}
+        {showDimensions ? (
+          <g stroke={INK} strokeWidth={0.8} fontSize={12} fill={INK}>
+            <line x1={X(0)} y1={Y(0) + 4} x2={X(0)} y2={Y(0) + 30} />
+            <line x1={X(bw)} y1={Y(0) + 4} x2={X(bw)} y2={Y(0) + 30} />
+            <line x1={X(0)} y1={Y(0) + 24} x2={X(bw)} y2={Y(0) + 24} markerStart={arrow} markerEnd={arrow} />
+            <text x={(X(0) + X(bw)) / 2} y={Y(0) + 42} textAnchor="middle" stroke="none" data-testid="dim-width">
+              {fmtL(bw)}
+            </text>
+            <line x1={X(bw) + 4} y1={Y(0)} x2={X(bw) + 30} y2={Y(0)} />
+            <line x1={X(bw) + 4} y1={Y(bh)} x2={X(bw) + 30} y2={Y(bh)} />
+            <line x1={X(bw) + 24} y1={Y(0)} x2={X(bw) + 24} y2={Y(bh)} markerStart={arrow} markerEnd={arrow} />
+            <text
+              x={X(bw) + 40}
+              y={(Y(0) + Y(bh)) / 2}
+              textAnchor="middle"
+              stroke="none"
+              transform={`rotate(-90 ${X(bw) + 40} ${(Y(0) + Y(bh)) / 2})`}
+              data-testid="dim-depth"
+            >
+              {fmtL(bh)}
+            </text>
+            {c ? (
+              <>
+                <line x1={X(0) - 4} y1={Y(0)} x2={X(0) - 30} y2={Y(0)} />
+                <line x1={X(0) - 24} y1={Y(0)} x2={X(0) - 24} y2={Y(c.y)} markerStart={arrow} markerEnd={arrow} />
+                <text
+                  x={X(0) - 32}
+                  y={(Y(0) + Y(c.y)) / 2}
+                  textAnchor="middle"
+                  stroke="none"
+                  transform={`rotate(-90 ${X(0) - 32} ${(Y(0) + Y(c.y)) / 2})`}
+                >
+                  {`ȳ = ${fmtL(c.y)}`}
+                </text>
+              </>
+            ) : null}
+          </g>
+        ) : null}
+        {/* axes and centroid */}
+        {c ? (
+          <g>
+            <line
+              x1={X(0) - 28}
+              y1={Y(c.y)}
+              x2={X(bw) + 14}
+              y2={Y(c.y)}
+              stroke={ACCENT}
+              strokeWidth={1.2}
+              strokeDasharray="10 3 2 3"
+              data-testid="axis-horizontal"
+            />
+            <text x={X(bw) + 6} y={Y(c.y) - 5} fontSize={12} fill={ACCENT} textAnchor="end">
+              {inclined ? "z" : "N.A."}
+            </text>
+            {inclined
+              ? (() => {
+                  const a = (neutralAxisAngleDeg! * Math.PI) / 180;
+                  const L = Math.hypot(bw, bh) * scale * 0.6 + 12;
+                  const cx = X(c.z),
+                    cyp = Y(c.y);
+                  // screen y points down, so the counter-clockwise angle flips sign
+                  const dx = Math.cos(a) * L,
+                    dy = -Math.sin(a) * L;
+                  return (
+                    <g data-testid="axis-neutral-inclined">
+                      <line x1={cx - dx} y1={cyp - dy} x2={cx + dx} y2={cyp + dy} stroke={CAUTION} strokeWidth={1.4} strokeDasharray="10 3 2 3" />
+                      <text x={cx + dx} y={cyp + dy - 4} fontSize={12} fill={CAUTION} textAnchor={dx >= 0 ? "end" : "start"}>
+                        {`N.A. ${neutralAxisAngleDeg!.toFixed(1)}°`}
+                      </text>
+                    </g>
+                  );
+                })()
+              : null}
+            <g data-testid="centroid-marker" transform={`translate(${X(c.z)} ${Y(c.y)})`}>
+              <circle r={6} fill="white" stroke={INK} strokeWidth={1.2} />
+              {/* the draughtsman's centroid symbol: two opposite quarters filled */}
+              <path d="M0,0 L6,0 A6,6 0 0,1 0,6 Z M0,0 L-6,0 A6,6 0 0,1 0,-6 Z" fill={INK} />
+              <text x={9} y={-8} fontSize={12} fill={INK}>
+                C
+              </text>
+            </g>
+          </g>
+        ) : null}
+      </svg>
+      <figcaption className="mt-1 text-xs text-ink/70">
+        {title}. {c ? `Centroid C at z̄ = ${fmtL(c.z)}, ȳ = ${fmtL(c.y)} from the bottom-left corner.` : null}
+      </figcaption>
+    </figure>
+  );
+}
+
+export default SectionDrawing;

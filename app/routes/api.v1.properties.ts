@@ -1,0 +1,53 @@
+// POST /api/v1/properties: a SectionInput in, every section property out (engine contract).
+// `units: "us"` means the lengths sent are inches and the properties come back in in-based
+// units; the response's `units` block says which unit each quantity is in.
+import { requireApiUser } from "~/lib/auth.server";
+import { DEFAULT_JSON_LIMIT, readJson } from "~/lib/forms.server";
+import { parseSectionInput } from "~/lib/bench-state";
+import { isEngineInputError } from "~/optimizer/errors";
+import { sectionProperties } from "~/optimizer/properties";
+import { PROPERTY_QUANTITIES, UNITS, propertiesIn, type Quantity, type UnitSystem } from "~/optimizer/units";
+
+/** Which unit each quantity of the answer is in, so an API client never guesses. */
+function unitsBlock(system: UnitSystem) {
+  const used = new Set<Quantity>([...Object.values(PROPERTY_QUANTITIES), "density"]);
+  const quantities = Object.fromEntries([...used].map((q) => [q, UNITS[q][system]]));
+  const fields = Object.fromEntries(Object.entries(PROPERTY_QUANTITIES).map(([k, q]) => [k, UNITS[q][system]]));
+  return { system, quantities, fields };
+}
+
+const METHOD_NOT_ALLOWED = () =>
+  Response.json({ error: "use POST with a JSON SectionInput" }, { status: 405, headers: { Allow: "POST" } });
+
+export async function loader() {
+  return METHOD_NOT_ALLOWED();
+}
+
+export async function action({ request }: { request: Request }) {
+  if (request.method !== "POST") return METHOD_NOT_ALLOWED();
+  await requireApiUser(request, "read");
+  const body = await readJson(request, DEFAULT_JSON_LIMIT);
+  if (typeof body !== "object" || body === null || Array.isArray(body)) {
+    return Response.json({ error: "body must be a JSON object (a SectionInput)", issues: [] }, { status: 400 });
+  }
+  const { units: rawUnits, ...input } = body as Record<string, unknown>;
+  if (rawUnits !== undefined && rawUnits !== "si" && rawUnits !== "us") {
+    return Response.json(
+      { error: "invalid request", issues: [{ path: ["units"], field: "units", message: 'units must be "si" or "us"' }] },
+      { status: 400 },
+    );
+  }
+  const units: UnitSystem = rawUnits ?? "si";
+  const parsed = parseSectionInput(input, units);
+  if (!parsed.ok) return Response.json({ error: "invalid section", issues: parsed.errors }, { status: 400 });
+  try {
+    const properties = propertiesIn(sectionProperties(parsed.input), units);
+    return Response.json({ units: unitsBlock(units), properties });
+  } catch (e) {
+    // The engine names the field (e.g. sizes beyond double precision); still the caller's input.
+    if (isEngineInputError(e)) {
+      return Response.json({ error: "invalid section", issues: [{ path: [e.field], field: e.field, message: e.message }] }, { status: 400 });
+    }
+    throw e;
+  }
+}
