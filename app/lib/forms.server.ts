@@ -17,10 +17,11 @@ function plain(status: number, message: string): Response {
   return new Response(message, { status, headers: { "Content-Type": "text/plain; charset=utf-8" } });
 }
 
-/** Reads at most maxBytes of the body, whatever Content-Length claims (it may be absent or lie). */
-async function readCapped(request: Request, maxBytes: number, tooBig: () => Response): Promise<Uint8Array> {
-  const declared = Number(request.headers.get("content-length") ?? "");
-  if (Number.isFinite(declared) && declared > maxBytes) throw tooBig();
+/**
+ * Reads at most maxBytes of the body, whatever Content-Length claims (it may be absent or lie).
+ * On overflow, tooBig gets the bytes read so far, so the message can name the field being sent.
+ */
+async function readCapped(request: Request, maxBytes: number, tooBig: (prefix: Uint8Array) => Response): Promise<Uint8Array> {
   if (!request.body) return new Uint8Array();
   const reader = request.body.getReader();
   const chunks: Uint8Array[] = [];
@@ -29,12 +30,16 @@ async function readCapped(request: Request, maxBytes: number, tooBig: () => Resp
     const { done, value } = await reader.read();
     if (done) break;
     total += value.byteLength;
+    chunks.push(value);
     if (total > maxBytes) {
       await reader.cancel().catch(() => undefined);
-      throw tooBig();
+      throw tooBig(concat(chunks, total));
     }
-    chunks.push(value);
   }
+  return concat(chunks, total);
+}
+
+function concat(chunks: Uint8Array[], total: number): Uint8Array {
   const out = new Uint8Array(total);
   let at = 0;
   for (const c of chunks) {
@@ -44,10 +49,30 @@ async function readCapped(request: Request, maxBytes: number, tooBig: () => Resp
   return out;
 }
 
+/** The form field whose value was being sent when the size limit was hit. */
+function fieldAtCutoff(prefix: Uint8Array, contentType: string): string | null {
+  const text = new TextDecoder("utf-8", { fatal: false }).decode(prefix.subarray(0, Math.min(prefix.byteLength, 4 * 1024 * 1024)));
+  if (contentType.startsWith("multipart/form-data")) {
+    const names = [...text.matchAll(/content-disposition:[^\r\n]*\bname="([^"]{1,100})"/gi)];
+    return names.length ? names[names.length - 1]![1]! : null;
+  }
+  const last = text.slice(text.lastIndexOf("&") + 1);
+  const eq = last.indexOf("=");
+  if (eq <= 0 || eq > 100) return null;
+  try {
+    return decodeURIComponent(last.slice(0, eq).replace(/\+/g, " "));
+  } catch {
+    return null;
+  }
+}
+
 /** The posted form, or a thrown 413/415/400 text Response the error boundary can show. */
 export async function readForm(request: Request, maxBytes = DEFAULT_FORM_LIMIT): Promise<FormData> {
   const type = (request.headers.get("content-type") ?? "").toLowerCase();
-  const bytes = await readCapped(request, maxBytes, () => plain(413, `The form is too large: body over ${kB(maxBytes)}.`));
+  const bytes = await readCapped(request, maxBytes, (prefix) => {
+    const field = fieldAtCutoff(prefix, type);
+    return plain(413, field ? `${field}: too large; the form must stay under ${kB(maxBytes)}.` : `The form is too large: body over ${kB(maxBytes)}.`);
+  });
   if (bytes.byteLength === 0) return new FormData();
   if (!type.startsWith("application/x-www-form-urlencoded") && !type.startsWith("multipart/form-data")) {
     throw plain(415, "The body is not a form: send application/x-www-form-urlencoded or multipart/form-data.");

@@ -1,5 +1,7 @@
 // Shared helpers for integration tests: sign in as a demo role, build requests, call a route
 // module's loader/action directly and read back a uniform { status, location, data } answer.
+import path from "node:path";
+import routes from "~/routes";
 import { db } from "~/lib/db.server";
 import { sessionCookieFor } from "~/lib/session.server";
 import type { Role } from "~/lib/roles";
@@ -124,4 +126,97 @@ export function messageOf(result: RouteResult): string {
     return parts.join(" | ");
   }
   return "";
+}
+
+// ---------------------------------------------------------------- the route table, for the matrix and bad-input tests
+
+
+export interface FlatRoute {
+  /** "/projects/:projectId" for a page or API route; "(layout) routes/app-layout.tsx" for a pathless layout. */
+  key: string;
+  file: string;
+}
+
+interface RouteEntry {
+  path?: string;
+  index?: boolean;
+  file: string;
+  children?: RouteEntry[];
+}
+
+/** Every route of app/routes.ts, with full paths; pathless layouts are listed under their file. */
+export function flattenRoutes(entries: RouteEntry[] = routes as RouteEntry[], parent = ""): FlatRoute[] {
+  const out: FlatRoute[] = [];
+  for (const e of entries) {
+    const full = e.path ? `${parent}/${e.path}`.replace(/\/+/g, "/") : parent;
+    if (e.index) out.push({ key: full || "/", file: e.file });
+    else if (e.path === undefined) out.push({ key: `(layout) ${e.file}`, file: e.file });
+    else out.push({ key: full || "/", file: e.file });
+    if (e.children) out.push(...flattenRoutes(e.children, full));
+  }
+  return out;
+}
+
+export interface RouteModule {
+  loader?: unknown;
+  action?: unknown;
+}
+
+export async function loadRouteModule(file: string): Promise<RouteModule> {
+  return (await import(/* @vite-ignore */ path.resolve("app", file))) as RouteModule;
+}
+
+/** "/projects/:projectId" + { projectId: "7" } → "/projects/7". */
+export function fillPath(pattern: string, params: Record<string, string> = {}): string {
+  return pattern.replace(/:([A-Za-z0-9_]+)\??/g, (_m, name: string) => {
+    const v = params[name];
+    if (v === undefined) throw new Error(`no fixture value for :${name} in ${pattern}`);
+    return encodeURIComponent(v);
+  });
+}
+
+/** Fixture helpers handed to the tables' param functions; `once` makes one fixture per key per run. */
+export class FixtureContext {
+  private cache = new Map<string, Promise<unknown>>();
+  readonly db = db;
+
+  once<T>(key: string, make: () => Promise<T>): Promise<T> {
+    let hit = this.cache.get(key) as Promise<T> | undefined;
+    if (!hit) {
+      hit = make();
+      this.cache.set(key, hit);
+    }
+    return hit;
+  }
+
+  /** The demo team's id. */
+  teamId(): Promise<number> {
+    return this.once("team", async () => (await db("teams").where({ slug: "tallowfield" }).first("id")).id as number);
+  }
+
+  user(role: DemoRole): Promise<DemoUser> {
+    return demoUser(role);
+  }
+
+  /** A second team with one admin, for "no page shows another team's data" rows. */
+  otherTeam(): Promise<{ teamId: number; adminId: number }> {
+    return this.once("otherTeam", async () => {
+      const [teamId] = await db("teams").insert({ name: "Brackwater Steelworks (fixture)", slug: `brackwater-${Date.now()}` });
+      const [adminId] = await db("users").insert({ email: `admin-${Date.now()}@brackwater.example`, name: "Other Admin", password_hash: null });
+      await db("memberships").insert({ team_id: teamId, user_id: adminId, role: "admin" });
+      return { teamId: Number(teamId), adminId: Number(adminId) };
+    });
+  }
+}
+
+/** Row counts of every table (minus bookkeeping), to prove a refused post wrote nothing. */
+export async function tableCounts(): Promise<Record<string, number>> {
+  const [rows] = (await db.raw("SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE'")) as [{ t: string }[]];
+  const skip = new Set(["knex_migrations", "knex_migrations_lock", "login_limits"]);
+  const out: Record<string, number> = {};
+  for (const { t } of rows) {
+    if (skip.has(t)) continue;
+    out[t] = Number((await db(t).count({ n: "*" }).first())!.n);
+  }
+  return out;
 }

@@ -1,0 +1,165 @@
+// Every route of app/routes.ts × every role (and signed out) → the status the server answers.
+// Roles are enforced on the server (product.md), so this calls the loaders and actions directly.
+//
+// TO ADD A ROUTE: add one row to ROWS below (in your block), keyed by the path exactly as
+// routes.ts builds it ("/projects/:projectId"). Give `params` a function that returns fixture ids
+// for parametric paths (use ctx.once so every role sees the same fixture), `get` for the loader,
+// `post` for the action (posted with an EMPTY body — allowed roles should then answer 400, which
+// proves the guard let them through and nothing ran), `api: true` for JSON routes (empty body is
+// "{}"), and `foreign` for params that point at another team's row (every role must get 404).
+// The test fails when a route is missing here, or a row names a route that no longer exists.
+import { afterAll, describe, expect, test } from "vitest";
+import { closeDb, db } from "~/lib/db.server";
+import { hashToken } from "~/lib/auth.server";
+import { can, PERMISSIONS, ROLES, type Role } from "~/lib/roles";
+import { callRoute, FixtureContext, fillPath, flattenRoutes, loadRouteModule, requestAs, type DemoRole } from "./fixtures";
+
+afterAll(() => closeDb());
+
+type Who = Role | "signedOut";
+const WHO: Who[] = [...ROLES, "signedOut"];
+type Expect = Record<Who, number>;
+
+export interface MatrixRow {
+  get?: Expect;
+  post?: Expect;
+  api?: boolean;
+  params?: (ctx: FixtureContext) => Promise<Record<string, string>>;
+  foreign?: (ctx: FixtureContext) => Promise<Record<string, string>>;
+}
+
+/** A signed-in page: given roles' statuses (others 403); signed out is redirected to sign-in. */
+const page = (ok: Partial<Record<Role, number>>, otherwise = 403): Expect => ({
+  admin: ok.admin ?? otherwise,
+  engineer: ok.engineer ?? otherwise,
+  reviewer: ok.reviewer ?? otherwise,
+  viewer: ok.viewer ?? otherwise,
+  signedOut: 302,
+});
+/** Every member gets `status`; signed out → sign-in. */
+const members = (status: number): Expect => page({ admin: status, engineer: status, reviewer: status, viewer: status });
+/** The roles holding a permission get `status`, the rest 403 (one source of truth: roles.ts). */
+const permitted = (permission: (typeof PERMISSIONS)[number], status: number, signedOut = 302): Expect => ({
+  ...Object.fromEntries(ROLES.map((r) => [r, can(r, permission) ? status : 403])),
+  signedOut,
+}) as Expect;
+/** Same status for everyone, signed in or not. */
+const anyone = (status: number): Expect => ({ admin: status, engineer: status, reviewer: status, viewer: status, signedOut: status });
+/** API: like `permitted`, but signed out is a JSON 401, not a redirect. */
+const apiPermitted = (permission: (typeof PERMISSIONS)[number], status: number): Expect => permitted(permission, status, 401);
+
+// Fixture tokens for the e-mailed links, so their pages render as a newcomer would see them.
+async function inviteToken(ctx: FixtureContext): Promise<Record<string, string>> {
+  return ctx.once("inviteToken", async () => {
+    const token = "matrix-invitation-token";
+    await db("invitations").insert({ team_id: await ctx.teamId(), email: "matrix-invitee@example.org", role: "viewer", token_hash: hashToken(token), expires_at: new Date(Date.now() + 3600_000) });
+    return { token };
+  });
+}
+async function resetToken(ctx: FixtureContext): Promise<Record<string, string>> {
+  return ctx.once("resetToken", async () => {
+    const token = "matrix-reset-token";
+    await db("password_resets").insert({ user_id: (await ctx.user("viewer")).id, token_hash: hashToken(token), expires_at: new Date(Date.now() + 3600_000) });
+    return { token };
+  });
+}
+
+export const ROWS: Record<string, MatrixRow> = {
+  // ---- AUTH
+  "/sign-in": { get: { ...anyone(302), signedOut: 200 }, post: anyone(400) },
+  "/sign-out": { get: { ...members(200) } }, // its POST signs the demo user out everywhere: covered in auth.test.ts
+  "/invite/:token": { params: inviteToken, get: anyone(200), post: anyone(400) },
+  "/forgot-password": { get: anyone(200), post: anyone(400) },
+  "/reset-password/:token": { params: resetToken, get: anyone(200), post: anyone(400) },
+  "/healthz": { get: anyone(200) },
+  "(layout) routes/app-layout.tsx": { get: members(200) },
+  "/": { get: members(200) },
+  "/account": { get: members(200), post: members(400) },
+  "/admin": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
+  "/admin/outbox": { get: permitted("manageTeam", 200) },
+
+  // ---- BENCH (add rows here)
+
+  // ---- QUEUE (add rows here)
+
+  // ---- WORKFLOW (add rows here)
+};
+
+const flat = flattenRoutes();
+
+describe("the matrix covers app/routes.ts", () => {
+  test("every route in app/routes.ts has a row", () => {
+    const missing = flat.map((r) => r.key).filter((k) => !(k in ROWS));
+    expect(missing, `add these routes to ROWS in tests/integration/role-matrix.test.ts`).toEqual([]);
+  });
+  test("every row is a route in app/routes.ts", () => {
+    const known = new Set(flat.map((r) => r.key));
+    expect(Object.keys(ROWS).filter((k) => !known.has(k)), "rows for routes that no longer exist").toEqual([]);
+  });
+  test("every action has a post row and every loader a get row", async () => {
+    const gaps: string[] = [];
+    for (const r of flat) {
+      const row = ROWS[r.key];
+      if (!row) continue;
+      const mod = await loadRouteModule(r.file);
+      if (mod.loader && !row.get) gaps.push(`${r.key}: loader without get`);
+      if (!mod.loader && row.get) gaps.push(`${r.key}: get row but no loader`);
+      if (!mod.action && row.post) gaps.push(`${r.key}: post row but no action`);
+      if (mod.action && !row.post && r.key !== "/sign-out") gaps.push(`${r.key}: action without post`);
+    }
+    expect(gaps).toEqual([]);
+  });
+});
+
+const ctx = new FixtureContext();
+const as = (who: Who): DemoRole | null => (who === "signedOut" ? null : who);
+
+for (const r of flat) {
+  const row = ROWS[r.key];
+  if (!row) continue;
+  const routePath = r.key.startsWith("(layout)") ? "/" : r.key;
+  describe(r.key, () => {
+    for (const [method, expected] of [["GET", row.get], ["POST", row.post]] as const) {
+      if (!expected) continue;
+      for (const who of WHO) {
+        test(`${method} as ${who} → ${expected[who]}`, async () => {
+          const mod = await loadRouteModule(r.file);
+          const params = row.params ? await row.params(ctx) : {};
+          const url = fillPath(routePath, params);
+          const init: RequestInit =
+            method === "GET"
+              ? {}
+              : row.api
+                ? { method, body: "{}", headers: { "Content-Type": "application/json" } }
+                : { method, body: new URLSearchParams(), headers: { "Content-Type": "application/x-www-form-urlencoded" } };
+          const res = await callRoute(method === "GET" ? mod.loader : mod.action, await requestAs(as(who), url, init), params);
+          if (res.error) throw res.error;
+          expect(res.status, JSON.stringify(res.data)?.slice(0, 300)).toBe(expected[who]);
+          if (who === "signedOut" && res.status === 302) expect(res.location).toMatch(/^\/sign-in/);
+        });
+      }
+    }
+    if (row.foreign) {
+      for (const who of ROLES) {
+        test(`another team's row as ${who} → 404`, async () => {
+          const mod = await loadRouteModule(r.file);
+          const params = await row.foreign!(ctx);
+          const res = await callRoute(mod.loader ?? mod.action, await requestAs(who, fillPath(routePath, params)), params);
+          if (res.error) throw res.error;
+          expect(res.status).toBe(404);
+        });
+      }
+    }
+  });
+}
+
+describe("roles.ts grants (product.md, People and roles)", () => {
+  test.each([
+    ["admin", PERMISSIONS],
+    ["engineer", ["read", "createProject", "editBrief", "runSweep", "saveOption", "requestReview", "recheck"]],
+    ["reviewer", ["read", "recheck", "review"]],
+    ["viewer", ["read"]],
+  ] as const)("%s may exactly %j", (role, allowed) => {
+    expect(PERMISSIONS.filter((p) => can(role, p))).toEqual([...allowed]);
+  });
+});
