@@ -1,0 +1,114 @@
+// Bad input to every action: an empty post, a 1 MB post, a malformed body and a wrong value must
+// each get a 4xx whose message names the field (or the body), never a 500, and write nothing.
+//
+// TO ADD AN ACTION: add one row to ROWS (in your block), keyed by the path as routes.ts builds it.
+// `as` is a role allowed to post there (so the guard passes and validation is what answers),
+// `field` the field an empty post must name, `malformed` a body with a wrong value and
+// `malformedField` the field its answer must name. `api: true` posts JSON instead of a form.
+// The test fails when a route with an action has no row (list body-less actions in NO_BODY).
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb, db } from "~/lib/db.server";
+import { hashToken } from "~/lib/auth.server";
+import { callRoute, FixtureContext, fillPath, flattenRoutes, loadRouteModule, messageOf, requestAs, tableCounts, type As } from "./fixtures";
+
+afterAll(() => closeDb());
+
+export interface BadInputRow {
+  as: As;
+  field: string;
+  malformed?: Record<string, string> | unknown;
+  malformedField?: string;
+  api?: boolean;
+  params?: (ctx: FixtureContext) => Promise<Record<string, string>>;
+}
+
+/** Actions that take no input at all. */
+const NO_BODY = new Set(["/sign-out"]);
+
+const inviteToken = (ctx: FixtureContext) =>
+  ctx.once("badInviteToken", async () => {
+    const token = "bad-input-invitation-token";
+    await db("invitations").insert({ team_id: await ctx.teamId(), email: "bad-input-invitee@example.org", role: "viewer", token_hash: hashToken(token), expires_at: new Date(Date.now() + 3600_000) });
+    return { token };
+  });
+const resetToken = (ctx: FixtureContext) =>
+  ctx.once("badResetToken", async () => {
+    const token = "bad-input-reset-token";
+    await db("password_resets").insert({ user_id: (await ctx.user("viewer")).id, token_hash: hashToken(token), expires_at: new Date(Date.now() + 3600_000) });
+    return { token };
+  });
+
+export const ROWS: Record<string, BadInputRow> = {
+  // ---- AUTH
+  "/sign-in": { as: null, field: "email", malformed: { email: "not-an-address", password: "x" } },
+  "/invite/:token": { as: null, params: inviteToken, field: "name", malformed: { name: "Ada", password: "short", confirm: "short" }, malformedField: "password" },
+  "/forgot-password": { as: null, field: "email", malformed: { email: "@@" } },
+  "/reset-password/:token": { as: null, params: resetToken, field: "password", malformed: { password: "long enough pass", confirm: "another thing" }, malformedField: "confirm" },
+  "/account": { as: "engineer", field: "intent", malformed: { intent: "revokeToken", tokenId: "twelve" }, malformedField: "tokenId" },
+  "/admin": { as: "admin", field: "intent", malformed: { intent: "invite", email: "new@example.org", role: "overlord" }, malformedField: "role" },
+
+  // ---- BENCH (add rows here)
+
+  // ---- QUEUE (add rows here)
+
+  // ---- WORKFLOW (add rows here)
+};
+
+const ONE_MB = 1024 * 1024;
+const ctx = new FixtureContext();
+const flat = flattenRoutes();
+let withAction: { key: string; file: string }[] = [];
+
+beforeAll(async () => {
+  withAction = [];
+  for (const r of flat) if ((await loadRouteModule(r.file)).action) withAction.push(r);
+});
+
+test("every action has a bad-input row", () => {
+  const missing = withAction.map((r) => r.key).filter((k) => !(k in ROWS) && !NO_BODY.has(k));
+  expect(missing, "add these actions to ROWS in tests/integration/bad-input.test.ts").toEqual([]);
+});
+
+function body(row: BadInputRow, value: Record<string, string> | unknown): RequestInit {
+  if (row.api) return { method: "POST", body: JSON.stringify(value), headers: { "Content-Type": "application/json" } };
+  return { method: "POST", body: new URLSearchParams(value as Record<string, string>), headers: { "Content-Type": "application/x-www-form-urlencoded" } };
+}
+
+for (const r of flat) {
+  const row = ROWS[r.key];
+  if (!row) continue;
+  describe(`POST ${r.key}`, () => {
+    const cases: [string, () => RequestInit, RegExp][] = [
+      ["an empty body", () => (row.api ? body(row, {}) : body(row, {})), new RegExp(`\\b${row.field}\\b`, "i")],
+      [
+        "a 1 MB body",
+        () => body(row, { [row.field]: "x".repeat(ONE_MB) }),
+        row.api ? /body|too large|over/i : new RegExp(`\\b${row.field}\\b.*too large|too large`, "i"),
+      ],
+      [
+        "a malformed body",
+        () =>
+          row.api
+            ? { method: "POST", body: '{"unterminated": ', headers: { "Content-Type": "application/json" } }
+            : { method: "POST", body: "--nope\r\ngarbage without parts", headers: { "Content-Type": "multipart/form-data; boundary=abc" } },
+        /body|form|json/i,
+      ],
+    ];
+    if (row.malformed !== undefined) {
+      cases.push(["a wrong value", () => body(row, row.malformed), new RegExp(`\\b${row.malformedField ?? row.field}\\b`, "i")]);
+    }
+    for (const [label, init, names] of cases) {
+      test(`${label} → 4xx naming it, nothing written`, async () => {
+        const mod = await loadRouteModule(r.file);
+        const params = row.params ? await row.params(ctx) : {};
+        const before = await tableCounts();
+        const res = await callRoute(mod.action, await requestAs(row.as, fillPath(r.key, params), init()), params);
+        if (res.error) throw res.error;
+        expect(res.status, messageOf(res)).toBeGreaterThanOrEqual(400);
+        expect(res.status, messageOf(res)).toBeLessThan(500);
+        expect(messageOf(res)).toMatch(names);
+        expect(await tableCounts()).toEqual(before);
+      });
+    }
+  });
+}
