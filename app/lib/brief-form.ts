@@ -81,6 +81,8 @@ const formFields = z.object({
     .default({}),
 });
 export type BriefFormValues = z.output<typeof formFields>;
+/** The form's shape before parsing (what Conform's field metadata is typed by). */
+export type BriefFormShape = z.input<typeof formFields>;
 
 export interface BriefMeta {
   name: string;
@@ -157,6 +159,8 @@ export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta;
   if (f.memberCount !== undefined) meta.memberCount = f.memberCount;
   return { meta, problem: r.data };
 });
+
+export type BriefParsed = z.output<typeof briefFormSchema>;
 
 /** Rounds a converted value for display so 165 MPa shows as 23.9313 ksi, not 23.931326… */
 export function displayNumber(x: number): number {

@@ -3,6 +3,8 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { briefFormSchema, changedLimits, DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
 import { searchProblemSchema } from "~/optimizer/search-schema";
 
+const errorsOf = (s: unknown) => (s as { error?: Record<string, string[] | null> }).error;
+
 function formData(values: Record<string, unknown>, prefix = ""): FormData {
   const fd = new FormData();
   const walk = (o: unknown, p: string) => {
@@ -39,18 +41,18 @@ describe("brief form ↔ SearchProblem", () => {
     d.families = [];
     const s = parseWithZod(formData(d), { schema: briefFormSchema });
     expect(s.status).toBe("error");
-    expect(s.error?.["depth.max"]).toEqual(["depth.max must be ≥ depth.min"]);
-    expect(s.error?.families?.[0]).toMatch(/at least one family/);
+    expect(errorsOf(s)?.["depth.max"]).toEqual(["depth.max must be ≥ depth.min"]);
+    expect(errorsOf(s)?.families?.[0]).toMatch(/at least one family/);
   });
   it("names text in a number field and a bad thickness", () => {
     const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "B" }) as Record<string, any>;
     d.moment = { sagging: "lots", hogging: 0 };
     const s = parseWithZod(formData(d), { schema: briefFormSchema });
-    expect(s.error?.["moment.sagging"]).toEqual(["moment.sagging must be a number"]);
+    expect(errorsOf(s)?.["moment.sagging"]).toEqual(["moment.sagging must be a number"]);
     d.moment = { sagging: 120, hogging: 0 };
     d.thicknesses = "6, eight";
     const t = parseWithZod(formData(d), { schema: briefFormSchema });
-    expect(t.error?.thicknesses?.[0]).toMatch(/entry 2 \("eight"\) is not a number/);
+    expect(errorsOf(t)?.thicknesses?.[0]).toMatch(/entry 2 \("eight"\) is not a number/);
   });
   it("lists changed limits", () => {
     const b = searchProblemSchema.parse({ ...DEFAULT_PROBLEM, depth: { ...DEFAULT_PROBLEM.depth, max: 350 } });

@@ -1,0 +1,228 @@
+// Options (a candidate saved to its project with a note) and their reviews. State machine:
+// draft → in_review (request) → approved | returned (a reviewer's decision); a returned option
+// may be sent for review again. Each change writes the option, a reviews row and the activity
+// log in one transaction, so no half-recorded decision is possible.
+import { z } from "zod";
+import { db, parseJson } from "~/lib/db.server";
+import { logActivity } from "~/lib/activity.server";
+import { sendEmail } from "~/lib/email.server";
+import { notify } from "~/lib/notifications.server";
+import { notFound } from "~/lib/projects.server";
+import type { SessionUser } from "~/lib/auth.server";
+import { candidateChecks, type CandidateVerdict } from "~/optimizer/checks";
+import type { Family } from "~/optimizer/geometry";
+import type { SearchProblem } from "~/optimizer/search-schema";
+
+export type ReviewState = "draft" | "in_review" | "approved" | "returned";
+
+/** What an option keeps of its candidate: enough to redraw and recheck it without the sweep. */
+export interface SavedCandidate {
+  family: Family;
+  dimensions: Record<string, number>;
+  area: number;
+  massPerMetre: number;
+  utilisation: number;
+  governing: string;
+  rank: number;
+}
+
+export interface OptionRecord {
+  id: number;
+  projectId: number;
+  projectName: string;
+  teamId: number;
+  briefId: number | null;
+  briefName: string | null;
+  sweepId: number | null;
+  candidate: SavedCandidate;
+  problem: SearchProblem;
+  note: string | null;
+  reviewState: ReviewState;
+  createdBy: string | null;
+  createdById: number | null;
+  createdAt: string;
+  units: "si" | "us";
+}
+
+export const saveOptionSchema = z.object({
+  rank: z.coerce.number({ error: "rank must be a whole number" }).int("rank must be a whole number").min(1, "rank must be ≥ 1"),
+  note: z.string().trim().max(2000, "note: at most 2000 characters").optional(),
+});
+
+export const decisionSchema = z
+  .object({
+    decision: z.enum(["approved", "returned"], { error: 'decision must be "approved" or "returned"' }),
+    comment: z.string().trim().max(4000, "comment: at most 4000 characters").optional(),
+  })
+  .refine((d) => d.decision === "approved" || (d.comment ?? "").length > 0, { path: ["comment"], message: "comment: say why the option is returned" });
+
+export class WorkflowError extends Error {
+  constructor(
+    readonly field: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+export async function saveOption(user: SessionUser, sweepId: number, rank: number, note: string | undefined): Promise<number> {
+  const sweep = await db("sweeps").where({ id: sweepId, team_id: user.teamId }).first("id", "project_id", "brief_id", "problem", "status");
+  if (!sweep) throw notFound("No such sweep in your team.");
+  if (!sweep.project_id) throw new WorkflowError("rank", "this sweep belongs to no project, so its candidates cannot be saved as options");
+  const c = await db("candidates").where({ sweep_id: sweepId, rank }).first();
+  if (!c) throw new WorkflowError("rank", `the sweep has no candidate ranked ${rank}`);
+  const candidate: SavedCandidate = {
+    family: c.family,
+    dimensions: parseJson(c.dimensions),
+    area: c.area,
+    massPerMetre: c.mass_per_metre,
+    utilisation: c.utilisation,
+    governing: c.governing,
+    rank: c.rank,
+  };
+  return db.transaction(async (trx) => {
+    const [id] = await trx("options").insert({
+      project_id: sweep.project_id,
+      brief_id: sweep.brief_id,
+      sweep_id: sweepId,
+      candidate: JSON.stringify(candidate),
+      problem: typeof sweep.problem === "string" ? sweep.problem : JSON.stringify(sweep.problem),
+      note: note || null,
+      review_state: "draft",
+      created_by: user.id,
+    });
+    await trx("projects").where({ id: sweep.project_id }).update({ updated_at: trx.fn.now() });
+    await logActivity({ teamId: user.teamId, projectId: sweep.project_id, userId: user.id, action: "option_saved", subjectType: "option", subjectId: Number(id), detail: { sweepId, rank } }, trx);
+    return Number(id);
+  });
+}
+
+export async function getOption(teamId: number, id: number): Promise<OptionRecord> {
+  const row = Number.isSafeInteger(id)
+    ? await db("options as o")
+        .join("projects as p", "p.id", "o.project_id")
+        .leftJoin("briefs as b", "b.id", "o.brief_id")
+        .leftJoin("users as u", "u.id", "o.created_by")
+        .where({ "o.id": id, "p.team_id": teamId })
+        .first("o.*", "p.team_id", "p.name as project_name", "b.name as brief_name", "b.units as brief_units", "u.name as author")
+    : undefined;
+  if (!row) throw notFound("No such option in your team.");
+  return {
+    id: row.id,
+    projectId: row.project_id,
+    projectName: row.project_name,
+    teamId: row.team_id,
+    briefId: row.brief_id,
+    briefName: row.brief_name,
+    sweepId: row.sweep_id,
+    candidate: parseJson(row.candidate),
+    problem: parseJson(row.problem),
+    note: row.note,
+    reviewState: row.review_state,
+    createdBy: row.author,
+    createdById: row.created_by,
+    createdAt: new Date(row.created_at).toISOString(),
+    units: row.brief_units ?? "si",
+  };
+}
+
+/** The engine's own checks of the saved section under a problem (its own, or a recheck's). */
+export function optionVerdict(option: Pick<OptionRecord, "candidate">, problem: SearchProblem): CandidateVerdict {
+  return candidateChecks(option.candidate.family, option.candidate.dimensions, problem);
+}
+
+export async function listReviews(optionId: number) {
+  const rows = await db("reviews as r").leftJoin("users as u", "u.id", "r.user_id").where("r.option_id", optionId).orderBy("r.id").select("r.*", "u.name as user_name");
+  return rows.map((r: Record<string, unknown>) => ({
+    id: r.id as number,
+    decision: r.decision as string,
+    comment: r.comment as string | null,
+    who: (r.user_name as string | null) ?? "someone",
+    at: new Date(r.created_at as string).toISOString(),
+  }));
+}
+
+export async function listProjectOptions(projectId: number) {
+  const rows = await db("options as o").leftJoin("users as u", "u.id", "o.created_by").where("o.project_id", projectId).orderBy("o.id", "desc").select("o.*", "u.name as author");
+  return rows.map((r: Record<string, unknown>) => {
+    const c = parseJson<SavedCandidate>(r.candidate);
+    return {
+      id: r.id as number,
+      family: c.family,
+      dimensions: c.dimensions,
+      massPerMetre: c.massPerMetre,
+      utilisation: c.utilisation,
+      note: r.note as string | null,
+      reviewState: r.review_state as ReviewState,
+      author: r.author as string | null,
+      sweepId: r.sweep_id as number | null,
+    };
+  });
+}
+
+/** Team members who review: reviewers, or the admins when the team has no reviewer. */
+async function reviewersOf(teamId: number): Promise<{ id: number; email: string; name: string }[]> {
+  const q = (role: string) =>
+    db("memberships as m").join("users as u", "u.id", "m.user_id").where({ "m.team_id": teamId, "m.role": role }).whereNull("u.disabled_at").select("u.id", "u.email", "u.name");
+  const reviewers = await q("reviewer");
+  return reviewers.length ? reviewers : q("admin");
+}
+
+export async function requestReview(user: SessionUser, optionId: number, comment: string | undefined, link: (path: string) => string): Promise<void> {
+  const option = await getOption(user.teamId, optionId);
+  if (option.reviewState === "in_review") throw new WorkflowError("form", "this option is already waiting for review");
+  if (option.reviewState === "approved") throw new WorkflowError("form", "this option is already approved");
+  const reviewers = await reviewersOf(user.teamId);
+  const c = option.candidate;
+  const what = `${c.family} ${Object.entries(c.dimensions)
+    .map(([k, v]) => `${k} ${v}`)
+    .join(", ")} mm (${c.massPerMetre.toFixed(1)} kg/m)`;
+  await db.transaction(async (trx) => {
+    await trx("options").where({ id: optionId }).update({ review_state: "in_review", updated_at: trx.fn.now() });
+    await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision: "requested", comment: comment || null });
+    await logActivity({ teamId: user.teamId, projectId: option.projectId, userId: user.id, action: "review_requested", subjectType: "option", subjectId: optionId }, trx);
+    for (const r of reviewers) {
+      if (r.id === user.id) continue;
+      await sendEmail(
+        {
+          teamId: user.teamId,
+          to: r.email,
+          subject: `Review requested: option ${optionId} in ${option.projectName}`,
+          text: `${user.name} asks you to review option ${optionId} (${what}) in project "${option.projectName}".\n\n${comment ? `Note: ${comment}\n\n` : ""}Open it: ${link(`/options/${optionId}`)}\n`,
+        },
+        trx,
+      );
+      await notify(r.id, { title: `Review requested: option ${optionId}`, body: `${user.name}: ${what}`, link: `/options/${optionId}` }, trx);
+    }
+  });
+}
+
+export async function decideReview(user: SessionUser, optionId: number, decision: "approved" | "returned", comment: string | undefined, link: (path: string) => string): Promise<void> {
+  const option = await getOption(user.teamId, optionId);
+  if (option.reviewState !== "in_review") throw new WorkflowError("decision", `only an option waiting for review can be ${decision}; this one is ${option.reviewState.replace("_", " ")}`);
+  await db.transaction(async (trx) => {
+    // Conditional update: two reviewers deciding at once cannot both win.
+    const n = await trx("options").where({ id: optionId, review_state: "in_review" }).update({ review_state: decision, updated_at: trx.fn.now() });
+    if (!n) throw new WorkflowError("decision", "someone else decided this review first");
+    await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision, comment: comment || null });
+    await logActivity({ teamId: user.teamId, projectId: option.projectId, userId: user.id, action: decision === "approved" ? "option_approved" : "option_returned", subjectType: "option", subjectId: optionId, detail: comment ? { comment } : undefined }, trx);
+    if (option.createdById && option.createdById !== user.id) {
+      const author = await trx("users").where({ id: option.createdById }).first("email");
+      const title = `Option ${optionId} ${decision} by ${user.name}`;
+      if (author)
+        await sendEmail({ teamId: user.teamId, to: author.email, subject: title, text: `${title}.\n\n${comment ? `Comment: ${comment}\n\n` : ""}${link(`/options/${optionId}`)}\n` }, trx);
+      await notify(option.createdById, { title, body: comment ?? undefined, link: `/options/${optionId}` }, trx);
+    }
+  });
+}
+
+/** Options waiting for review in the team (the reviewer's dashboard list). */
+export async function optionsAwaitingReview(teamId: number, limit = 20) {
+  return db("options as o")
+    .join("projects as p", "p.id", "o.project_id")
+    .leftJoin("users as u", "u.id", "o.created_by")
+    .where({ "p.team_id": teamId, "o.review_state": "in_review" })
+    .orderBy("o.updated_at")
+    .limit(limit)
+    .select("o.id", "p.name as project", "u.name as author", "o.updated_at");
+}

@@ -1,0 +1,9 @@
+// A project's editable fields: one schema for the form (Conform, in the browser) and the action.
+import { z } from "zod";
+
+export const projectFormSchema = z.object({
+  name: z.string({ error: "name is required" }).trim().min(1, "name is required").max(160, "name: at most 160 characters"),
+  client: z.string().trim().max(160, "client: at most 160 characters").optional(),
+  description: z.string().trim().max(4000, "description: at most 4000 characters").optional(),
+});
+

@@ -1,0 +1,72 @@
+// Rechecks: a sweep's problem rerun with altered limits, linked by recheck_of, and the comparison
+// a reviewer reads: which limits changed, the two bests, the mass difference, and whether each
+// option saved from the original still passes the engine's checks under the new problem.
+import { db, parseJson } from "~/lib/db.server";
+import { logActivity } from "~/lib/activity.server";
+import { changedLimits } from "~/lib/brief-form";
+import { notFound } from "~/lib/projects.server";
+import { optionVerdict, type SavedCandidate } from "~/lib/options.server";
+import type { SessionUser } from "~/lib/auth.server";
+import { enqueueSweep, getTeamSweep, type SweepView } from "~/workers/queue.server";
+import type { SearchProblem } from "~/optimizer/search-schema";
+
+export async function startRecheck(user: SessionUser, originalId: number, problem: SearchProblem): Promise<number> {
+  const original = await getTeamSweep(originalId, user);
+  if (!original) throw notFound("No such sweep in your team.");
+  const { id } = await enqueueSweep({
+    teamId: user.teamId,
+    ownerId: user.id,
+    projectId: original.projectId,
+    briefId: original.briefId,
+    recheckOf: original.id,
+    problem,
+  });
+  await logActivity({ teamId: user.teamId, projectId: original.projectId, userId: user.id, action: "recheck_started", subjectType: "sweep", subjectId: id, detail: { recheckOf: original.id } });
+  return id;
+}
+
+export interface RecheckComparison {
+  original: SweepView;
+  recheck: SweepView;
+  changes: { path: string; before: unknown; after: unknown }[];
+  /** recheck best − original best, kg/m; null unless both found one */
+  massDifference: number | null;
+  options: {
+    id: number;
+    candidate: SavedCandidate;
+    reviewState: string;
+    feasible: boolean;
+    utilisation: number;
+    governing: string;
+    utilisationBefore: number;
+  }[];
+}
+
+/** Compares a recheck with the sweep it rechecks (both must be in the caller's team). */
+export async function compareRecheck(teamId: number, recheckId: number): Promise<RecheckComparison> {
+  const recheck = await getTeamSweep(recheckId, { teamId });
+  if (!recheck || !recheck.recheckOf) throw notFound("No such recheck in your team.");
+  const original = await getTeamSweep(recheck.recheckOf, { teamId });
+  if (!original) throw notFound("The sweep this recheck compares with is gone.");
+  const rows = await db("options").where({ sweep_id: original.id }).select("id", "candidate", "review_state");
+  const options = rows.map((r: Record<string, unknown>) => {
+    const candidate = parseJson<SavedCandidate>(r.candidate);
+    const after = optionVerdict({ candidate }, recheck.problem);
+    return {
+      id: r.id as number,
+      candidate,
+      reviewState: r.review_state as string,
+      feasible: after.feasible,
+      utilisation: after.utilisation,
+      governing: after.governing,
+      utilisationBefore: candidate.utilisation,
+    };
+  });
+  const massDifference = original.best && recheck.best ? recheck.best.massPerMetre - original.best.massPerMetre : null;
+  return { original, recheck, changes: changedLimits(original.problem, recheck.problem), massDifference, options };
+}
+
+/** Rechecks of a sweep, newest first (linked from the sweep page). */
+export async function rechecksOf(sweepId: number) {
+  return db("sweeps").where({ recheck_of: sweepId }).orderBy("id", "desc").select("id", "status", "created_at");
+}

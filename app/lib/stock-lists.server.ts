@@ -1,0 +1,35 @@
+// Stock lists kept for the team: saved only from a CSV that parsed without a single error,
+// list and items in one transaction.
+import { db } from "~/lib/db.server";
+import { logActivity } from "~/lib/activity.server";
+import { stockThicknesses, type StockRow } from "~/lib/stock-csv";
+import type { StockListChoice } from "~/components/BriefEditor";
+
+export async function listStockLists(teamId: number): Promise<(StockListChoice & { items: number; withPrices: boolean })[]> {
+  const lists = await db("stock_lists").where({ team_id: teamId }).orderBy("name").select("id", "name");
+  if (!lists.length) return [];
+  const items = await db("stock_list_items").whereIn("stock_list_id", lists.map((l) => l.id)).select("stock_list_id", "thickness_mm", "price_per_kg");
+  return lists.map((l) => {
+    const mine = items.filter((i) => i.stock_list_id === l.id);
+    return {
+      id: l.id,
+      name: l.name,
+      thicknesses: stockThicknesses(mine.map((i) => ({ thickness: i.thickness_mm }))),
+      items: mine.length,
+      withPrices: mine.some((i) => i.price_per_kg != null),
+    };
+  });
+}
+
+export async function saveStockList(teamId: number, userId: number, name: string, rows: StockRow[]): Promise<number> {
+  return db.transaction(async (trx) => {
+    const [id] = await trx("stock_lists").insert({ team_id: teamId, name, created_by: userId });
+    await trx("stock_list_items").insert(rows.map((r) => ({ stock_list_id: id, thickness_mm: r.thickness, width_mm: r.width, price_per_kg: r.pricePerKg })));
+    await logActivity({ teamId, userId, action: "stock_list_saved", subjectType: "stock_list", subjectId: Number(id), detail: { name, rows: rows.length } }, trx);
+    return Number(id);
+  });
+}
+
+export async function deleteStockList(teamId: number, id: number): Promise<boolean> {
+  return (await db("stock_lists").where({ id, team_id: teamId }).delete()) > 0;
+}

@@ -1,0 +1,46 @@
+import { Link } from "react-router";
+import type { Route } from "./+types/projects.$projectId.briefs.new";
+import { requirePermission } from "~/lib/auth.server";
+import { getProject } from "~/lib/projects.server";
+import { DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
+import { listStockLists } from "~/lib/stock-lists.server";
+import { submitBrief } from "~/lib/brief-actions.server";
+import { BriefEditor } from "~/components/BriefEditor";
+
+export function meta() {
+  return [{ title: "New brief · Sparwise" }];
+}
+
+const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requirePermission(request, "editBrief");
+  const project = await getProject(user.teamId, idParam(params.projectId));
+  const units = new URL(request.url).searchParams.get("units") === "us" ? "us" : "si";
+  return {
+    project: { id: project.id, name: project.name },
+    defaults: problemToFormDefaults(DEFAULT_PROBLEM, { units, name: "" }),
+    stockLists: await listStockLists(user.teamId),
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requirePermission(request, "editBrief");
+  const project = await getProject(user.teamId, idParam(params.projectId));
+  return submitBrief(request, user, { projectId: project.id });
+}
+
+export default function NewBrief({ loaderData, actionData }: Route.ComponentProps) {
+  const { project, defaults, stockLists } = loaderData;
+  return (
+    <div className="space-y-4">
+      <p className="text-sm">
+        <Link to={`/projects/${project.id}`} className="text-accent underline">
+          {project.name}
+        </Link>
+      </p>
+      <h1 className="text-2xl font-bold">New brief</h1>
+      <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} />
+    </div>
+  );
+}
