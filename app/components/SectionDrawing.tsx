@@ -195,17 +195,29 @@ export function SectionDrawing({
             {inclined
               ? (() => {
                   const a = (neutralAxisAngleDeg! * Math.PI) / 180;
-                  const L = Math.hypot(bw, bh) * scale * 0.6 + 12;
                   const cx = X(c.z),
                     cyp = Y(c.y);
                   // screen y points down, so the counter-clockwise angle flips sign
-                  const dx = Math.cos(a) * L,
-                    dy = -Math.sin(a) * L;
+                  const ux = Math.cos(a),
+                    uy = -Math.sin(a);
+                  // as long as the section's diagonal, but kept inside the picture both ways so the label shows
+                  const reach = (p: number, u: number, lo: number, hi: number) => (u > 1e-9 ? (hi - p) / u : u < -1e-9 ? (lo - p) / u : Infinity);
+                  const L = Math.min(
+                    Math.hypot(bw, bh) * scale * 0.6 + 12,
+                    reach(cx, ux, 6, width - 6),
+                    reach(cx, -ux, 6, width - 6),
+                    reach(cyp, uy, 16, height - 6),
+                    reach(cyp, -uy, 16, height - 6),
+                  );
+                  // label the end that is higher on the screen
+                  const sgn = uy <= 0 ? 1 : -1;
+                  const dx = sgn * ux * L,
+                    dy = sgn * uy * L;
                   return (
                     <g data-testid="axis-neutral-inclined">
                       <line x1={cx - dx} y1={cyp - dy} x2={cx + dx} y2={cyp + dy} stroke={CAUTION} strokeWidth={1.4} strokeDasharray="10 3 2 3" />
                       <text x={cx + dx} y={cyp + dy - 4} fontSize={12} fill={CAUTION} textAnchor={dx >= 0 ? "end" : "start"}>
-                        {`N.A. ${neutralAxisAngleDeg!.toFixed(1)}°`}
+                        {`N.A. ${formatQuantity("angle", neutralAxisAngleDeg!, units)}`}
                       </text>
                     </g>
                   );

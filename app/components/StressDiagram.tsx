@@ -123,11 +123,11 @@ export function StressDiagram({
             </text>
           ) : (
             <>
-              <text x={panelW - 10} y={Yp(H / 2) + 4} textAnchor="end" fill={TENSION}>
-                + tension
+              <text x={panelW - 10} y={height - 4} textAnchor="end" fill={TENSION}>
+                tension + →
               </text>
-              <text x={10} y={Yp(H / 2) + 4} fill={COMPRESSION}>
-                − compression
+              <text x={10} y={height - 4} fill={COMPRESSION}>
+                ← − compression
               </text>
             </>
           )}

@@ -254,6 +254,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
               <label className="block text-sm font-semibold">
                 Family
                 <select
+                  name="family"
                   value={state.family}
                   onChange={(e) => update({ family: e.target.value as Family })}
                   className="mt-1 block w-full rounded border border-ink/30 bg-white px-2 py-1 font-normal"
@@ -490,8 +491,8 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
               <p className="sr-only" aria-live="polite">
                 {`Area ${formatQuantity("area", shown.stress.properties.area, units)}, Iz ${formatQuantity("inertia", shown.stress.properties.Iz, units)}.`}
               </p>
-              <div className="grid gap-4 xl:grid-cols-2">
-                <div className="rounded-lg border border-ink/15 bg-white p-3">
+              <div className="grid gap-4">
+                <div className="flex justify-center rounded-lg border border-ink/15 bg-white p-3">
                   <SectionDrawing
                     section={shown.section}
                     properties={shown.stress.properties}
@@ -500,7 +501,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
                   />
                 </div>
                 <div className="rounded-lg border border-ink/15 bg-white p-3">
-                  <StressDiagram result={shown.stress} moment={computed.Mz} shearForce={computed.V} units={units} />
+                  <StressDiagram result={shown.stress} moment={computed.Mz} shearForce={computed.V} units={units} width={640} height={320} />
                 </div>
               </div>
               <div className="rounded-lg border border-ink/15 bg-white p-3">
