@@ -69,25 +69,12 @@ export function ringAbove(r: Float64Array, c: number, oy: number, out: Float64Ar
   const n = r.length;
   let a = 0,
     sy = 0;
+  // first emitted point (fz, fy) and previous one (pz, py); y taken relative to oy
   let fz = 0,
     fy = 0,
     pz = 0,
     py = 0,
     have = false;
-  const emit = (z: number, y: number) => {
-    y -= oy;
-    if (!have) {
-      fz = z;
-      fy = y;
-      have = true;
-    } else {
-      const k = pz * y - z * py;
-      a += k;
-      sy += (py + y) * k;
-    }
-    pz = z;
-    py = y;
-  };
   for (let i = 0; i < n; i += 2) {
     const j = i + 2 === n ? 0 : i + 2;
     const z0 = r[i],
@@ -96,8 +83,30 @@ export function ringAbove(r: Float64Array, c: number, oy: number, out: Float64Ar
       y1 = r[j + 1];
     const in0 = y0 >= c,
       in1 = y1 >= c;
-    if (in0) emit(z0, y0);
-    if (in0 !== in1) emit(z0 + ((c - y0) / (y1 - y0)) * (z1 - z0), c);
+    // emit the vertex if kept, then the crossing point if the edge crosses the line
+    for (let e = 0; e < 2; e++) {
+      let z: number, y: number;
+      if (e === 0) {
+        if (!in0) continue;
+        z = z0;
+        y = y0 - oy;
+      } else {
+        if (in0 === in1) continue;
+        z = z0 + ((c - y0) / (y1 - y0)) * (z1 - z0);
+        y = c - oy;
+      }
+      if (!have) {
+        fz = z;
+        fy = y;
+        have = true;
+      } else {
+        const k = pz * y - z * py;
+        a += k;
+        sy += (py + y) * k;
+      }
+      pz = z;
+      py = y;
+    }
   }
   if (have) {
     const k = pz * fy - fz * py;
@@ -142,10 +151,8 @@ function onSegment(az: number, ay: number, bz: number, by: number, pz: number, p
   return Math.min(az, bz) <= pz && pz <= Math.max(az, bz) && Math.min(ay, by) <= py && py <= Math.max(ay, by);
 }
 
-/** Segments share any point (touching counts). */
-export function segmentsTouch(a: number[], b: number[]): boolean {
-  const [az, ay, bz, by] = a,
-    [cz, cy, dz, dy] = b;
+/** Segments AB and CD share any point (touching counts). */
+export function segmentsTouch(az: number, ay: number, bz: number, by: number, cz: number, cy: number, dz: number, dy: number): boolean {
   const o1 = orient(az, ay, bz, by, cz, cy),
     o2 = orient(az, ay, bz, by, dz, dy),
     o3 = orient(cz, cy, dz, dy, az, ay),
@@ -158,10 +165,8 @@ export function segmentsTouch(a: number[], b: number[]): boolean {
   return false;
 }
 
-/** Segments cross through each other's interiors (a proper crossing); touching does not count. */
-export function segmentsCross(a: number[], b: number[]): boolean {
-  const [az, ay, bz, by] = a,
-    [cz, cy, dz, dy] = b;
+/** Segments AB and CD cross through each other's interiors (a proper crossing); touching does not count. */
+export function segmentsCross(az: number, ay: number, bz: number, by: number, cz: number, cy: number, dz: number, dy: number): boolean {
   const o1 = orient(az, ay, bz, by, cz, cy),
     o2 = orient(az, ay, bz, by, dz, dy),
     o3 = orient(cz, cy, dz, dy, az, ay),
@@ -169,32 +174,28 @@ export function segmentsCross(a: number[], b: number[]): boolean {
   return ((o1 > 0 && o2 < 0) || (o1 < 0 && o2 > 0)) && ((o3 > 0 && o4 < 0) || (o3 < 0 && o4 > 0));
 }
 
-const edge = (r: Float64Array, i: number): number[] => {
-  const j = (i + 1) % (r.length / 2);
-  return [r[2 * i], r[2 * i + 1], r[2 * j], r[2 * j + 1]];
-};
-
-/** First structural defect of a ring, in words, or null. */
+/** First structural defect of a ring, in words, or null. O(n²) pair test, allocation-free. */
 export function ringDefect(r: Float64Array): string | null {
   const n = r.length / 2;
   if (n < 3) return "needs at least 3 points";
+  const nx = (i: number) => (i + 1 === n ? 0 : i + 1);
   for (let i = 0; i < n; i++) {
-    const j = (i + 1) % n;
+    const j = nx(i);
     if (r[2 * i] === r[2 * j] && r[2 * i + 1] === r[2 * j + 1]) return `points[${i}] repeats points[${j}]`;
   }
   for (let i = 0; i < n; i++) {
-    const ei = edge(r, i);
+    const i1 = nx(i);
+    const az = r[2 * i], ay = r[2 * i + 1], bz = r[2 * i1], by = r[2 * i1 + 1];
     for (let k = i + 1; k < n; k++) {
-      const ek = edge(r, k);
-      const adjacent = k === i + 1 || (i === 0 && k === n - 1);
-      if (adjacent) {
-        // Adjacent edges share one vertex; they intersect elsewhere only if they fold back on each other.
-        const [sz, sy] = k === i + 1 ? [ei[2], ei[3]] : [ei[0], ei[1]];
-        const [pz, py] = k === i + 1 ? [ei[0], ei[1]] : [ei[2], ei[3]];
-        const [qz, qy] = k === i + 1 ? [ek[2], ek[3]] : [ek[0], ek[1]];
+      const k1 = nx(k);
+      const cz = r[2 * k], cy = r[2 * k + 1], dz = r[2 * k1], dy = r[2 * k1 + 1];
+      if (k === i + 1 || (i === 0 && k === n - 1)) {
+        // Adjacent edges share one vertex S; they meet elsewhere only if they fold back:
+        // the far ends P, Q collinear with S and on the same side of it.
+        const [sz, sy, pz, py, qz, qy] = k === i + 1 ? [bz, by, az, ay, dz, dy] : [az, ay, bz, by, cz, cy];
         if (orient(sz, sy, pz, py, qz, qy) === 0 && (pz - sz) * (qz - sz) + (py - sy) * (qy - sy) > 0)
           return `edges ${i} and ${k} fold back on each other`;
-      } else if (segmentsTouch(ei, ek)) return `self-intersects (edges ${i} and ${k})`;
+      } else if (segmentsTouch(az, ay, bz, by, cz, cy, dz, dy)) return `self-intersects (edges ${i} and ${k})`;
     }
   }
   if (ringSignedArea(r) === 0) return "has zero area";
@@ -217,23 +218,38 @@ export function pointInRing(r: Float64Array, z: number, y: number): 1 | 0 | -1 {
   return inside ? 1 : -1;
 }
 
-/** Test points of a ring: its vertices and edge midpoints. */
-function probes(r: Float64Array): number[][] {
-  const out: number[][] = [];
-  const n = r.length / 2;
-  for (let i = 0; i < n; i++) {
-    const j = (i + 1) % n;
-    out.push([r[2 * i], r[2 * i + 1]], [(r[2 * i] + r[2 * j]) / 2, (r[2 * i + 1] + r[2 * j + 1]) / 2]);
+/**
+ * Every test point of `a` (its vertices and edge midpoints) classified against `b`:
+ * returns [any strictly inside, any outside, all on the boundary].
+ */
+function probe(a: Float64Array, b: Float64Array): [boolean, boolean, boolean] {
+  let inside = false,
+    outside = false,
+    allOn = true;
+  const n = a.length;
+  for (let i = 0; i < n; i += 2) {
+    const j = i + 2 === n ? 0 : i + 2;
+    for (let e = 0; e < 2; e++) {
+      const z = e === 0 ? a[i] : 0.5 * (a[i] + a[j]),
+        y = e === 0 ? a[i + 1] : 0.5 * (a[i + 1] + a[j + 1]);
+      const w = pointInRing(b, z, y);
+      if (w > 0) inside = true;
+      if (w < 0) outside = true;
+      if (w !== 0) allOn = false;
+    }
   }
-  return out;
+  return [inside, outside, allOn];
 }
 
 function anyCrossing(a: Float64Array, b: Float64Array): boolean {
-  const na = a.length / 2,
-    nb = b.length / 2;
-  for (let i = 0; i < na; i++) {
-    const ea = edge(a, i);
-    for (let k = 0; k < nb; k++) if (segmentsCross(ea, edge(b, k))) return true;
+  const na = a.length,
+    nb = b.length;
+  for (let i = 0; i < na; i += 2) {
+    const i1 = i + 2 === na ? 0 : i + 2;
+    for (let k = 0; k < nb; k += 2) {
+      const k1 = k + 2 === nb ? 0 : k + 2;
+      if (segmentsCross(a[i], a[i + 1], a[i1], a[i1 + 1], b[k], b[k + 1], b[k1], b[k1 + 1])) return true;
+    }
   }
   return false;
 }
@@ -241,14 +257,15 @@ function anyCrossing(a: Float64Array, b: Float64Array): boolean {
 /** inner lies within outer (boundaries may touch). */
 export function ringInside(inner: Float64Array, outer: Float64Array): boolean {
   if (anyCrossing(inner, outer)) return false;
-  return probes(inner).every(([z, y]) => pointInRing(outer, z, y) >= 0);
+  return !probe(inner, outer)[1];
 }
 
 /** The rings' interiors share area (boundaries may touch). */
 export function ringsOverlap(a: Float64Array, b: Float64Array): boolean {
   if (anyCrossing(a, b)) return true;
-  if (probes(a).some(([z, y]) => pointInRing(b, z, y) > 0)) return true;
-  if (probes(b).some(([z, y]) => pointInRing(a, z, y) > 0)) return true;
+  const [aIn, , aAllOn] = probe(a, b);
+  if (aIn) return true;
+  if (probe(b, a)[0]) return true;
   // Same outline traced twice: every probe on the other's boundary.
-  return probes(a).every(([z, y]) => pointInRing(b, z, y) === 0);
+  return aAllOn;
 }

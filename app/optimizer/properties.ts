@@ -12,8 +12,6 @@
 import {
   compositeKernel,
   platePlasticModulus,
-  plateQAbove,
-  plateWidthAt,
   KERNEL_OUT,
   K_AREA,
   K_CY,
@@ -30,7 +28,7 @@ import {
 import { EngineInputError } from "./errors";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
-import { buildShape, shapeAbove, shapeBBox, shapeIntegrals, shapeWidth, transposeShape, type Ring, type Shape } from "./shape";
+import { buildShape, shapeAbove, shapeBBox, shapeBreaks, shapeIntegrals, shapeWidth, transposeShape, type Ring, type Shape } from "./shape";
 import { findInputViolation, pathText, platesOverlapAt } from "./validate";
 
 export type Jmethod = "open-thin-walled" | "closed-bredt" | "polygon-approximate";
@@ -146,13 +144,23 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     maxY = kout[K_MAXY];
   const Zz = platePlasticModulus(buf, n, A, cy);
   const Zy = platePlasticModulus(tbuf, n, A, cz);
-  const Qz = plateQAbove(buf, n, cy, cy);
-  const wa = plateWidthAt(buf, n, cy, 1),
-    wb = plateWidthAt(buf, n, cy, -1);
-  let J = 0;
+  // Qz, the widths either side of the axis and J in one pass (same rules as plateQAbove,
+  // plateWidthAt and torsionConstant's open case; the property tests hold them equal).
+  let Qz = 0,
+    wa = 0,
+    wb = 0,
+    J = 0;
   for (let i = 0; i < n * PLATE_STRIDE; i += PLATE_STRIDE) {
     const b = buf[i],
-      h = buf[i + 1];
+      h = buf[i + 1],
+      bot = buf[i + 3],
+      top = bot + h;
+    if (top > cy) {
+      const lo = bot > cy ? bot : cy;
+      Qz += b * (top - lo) * (0.5 * (top + lo) - cy);
+      if (bot <= cy) wa += b;
+    }
+    if (bot < cy && cy <= top) wb += b;
     J += b > h ? (b * h * h * h) / 3 : (h * b * b * b) / 3;
   }
   return finish(A, cz, cy, Iz, Iy, Iyz, minZ, maxZ, minY, maxY, Zz, Zy, Qz, wa < wb ? wa : wb, J, "open-thin-walled", dens === undefined ? DEFAULT_DENSITY : dens);
@@ -177,8 +185,8 @@ export function shapeProperties(s: Shape, density: number): SectionProperties {
     Iy = acc[I_ZZ],
     Iyz = acc[I_ZY];
   const t = transposeShape(s);
-  const Zz = plasticModulus(s, A, cy, minY, maxY);
-  const Zy = plasticModulus(t, A, cz, minZ, maxZ);
+  const Zz = plasticModulus(s, A, cy);
+  const Zy = plasticModulus(t, A, cz);
   shapeAbove(s, cy, cy, two);
   const Qz = two[1];
   const wa = shapeWidth(s, cy, 1),
@@ -187,17 +195,59 @@ export function shapeProperties(s: Shape, density: number): SectionProperties {
   return finish(A, cz, cy, Iz, Iy, Iyz, minZ, maxZ, minY, maxY, Zz, Zy, Qz, Math.min(wa, wb), J, Jm, density);
 }
 
-/** Z = ∫|y − p| dA = 2·U(p) − A(ȳ − p), U(p) = ∫_{y>p} (y − p) dA, with p the equal-area axis. */
-function plasticModulus(s: Shape, A: number, cbar: number, lo: number, hi: number): number {
+/**
+ * Z = ∫|y − p| dA = 2·U(p) − A(ȳ − p), U(p) = ∫_{y>p} (y − p) dA, with p the equal-area axis.
+ * p is bracketed between consecutive breaks (binary search: area above is non-increasing),
+ * then solved exactly in that band: between breaks the cut width is linear in y, so the area
+ * above is quadratic, fixed by three evaluations. Root fillets break that (arc widths), so
+ * with fillets the band is bisected to machine precision instead.
+ */
+function plasticModulus(s: Shape, A: number, cbar: number): number {
   const half = A / 2;
-  for (let k = 0; k < 200; k++) {
-    const mid = 0.5 * (lo + hi);
-    if (mid <= lo || mid >= hi) break;
-    shapeAbove(s, mid, 0, two);
-    if (two[0] > half) lo = mid;
-    else hi = mid;
+  const br = shapeBreaks(s);
+  const above = (c: number) => {
+    shapeAbove(s, c, 0, two);
+    return two[0];
+  };
+  let i = 0,
+    j = br.length - 1;
+  while (j - i > 1) {
+    const m = (i + j) >> 1;
+    if (above(br[m]) >= half) i = m;
+    else j = m;
   }
-  const p = 0.5 * (lo + hi);
+  const yl = br[i],
+    yh = br[j];
+  let p: number;
+  if (s.fillets.length === 0) {
+    const f0 = above(yl),
+      fm = above(0.5 * (yl + yh)),
+      f1 = above(yh);
+    const C = 2 * (f1 - 2 * fm + f0),
+      B = f1 - f0 - C,
+      c0 = f0 - half;
+    let t: number;
+    if (Math.abs(C) <= 1e-12 * Math.abs(B)) t = B === 0 ? 0.5 : -c0 / B;
+    else {
+      // the root of C·t² + B·t + c0 in [0, 1], in the cancellation-free form
+      const disc = Math.sqrt(Math.max(0, B * B - 4 * C * c0));
+      const q = -0.5 * (B + (B >= 0 ? disc : -disc));
+      const t1 = q / C,
+        t2 = q !== 0 ? c0 / q : t1;
+      t = Math.abs(t1 - 0.5) <= Math.abs(t2 - 0.5) ? t1 : t2;
+    }
+    p = yl + Math.min(1, Math.max(0, t)) * (yh - yl);
+  } else {
+    let lo = yl,
+      hi = yh;
+    for (let k = 0; k < 200; k++) {
+      const mid = 0.5 * (lo + hi);
+      if (mid <= lo || mid >= hi) break;
+      if (above(mid) > half) lo = mid;
+      else hi = mid;
+    }
+    p = 0.5 * (lo + hi);
+  }
   shapeAbove(s, p, p, two);
   return 2 * two[1] - A * (cbar - p);
 }
@@ -283,11 +333,12 @@ function finish(
   if (Math.abs(Iyz) <= NOISE * scale) Iyz = 0;
   const dI = Math.abs(Iz - Iy) <= NOISE * scale ? 0 : Iz - Iy;
   const c = 0.5 * (Iz + Iy),
-    R = Math.hypot(0.5 * dI, Iyz);
+    R = Math.sqrt(0.25 * dI * dI + Iyz * Iyz); // not Math.hypot: several times slower in V8
   // I(θ) about an axis at θ from z (counter-clockwise) = c + (dI/2)·cos2θ − Iyz·sin2θ,
   // largest at 2θ = atan2(−2·Iyz, dI); atan2's range (−π, π] gives θ in (−90°, 90°] as the
-  // contract asks, and 0 for Iz = Iy, Iyz = 0. "+ 0" turns −0 into +0 (else −90°).
-  let angleDeg = (0.5 * Math.atan2(-2 * Iyz + 0, dI) * 180) / Math.PI;
+  // contract asks, and 0 for Iz = Iy, Iyz = 0. Iyz = 0 is decided without atan2 (also
+  // sidesteps atan2(−0, negative) = −π, which would give −90°).
+  let angleDeg = Iyz === 0 ? (dI < 0 ? 90 : 0) : (0.5 * Math.atan2(-2 * Iyz, dI) * 180) / Math.PI;
   if (angleDeg <= -90) angleDeg += 180;
   const top = maxY - cy,
     bottom = cy - minY,
