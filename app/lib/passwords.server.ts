@@ -4,6 +4,7 @@ import { hashPassword, hashToken, MIN_PASSWORD_LENGTH, newToken, normaliseEmail 
 import { appUrl, sendEmail } from "~/lib/email.server";
 import { logActivity } from "~/lib/activity.server";
 import { FieldError } from "~/lib/forms.server";
+import { clientAddress, resetMailAllowed } from "~/lib/rate-limit.server";
 
 export const RESET_TTL_MS = 60 * 60 * 1000; // one hour (issue 2)
 
@@ -34,6 +35,8 @@ export async function requestPasswordReset(request: Request, rawEmail: string): 
     .orderBy("memberships.id")
     .first("users.id", "users.name", "memberships.team_id");
   if (!user || !user.team_id) return;
+  // Over the hourly allowance the answer stays the same; only the e-mail is not sent.
+  if (!(await resetMailAllowed(email, clientAddress(request)))) return;
   const token = newToken();
   await db.transaction(async (trx) => {
     await trx("password_resets").insert({

@@ -9,7 +9,11 @@ export const ACCOUNT_FAILURES = Number(process.env.SIGNIN_ACCOUNT_FAILURES ?? 5)
 export const ADDRESS_FAILURES = Number(process.env.SIGNIN_ADDRESS_FAILURES ?? 20);
 export const WINDOW_SECONDS = 15 * 60;
 
-let limiters: { account: RateLimiterMySQL; address: RateLimiterMySQL; dbName: string } | undefined;
+// Reset e-mails per address and per client per hour: enough for a real user, too few to flood a mailbox.
+export const RESET_MAILS_PER_ADDRESS = 3;
+export const RESET_MAILS_PER_CLIENT = 20;
+
+let limiters: { account: RateLimiterMySQL; address: RateLimiterMySQL; resetTo: RateLimiterMySQL; resetFrom: RateLimiterMySQL; dbName: string } | undefined;
 
 function getLimiters() {
   const dbName = String((getDb().client.config.connection as { database?: string }).database ?? "sparwise");
@@ -19,6 +23,8 @@ function getLimiters() {
       dbName,
       account: new RateLimiterMySQL({ ...common, keyPrefix: "acct", points: ACCOUNT_FAILURES }),
       address: new RateLimiterMySQL({ ...common, keyPrefix: "addr", points: ADDRESS_FAILURES }),
+      resetTo: new RateLimiterMySQL({ ...common, keyPrefix: "rsto", points: RESET_MAILS_PER_ADDRESS, duration: 3600 }),
+      resetFrom: new RateLimiterMySQL({ ...common, keyPrefix: "rsfr", points: RESET_MAILS_PER_CLIENT, duration: 3600 }),
     };
   }
   return limiters;
@@ -68,4 +74,17 @@ export async function recordSignInFailure(email: string, ip: string): Promise<vo
 
 export async function recordSignInSuccess(email: string, _ip: string): Promise<void> {
   await getLimiters().account.delete(key(email));
+}
+
+/** Spends one reset e-mail for the address and the client; false when either is used up this hour. */
+export async function resetMailAllowed(email: string, ip: string): Promise<boolean> {
+  const { resetTo, resetFrom } = getLimiters();
+  try {
+    await resetFrom.consume(key(ip));
+    await resetTo.consume(key(email));
+    return true;
+  } catch (e) {
+    if (e instanceof RateLimiterRes) return false;
+    throw e;
+  }
 }

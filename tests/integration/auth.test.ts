@@ -361,3 +361,17 @@ describe("API tokens", () => {
     expect((await db("api_tokens").where({ id: row.id }).first()).revoked_at).toBeNull();
   });
 });
+
+describe("reset e-mails are rationed", () => {
+  test("at most three reset e-mails per address per hour, with the same answer every time", async () => {
+    const email = "impatient@tallowfield.example";
+    await makeUser(email, "some password here");
+    const answers = [];
+    for (let i = 0; i < 5; i++) {
+      const res = await callRoute(forgot.action, await formPost(null, "/forgot-password", { email }, { "X-Forwarded-For": freshIp() }));
+      answers.push(res.data);
+    }
+    expect(new Set(answers.map((a) => JSON.stringify(a))).size).toBe(1);
+    expect(Number((await db("outbox").where({ to_address: email }).count({ n: "*" }).first())!.n)).toBe(3);
+  });
+});
