@@ -56,7 +56,7 @@ export interface SectionProperties {
 
 /** Every property of one section. Throws EngineInputError naming the field on bad input. */
 export function sectionProperties(input: SectionInput): SectionProperties {
-  const plates = (input as { plates?: unknown }).plates;
+  const plates = typeof input === "object" && input !== null ? (input as { plates?: unknown }).plates : undefined;
   if (Array.isArray(plates)) return platesProperties(input as { plates: PlateObj[]; density?: number });
   const bad = findInputViolation(input);
   if (bad) throw new EngineInputError(pathText(bad.path) || "input", bad.message);

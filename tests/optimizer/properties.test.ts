@@ -203,6 +203,17 @@ describe("root fillet spandrel formulas (fillet.ts) against a finely divided pol
   });
 });
 
+describe("widthAtNeutralAxis edge rule (contract: the smaller of the widths just above and just below)", () => {
+  it("axis exactly on the joint of a 40×10 plate under a 10×20 plate (b₁h₁² = b₂h₂² puts ȳ at 10): width 10", () => {
+    const p = sectionProperties({ plates: [{ b: 40, h: 10, z: 0, y: 0 }, { b: 10, h: 20, z: 15, y: 10 }] });
+    expect(p.centroid.y).toBe(10);
+    expect(p.widthAtNeutralAxis).toBe(10);
+    const q = sectionProperties({ plates: [{ b: 10, h: 20, z: 15, y: 0 }, { b: 40, h: 10, z: 0, y: 20 }] });
+    expect(q.centroid.y).toBe(20);
+    expect(q.widthAtNeutralAxis).toBe(10);
+  });
+});
+
 describe("bad input throws EngineInputError naming the field", () => {
   const cases: [unknown, string, string][] = [
     [{ plates: [{ b: 10, h: 10, z: 0, y: 0 }, { b: 10, h: 10, z: 5, y: 5 }, { b: 10, h: 10, z: 20, y: 0 }] }, "plates[1]", "plates[1] overlaps plates[0]"],
@@ -233,6 +244,10 @@ describe("bad input throws EngineInputError naming the field", () => {
   });
   it("plates touching up to decimal rounding (0.1 + 0.2 ≠ 0.3) are not an overlap", () => {
     expect(sectionProperties({ plates: [{ b: 1, h: 0.2, z: 0, y: 0.1 }, { b: 1, h: 1, z: 0, y: 0.3 }] }).area).toBeCloseTo(1.2, 14);
+  });
+  it("null or a number is an input error, not a crash", () => {
+    expect(() => sectionProperties(null as unknown as SectionInput)).toThrow(EngineInputError);
+    expect(() => sectionProperties(3 as unknown as SectionInput)).toThrow(EngineInputError);
   });
   it("touching plates are fine", () => {
     expect(sectionProperties({ plates: [{ b: 10, h: 10, z: 0, y: 0 }, { b: 10, h: 10, z: 10, y: 0 }] }).area).toBe(200);
