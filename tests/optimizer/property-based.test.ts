@@ -121,6 +121,31 @@ describe("property-based invariants", () => {
     );
   });
 
+  it("root fillets: each adds r²(1 − π/4) of area; flip still swaps Sz and keeps Iz, Zz", () => {
+    const arbRolled = fc
+      .record({
+        family: fc.constantFrom("i" as const, "channel" as const, "tee" as const),
+        d: fc.integer({ min: 100, max: 600 }), b: fc.integer({ min: 60, max: 300 }),
+        tf: fc.integer({ min: 5, max: 25 }), tw: fc.integer({ min: 4, max: 15 }), rf: fc.double({ min: 0.01, max: 1, noNaN: true }),
+      })
+      .filter((x) => x.d > 2 * x.tf + 20 && x.b > x.tw + 20)
+      .map(({ rf, ...x }) => ({ ...x, r: Math.round(rf * 10 * 100) / 100 }));
+    fc.assert(
+      fc.property(arbRolled, (input) => {
+        const p = sectionProperties(input);
+        const bare = sectionProperties({ ...input, r: 0 });
+        const count = input.family === "i" ? 4 : 2;
+        near(p.area - bare.area, count * input.r ** 2 * (1 - Math.PI / 4), p.area, 1e-12);
+        const q = sectionProperties({ ...input, flip: true });
+        near(q.Iz, p.Iz, p.Iz);
+        near(q.Sz.top, p.Sz.bottom, p.Sz.bottom);
+        near(q.Zz, p.Zz, p.Zz, 1e-9);
+        expect(p.Iz).toBeGreaterThan(bare.Iz);
+      }),
+      { numRuns: 150 },
+    );
+  });
+
   it("mirroring about a vertical line negates Iyz and swaps Sy.left/right", () => {
     fc.assert(
       fc.property(arbStack, (ps) => {
