@@ -256,6 +256,11 @@ export function parseSectionInput(raw: unknown, units: UnitSystem): { ok: true; 
   return { ok: false, errors };
 }
 
+/** The message, prefixed with its field when the engine's wording does not name it already. */
+export function describeFieldError(e: FieldError): string {
+  return e.message.includes(e.field) || e.field === "input" ? e.message : `${e.field}: ${e.message}`;
+}
+
 /** Loads as typed → SI numbers; blank moment means 0, blank shear means none. */
 export function benchLoads(s: BenchState): { Mz: number; V: number } | { errors: FieldError[] } {
   const errors: FieldError[] = [];

@@ -3,7 +3,7 @@
 // units; the response's `units` block says which unit each quantity is in.
 import { requireApiUser } from "~/lib/auth.server";
 import { DEFAULT_JSON_LIMIT, readJson } from "~/lib/forms.server";
-import { parseSectionInput } from "~/lib/bench-state";
+import { describeFieldError, parseSectionInput, type FieldError } from "~/lib/bench-state";
 import { isEngineInputError } from "~/optimizer/errors";
 import { sectionProperties } from "~/optimizer/properties";
 import { PROPERTY_QUANTITIES, UNITS, propertiesIn, type Quantity, type UnitSystem } from "~/optimizer/units";
@@ -14,6 +14,11 @@ function unitsBlock(system: UnitSystem) {
   const quantities = Object.fromEntries([...used].map((q) => [q, UNITS[q][system]]));
   const fields = Object.fromEntries(Object.entries(PROPERTY_QUANTITIES).map(([k, q]) => [k, UNITS[q][system]]));
   return { system, quantities, fields };
+}
+
+/** 400 with every issue (path, field, message) and a one-line summary that names the field. */
+function invalid(issues: FieldError[]): Response {
+  return Response.json({ error: `invalid section: ${issues.map(describeFieldError).join("; ")}`, issues }, { status: 400 });
 }
 
 const METHOD_NOT_ALLOWED = () =>
@@ -32,21 +37,18 @@ export async function action({ request }: { request: Request }) {
   }
   const { units: rawUnits, ...input } = body as Record<string, unknown>;
   if (rawUnits !== undefined && rawUnits !== "si" && rawUnits !== "us") {
-    return Response.json(
-      { error: "invalid request", issues: [{ path: ["units"], field: "units", message: 'units must be "si" or "us"' }] },
-      { status: 400 },
-    );
+    return invalid([{ path: ["units"], field: "units", message: 'units must be "si" or "us"' }]);
   }
   const units: UnitSystem = rawUnits ?? "si";
   const parsed = parseSectionInput(input, units);
-  if (!parsed.ok) return Response.json({ error: "invalid section", issues: parsed.errors }, { status: 400 });
+  if (!parsed.ok) return invalid(parsed.errors);
   try {
     const properties = propertiesIn(sectionProperties(parsed.input), units);
     return Response.json({ units: unitsBlock(units), properties });
   } catch (e) {
     // The engine names the field (e.g. sizes beyond double precision); still the caller's input.
     if (isEngineInputError(e)) {
-      return Response.json({ error: "invalid section", issues: [{ path: [e.field], field: e.field, message: e.message }] }, { status: 400 });
+      return invalid([{ path: [e.field], field: e.field, message: e.message }]);
     }
     throw e;
   }

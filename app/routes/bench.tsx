@@ -17,6 +17,7 @@ import {
   benchSectionInput,
   convertBenchState,
   decodeBenchState,
+  describeFieldError,
   encodeBenchState,
   parseBenchState,
   parseSectionInput,
@@ -62,7 +63,7 @@ export async function action({ request }: Route.ActionArgs) {
   if (!state) return badRequest({ state: "The section could not be read: reload the bench and try again." });
   const built = benchSectionInput(state);
   const section = "errors" in built ? { ok: false as const, errors: built.errors } : parseSectionInput(built.input, state.units);
-  if (!section.ok) return badRequest({ section: `Section: ${fieldMessage(section.errors[0]!)}` });
+  if (!section.ok) return badRequest({ section: `Section: ${describeFieldError(section.errors[0]!)}` });
   try {
     sectionProperties(section.input);
   } catch (e) {
@@ -104,10 +105,6 @@ const DIM_WORDS_BY_FAMILY: Partial<Record<Family, Record<string, string>>> = {
   "channel-down": { tw: "web (top plate) thickness", tf: "leg thickness" },
 };
 
-/** The message, prefixed with its field when the engine's wording does not name it already. */
-function fieldMessage(e: FieldError): string {
-  return e.message.includes(e.field) || e.field === "input" ? e.message : `${e.field}: ${e.message}`;
-}
 
 const samePath = (a: (string | number)[], b: (string | number)[]) => a.length === b.length && a.every((k, i) => k === b[i]);
 
@@ -464,7 +461,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
                 <ul className="mt-1 list-disc pl-5">
                   {errors.map((e, i) => (
                     <li key={i} data-field={e.field}>
-                      {fieldMessage(e)}
+                      {describeFieldError(e)}
                     </li>
                   ))}
                 </ul>

@@ -9,6 +9,7 @@
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "~/lib/db.server";
 import { hashToken } from "~/lib/auth.server";
+import { workflowFixture, type WorkflowFixture } from "./workflow-fixtures";
 import { callRoute, FixtureContext, fillPath, flattenRoutes, loadRouteModule, messageOf, requestAs, tableCounts, type As } from "./fixtures";
 
 afterAll(() => closeDb());
@@ -38,6 +39,24 @@ const resetToken = (ctx: FixtureContext) =>
     return { token };
   });
 
+// WORKFLOW: fixtures and a complete, valid brief form to break one field of.
+const wf = (key: keyof WorkflowFixture) => async (ctx: FixtureContext) => ({ [key]: String((await workflowFixture(ctx))[key]) });
+const briefFields: Record<string, string> = {
+  name: "Bad-input brief",
+  units: "si",
+  "moment.sagging": "120",
+  "allowable.tension": "165",
+  "allowable.compression": "165",
+  "depth.min": "100",
+  "depth.max": "400",
+  "depth.step": "10",
+  "width.min": "50",
+  "width.max": "300",
+  "width.step": "10",
+  thicknesses: "6, 8, 10",
+  families: "channel",
+};
+
 export const ROWS: Record<string, BadInputRow> = {
   // ---- AUTH
   "/sign-in": { as: null, field: "email", malformed: { email: "not-an-address", password: "x" } },
@@ -48,10 +67,26 @@ export const ROWS: Record<string, BadInputRow> = {
   "/admin": { as: "admin", field: "intent", malformed: { intent: "invite", email: "new@example.org", role: "overlord" }, malformedField: "role" },
 
   // ---- BENCH (add rows here)
+  "/bench": { as: "engineer", field: "projectId", malformed: { projectId: "1", name: "trial", state: "{not a bench" }, malformedField: "state" },
+  "/api/v1/properties": {
+    as: "engineer",
+    api: true,
+    field: "plates",
+    malformed: { plates: [{ b: 200, h: 20, z: 0, y: 0 }, { b: 10, h: 300, z: 95, y: 10 }] },
+    malformedField: "plates",
+  },
 
   // ---- QUEUE (add rows here)
 
   // ---- WORKFLOW (add rows here)
+  "/projects/new": { as: "engineer", field: "name", malformed: { name: "x".repeat(200) }, malformedField: "name" },
+  "/projects/:projectId": { as: "engineer", params: wf("projectId"), field: "intent", malformed: { intent: "addMember", userId: "someone" }, malformedField: "userId" },
+  "/projects/:projectId/briefs/new": { as: "engineer", params: wf("projectId"), field: "name", malformed: { ...briefFields, "depth.max": "50" }, malformedField: "depth.max" },
+  "/briefs/:briefId": { as: "engineer", params: wf("briefId"), field: "name", malformed: { ...briefFields, "moment.sagging": "lots" }, malformedField: "moment.sagging" },
+  "/sweeps/:sweepId": { as: "engineer", params: wf("sweepId"), field: "intent", malformed: { intent: "saveOption", rank: "first" }, malformedField: "rank" },
+  "/sweeps/:sweepId/recheck": { as: "reviewer", params: wf("sweepId"), field: "name", malformed: { ...briefFields, thicknesses: "6, eight" }, malformedField: "thicknesses" },
+  "/options/:optionId": { as: "reviewer", params: wf("optionId"), field: "intent", malformed: { intent: "decide", decision: "maybe" }, malformedField: "decision" },
+  "/stock-lists": { as: "engineer", field: "intent", malformed: { intent: "save", file: "thickness_mm\n6\nabc\n", name: "Bad" }, malformedField: "file" },
 };
 
 const ONE_MB = 1024 * 1024;

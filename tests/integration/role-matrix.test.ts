@@ -12,6 +12,7 @@ import { afterAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "~/lib/db.server";
 import { hashToken } from "~/lib/auth.server";
 import { can, PERMISSIONS, ROLES, type Role } from "~/lib/roles";
+import { foreignFixture, workflowFixture, type WorkflowFixture } from "./workflow-fixtures";
 import { callRoute, FixtureContext, fillPath, flattenRoutes, loadRouteModule, requestAs, type DemoRole } from "./fixtures";
 
 afterAll(() => closeDb());
@@ -64,6 +65,10 @@ async function resetToken(ctx: FixtureContext): Promise<Record<string, string>> 
   });
 }
 
+// WORKFLOW fixtures: one project/brief/sweep/recheck/option per run (workflow-fixtures.ts).
+const wf = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await workflowFixture(ctx))[key]) });
+const wfForeign = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await foreignFixture(ctx))[key]) });
+
 export const ROWS: Record<string, MatrixRow> = {
   // ---- AUTH
   "/sign-in": { get: { ...anyone(302), signedOut: 200 }, post: anyone(400) },
@@ -79,10 +84,26 @@ export const ROWS: Record<string, MatrixRow> = {
   "/admin/outbox": { get: permitted("manageTeam", 200) },
 
   // ---- BENCH (add rows here)
+  // the bench is for every member; saving to a project needs editBrief (an empty post is a 400)
+  "/bench": { get: members(200), post: permitted("editBrief", 400) },
+  // GET is 405 for anyone (no data); POST "{}" passes the guard and fails validation
+  "/api/v1/properties": { get: anyone(405), post: apiPermitted("read", 400), api: true },
 
   // ---- QUEUE (add rows here)
 
   // ---- WORKFLOW (add rows here)
+  "/projects": { get: members(200) },
+  "/projects/new": { get: permitted("createProject", 200), post: permitted("createProject", 400) },
+  "/projects/:projectId": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200), post: permitted("createProject", 400) },
+  "/projects/:projectId/briefs/new": { params: wf("projectId"), foreign: wfForeign("projectId"), get: permitted("editBrief", 200), post: permitted("editBrief", 400) },
+  "/briefs/:briefId": { params: wf("briefId"), foreign: wfForeign("briefId"), get: members(200), post: permitted("editBrief", 400) },
+  "/sweeps/:sweepId": { params: wf("sweepId"), foreign: wfForeign("sweepId"), get: members(200), post: members(400) },
+  "/sweeps/:sweepId/recheck": { params: wf("sweepId"), foreign: wfForeign("sweepId"), get: permitted("recheck", 200), post: permitted("recheck", 400) },
+  "/sweeps/:sweepId/comparison": { params: wf("recheckId", "sweepId"), foreign: wfForeign("recheckId", "sweepId"), get: members(200) },
+  "/sweeps/:sweepId/candidates.csv": { params: wf("sweepId"), foreign: wfForeign("sweepId"), get: members(200) },
+  "/options/:optionId": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200), post: members(400) },
+  "/options/:optionId/record": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
+  "/stock-lists": { get: members(200), post: permitted("editBrief", 400) },
 };
 
 const flat = flattenRoutes();
