@@ -43,7 +43,7 @@ export function bruteForceSearch(input: SearchProblemInput, options: SearchOptio
         } else t.ruledOut[s.governing]++;
         if (t.evaluated % ABORT_EVERY === 0) {
           checkAbort(options.signal);
-          if (t.evaluated % (ABORT_EVERY * 64) === 0) options.onProgress?.(enumerated, total);
+          if (t.evaluated % (ABORT_EVERY * 16) === 0) options.onProgress?.(enumerated, total);
         }
       }
       enumerated++;

@@ -432,6 +432,7 @@ class FamilySearch {
     // incumbent could never be popped, so it never needs to enter the heap.
     const sd = this.seeds,
       n = sd.size;
+    if (n === 0) return;
     const sample = new Float64Array(Math.min(n, 4096));
     for (let i = 0; i < sample.length; i++) sample[i] = sd.key[Math.floor((i * n) / sample.length)];
     sample.sort();
