@@ -1,0 +1,236 @@
+// The queue module against the real MariaDB, with a runner inside the test process:
+// enqueue/claim/finish, idempotency, the per-user limit, fencing, release, cancel (queued and
+// running), notification.
+import { afterAll, beforeEach, describe, expect, test } from "vitest";
+import { db, closeDb } from "~/lib/db.server";
+import { searchSections } from "~/optimizer";
+import {
+  cancelSweep,
+  candidatesToStore,
+  claimNextSweeps,
+  enqueueSweep,
+  finishSweep,
+  getSweep,
+  heartbeat,
+  listCandidates,
+  releaseSweep,
+} from "~/workers/queue.server";
+import { SweepRunner } from "~/workers/runner.server";
+import { teamAndUser, tinyProblem, waitFor } from "./queue-helpers";
+
+afterAll(() => closeDb());
+
+// Each test starts from an empty queue; no runner from another test is left running.
+beforeEach(async () => {
+  await db("candidates").delete();
+  await db("sweeps").delete();
+});
+
+async function expectResponse(p: Promise<unknown>, status: number, text: RegExp) {
+  const thrown = await p.then(
+    () => null,
+    (e) => e,
+  );
+  expect(thrown).toBeInstanceOf(Response);
+  expect((thrown as Response).status).toBe(status);
+  expect(JSON.stringify(await (thrown as Response).json())).toMatch(text);
+}
+
+describe("enqueue", () => {
+  test("validates the problem with the engine's schema, naming the field; writes nothing", async () => {
+    const u = await teamAndUser();
+    await expectResponse(enqueueSweep({ ...u, problem: { ...tinyProblem(), depth: { min: 300, max: 100, step: 10 } } }), 400, /problem\.depth\.max/);
+    await expectResponse(enqueueSweep({ ...u, problem: "nope" }), 400, /problem/);
+    expect(await db("sweeps").count({ n: "*" }).first()).toEqual({ n: 0 });
+  });
+
+  test("an idempotency key returns the same sweep; reused with another problem is a 409", async () => {
+    const u = await teamAndUser();
+    const a = await enqueueSweep({ ...u, problem: tinyProblem(1), idempotencyKey: "k-1" });
+    const b = await enqueueSweep({ ...u, problem: tinyProblem(1), idempotencyKey: "k-1" });
+    expect(a.created).toBe(true);
+    expect(b).toEqual({ id: a.id, created: false });
+    await expectResponse(enqueueSweep({ ...u, problem: tinyProblem(2), idempotencyKey: "k-1" }), 409, /different request/);
+    // Keys are per owner: another user's same key is a new sweep.
+    const other = await teamAndUser("engineer2@tallowfield.example");
+    const c = await enqueueSweep({ ...other, problem: tinyProblem(1), idempotencyKey: "k-1" });
+    expect(c.created).toBe(true);
+    expect(await db("sweeps").count({ n: "*" }).first()).toEqual({ n: 2 });
+  });
+
+  test("simultaneous requests with one key insert one sweep", async () => {
+    const u = await teamAndUser();
+    const got = await Promise.all(Array.from({ length: 8 }, () => enqueueSweep({ ...u, problem: tinyProblem(3), idempotencyKey: "same" })));
+    expect(new Set(got.map((g) => g.id)).size).toBe(1);
+    expect(got.filter((g) => g.created)).toHaveLength(1);
+  });
+
+  test("the per-user limit on queued sweeps answers 429 with a clear message", async () => {
+    process.env.SPARWISE_MAX_QUEUED_PER_USER = "3";
+    try {
+      const u = await teamAndUser();
+      for (let i = 0; i < 3; i++) await enqueueSweep({ ...u, problem: tinyProblem(i) });
+      await expectResponse(enqueueSweep({ ...u, problem: tinyProblem(9) }), 429, /3 sweeps waiting.*limit is 3/);
+      // Even when asked at the same moment, the limit holds (the owner row is locked).
+      await db("sweeps").delete();
+      const settled = await Promise.allSettled(Array.from({ length: 6 }, (_, i) => enqueueSweep({ ...u, problem: tinyProblem(i) })));
+      expect(settled.filter((s) => s.status === "fulfilled")).toHaveLength(3);
+      // Another user is not affected.
+      const other = await teamAndUser("engineer2@tallowfield.example");
+      await expect(enqueueSweep({ ...other, problem: tinyProblem(0) })).resolves.toMatchObject({ created: true });
+    } finally {
+      delete process.env.SPARWISE_MAX_QUEUED_PER_USER;
+    }
+  });
+});
+
+describe("claim, fencing, finish", () => {
+  test("two claimers never get the same sweep; each claim has its own token", async () => {
+    const u = await teamAndUser();
+    for (let i = 0; i < 6; i++) await enqueueSweep({ ...u, problem: tinyProblem(i) });
+    const [a, b] = await Promise.all([claimNextSweeps("A", 4), claimNextSweeps("B", 4)]);
+    const ids = [...a, ...b].map((c) => c.id);
+    expect(ids).toHaveLength(6);
+    expect(new Set(ids).size).toBe(6);
+    expect(new Set([...a, ...b].map((c) => c.token)).size).toBe(6);
+    const rows = await db("sweeps").select("status", "attempts");
+    expect(rows.every((r) => r.status === "running" && r.attempts === 1)).toBe(true);
+  });
+
+  test("an expired lease is claimed again with a new token; the old token can no longer write", async () => {
+    process.env.SPARWISE_LEASE_MS = "300";
+    try {
+      const u = await teamAndUser();
+      const { id } = await enqueueSweep({ ...u, problem: tinyProblem(4) });
+      const [first] = await claimNextSweeps("A", 1);
+      expect(await heartbeat(first)).toBe(true);
+      await new Promise((r) => setTimeout(r, 400));
+      const [second] = await claimNextSweeps("B", 1);
+      expect(second.id).toBe(id);
+      expect(second.attempt).toBe(2);
+      expect(second.token).not.toBe(first.token);
+      // The stalled first claim: heartbeat, finish and release all match nothing.
+      expect(await heartbeat(first, { done: 1, total: 3 })).toBe(false);
+      const result = searchSections(first.problem);
+      expect(await finishSweep(first, result)).toBe(false);
+      expect(await releaseSweep(first)).toBe(false);
+      expect(await db("candidates").where({ sweep_id: id }).count({ n: "*" }).first()).toEqual({ n: 0 });
+      // The current claim finishes; results carry its attempt number.
+      expect(await finishSweep(second, result)).toBe(true);
+      const s = await getSweep(id);
+      expect(s).toMatchObject({ status: "succeeded", attempts: 2 });
+      const attempts = await db("candidates").where({ sweep_id: id }).distinct("attempt").pluck("attempt");
+      expect(attempts).toEqual([2]);
+      // Finishing twice (a retried final write) changes nothing and duplicates nothing.
+      expect(await finishSweep(second, result)).toBe(false);
+      expect(Number((await db("candidates").where({ sweep_id: id }).count({ n: "*" }).first())!.n)).toBe(candidatesToStore(result, "mass").length);
+    } finally {
+      delete process.env.SPARWISE_LEASE_MS;
+    }
+  });
+
+  test("past max_attempts an expired sweep fails with the error shown; the owner is told", async () => {
+    process.env.SPARWISE_LEASE_MS = "200";
+    process.env.SPARWISE_MAX_ATTEMPTS = "2";
+    try {
+      const u = await teamAndUser();
+      const { id } = await enqueueSweep({ ...u, problem: tinyProblem(5) });
+      const outboxBefore = Number((await db("outbox").count({ n: "*" }).first())!.n);
+      await claimNextSweeps("A", 1);
+      await new Promise((r) => setTimeout(r, 250));
+      await claimNextSweeps("B", 1);
+      await new Promise((r) => setTimeout(r, 250));
+      expect(await claimNextSweeps("C", 1)).toEqual([]);
+      const s = await getSweep(id);
+      expect(s?.status).toBe("failed");
+      expect(s?.error).toMatch(/stopped responding 2 time\(s\).*gave up after 2 attempts/);
+      expect(Number((await db("outbox").count({ n: "*" }).first())!.n)).toBe(outboxBefore + 1);
+      expect(await db("notifications").where({ user_id: u.ownerId, link: `/sweeps/${id}` }).count({ n: "*" }).first()).toEqual({ n: 1 });
+    } finally {
+      delete process.env.SPARWISE_LEASE_MS;
+      delete process.env.SPARWISE_MAX_ATTEMPTS;
+    }
+  });
+
+  test("release hands the sweep back without counting the attempt", async () => {
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: tinyProblem(6) });
+    const [c] = await claimNextSweeps("A", 1);
+    expect(await releaseSweep(c)).toBe(true);
+    expect(await db("sweeps").where({ id }).first("status", "attempts", "lease_token")).toEqual({ status: "queued", attempts: 0, lease_token: null });
+    const [again] = await claimNextSweeps("B", 1);
+    expect(again.attempt).toBe(1);
+  });
+});
+
+describe("runner", () => {
+  test("runs queued sweeps to the engine's answer, stores front and family bests, notifies the owner once", async () => {
+    const u = await teamAndUser();
+    const ids: number[] = [];
+    for (let i = 0; i < 5; i++) ids.push((await enqueueSweep({ ...u, problem: tinyProblem(i * 7) })).id);
+    const runner = new SweepRunner({ workerId: "test-runner", concurrency: 2, log: () => {} }).start();
+    try {
+      await waitFor("all sweeps to succeed", async () => (await db("sweeps").whereIn("id", ids).where({ status: "succeeded" }).count({ n: "*" }).first())!.n === ids.length);
+    } finally {
+      await runner.stop();
+    }
+    for (const [i, id] of ids.entries()) {
+      const expected = searchSections(tinyProblem(i * 7));
+      const s = (await getSweep(id))!;
+      expect(s.best?.dimensions).toEqual(expected.best?.dimensions);
+      expect(s.counts).toEqual(expected.counts);
+      const all = await listCandidates(id, { pageSize: 500 });
+      expect(all.total).toBe(candidatesToStore(expected, "mass").length);
+      expect(all.items[0].dimensions).toEqual(expected.best!.dimensions);
+      expect(all.items.filter((c) => c.onFront)).toHaveLength(expected.front.length);
+      const fam = await listCandidates(id, { family: "tee", pageSize: 500 });
+      expect(fam.items.every((c) => c.family === "tee")).toBe(true);
+      const sorted = await listCandidates(id, { sort: "-utilisation", pageSize: 500 });
+      for (let k = 1; k < sorted.items.length; k++) expect(sorted.items[k - 1].utilisation).toBeGreaterThanOrEqual(sorted.items[k].utilisation);
+      const page2 = await listCandidates(id, { page: 2, pageSize: 2 });
+      expect(page2.items.map((c) => c.rank)).toEqual([3, 4].filter((r) => r <= all.total));
+      expect(await db("notifications").where({ user_id: u.ownerId, link: `/sweeps/${id}` }).count({ n: "*" }).first()).toEqual({ n: 1 });
+      expect(await db("outbox").where("subject", `Sweep ${id} finished`).count({ n: "*" }).first()).toEqual({ n: 1 });
+    }
+  });
+
+  test("cancel while queued ends it at once; the runner never runs it", async () => {
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: tinyProblem(1) });
+    expect(await cancelSweep(id, { id: u.ownerId, teamId: u.teamId, role: "engineer" })).toMatchObject({ status: "cancelled" });
+    const runner = new SweepRunner({ workerId: "test-runner", concurrency: 1, log: () => {} }).start();
+    await new Promise((r) => setTimeout(r, 400));
+    await runner.stop();
+    expect(runner.stats.claimed).toBe(0);
+    expect((await getSweep(id))?.status).toBe("cancelled");
+  });
+
+  test("cancel while running aborts within a second and records cancelled", async () => {
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: tinyProblem(2) });
+    // The test-only delay stands in for a long search (the abort goes through the same signal).
+    const runner = new SweepRunner({ workerId: "test-runner", concurrency: 1, testDelayMs: 60_000, log: () => {} }).start();
+    try {
+      await waitFor("the sweep to run", async () => (await getSweep(id))?.status === "running");
+      const t0 = Date.now();
+      await cancelSweep(id, { id: u.ownerId, teamId: u.teamId, role: "engineer" });
+      await waitFor("cancelled", async () => (await getSweep(id))?.status === "cancelled", 5_000, 20);
+      expect(Date.now() - t0).toBeLessThan(1_000);
+      expect(runner.stats.cancelled).toBe(1);
+    } finally {
+      await runner.stop();
+    }
+  });
+
+  test("cancel rights: another engineer may not, a viewer may not, the team admin may", async () => {
+    const u = await teamAndUser();
+    const other = await teamAndUser("engineer2@tallowfield.example");
+    const viewer = await teamAndUser("viewer@tallowfield.example");
+    const admin = await teamAndUser("admin@tallowfield.example");
+    const { id } = await enqueueSweep({ ...u, problem: tinyProblem(1) });
+    await expectResponse(cancelSweep(id, { id: other.ownerId, teamId: other.teamId, role: "engineer" }), 403, /owner/);
+    await expectResponse(cancelSweep(id, { id: viewer.ownerId, teamId: viewer.teamId, role: "viewer" }), 403, /owner/);
+    await expectResponse(cancelSweep(id, { id: admin.ownerId, teamId: admin.teamId + 999, role: "admin" }), 404, /not found/);
+    expect(await cancelSweep(id, { id: admin.ownerId, teamId: admin.teamId, role: "admin" })).toMatchObject({ status: "cancelled" });
+  });
+});
