@@ -25,6 +25,12 @@ export default [
     route("projects/:projectId", "routes/projects.$projectId.tsx"),
     route("projects/:projectId/briefs/new", "routes/projects.$projectId.briefs.new.tsx"),
     route("briefs/:briefId", "routes/briefs.$briefId.tsx"),
+    route("sweeps/:sweepId", "routes/sweeps.$sweepId.tsx"),
+    route("sweeps/:sweepId/recheck", "routes/sweeps.$sweepId.recheck.tsx"),
+    route("sweeps/:sweepId/comparison", "routes/sweeps.$sweepId.comparison.tsx"),
+    route("options/:optionId", "routes/options.$optionId.tsx"),
+    route("options/:optionId/record", "routes/options.$optionId.record.tsx"),
+    route("stock-lists", "routes/stock-lists.tsx"),
   ]),
 
   // JSON API (session cookie or Authorization: Bearer <token>; guards answer 401/403 JSON).
@@ -36,4 +42,5 @@ export default [
   route("api/v1/sweeps/:id/candidates", "routes/api.v1.sweeps.$id.candidates.ts"),
   route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
   // WORKFLOW api
+  route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
 ] satisfies RouteConfig;

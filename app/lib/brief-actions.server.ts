@@ -10,6 +10,7 @@ import type { SessionUser } from "~/lib/auth.server";
 import { can } from "~/lib/roles";
 import { db } from "~/lib/db.server";
 import { enqueueSweep } from "~/workers/queue.server";
+import { formFailure } from "~/lib/form-reply.server";
 
 /** A queue error Response (JSON { error }) as a plain message for the form. */
 export async function queueErrorMessage(e: unknown): Promise<string | null> {
@@ -26,13 +27,13 @@ export async function submitBrief(request: Request, user: SessionUser, target: {
   const form = await readForm(request);
   const intent = form.get("intent") === "run" ? "run" : "save";
   const submission = parseWithZod(form, { schema: briefFormSchema });
-  if (submission.status !== "success") return { result: submission.reply() };
+  if (submission.status !== "success") return formFailure(submission);
   if (intent === "run" && !can(user.role, "runSweep"))
-    return { result: submission.reply({ formErrors: [`Your role (${user.role}) may save briefs but not run sweeps.`] }) };
+    return formFailure(submission, 403, [`Your role (${user.role}) may save briefs but not run sweeps.`]);
   const { meta, problem } = submission.value;
   if (meta.stockListId) {
     const ok = await db("stock_lists").where({ id: meta.stockListId, team_id: user.teamId }).first("id");
-    if (!ok) return { result: submission.reply({ fieldErrors: { stockListId: ["stockListId: no such stock list in your team"] } }) };
+    if (!ok) return formFailure(submission, 400, ["stockListId: no such stock list in your team"]);
   }
   const briefId = await saveBrief(user.teamId, user.id, target, meta, problem);
   if (intent === "save") throw redirect(`/briefs/${briefId}?saved=1`);
@@ -42,7 +43,7 @@ export async function submitBrief(request: Request, user: SessionUser, target: {
     throw redirect(`/sweeps/${id}`);
   } catch (e) {
     const msg = await queueErrorMessage(e);
-    if (msg) return { result: submission.reply({ formErrors: [`The brief was saved, but the sweep did not start: ${msg}`] }) };
+    if (msg) return formFailure(submission, (e as Response).status, [`The brief was saved, but the sweep did not start: ${msg}`]);
     throw e;
   }
 }

@@ -14,8 +14,10 @@ export function meta() {
 const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const user = await requirePermission(request, "editBrief");
+  // Another team's project is a 404 whatever the role, so look it up before the permission.
+  const user = await requirePermission(request, "read");
   const project = await getProject(user.teamId, idParam(params.projectId));
+  await requirePermission(request, "editBrief");
   const units = new URL(request.url).searchParams.get("units") === "us" ? "us" : "si";
   return {
     project: { id: project.id, name: project.name },

@@ -9,6 +9,7 @@ import { projectFormSchema } from "~/lib/project-form";
 import { listProjectOptions } from "~/lib/options.server";
 import { can } from "~/lib/roles";
 import { ProjectFields } from "~/components/ProjectFields";
+import { formFailure } from "~/lib/form-reply.server";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { formatQuantity } from "~/components/PropertyTable";
 
@@ -49,7 +50,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const intent = String(form.get("intent") ?? "");
   if (intent === "edit") {
     const submission = parseWithZod(form, { schema: projectFormSchema });
-    if (submission.status !== "success") return data({ result: submission.reply(), error: null }, { status: 400 });
+    if (submission.status !== "success") return formFailure(submission);
     await updateProject(user.teamId, user.id, id, submission.value);
     return { result: submission.reply(), error: null };
   }
@@ -93,7 +94,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
           </Link>
         ) : null}
       </div>
-      {actionData?.error ? (
+      {actionData && "error" in actionData && actionData.error ? (
         <p role="alert" className="rounded-md border border-red-800 bg-red-50 px-3 py-2 text-sm font-semibold text-red-900">
           {actionData.error}
         </p>

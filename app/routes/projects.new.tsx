@@ -5,6 +5,7 @@ import { requirePermission } from "~/lib/auth.server";
 import { readForm } from "~/lib/forms.server";
 import { createProject, projectFormSchema } from "~/lib/projects.server";
 import { ProjectFields } from "~/components/ProjectFields";
+import { formFailure } from "~/lib/form-reply.server";
 
 export function meta() {
   return [{ title: "New project · Sparwise" }];
@@ -18,7 +19,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const user = await requirePermission(request, "createProject");
   const submission = parseWithZod(await readForm(request), { schema: projectFormSchema });
-  if (submission.status !== "success") return { result: submission.reply() };
+  if (submission.status !== "success") return formFailure(submission);
   const id = await createProject(user.teamId, user.id, submission.value);
   throw redirect(`/projects/${id}`);
 }

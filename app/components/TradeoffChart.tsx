@@ -1,0 +1,101 @@
+// Mass per metre against utilisation for a sweep's stored candidates: one series per family
+// (colour and marker shape), the front as a line, utilisation = 1 (the allowable limit) as a
+// reference line. Hover shows the section; a click selects it (the table follows).
+import { CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from "recharts";
+import type { Family } from "~/optimizer/geometry";
+import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
+import { FAMILY_STYLE } from "~/components/family-style";
+import { formatNumber } from "~/components/PropertyTable";
+
+export interface ChartCandidate {
+  rank: number;
+  family: string;
+  dimensions: Record<string, number>;
+  massPerMetre: number;
+  utilisation: number;
+  governing: string;
+  onFront: boolean;
+}
+
+interface Point {
+  x: number;
+  y: number;
+  c: ChartCandidate;
+}
+
+export function describeDimensions(dims: Record<string, number>, units: UnitSystem): string {
+  return `${Object.entries(dims)
+    .map(([k, v]) => `${k} ${formatNumber(fromSI("length", v, units))}`)
+    .join(", ")} ${unitLabel("length", units)}`;
+}
+
+function Tip({ active, payload, units }: { active?: boolean; payload?: { payload: Point }[]; units: UnitSystem }) {
+  if (!active || !payload?.length) return null;
+  const { c } = payload[0].payload;
+  if (!c) return null;
+  return (
+    <div className="rounded-md border border-ink/20 bg-white p-2 text-xs shadow">
+      <p className="font-semibold">
+        #{c.rank} {c.family}
+      </p>
+      <p>{describeDimensions(c.dimensions, units)}</p>
+      <p>
+        {formatNumber(fromSI("massPerLength", c.massPerMetre, units))} {unitLabel("massPerLength", units)} · utilisation {c.utilisation.toFixed(3)} ({c.governing})
+      </p>
+    </div>
+  );
+}
+
+export function TradeoffChart({
+  candidates,
+  units,
+  selected,
+  onSelect,
+  height = 380,
+}: {
+  candidates: ChartCandidate[];
+  units: UnitSystem;
+  selected: number | null;
+  onSelect: (rank: number) => void;
+  height?: number;
+}) {
+  const toPoint = (c: ChartCandidate): Point => ({ x: fromSI("massPerLength", c.massPerMetre, units), y: c.utilisation, c });
+  const families = [...new Set(candidates.map((c) => c.family))] as Family[];
+  const front = candidates.filter((c) => c.onFront).map(toPoint).sort((a, b) => a.x - b.x);
+  const sel = candidates.find((c) => c.rank === selected);
+  const massUnit = unitLabel("massPerLength", units);
+  return (
+    <figure className="rounded-lg border border-ink/15 bg-white p-3" aria-label="Trade-off chart: mass per length against utilisation">
+      <ResponsiveContainer width="100%" height={height}>
+        <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
+          <CartesianGrid stroke="#1d273322" />
+          <XAxis type="number" dataKey="x" name="Mass" domain={["auto", "auto"]} label={{ value: `Mass per length (${massUnit})`, position: "bottom", offset: 10 }} tickFormatter={(v: number) => formatNumber(v, 3)} />
+          <YAxis type="number" dataKey="y" name="Utilisation" domain={[0, (max: number) => Math.max(1.05, max)]} label={{ value: "Utilisation", angle: -90, position: "insideLeft" }} tickFormatter={(v: number) => v.toFixed(2)} />
+          <Tooltip content={<Tip units={units} />} />
+          <Legend verticalAlign="top" />
+          <ReferenceLine y={1} stroke="#8a4b00" strokeDasharray="6 4" label={{ value: "allowable limit (utilisation 1)", position: "insideTopRight", fill: "#8a4b00", fontSize: 12 }} />
+          <Scatter name="Front" data={front} line={{ stroke: "#1d2733", strokeWidth: 1.5 }} shape={() => <g />} legendType="line" isAnimationActive={false} />
+          {families.map((f) => (
+            <Scatter
+              key={f}
+              name={f}
+              data={candidates.filter((c) => c.family === f).map(toPoint)}
+              fill={FAMILY_STYLE[f]?.colour ?? "#1d2733"}
+              shape={FAMILY_STYLE[f]?.shape ?? "circle"}
+              isAnimationActive={false}
+              onClick={(p: unknown) => {
+                const c = (p as { payload?: Point })?.payload?.c ?? (p as Point)?.c;
+                if (c) onSelect(c.rank);
+              }}
+              cursor="pointer"
+            />
+          ))}
+          {sel ? <Scatter name="Selected" data={[toPoint(sel)]} fill="none" stroke="#1d2733" strokeWidth={2} shape="circle" legendType="none" isAnimationActive={false} /> : null}
+        </ScatterChart>
+      </ResponsiveContainer>
+      <figcaption className="mt-1 text-xs text-ink/70">
+        Stored candidates: the front (lightest at each utilisation) and each family's lightest. Click a point to select it; the table below lists the same candidates.
+      </figcaption>
+    </figure>
+  );
+}

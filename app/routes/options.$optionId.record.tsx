@@ -1,0 +1,222 @@
+// The calculation record: one printable sheet per option. Every number comes from the engine
+// (record.ts gathers them); the composite-area table is the engine's own compositeTable.
+import { Link } from "react-router";
+import type { Route } from "./+types/options.$optionId.record";
+import { requirePermission } from "~/lib/auth.server";
+import { getOption, listReviews } from "~/lib/options.server";
+import { buildRecord } from "~/lib/record";
+import { Caution } from "~/components/Caution";
+import { SectionDrawing } from "~/components/SectionDrawing";
+import { CheckTable } from "~/components/CheckTable";
+import { BriefSummary } from "~/components/BriefSummary";
+import { PropertyTable, formatNumber } from "~/components/PropertyTable";
+import { fromSI, unitLabel } from "~/optimizer/units";
+
+export function meta({ data }: Route.MetaArgs) {
+  return [{ title: `Calculation record, option ${data?.option.id ?? ""} · Sparwise` }];
+}
+
+const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requirePermission(request, "read");
+  const option = await getOption(user.teamId, idParam(params.optionId));
+  const reviews = await listReviews(option.id);
+  return { option, reviews, team: user.teamName, printedAt: new Date().toISOString() };
+}
+
+export default function RecordPage({ loaderData }: Route.ComponentProps) {
+  const { option, reviews, team, printedAt } = loaderData;
+  const units = option.units;
+  const c = option.candidate;
+  const rec = buildRecord(c.family, c.dimensions, option.problem);
+  const L = unitLabel("length", units),
+    A2 = unitLabel("area", units),
+    A3 = unitLabel("modulus", units),
+    A4 = unitLabel("inertia", units),
+    S = unitLabel("stress", units),
+    MU = unitLabel("moment", units);
+  const n = (q: Parameters<typeof fromSI>[0], x: number) => formatNumber(fromSI(q, x, units), 5);
+  const t = rec.table;
+  const p = rec.properties;
+  // Written-out flexure formula: the moment's unit to force × length of the section's length unit.
+  const MF = units === "si" ? "× 10⁶ N·mm/kN·m" : "× 12 in/ft";
+  const decision = [...reviews].reverse().find((r) => r.decision === "approved" || r.decision === "returned");
+  return (
+    <article className="mx-auto max-w-4xl space-y-6 bg-white p-6 print:max-w-none print:p-0" data-testid="record">
+      <header className="flex flex-wrap items-start justify-between gap-2 border-b border-ink/30 pb-3">
+        <div>
+          <p className="text-sm text-ink/70">
+            {team} · {option.projectName}
+          </p>
+          <h1 className="text-2xl font-bold">Calculation record: option {option.id}</h1>
+          <p className="text-sm">
+            {c.family} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
+            {option.note ? ` · note: ${option.note}` : ""}
+          </p>
+        </div>
+        <div className="no-print flex gap-2">
+          <Link to={`/options/${option.id}`} className="rounded-md border border-ink/30 px-3 py-1.5 text-sm">
+            Back to the option
+          </Link>
+          <button type="button" onClick={() => window.print()} className="rounded-md bg-accent px-3 py-1.5 text-sm font-semibold text-white">
+            Print or save as PDF
+          </button>
+        </div>
+      </header>
+      <Caution />
+
+      <section aria-labelledby="inputs-h" className="break-inside-avoid">
+        <h2 id="inputs-h" className="text-lg font-bold">
+          1. Inputs{option.briefName ? ` (brief “${option.briefName}”)` : ""}
+        </h2>
+        <BriefSummary problem={option.problem} units={units} />
+      </section>
+
+      <section aria-labelledby="section-h" className="grid gap-4 break-inside-avoid sm:grid-cols-2">
+        <div>
+          <h2 id="section-h" className="text-lg font-bold">
+            2. Section
+          </h2>
+          <SectionDrawing section={rec.section} properties={p} units={units} width={340} height={300} />
+        </div>
+        <div>
+          <h3 className="font-semibold">Plates (bottom-left corner z, y; width b; height h)</h3>
+          <table className="w-full border-collapse text-sm tabular-nums">
+            <thead>
+              <tr className="border-b border-ink/30 text-right">
+                <th className="py-1 text-left">Plate</th>
+                <th>b ({L})</th>
+                <th>h ({L})</th>
+                <th>z ({L})</th>
+                <th>y ({L})</th>
+              </tr>
+            </thead>
+            <tbody>
+              {rec.plates.map((pl, i) => (
+                <tr key={i} className="border-b border-ink/10 text-right">
+                  <td className="py-1 text-left">{i + 1}</td>
+                  <td>{n("length", pl.b)}</td>
+                  <td>{n("length", pl.h)}</td>
+                  <td>{n("length", pl.z)}</td>
+                  <td>{n("length", pl.y)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </section>
+
+      <section aria-labelledby="composite-h" className="break-inside-avoid">
+        <h2 id="composite-h" className="text-lg font-bold">
+          3. Centroid and moment of inertia (parallel-axis theorem)
+        </h2>
+        <table className="mt-2 w-full border-collapse text-sm tabular-nums" data-testid="composite-table">
+          <thead>
+            <tr className="border-b border-ink/30 text-right">
+              <th className="py-1 text-left">Plate</th>
+              <th>A ({A2})</th>
+              <th>y ({L})</th>
+              <th>A·y ({A3})</th>
+              <th>I₀ = b·h³/12 ({A4})</th>
+              <th>d = y − ȳ ({L})</th>
+              <th>A·d² ({A4})</th>
+            </tr>
+          </thead>
+          <tbody>
+            {t.rows.map((r, i) => (
+              <tr key={i} className="border-b border-ink/10 text-right">
+                <td className="py-1 text-left">{i + 1}</td>
+                <td>{n("area", r.A)}</td>
+                <td>{n("length", r.yc)}</td>
+                <td>{n("modulus", r.Ayc)}</td>
+                <td>{n("inertia", r.I0)}</td>
+                <td>{n("length", r.d)}</td>
+                <td>{n("inertia", r.Ad2)}</td>
+              </tr>
+            ))}
+            <tr className="border-t-2 border-ink/40 text-right font-semibold">
+              <td className="py-1 text-left">Σ</td>
+              <td>{n("area", t.totals.A)}</td>
+              <td></td>
+              <td>{n("modulus", t.totals.Ayc)}</td>
+              <td>{n("inertia", t.totals.I0)}</td>
+              <td></td>
+              <td>{n("inertia", t.totals.Ad2)}</td>
+            </tr>
+          </tbody>
+        </table>
+        <p className="mt-2 text-sm">
+          ȳ = ΣA·y ÷ ΣA = {n("modulus", t.totals.Ayc)} ÷ {n("area", t.totals.A)} = <strong>{n("length", t.totals.yBar)} {L}</strong> from the bottom edge.
+        </p>
+        <p className="text-sm">
+          Iz = ΣI₀ + ΣA·d² = {n("inertia", t.totals.I0)} + {n("inertia", t.totals.Ad2)} = <strong>{n("inertia", t.totals.Iz)} {A4}</strong>.
+        </p>
+      </section>
+
+      <section aria-labelledby="stress-h" className="break-inside-avoid">
+        <h2 id="stress-h" className="text-lg font-bold">
+          4. Fibre stresses
+        </h2>
+        <p className="text-sm">
+          c_top = {n("length", p.extremes.top)} {L}, c_bottom = {n("length", p.extremes.bottom)} {L}. Tension positive, compression negative.
+        </p>
+        {rec.fibres.map((f) => (
+          <div key={f.case} className="mt-2 text-sm" data-testid={`fibre-${f.case}`}>
+            <p className="font-semibold">
+              {f.case === "sagging" ? "Sagging" : "Hogging"} moment M = {n("moment", f.M)} {MU}
+            </p>
+            {f.symmetric ? (
+              <>
+                <p>
+                  σ_top = {f.case === "sagging" ? "−" : "+"}M·c_top ÷ Iz = {f.case === "sagging" ? "−" : "+"}
+                  {n("moment", f.M)} {MU} {MF} × {n("length", p.extremes.top)} {L} ÷ {n("inertia", p.Iz)} {A4} = <strong>{n("stress", f.top)} {S}</strong>
+                </p>
+                <p>
+                  σ_bottom = {f.case === "sagging" ? "+" : "−"}M·c_bottom ÷ Iz = {f.case === "sagging" ? "+" : "−"}
+                  {n("moment", f.M)} {MU} {MF} × {n("length", p.extremes.bottom)} {L} ÷ {n("inertia", p.Iz)} {A4} = <strong>{n("stress", f.bottom)} {S}</strong>
+                </p>
+              </>
+            ) : (
+              <p>
+                Unsymmetric section (Iyz = {n("inertia", p.Iyz)} {A4}): σ = M·(Iyz·z − Iy·y) ÷ (Iz·Iy − Iyz²) at every corner; largest top {n("stress", f.top)} {S}, bottom {n("stress", f.bottom)} {S}.
+              </p>
+            )}
+          </div>
+        ))}
+      </section>
+
+      <section aria-labelledby="checks-h" className="break-inside-avoid">
+        <h2 id="checks-h" className="text-lg font-bold">
+          5. Checks
+        </h2>
+        <CheckTable verdict={rec.verdict} units={units} />
+        <p className="mt-1 text-sm">
+          Utilisation = demand ÷ capacity; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {rec.verdict.governing}.
+        </p>
+      </section>
+
+      <section aria-labelledby="props-h" className="break-inside-avoid">
+        <h2 id="props-h" className="sr-only">
+          Section properties
+        </h2>
+        <PropertyTable properties={p} units={units} caption="6. Section properties (centroidal axes)" />
+      </section>
+
+      <section aria-labelledby="decision-h" className="break-inside-avoid">
+        <h2 id="decision-h" className="text-lg font-bold">
+          7. Review
+        </h2>
+        <p className="text-sm" data-testid="decision">
+          {decision
+            ? `${decision.decision === "approved" ? "Approved" : "Returned"} by ${decision.who} on ${decision.at.slice(0, 10)}${decision.comment ? `: “${decision.comment}”` : "."}`
+            : option.reviewState === "in_review"
+              ? "Waiting for review."
+              : "Not reviewed."}
+        </p>
+        <p className="mt-2 text-xs text-ink/70">Printed {printedAt.slice(0, 16).replace("T", " ")} UTC from Sparwise.</p>
+      </section>
+      <Caution />
+    </article>
+  );
+}

@@ -1,0 +1,176 @@
+import { Form, Link, data } from "react-router";
+import type { Route } from "./+types/options.$optionId";
+import { requirePermission } from "~/lib/auth.server";
+import { readForm } from "~/lib/forms.server";
+import { appUrl } from "~/lib/email.server";
+import { decideReview, decisionSchema, getOption, listReviews, optionVerdict, requestReview, WorkflowError } from "~/lib/options.server";
+import { can } from "~/lib/roles";
+import { z } from "zod";
+import { Caution } from "~/components/Caution";
+import { CompareCandidates } from "~/components/CompareCandidates";
+import { ReviewBadge } from "~/components/ReviewBadge";
+import { BriefSummary } from "~/components/BriefSummary";
+
+export function meta({ data }: Route.MetaArgs) {
+  return [{ title: `Option ${data?.option.id ?? ""} · Sparwise` }];
+}
+
+const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requirePermission(request, "read");
+  const option = await getOption(user.teamId, idParam(params.optionId));
+  const verdict = optionVerdict(option, option.problem);
+  return {
+    option,
+    feasible: verdict.feasible,
+    reviews: await listReviews(option.id),
+    may: {
+      request: can(user.role, "requestReview") && (option.reviewState === "draft" || option.reviewState === "returned"),
+      review: can(user.role, "review") && option.reviewState === "in_review",
+      recheck: can(user.role, "recheck") && option.sweepId !== null,
+    },
+  };
+}
+
+const requestSchema = z.object({ comment: z.string().trim().max(4000, "comment: at most 4000 characters").optional() });
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requirePermission(request, "read");
+  const id = idParam(params.optionId);
+  await getOption(user.teamId, id);
+  const form = await readForm(request);
+  const intent = String(form.get("intent") ?? "");
+  const link = (path: string) => appUrl(request, path);
+  try {
+    if (intent === "requestReview") {
+      await requirePermission(request, "requestReview");
+      const p = requestSchema.safeParse({ comment: form.get("comment") || undefined });
+      if (!p.success) return data({ errors: { comment: p.error.issues[0].message } }, { status: 400 });
+      await requestReview(user, id, p.data.comment, link);
+      return { errors: null, done: "Review requested; the team's reviewers were e-mailed." };
+    }
+    if (intent === "decide") {
+      await requirePermission(request, "review");
+      const p = decisionSchema.safeParse({ decision: form.get("decision") ?? undefined, comment: form.get("comment") || undefined });
+      if (!p.success) return data({ errors: { [String(p.error.issues[0].path[0] ?? "form")]: p.error.issues[0].message } }, { status: 400 });
+      await decideReview(user, id, p.data.decision, p.data.comment, link);
+      return { errors: null, done: `Option ${p.data.decision}.` };
+    }
+  } catch (e) {
+    if (e instanceof WorkflowError) return data({ errors: { [e.field]: e.message } }, { status: 409 });
+    throw e;
+  }
+  return data({ errors: { intent: `intent: unknown action "${intent.slice(0, 30)}"` } }, { status: 400 });
+}
+
+export default function OptionPage({ loaderData, actionData }: Route.ComponentProps) {
+  const { option, reviews, may, feasible } = loaderData;
+  const errors = (actionData?.errors ?? null) as Record<string, string> | null;
+  const c = option.candidate;
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <p className="text-sm">
+            <Link to={`/projects/${option.projectId}`} className="text-accent underline">
+              {option.projectName}
+            </Link>
+            {option.sweepId ? (
+              <>
+                {" › "}
+                <Link to={`/sweeps/${option.sweepId}`} className="text-accent underline">
+                  sweep {option.sweepId}
+                </Link>
+              </>
+            ) : null}
+          </p>
+          <h1 className="text-2xl font-bold">
+            Option {option.id} <ReviewBadge state={option.reviewState} />
+          </h1>
+          <p className="text-sm text-ink/80">
+            Saved by {option.createdBy ?? "—"} on {option.createdAt.slice(0, 10)}
+            {option.note ? ` · “${option.note}”` : ""}
+          </p>
+        </div>
+        <div className="no-print flex flex-wrap gap-2">
+          <Link to={`/options/${option.id}/record`} className="rounded-md bg-accent px-3 py-1.5 text-sm font-semibold text-white">
+            Calculation record
+          </Link>
+          {may.recheck ? (
+            <Link to={`/sweeps/${option.sweepId}/recheck`} className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold">
+              Recheck with altered limits
+            </Link>
+          ) : null}
+        </div>
+      </div>
+      {actionData && "done" in actionData && actionData.done ? (
+        <p role="status" className="rounded-md border border-accent bg-teal-50 px-3 py-2 text-sm">
+          {actionData.done}
+        </p>
+      ) : null}
+      {errors ? (
+        <p role="alert" className="rounded-md border border-red-800 bg-red-50 px-3 py-2 text-sm font-semibold text-red-900">
+          {Object.values(errors).join("; ")}
+        </p>
+      ) : null}
+      <Caution />
+      {!feasible ? <p className="rounded-md border border-red-800 bg-red-50 p-3 text-sm">This section fails its own brief's checks (the engine may have changed since it was saved). Recheck it.</p> : null}
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <section aria-label="Candidate">
+          <CompareCandidates candidates={[{ rank: c.rank, family: c.family, dimensions: c.dimensions, massPerMetre: c.massPerMetre, utilisation: c.utilisation, governing: c.governing, onFront: false }]} problem={option.problem} units={option.units} />
+        </section>
+        <section aria-labelledby="brief-h" className="space-y-2">
+          <h2 id="brief-h" className="text-lg font-bold">
+            Brief{option.briefName ? `: ${option.briefName}` : ""}
+          </h2>
+          <BriefSummary problem={option.problem} units={option.units} />
+        </section>
+      </div>
+      <section aria-labelledby="review-h" className="space-y-3">
+        <h2 id="review-h" className="text-lg font-bold">
+          Review
+        </h2>
+        {reviews.length ? (
+          <ol className="space-y-1 text-sm" data-testid="reviews">
+            {reviews.map((r) => (
+              <li key={r.id}>
+                <time className="text-ink/60 tabular-nums">{r.at.slice(0, 16).replace("T", " ")}</time> {r.who}: <strong>{r.decision}</strong>
+                {r.comment ? ` — ${r.comment}` : ""}
+              </li>
+            ))}
+          </ol>
+        ) : (
+          <p className="text-sm text-ink/70">No review yet.</p>
+        )}
+        {may.request ? (
+          <Form method="post" className="flex flex-wrap items-end gap-2 text-sm">
+            <input type="hidden" name="intent" value="requestReview" />
+            <label>
+              <span className="block font-semibold">Note to the reviewer (optional)</span>
+              <input name="comment" maxLength={4000} className="w-80 rounded-md border border-ink/30 px-2 py-1" />
+            </label>
+            <button className="rounded-md bg-accent px-3 py-1.5 font-semibold text-white">Request review</button>
+          </Form>
+        ) : null}
+        {may.review ? (
+          <Form method="post" className="space-y-2 text-sm">
+            <input type="hidden" name="intent" value="decide" />
+            <label className="block">
+              <span className="block font-semibold">Comment (required to return)</span>
+              <textarea name="comment" rows={3} maxLength={4000} className="w-full max-w-xl rounded-md border border-ink/30 px-2 py-1" aria-invalid={errors?.comment ? true : undefined} />
+            </label>
+            <div className="flex gap-2">
+              <button name="decision" value="approved" className="rounded-md bg-accent px-3 py-1.5 font-semibold text-white">
+                Approve
+              </button>
+              <button name="decision" value="returned" className="rounded-md border border-red-800 bg-white px-3 py-1.5 font-semibold text-red-800">
+                Return
+              </button>
+            </div>
+          </Form>
+        ) : null}
+      </section>
+    </div>
+  );
+}

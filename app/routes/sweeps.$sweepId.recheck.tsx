@@ -1,0 +1,67 @@
+import { Link, redirect } from "react-router";
+import { parseWithZod } from "@conform-to/zod/v4";
+import type { Route } from "./+types/sweeps.$sweepId.recheck";
+import { requirePermission } from "~/lib/auth.server";
+import { readForm } from "~/lib/forms.server";
+import { briefFormSchema, problemToFormDefaults } from "~/lib/brief-form";
+import { notFound } from "~/lib/projects.server";
+import { listStockLists } from "~/lib/stock-lists.server";
+import { startRecheck } from "~/lib/recheck.server";
+import { queueErrorMessage } from "~/lib/brief-actions.server";
+import { db } from "~/lib/db.server";
+import { getTeamSweep } from "~/workers/queue.server";
+import { BriefEditor } from "~/components/BriefEditor";
+import { formFailure } from "~/lib/form-reply.server";
+import type { UnitSystem } from "~/optimizer/units";
+
+export function meta() {
+  return [{ title: "Recheck · Sparwise" }];
+}
+
+const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  // Another team's sweep is a 404 whatever the role, so look it up before the permission.
+  const user = await requirePermission(request, "read");
+  const sweep = await getTeamSweep(idParam(params.sweepId), user);
+  if (!sweep) throw notFound("No such sweep in your team.");
+  await requirePermission(request, "recheck");
+  const brief = sweep.briefId ? await db("briefs").where({ id: sweep.briefId }).first("name", "units") : null;
+  const units: UnitSystem = brief?.units === "us" ? "us" : "si";
+  const name = `Recheck of sweep ${sweep.id}${brief ? ` (${brief.name})` : ""}`.slice(0, 160);
+  const defaults = problemToFormDefaults(sweep.problem, { units, name });
+  return { sweepId: sweep.id, defaults, original: defaults, stockLists: await listStockLists(user.teamId) };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requirePermission(request, "recheck");
+  const submission = parseWithZod(await readForm(request), { schema: briefFormSchema });
+  if (submission.status !== "success") return formFailure(submission);
+  try {
+    const id = await startRecheck(user, idParam(params.sweepId), submission.value.problem);
+    throw redirect(`/sweeps/${id}`);
+  } catch (e) {
+    const msg = await queueErrorMessage(e);
+    if (msg) return formFailure(submission, (e as Response).status, [`The recheck did not start: ${msg}`]);
+    throw e;
+  }
+}
+
+export default function Recheck({ loaderData, actionData }: Route.ComponentProps) {
+  const { sweepId, defaults, original, stockLists } = loaderData;
+  return (
+    <div className="space-y-4">
+      <p className="text-sm">
+        <Link to={`/sweeps/${sweepId}`} className="text-accent underline">
+          Sweep {sweepId}
+        </Link>
+      </p>
+      <h1 className="text-2xl font-bold">Recheck sweep {sweepId}</h1>
+      <p className="max-w-3xl text-sm">
+        Every value of the original brief is below and editable. Running it starts a new sweep linked to sweep {sweepId}; the original and its brief stay as they were. When it finishes, its
+        page links to the comparison.
+      </p>
+      <BriefEditor defaultValue={defaults} original={original} lastResult={actionData?.result} stockLists={stockLists} allowSave={false} runLabel="Run recheck" />
+    </div>
+  );
+}

@@ -1,0 +1,291 @@
+import { useEffect, useState } from "react";
+import { Form, Link, data, redirect, useRevalidator } from "react-router";
+import { z } from "zod";
+import type { Route } from "./+types/sweeps.$sweepId";
+import { requirePermission } from "~/lib/auth.server";
+import { readForm } from "~/lib/forms.server";
+import { loadSweepPage } from "~/lib/sweep-page.server";
+import { saveOption, saveOptionSchema, WorkflowError } from "~/lib/options.server";
+import { can } from "~/lib/roles";
+import { cancelSweep } from "~/workers/queue.server";
+import { queueErrorMessage } from "~/lib/brief-actions.server";
+import { Caution } from "~/components/Caution";
+import { ProgressBar } from "~/components/ProgressBar";
+import { TradeoffChart, describeDimensions } from "~/components/TradeoffChart";
+import { CandidateTable } from "~/components/CandidateTable";
+import { CompareCandidates } from "~/components/CompareCandidates";
+import { UnitSwitch } from "~/components/UnitSwitch";
+import { ReviewBadge } from "~/components/ReviewBadge";
+import { formatQuantity } from "~/components/PropertyTable";
+import type { UnitSystem } from "~/optimizer/units";
+
+export function meta({ data }: Route.MetaArgs) {
+  return [{ title: `Sweep ${data?.sweep.id ?? ""} · Sparwise` }];
+}
+
+const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requirePermission(request, "read");
+  const page = await loadSweepPage(user.teamId, idParam(params.sweepId));
+  return {
+    ...page,
+    may: {
+      save: can(user.role, "saveOption") && page.project !== null,
+      recheck: can(user.role, "recheck"),
+      cancel: page.sweep.ownerId === user.id || can(user.role, "cancelAnySweep"),
+    },
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requirePermission(request, "read");
+  const id = idParam(params.sweepId);
+  const form = await readForm(request);
+  const intent = String(form.get("intent") ?? "");
+  if (intent === "cancel") {
+    try {
+      await cancelSweep(id, user);
+    } catch (e) {
+      const msg = await queueErrorMessage(e);
+      if (msg) return data({ errors: { form: msg } }, { status: (e as Response).status });
+      throw e;
+    }
+    return { errors: null };
+  }
+  if (intent === "saveOption") {
+    await requirePermission(request, "saveOption");
+    const parsed = saveOptionSchema.safeParse({ rank: form.get("rank") ?? undefined, note: form.get("note") ?? undefined });
+    if (!parsed.success) return data({ errors: { [String(parsed.error.issues[0].path[0] ?? "form")]: parsed.error.issues[0].message } }, { status: 400 });
+    try {
+      const optionId = await saveOption(user, id, parsed.data.rank, parsed.data.note);
+      throw redirect(`/options/${optionId}`);
+    } catch (e) {
+      if (e instanceof WorkflowError) return data({ errors: { [e.field]: e.message } }, { status: 400 });
+      throw e;
+    }
+  }
+  return data({ errors: { intent: `intent: unknown action "${intent.slice(0, 30)}"` } }, { status: 400 });
+}
+
+export default function SweepPage({ loaderData, actionData }: Route.ComponentProps) {
+  const { sweep, candidates, brief, project, rechecks, options, may } = loaderData;
+  const [units, setUnits] = useState<UnitSystem>(loaderData.units);
+  const [selected, setSelected] = useState<number | null>(candidates[0]?.rank ?? null);
+  const [compare, setCompare] = useState<number[]>([]);
+  const [live, setLive] = useState(sweep);
+  const revalidator = useRevalidator();
+  const running = sweep.status === "queued" || sweep.status === "running";
+
+  useEffect(() => setLive(sweep), [sweep]);
+  // Poll the API while the sweep runs; once it ends, reload this route's data (results) in place.
+  useEffect(() => {
+    if (!running) return;
+    let stop = false;
+    const tick = async () => {
+      try {
+        const res = await fetch(`/api/v1/sweeps/${sweep.id}`, { headers: { Accept: "application/json" } });
+        if (res.ok) {
+          const s = await res.json();
+          if (stop) return;
+          setLive((prev) => ({ ...prev, status: s.status, progress: s.progress, elapsedMs: s.elapsedMs, etaMs: s.etaMs }));
+          if (s.status !== "queued" && s.status !== "running") {
+            revalidator.revalidate();
+            return;
+          }
+        }
+      } catch {
+        // a dropped poll is retried on the next tick
+      }
+      if (!stop) timer = setTimeout(tick, 1000);
+    };
+    let timer = setTimeout(tick, 700);
+    return () => {
+      stop = true;
+      clearTimeout(timer);
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [running, sweep.id]);
+
+  const select = (rank: number) => {
+    setSelected(rank);
+    document.querySelector(`tr[data-rank="${rank}"]`)?.scrollIntoView({ block: "nearest" });
+  };
+  const sel = candidates.find((c) => c.rank === selected) ?? null;
+  const compared = compare.map((r) => candidates.find((c) => c.rank === r)).filter((c): c is (typeof candidates)[number] => Boolean(c));
+  const errors = actionData?.errors as Record<string, string> | null | undefined;
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <p className="text-sm">
+            {project ? (
+              <Link to={`/projects/${project.id}`} className="text-accent underline">
+                {project.name}
+              </Link>
+            ) : null}
+            {brief ? (
+              <>
+                {" › "}
+                <Link to={`/briefs/${brief.id}`} className="text-accent underline">
+                  {brief.name}
+                </Link>
+              </>
+            ) : null}
+          </p>
+          <h1 className="text-2xl font-bold">
+            Sweep {sweep.id} <span className="text-base font-normal text-ink/70">({live.status})</span>
+          </h1>
+          {sweep.recheckOf ? (
+            <p className="text-sm">
+              Recheck of{" "}
+              <Link to={`/sweeps/${sweep.recheckOf}`} className="text-accent underline">
+                sweep {sweep.recheckOf}
+              </Link>{" "}
+              ·{" "}
+              <Link to={`/sweeps/${sweep.id}/comparison`} className="font-semibold text-accent underline">
+                compare with the original
+              </Link>
+            </p>
+          ) : null}
+        </div>
+        <div className="flex flex-wrap items-center gap-3">
+          <UnitSwitch value={units} onChange={setUnits} name="view-units" />
+          {may.recheck && sweep.status === "succeeded" ? (
+            <Link to={`/sweeps/${sweep.id}/recheck`} className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold">
+              Recheck with altered limits
+            </Link>
+          ) : null}
+        </div>
+      </div>
+      {errors?.form || errors?.intent ? (
+        <p role="alert" className="rounded-md border border-red-800 bg-red-50 px-3 py-2 text-sm font-semibold text-red-900">
+          {errors.form ?? errors.intent}
+        </p>
+      ) : null}
+
+      {running ? (
+        <section className="space-y-2 rounded-lg border border-ink/15 bg-white p-4" aria-label="Progress">
+          <ProgressBar done={live.progress.done} total={live.progress.total} elapsedMs={live.elapsedMs} etaMs={live.etaMs} status={live.status} />
+          {may.cancel ? (
+            <Form method="post">
+              <input type="hidden" name="intent" value="cancel" />
+              <button className="rounded-md border border-red-800 bg-white px-3 py-1 text-sm font-semibold text-red-800" disabled={sweep.cancelRequested}>
+                {sweep.cancelRequested ? "Cancelling…" : "Cancel sweep"}
+              </button>
+            </Form>
+          ) : null}
+        </section>
+      ) : null}
+      {sweep.status === "failed" ? <p className="rounded-md border border-red-800 bg-red-50 p-3 text-sm">The sweep failed: {sweep.error}</p> : null}
+      {sweep.status === "cancelled" ? <p className="rounded-md border border-ink/30 bg-white p-3 text-sm">The sweep was cancelled. {sweep.reason}</p> : null}
+
+      {sweep.status === "succeeded" ? (
+        <>
+          <section aria-label="Summary" className="rounded-lg border border-ink/15 bg-white p-4 text-sm">
+            {sweep.best ? (
+              <p data-testid="best">
+                <strong>Lightest section:</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
+                {sweep.best.utilisation.toFixed(3)} ({sweep.best.governing}).
+              </p>
+            ) : (
+              <p>
+                <strong>No feasible section.</strong> {sweep.reason}
+              </p>
+            )}
+            {sweep.counts ? (
+              <p className="mt-1 text-ink/80 tabular-nums">
+                Grid {sweep.counts.grid.toLocaleString("en")} shapes · evaluated {sweep.counts.evaluated.toLocaleString("en")} · feasible among them {sweep.counts.feasible.toLocaleString("en")} · stored {candidates.length} · time{" "}
+                {sweep.elapsedMs !== null ? `${(sweep.elapsedMs / 1000).toFixed(1)} s` : "—"}
+              </p>
+            ) : null}
+            <p className="mt-1">
+              <a href={`/sweeps/${sweep.id}/candidates.csv`} className="text-accent underline" download>
+                Download candidates (CSV, SI units)
+              </a>
+              {rechecks.length ? (
+                <>
+                  {" · Rechecks: "}
+                  {rechecks.map((r, i) => (
+                    <span key={r.id}>
+                      {i ? ", " : ""}
+                      <Link to={`/sweeps/${r.id}/comparison`} className="text-accent underline">
+                        sweep {r.id}
+                      </Link>{" "}
+                      ({r.status})
+                    </span>
+                  ))}
+                </>
+              ) : null}
+              {options.length ? (
+                <>
+                  {" · Options saved: "}
+                  {options.map((o, i) => (
+                    <span key={o.id}>
+                      {i ? ", " : ""}
+                      <Link to={`/options/${o.id}`} className="text-accent underline">
+                        option {o.id} (#{o.rank})
+                      </Link>{" "}
+                      <ReviewBadge state={o.reviewState} />
+                    </span>
+                  ))}
+                </>
+              ) : null}
+            </p>
+          </section>
+          <Caution />
+          {candidates.length ? (
+            <>
+              <section aria-labelledby="chart-h" className="space-y-2">
+                <h2 id="chart-h" className="text-lg font-bold">
+                  Weight against stress
+                </h2>
+                <TradeoffChart candidates={candidates} units={units} selected={selected} onSelect={select} />
+              </section>
+              {sel ? (
+                <section aria-label="Selected candidate" className="flex flex-wrap items-end gap-3 rounded-lg border border-accent bg-white p-3 text-sm" data-testid="selected">
+                  <p className="flex-1">
+                    Selected <strong>#{sel.rank}</strong> {sel.family} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({sel.governing})
+                  </p>
+                  <button
+                    type="button"
+                    className="rounded-md border border-ink/30 bg-white px-3 py-1 font-semibold disabled:opacity-50"
+                    disabled={compare.includes(sel.rank) || compare.length >= 4}
+                    onClick={() => setCompare([...compare, sel.rank])}
+                  >
+                    Add to comparison
+                  </button>
+                  {may.save ? (
+                    <Form method="post" className="flex flex-wrap items-end gap-2">
+                      <input type="hidden" name="intent" value="saveOption" />
+                      <input type="hidden" name="rank" value={sel.rank} />
+                      <label className="block">
+                        <span className="block font-semibold">Note</span>
+                        <input name="note" maxLength={2000} className="w-64 rounded-md border border-ink/30 px-2 py-1" placeholder="why this one" />
+                      </label>
+                      <button className="rounded-md bg-accent px-3 py-1.5 font-semibold text-white">Save as option</button>
+                    </Form>
+                  ) : null}
+                  {errors?.rank || errors?.note ? <p className="w-full font-semibold text-red-800">{errors.rank ?? errors.note}</p> : null}
+                </section>
+              ) : null}
+              <section aria-labelledby="table-h" className="space-y-2">
+                <h2 id="table-h" className="text-lg font-bold">
+                  Candidates
+                </h2>
+                <CandidateTable candidates={candidates} units={units} selected={selected} onSelect={select} compare={compare} onCompare={setCompare} />
+              </section>
+              <section aria-labelledby="compare-h" className="space-y-2">
+                <h2 id="compare-h" className="text-lg font-bold">
+                  Comparison
+                </h2>
+                <CompareCandidates candidates={compared} problem={sweep.problem} units={units} onRemove={(r) => setCompare(compare.filter((x) => x !== r))} />
+              </section>
+            </>
+          ) : null}
+        </>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,69 @@
+// One project with a brief, a finished sweep (real engine results), a recheck of it and a saved
+// option, made once per run for the role-matrix, bad-input and workflow tests.
+import { db, parseJson } from "~/lib/db.server";
+import { recordFinishedSweep } from "~/lib/finished-sweep.server";
+import type { SearchProblemInput } from "~/optimizer";
+import type { FixtureContext } from "./fixtures";
+
+/** The engine contract's example problem, channels only, on a coarse grid (runs in milliseconds). */
+export const CHANNEL_PROBLEM: SearchProblemInput = {
+  moment: { sagging: 120, hogging: 0 },
+  shear: 80,
+  allowable: { tension: 165, compression: 165, shear: 100 },
+  depth: { min: 100, max: 400, step: 20 },
+  width: { min: 50, max: 300, step: 25 },
+  thicknesses: [6, 8, 10, 12, 15, 20, 25],
+  families: ["channel", "i"],
+  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
+};
+
+export interface WorkflowFixture {
+  projectId: number;
+  briefId: number;
+  sweepId: number;
+  recheckId: number;
+  optionId: number;
+}
+
+export function workflowFixture(ctx: FixtureContext): Promise<WorkflowFixture> {
+  return ctx.once("workflow", async () => {
+    const teamId = await ctx.teamId();
+    const engineer = await ctx.user("engineer");
+    const [projectId] = await db("projects").insert({ team_id: teamId, name: "Fixture warehouse mezzanine", created_by: engineer.id });
+    const [briefId] = await db("briefs").insert({ project_id: projectId, name: "Fixture floor beam", problem: JSON.stringify(CHANNEL_PROBLEM), units: "si", created_by: engineer.id });
+    const sweepId = await recordFinishedSweep(db, { teamId, ownerId: engineer.id, projectId: Number(projectId), briefId: Number(briefId), problem: CHANNEL_PROBLEM });
+    const reviewer = await ctx.user("reviewer");
+    const recheckId = await recordFinishedSweep(db, {
+      teamId,
+      ownerId: reviewer.id,
+      projectId: Number(projectId),
+      briefId: Number(briefId),
+      recheckOf: sweepId,
+      problem: { ...CHANNEL_PROBLEM, allowable: { tension: 140, compression: 140, shear: 100 } },
+    });
+    const c = await db("candidates").where({ sweep_id: sweepId, rank: 1 }).first();
+    const [optionId] = await db("options").insert({
+      project_id: projectId,
+      brief_id: briefId,
+      sweep_id: sweepId,
+      candidate: JSON.stringify({ family: c.family, dimensions: parseJson(c.dimensions), area: c.area, massPerMetre: c.mass_per_metre, utilisation: c.utilisation, governing: c.governing, rank: 1 }),
+      problem: JSON.stringify(parseJson((await db("sweeps").where({ id: sweepId }).first("problem")).problem)),
+      review_state: "draft",
+      created_by: engineer.id,
+    });
+    return { projectId: Number(projectId), briefId: Number(briefId), sweepId, recheckId, optionId: Number(optionId) };
+  });
+}
+
+/** Another team's project, brief, sweep and option: every page must answer 404 for them. */
+export function foreignFixture(ctx: FixtureContext): Promise<WorkflowFixture> {
+  return ctx.once("workflowForeign", async () => {
+    const { teamId, adminId } = await ctx.otherTeam();
+    const [projectId] = await db("projects").insert({ team_id: teamId, name: "Other team's project", created_by: adminId });
+    const [briefId] = await db("briefs").insert({ project_id: projectId, name: "Other brief", problem: JSON.stringify(CHANNEL_PROBLEM), units: "si", created_by: adminId });
+    const sweepId = await recordFinishedSweep(db, { teamId, ownerId: adminId, projectId: Number(projectId), briefId: Number(briefId), problem: CHANNEL_PROBLEM });
+    const recheckId = await recordFinishedSweep(db, { teamId, ownerId: adminId, projectId: Number(projectId), briefId: Number(briefId), recheckOf: sweepId, problem: CHANNEL_PROBLEM });
+    const [optionId] = await db("options").insert({ project_id: projectId, sweep_id: sweepId, candidate: JSON.stringify({ family: "channel", dimensions: { d: 300, b: 100, tf: 10, tw: 8 }, area: 1, massPerMetre: 1, utilisation: 0.5, governing: "shear", rank: 1 }), problem: JSON.stringify(CHANNEL_PROBLEM), created_by: adminId });
+    return { projectId: Number(projectId), briefId: Number(briefId), sweepId, recheckId, optionId: Number(optionId) };
+  });
+}
