@@ -41,11 +41,11 @@ export async function action({ request }: Route.ActionArgs) {
 
 const day = (d: Date | string) => new Date(d).toISOString().slice(0, 10);
 
-function RoleSelect({ id, value, label }: { id: string; value?: string; label: string }) {
+function RoleSelect({ id, value, label, showLabel = false }: { id: string; value?: string; label: string; showLabel?: boolean }) {
   return (
     <>
-      <label htmlFor={id} className="sr-only">{label}</label>
-      <select id={id} name="role" defaultValue={value ?? "engineer"} className="rounded-md border border-ink/30 bg-white px-2 py-2 text-sm">
+      <label htmlFor={id} className={showLabel ? "block text-sm font-semibold" : "sr-only"}>{label}</label>
+      <select id={id} name="role" defaultValue={value ?? "engineer"} className="block rounded-md border border-ink/30 bg-white px-2 py-2 text-sm">
         {ROLES.map((r) => (
           <option key={r} value={r}>{ROLE_LABELS[r]}</option>
         ))}
@@ -116,8 +116,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
             <Field label="E-mail address" name="email" type="email" required error={errors.email} />
           </div>
           <div className="space-y-1">
-            <span className="block text-sm font-semibold" aria-hidden="true">Role</span>
-            <RoleSelect id="invite-role" label="Role for the new member" />
+            <RoleSelect id="invite-role" label="Role" showLabel />
           </div>
           <Button>Send invitation</Button>
         </Form>

@@ -47,3 +47,42 @@ test("a wrong password keeps the newcomer on sign-in with a message by the field
   await expect(page.getByText("E-mail address or password is wrong.").waitFor()).resolves.toBeUndefined();
   expect(new URL(page.url()).pathname).toBe("/sign-in");
 });
+
+test("an admin invites a member, who joins through the link in the outbox", async () => {
+  const base = inject("baseUrl");
+  const adminCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const admin = await adminCtx.newPage();
+  await admin.goto(`${base}/sign-in?next=/admin`);
+  await admin.getByLabel("E-mail address").fill("admin@tallowfield.example");
+  await admin.getByLabel("Password").fill("sparwise-demo");
+  await admin.getByRole("button", { name: "Sign in" }).click();
+  await admin.getByRole("heading", { level: 1, name: /members/ }).waitFor();
+
+  await admin.getByLabel("E-mail address").fill("new.detailer@example.org");
+  await admin.getByLabel("Role", { exact: true }).selectOption("viewer");
+  await admin.getByRole("button", { name: "Send invitation" }).click();
+  await admin.getByText("Invitation sent to new.detailer@example.org").waitFor();
+  await screenshot(admin, "admin-members");
+
+  await admin.getByRole("link", { name: "Outbox" }).first().click();
+  await admin.getByRole("heading", { level: 1, name: "Outbox" }).waitFor();
+  await admin.getByText(/invites you to Tallowfield/).first().click();
+  const body = (await admin.locator("pre").first().textContent()) ?? "";
+  await screenshot(admin, "admin-outbox");
+  const link = /https?:\/\/\S+\/invite\/[A-Za-z0-9_-]+/.exec(body)?.[0];
+  expect(link).toBeTruthy();
+  await adminCtx.close();
+
+  const newcomerCtx = await browser.newContext();
+  const page = await newcomerCtx.newPage();
+  await page.goto(link!);
+  await page.getByRole("heading", { level: 1, name: "Join Tallowfield Plate & Beam" }).waitFor();
+  await page.getByLabel("Your name").fill("Kit Oyelaran");
+  await page.getByLabel("Password", { exact: true }).fill("a long new password");
+  await page.getByLabel("Repeat the password").fill("a long new password");
+  await screenshot(page, "invite-accept");
+  await page.getByRole("button", { name: "Join the team" }).click();
+  await page.getByRole("heading", { level: 1, name: "Dashboard" }).waitFor();
+  await expect(page.getByText("Signed in as Kit Oyelaran, viewer").count()).resolves.toBe(1);
+  await newcomerCtx.close();
+});
