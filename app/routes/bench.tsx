@@ -118,7 +118,7 @@ interface Computed {
 }
 
 export default function Bench({ loaderData }: Route.ComponentProps) {
-  const [params, setParams] = useSearchParams();
+  const [params] = useSearchParams();
   const [state, setState] = useState<BenchState>(() => decodeBenchState(params.get("s")));
   const [computed, setComputed] = useState<Computed | null>(null);
   const [errors, setErrors] = useState<FieldError[]>([]);
@@ -138,16 +138,34 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
     };
   }, []);
 
-  // Keep the link current, a little after typing stops (each write is a navigation).
+  // Keep the link current, a little after typing stops. replaceState rather than a router
+  // navigation: a navigation would rerun the layout's loader (a server round trip) for every
+  // pause in typing. The router's own history entry state is kept as it is.
   useEffect(() => {
     const t = setTimeout(() => {
+      const url = new URL(window.location.href);
       const s = encodeBenchState(state);
-      if (new URLSearchParams(window.location.search).get("s") !== s) setParams({ s }, { replace: true, preventScrollReset: true });
+      if (url.searchParams.get("s") === s) return;
+      url.searchParams.set("s", s);
+      window.history.replaceState(window.history.state, "", url);
     }, 400);
     return () => clearTimeout(t);
-    // setParams changes identity on every navigation; the state is what matters
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [state]);
+
+  // Switching units retypes every number (rounded to six figures); switching straight back
+  // restores what was typed, so a round trip never turns 500 into 499.999.
+  const [unitUndo, setUnitUndo] = useState<{ before: BenchState; after: BenchState } | null>(null);
+  const switchUnits = (to: UnitSystem) => {
+    if (to === state.units) return;
+    if (unitUndo && unitUndo.after === state && unitUndo.before.units === to) {
+      setState(unitUndo.before);
+      setUnitUndo(null);
+      return;
+    }
+    const after = convertBenchState(state, to);
+    setUnitUndo({ before: state, after });
+    setState(after);
+  };
 
   // Recompute shortly after the last keystroke; stale answers are dropped by sequence number.
   useEffect(() => {
@@ -221,7 +239,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
             type; the link always holds the section, so you can share it.
           </p>
         </div>
-        <UnitSwitch value={units} onChange={(u) => setState((s) => convertBenchState(s, u))} />
+        <UnitSwitch value={units} onChange={switchUnits} />
       </div>
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">

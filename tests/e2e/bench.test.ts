@@ -84,6 +84,9 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await expect(page.locator('[data-testid="fibre-top"]').textContent()).resolves.toMatch(/ksi/);
   await page.getByText("SI (mm, kN·m, MPa)").click();
   await page.waitForFunction(() => document.querySelector('tr[data-property="Iz"] [data-value]')?.textContent?.endsWith("mm⁴"), undefined, { timeout: 10_000 });
+  // straight back: what was typed, not a rounded 499.999
+  await expect(page.locator('input[name="dim-d"]').inputValue()).resolves.toBe("500");
+  expect(await valueOf(page, "Iz")).toBe(iz2);
 
   await screenshot(page, "bench");
 
