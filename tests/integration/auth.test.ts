@@ -14,7 +14,14 @@ import * as admin from "~/routes/admin";
 import * as account from "~/routes/account";
 import { callRoute, cookieFor, demoUser, DEMO_EMAIL, DEMO_PASSWORD, formPost, messageOf, requestAs } from "./fixtures";
 
-afterAll(() => closeDb());
+// People this file creates are removed afterwards, so other files see the demo team as seeded.
+const created = new Set<string>();
+afterAll(async () => {
+  await db("users").whereIn("email", [...created]).delete();
+  await db("invitations").whereIn("email", [...created]).delete();
+  await db("teams").where({ slug: "auth-fixture" }).delete();
+  await closeDb();
+});
 
 let ipSeq = 0;
 /** Each test signs in from its own address so the per-address counter of one cannot trip another. */
@@ -30,8 +37,14 @@ function cookieFrom(result: { headers: Headers }): string {
   return set.split(";")[0]!;
 }
 
-async function makeUser(email: string, password = "correct horse battery", role = "engineer"): Promise<number> {
-  const team = await db("teams").where({ slug: "tallowfield" }).first("id");
+/** A member of a fixture team of its own (not the demo team, whose make-up other files check). */
+async function makeUser(email: string, password = "correct horse battery", role = "engineer", teamSlug = "auth-fixture"): Promise<number> {
+  created.add(email);
+  let team = await db("teams").where({ slug: teamSlug }).first("id");
+  if (!team) {
+    const [id] = await db("teams").insert({ name: "Auth fixture team", slug: teamSlug });
+    team = { id };
+  }
   const [id] = await db("users").insert({ email, name: "Test Person", password_hash: await hashPassword(password) });
   await db("memberships").insert({ team_id: team.id, user_id: id, role });
   return Number(id);
@@ -242,6 +255,7 @@ describe("password reset", () => {
 describe("invitations", () => {
   test("an admin invites an address; the link sets name and password once; the newcomer signs in with the role given", async () => {
     const email = "newhire@example.org";
+    created.add(email);
     const sent = await callRoute(admin.action, await formPost("admin", "/admin", { intent: "invite", email, role: "reviewer" }));
     expect(sent.status).toBe(200);
     const mail = await latestMailTo(email);
@@ -277,6 +291,7 @@ describe("invitations", () => {
 
   test("an expired invitation is refused; inviting an existing member is refused by name", async () => {
     const email = "latecomer@example.org";
+    created.add(email);
     await callRoute(admin.action, await formPost("admin", "/admin", { intent: "invite", email, role: "viewer" }));
     const token = tokenFromMail((await latestMailTo(email)).text_body, "invite");
     await db("invitations").where({ email }).update({ expires_at: new Date(Date.now() - 1000) });
@@ -309,7 +324,7 @@ describe("team admin", () => {
 
   test("a removed member's sessions and API tokens stop working at once", async () => {
     const email = "leaver@tallowfield.example";
-    const userId = await makeUser(email, "leaver password 1", "engineer");
+    const userId = await makeUser(email, "leaver password 1", "engineer", "tallowfield");
     const cookie = cookieFrom(await callRoute(signIn.action, await signInPost(email, "leaver password 1")));
     const made = await callRoute(account.action, new Request("http://sparwise.test/account", {
       method: "POST",
