@@ -5,8 +5,8 @@ import { requireTeamSweep, sweepIdParam } from "~/workers/sweep-api.server";
 // POST /api/v1/sweeps/:id/cancel (no body needed): owners (engineers, or reviewers for their
 // rechecks) cancel their own sweeps, admins any in the team. 200 with the new state; a running
 // sweep answers status "running" with cancelRequested true until its worker stops it (< 1 s).
+// The body, if any, is ignored (never read), so no body can be too large or malformed.
 export async function action({ request, params }: { request: Request; params: { id?: string } }) {
-  if (request.method !== "POST") return Response.json({ error: "use POST" }, { status: 405, headers: { Allow: "POST" } });
   const user = await requireApiUser(request);
   const id = sweepIdParam(params.id);
   await requireTeamSweep(id, user);

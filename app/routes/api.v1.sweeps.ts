@@ -1,14 +1,18 @@
 import { requireApiUser } from "~/lib/auth.server";
 import { readJson } from "~/lib/forms.server";
 import { db } from "~/lib/db.server";
+import { can } from "~/lib/roles";
 import { SWEEP_BODY_LIMIT, createSweepFromRequest } from "~/workers/sweep-api.server";
 
 // POST /api/v1/sweeps: { briefId } or { problem } (+ projectId, recheckOf); Idempotency-Key
 // header honoured per user. 202 with the sweep's id and URLs (200-series either way: a replay
 // of the same key answers 202 with created: false).
 export async function action({ request }: { request: Request }) {
-  if (request.method !== "POST") return Response.json({ error: "use POST" }, { status: 405, headers: { Allow: "GET, POST" } });
   const user = await requireApiUser(request);
+  // Roles that may run no sweep at all are refused before the body is read; which of the two
+  // permissions applies (a recheck or not) is decided once the body says.
+  if (!can(user.role, "runSweep") && !can(user.role, "recheck"))
+    return Response.json({ error: `role ${user.role} may not run sweeps` }, { status: 403 });
   const body = await readJson(request, SWEEP_BODY_LIMIT);
   const { id, created } = await createSweepFromRequest(user, body, request.headers.get("idempotency-key"));
   const url = `/api/v1/sweeps/${id}`;

@@ -2,12 +2,16 @@
 // its side effect by app/entry.server.tsx; started once per process (the flag lives on globalThis
 // so dev-server module reloads do not start a second one). SPARWISE_INPROCESS_WORKERS=0 turns it
 // off (the integration tests run their own workers; a deployment may run only `npm run worker`).
+import { isMainThread } from "node:worker_threads";
 import { SweepRunner } from "./runner.server";
 
 const g = globalThis as unknown as { __sparwiseRunner?: SweepRunner };
 
 export function startInProcessWorkers(): SweepRunner | null {
   if (process.env.SPARWISE_INPROCESS_WORKERS === "0") return null;
+  // Search threads may load the server bundle (search-threads.ts spawns its own module): never
+  // start a runner inside one.
+  if (!isMainThread) return null;
   if (process.env.NODE_ENV === "test" || process.env.VITEST) return null;
   if (g.__sparwiseRunner) return g.__sparwiseRunner;
   const runner = new SweepRunner().start();

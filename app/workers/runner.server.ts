@@ -32,7 +32,10 @@ import {
 } from "./queue.server";
 import { runSweepSearch } from "./sweep-search.server";
 
-export type SearchFn = (problem: SearchProblem, opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void }) => Promise<SearchResult>;
+export type SearchFn = (
+  problem: SearchProblem,
+  opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
+) => Promise<SearchResult>;
 
 export interface RunnerOptions {
   workerId?: string;
@@ -211,7 +214,7 @@ export class SweepRunner {
     let result: SearchResult;
     try {
       if (this.testDelayMs > 0) await sleep(this.testDelayMs, signal);
-      result = await this.search(claim.problem, { signal, onProgress: (done, total) => (r.progress = { done, total }) });
+      result = await this.search(claim.problem, { signal, concurrency: this.concurrency, onProgress: (done, total) => (r.progress = { done, total }) });
       signal.throwIfAborted();
     } catch (e) {
       if (signal.aborted) return this.stopped(r, signal.reason as StopReason);

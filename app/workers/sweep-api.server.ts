@@ -36,7 +36,7 @@ export const createSweepSchema = z
     problem: z.record(z.string(), z.unknown(), { error: "problem must be an object (a SearchProblem)" }).optional(),
     projectId: positiveId("projectId").optional(),
     recheckOf: positiveId("recheckOf").optional(),
-  }, { error: "the body must be a JSON object" })
+  }, { error: (iss) => (iss.code === "invalid_type" ? "the body must be a JSON object" : undefined) })
   .strict()
   .superRefine((b, ctx) => {
     if ((b.briefId === undefined) === (b.problem === undefined))
@@ -55,7 +55,9 @@ export async function createSweepFromRequest(user: SessionUser, body: unknown, i
   const parsed = createSweepSchema.safeParse(body);
   if (!parsed.success) {
     const errors = fieldErrorsFrom(parsed.error);
-    throw fail(400, Object.entries(errors).map(([k, v]) => (v.toLowerCase().includes(k.toLowerCase()) ? v : `${k}: ${v}`))[0] ?? "invalid body", errors);
+    const first = parsed.error.issues[0]!;
+    const where = first.path.map(String).join(".");
+    throw fail(400, where ? `${where}: ${first.message}` : first.message, errors);
   }
   if (idempotencyKey !== null) {
     const k = idempotencyKeySchema.safeParse(idempotencyKey);

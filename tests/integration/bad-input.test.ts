@@ -24,7 +24,8 @@ export interface BadInputRow {
 }
 
 /** Actions that take no input at all. */
-const NO_BODY = new Set(["/sign-out"]);
+// (QUEUE: cancel reads no body; its bad ids are covered in queue-api.test.ts)
+const NO_BODY = new Set(["/sign-out", "/api/v1/sweeps/:id/cancel"]);
 
 const inviteToken = (ctx: FixtureContext) =>
   ctx.once("badInviteToken", async () => {
@@ -77,6 +78,13 @@ export const ROWS: Record<string, BadInputRow> = {
   },
 
   // ---- QUEUE (add rows here)
+  "/api/v1/sweeps": {
+    as: "engineer",
+    api: true,
+    field: "briefId",
+    malformed: { problem: { moment: { sagging: 100 }, allowable: { tension: 165, compression: 165 }, depth: { min: 300, max: 100, step: 10 }, width: { min: 50, max: 200, step: 10 }, thicknesses: [6, 8], families: ["i"] } },
+    malformedField: "depth.max",
+  },
 
   // ---- WORKFLOW (add rows here)
   "/projects/new": { as: "engineer", field: "name", malformed: { name: "x".repeat(200) }, malformedField: "name" },

@@ -90,6 +90,13 @@ export const ROWS: Record<string, MatrixRow> = {
   "/api/v1/properties": { get: anyone(405), post: apiPermitted("read", 400), api: true },
 
   // ---- QUEUE (add rows here)
+  // POST "{}": roles that may run sweeps (or rechecks) pass the guard and fail validation (400).
+  "/api/v1/sweeps": { get: apiPermitted("read", 200), post: { admin: 400, engineer: 400, reviewer: 400, viewer: 403, signedOut: 401 }, api: true },
+  "/api/v1/sweeps/:id": { params: wf("sweepId", "id"), foreign: wfForeign("sweepId", "id"), get: apiPermitted("read", 200) },
+  "/api/v1/sweeps/:id/candidates": { params: wf("sweepId", "id"), foreign: wfForeign("sweepId", "id"), get: apiPermitted("read", 200) },
+  // The fixture sweep is the engineer's and finished: its owner and the admin get through to a
+  // 409 (nothing to cancel, nothing changed); the reviewer and the viewer may not cancel it.
+  "/api/v1/sweeps/:id/cancel": { params: wf("sweepId", "id"), foreign: wfForeign("sweepId", "id"), post: { admin: 409, engineer: 409, reviewer: 403, viewer: 403, signedOut: 401 }, api: true },
 
   // ---- WORKFLOW (add rows here)
   "/projects": { get: members(200) },
