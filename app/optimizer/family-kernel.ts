@@ -48,6 +48,15 @@ export interface FamilyKernel {
    * highest part). Unused for the unsymmetric angle.
    */
   centroidDir: 1 | -1 | 0;
+  /**
+   * Shear-band facts for the bound in search.ts: F = ∫ Q(y) dy over the flange bands (each
+   * band of thickness t, width w, outer fibre at distance c from the centroid contributes
+   * w·(c·t²/2 − t³/6), exactly), and the area of the web band (the band of constant width
+   * between them). Returns false for the solid rectangle (no web band).
+   */
+  shearBands(v: Float64Array, cTop: number, cBot: number, out: Float64Array): boolean;
+  /** Direction the centroid moves as the free width grows, for the shear bound (the angle's falls). */
+  shearDir: 1 | -1 | 0;
   /** Iyz ≠ 0 in general: bending by the general (unsymmetric) formula. */
   unsymmetric: boolean;
   /** Dimension indices in tie-break order: depth, then widths, then thicknesses, each in table order. */
@@ -71,7 +80,21 @@ function tieOrderOf(dims: readonly string[], family: Family): number[] {
   return idx.sort((a, b) => rank(dimRole(family, dims[a])) - rank(dimRole(family, dims[b])) || a - b);
 }
 
-type Spec = Omit<FamilyKernel, "family" | "dims" | "roles" | "tieOrder">;
+type Spec = Omit<FamilyKernel, "family" | "dims" | "roles" | "tieOrder" | "shearBands" | "shearDir">;
+
+/** ∫ over a flange band of Q(y) dy per unit width: c·t²/2 − t³/6 (Q(s) = s·(c − s/2) from the outer face). */
+const g = (c: number, t: number) => (c * t * t) / 2 - (t * t * t) / 6;
+
+const SHEAR: Record<Family, { bands: FamilyKernel["shearBands"]; dir: 1 | -1 | 0 }> = {
+  rectangle: { bands: () => false, dir: 0 },
+  i: { bands: (v, cT, cB, o) => ((o[0] = v[1] * (g(cT, v[2]) + g(cB, v[2]))), (o[1] = (v[0] - 2 * v[2]) * v[3]), true), dir: 0 },
+  "mono-i": { bands: (v, cT, cB, o) => ((o[0] = v[1] * g(cT, v[2]) + v[3] * g(cB, v[4])), (o[1] = (v[0] - v[2] - v[4]) * v[5]), true), dir: -1 },
+  channel: { bands: (v, cT, cB, o) => ((o[0] = v[1] * (g(cT, v[2]) + g(cB, v[2]))), (o[1] = (v[0] - 2 * v[2]) * v[3]), true), dir: 0 },
+  "channel-down": { bands: (v, cT, _cB, o) => ((o[0] = v[1] * g(cT, v[2])), (o[1] = (v[0] - v[2]) * 2 * v[3]), true), dir: 1 },
+  tee: { bands: (v, cT, _cB, o) => ((o[0] = v[1] * g(cT, v[2])), (o[1] = (v[0] - v[2]) * v[3]), true), dir: 1 },
+  box: { bands: (v, cT, cB, o) => ((o[0] = v[1] * (g(cT, v[2]) + g(cB, v[2]))), (o[1] = (v[0] - 2 * v[2]) * 2 * v[3]), true), dir: 0 },
+  angle: { bands: (v, _cT, cB, o) => ((o[0] = v[1] * g(cB, v[2])), (o[1] = (v[0] - v[2]) * v[2]), true), dir: -1 },
+};
 
 // v layouts follow FAMILY_DIMENSIONS: i/channel/tee/box [d, b, tf, tw]; mono-i [d, bt, tft, bb, tfb, tw];
 // channel-down [d, b, tw, tf]; angle [d, b, t]; rectangle [b, d].
@@ -272,7 +295,10 @@ const SPECS: Record<Family, Spec> = {
 export const FAMILY_KERNELS: Record<Family, FamilyKernel> = Object.fromEntries(
   (Object.keys(SPECS) as Family[]).map((f) => {
     const dims = FAMILY_DIMENSIONS[f];
-    return [f, { ...SPECS[f], family: f, dims, roles: dims.map((d) => dimRole(f, d)), tieOrder: tieOrderOf(dims, f) }];
+    return [
+      f,
+      { ...SPECS[f], family: f, dims, roles: dims.map((d) => dimRole(f, d)), tieOrder: tieOrderOf(dims, f), shearBands: SHEAR[f].bands, shearDir: SHEAR[f].dir },
+    ];
   }),
 ) as unknown as Record<Family, FamilyKernel>;
 

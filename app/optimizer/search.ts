@@ -34,6 +34,7 @@
 //       width and b_NA is fixed (rectangle: 1.5V/(b·d)), so the ratio is monotone along the
 //       row and its passing points form one interval, found by bisection.
 //   (6) Slenderness ratios are affine in the free width: explicit limits on it.
+//   (7) Shear through the web band (every family with a web, stem or legs): see webShearOk.
 // - mono-i has two widths: a "super" node per (d, tft, tfb, tw) bounds both with the
 //   fractional-knapsack solution of min objective s.t. I_y0(bt, bb) ≥ I_req (a 2-variable
 //   LP solved in closed form, valid by (4)); popping it spawns one row per bt.
@@ -383,7 +384,86 @@ class FamilySearch {
         k = hi;
       }
     }
+    if (ctx.hasShear && ctx.V > 0 && !this.webShearOk(k, kHi)) {
+      this.cause = C_SHEAR;
+      return this.dead(k, kHi);
+    }
     return k;
+  }
+
+  private bands = new Float64Array(2);
+
+  /**
+   * (7) for a whole mono-i super node: Iz ≥ Iz at the narrowest flanges (1); the top fibre is
+   * farthest from the centroid with the narrowest top and widest bottom flange, the bottom
+   * fibre with the reverse (the centroid moves toward a widening flange); F is largest with
+   * both flanges widest and those distances.
+   */
+  private superShearOk(jLo: number, jHi: number, kLo: number, kHi: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      p = this.plates,
+      ko = this.kout,
+      n = fk.nPlates,
+      W = this.W,
+      sec = fk.second,
+      f = fk.free;
+    v[sec] = W[jLo];
+    v[f] = W[kLo];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const Iz = ko[K_IZ];
+    v[f] = W[kHi];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const cTop = ko[K_MAXY] - ko[K_CY];
+    v[sec] = W[jHi];
+    v[f] = W[kLo];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const cBot = ko[K_CY] - ko[K_MINY];
+    v[f] = W[kHi];
+    fk.shearBands(v, cTop, cBot, this.bands);
+    const tauLb = (this.ctx.V * (Iz - this.bands[0])) / (Iz * this.bands[1]);
+    return tauLb <= this.ctx.aS * (1 + REL);
+  }
+
+  /**
+   * (7) Shear through the web band, for the rest of the row [k, kHi]: ∫Q dy over the depth is
+   * Iz, so the web band carries ∫_web Q dy = Iz − F, where F (flange bands) is known exactly;
+   * its mean over the band height is at most its maximum, whence
+   *   τ_max ≥ V·(Iz − F)/(Iz·A_web_band).
+   * Over the rest of the row Iz ≥ Iz(k) (1), F ≤ F at the widest point with each fibre
+   * distance at its largest (F grows with the widths and with c; c moves monotonically, as in (2)).
+   * False when even that lower bound exceeds the allowable (then no point of the rest passes).
+   */
+  private webShearOk(k: number, kHi: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      p = this.plates,
+      ko = this.kout,
+      n = fk.nPlates,
+      f = fk.free;
+    v[f] = this.W[k];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const Iz = ko[K_IZ];
+    let cTop = ko[K_MAXY] - ko[K_CY],
+      cBot = ko[K_CY] - ko[K_MINY];
+    if (fk.shearDir !== 0 && kHi > k) {
+      v[f] = this.W[kHi];
+      fk.fill(v, p);
+      compositeKernel(p, n, ko);
+      // dir +1: the centroid rises, so c_bot is largest at the widest point, c_top now
+      if (fk.shearDir > 0) cBot = Math.max(cBot, ko[K_CY] - ko[K_MINY]);
+      else cTop = Math.max(cTop, ko[K_MAXY] - ko[K_CY]);
+    }
+    v[f] = this.W[kHi];
+    if (!fk.shearBands(v, cTop, cBot, this.bands)) return true;
+    const F = this.bands[0],
+      aw = this.bands[1];
+    const tauLb = (this.ctx.V * (Iz - F)) / (Iz * aw);
+    return tauLb <= this.ctx.aS * (1 + REL);
   }
 
   private dead(k: number, kHi: number): number {
@@ -705,6 +785,10 @@ class FamilySearch {
     const kHi = this.rowHi(kLo);
     if (kHi < 0) return null;
     const req = this.baseIreq(this.depthOf()) * (1 - REL);
+    if (this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi)) {
+      this.t.ruledOut[C_SHEAR] += (jHi - jLo + 1) * (kHi - kLo + 1);
+      return null;
+    }
     const m = this.m;
     m.jLo = jLo;
     m.jHi = jHi;

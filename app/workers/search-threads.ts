@@ -1,0 +1,152 @@
+// Runs one exact search split across worker threads (node:worker_threads through comlink's
+// node adapter), so a long search leaves the caller's event loop free and uses every core.
+//
+// Split: the depth grid is cut into contiguous index ranges, one per thread; each thread runs
+// searchSections on its range (all families). Combined result, same as one thread:
+// - bestByFamily: the least of the parts' family bests by the contract's order and tie-breaks
+//   (every shape lies in exactly one range, and each part's family best is exact for it);
+// - best: the least of those, ties to the family listed first;
+// - counts: summed (grid is exact; evaluated and feasible are what the threads did);
+// - front: the front of the union of the parts' fronts;
+// - reason (nothing feasible anywhere): the reason of the part with the largest grid.
+// Abort: the threads are terminated at once (a synchronous search cannot read messages while
+// it runs, so terminating is the prompt way) and the promise rejects with the signal's reason.
+import { createRequire } from "node:module";
+import { availableParallelism } from "node:os";
+import { pathToFileURL } from "node:url";
+import { Worker, isMainThread, parentPort, workerData } from "node:worker_threads";
+import * as Comlink from "comlink";
+// @ts-expect-error comlink ships node-adapter.d.ts, not the .d.mts this .mjs path would need
+import nodeEndpointUntyped from "comlink/dist/esm/node-adapter.mjs";
+import { FAMILY_KERNELS } from "../optimizer/family-kernel";
+import { Front, compareAcross, type RawCandidate } from "../optimizer/front";
+import type { SearchCandidate, SearchResult } from "../optimizer/grid";
+import { searchSections } from "../optimizer/search";
+import { axisCount, searchProblemSchema, type SearchProblemInput } from "../optimizer/search-schema";
+
+const nodeEndpoint = nodeEndpointUntyped as (nep: unknown) => Comlink.Endpoint;
+const WORKER_FLAG = "sparwise-search-thread";
+
+interface ThreadApi {
+  run(problem: SearchProblemInput, range: [number, number], exhaustive: boolean, onProgress?: (done: number, total: number) => void): SearchResult;
+}
+
+if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
+  const api: ThreadApi = {
+    run: (problem, range, exhaustive, onProgress) =>
+      searchSections(problem, { depthIndexRange: range, exhaustive, onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined }),
+  };
+  Comlink.expose(api, nodeEndpoint(parentPort));
+}
+
+export interface ThreadSearchOptions {
+  /** default: the machine's available parallelism, at most one per depth value */
+  threads?: number;
+  signal?: AbortSignal;
+  /** brute force on each thread: the combined front and feasible count are then the whole grid's */
+  exhaustive?: boolean;
+  /** summed over the threads (each reports per family, as searchSections does) */
+  onProgress?: (done: number, total: number) => void;
+}
+
+function spawn(): Worker {
+  const url = new URL(import.meta.url);
+  const workerOptions = { workerData: { kind: WORKER_FLAG } };
+  if (!url.pathname.endsWith(".ts")) return new Worker(url, workerOptions);
+  // From TypeScript source (tests, the tsx-run queue worker) the thread registers tsx's loader
+  // first (loader hooks are per thread), then imports this file.
+  const tsxApi = pathToFileURL(createRequire(import.meta.url).resolve("tsx/esm/api").replace(/index\.cjs$/, "index.mjs")).href;
+  const boot = `import(${JSON.stringify(tsxApi)}).then((m) => { m.register(); return import(${JSON.stringify(url.href)}); });`;
+  return new Worker(boot, { ...workerOptions, eval: true });
+}
+
+function raw(problemFamilies: string[], c: SearchCandidate): RawCandidate & { out: SearchCandidate } {
+  const fk = FAMILY_KERNELS[c.family];
+  return {
+    fi: problemFamilies.indexOf(c.family),
+    fk,
+    v: Float64Array.from(fk.dims, (d) => c.dimensions[d]),
+    objective: c.cost ?? c.area,
+    area: c.area,
+    utilisation: c.utilisation,
+    governing: 0,
+    out: c,
+  };
+}
+
+export function combineResults(problemFamilies: string[], parts: SearchResult[]): SearchResult {
+  const bestByFamily: SearchResult["bestByFamily"] = {};
+  let best: (RawCandidate & { out: SearchCandidate }) | null = null;
+  for (const f of problemFamilies as (keyof SearchResult["bestByFamily"])[]) {
+    let fb: (RawCandidate & { out: SearchCandidate }) | null = null;
+    for (const p of parts) {
+      const c = p.bestByFamily[f];
+      if (!c) continue;
+      const r = raw(problemFamilies, c);
+      if (!fb || compareAcross(r, fb) < 0) fb = r;
+    }
+    bestByFamily[f] = fb ? fb.out : null;
+    if (fb && (!best || compareAcross(fb, best) < 0)) best = fb;
+  }
+  const front = new Front();
+  for (const p of parts) for (const c of p.front) front.offer(raw(problemFamilies, c), (x) => x);
+  const frontOut = [...front.items]
+    .sort((a, b) => a.objective - b.objective || a.utilisation - b.utilisation || compareAcross(a, b))
+    .map((x) => (x as RawCandidate & { out: SearchCandidate }).out);
+  const counts = { grid: 0, evaluated: 0, feasible: 0 };
+  for (const p of parts) {
+    counts.grid += p.counts.grid;
+    counts.evaluated += p.counts.evaluated;
+    counts.feasible += p.counts.feasible;
+  }
+  const res: SearchResult = { best: best ? best.out : null, bestByFamily, front: frontOut, counts };
+  if (!best) {
+    const withReason = parts.filter((p) => p.reason).sort((a, b) => b.counts.grid - a.counts.grid);
+    res.reason = withReason[0]?.reason ?? "No candidate passes every check.";
+    if (counts.grid > 0) res.reason = res.reason.replace(/of the [\d,]+ shapes in the grid/, `of the shapes in the grid (${counts.grid.toLocaleString("en")} in all)`);
+  }
+  return res;
+}
+
+/** The exact search on worker threads; resolves to the same best as searchSections. */
+export async function searchInThreads(input: SearchProblemInput, options: ThreadSearchOptions = {}): Promise<SearchResult> {
+  const problem = searchProblemSchema.parse(input);
+  options.signal?.throwIfAborted();
+  const nDepths = axisCount(problem.depth);
+  const n = Math.max(1, Math.min(options.threads ?? availableParallelism(), nDepths));
+  const cuts = Array.from({ length: n + 1 }, (_, i) => Math.round((i * nDepths) / n));
+  const workers = Array.from({ length: n }, spawn);
+  const progress = new Array<[number, number]>(n).fill([0, problem.families.length]);
+  const report = () => {
+    if (!options.onProgress) return;
+    options.onProgress(
+      progress.reduce((s, p) => s + p[0], 0),
+      progress.reduce((s, p) => s + p[1], 0),
+    );
+  };
+  let onAbort: (() => void) | undefined;
+  const aborted = new Promise<never>((_, reject) => {
+    onAbort = () => {
+      for (const w of workers) void w.terminate();
+      reject(options.signal!.reason);
+    };
+    options.signal?.addEventListener("abort", onAbort, { once: true });
+  });
+  try {
+    const runs = workers.map((w, i) => {
+      const api = Comlink.wrap<ThreadApi>(nodeEndpoint(w));
+      const cb = options.onProgress
+        ? Comlink.proxy((d: number, t: number) => {
+            progress[i] = [d, t];
+            report();
+          })
+        : undefined;
+      return api.run(input, [cuts[i], cuts[i + 1]], options.exhaustive ?? false, cb) as Promise<SearchResult>;
+    });
+    const parts = await Promise.race([Promise.all(runs), aborted]);
+    return combineResults(problem.families, parts);
+  } finally {
+    if (onAbort) options.signal?.removeEventListener("abort", onAbort);
+    await Promise.all(workers.map((w) => w.terminate()));
+  }
+}
