@@ -100,6 +100,14 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await expect(page.evaluate(() => document.activeElement?.getAttribute("aria-label"))).resolves.toBe("Move plate 3 up");
   await screenshot(page, "bench-plates");
 
+  // file it under a project (the demo seed has projects when the workflow seed is present)
+  const save = page.locator("form").filter({ hasText: "Save to a project" });
+  if (await save.count()) {
+    await save.getByLabel("Name").fill("Bench trial from the browser test");
+    await save.getByRole("button", { name: "Save section" }).click();
+    await page.getByText("Saved “Bench trial from the browser test”").waitFor({ timeout: 10_000 });
+  }
+
   // the shared link reopens the tee in a fresh tab
   const other = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
   await other.context().addCookies(await page.context().cookies());
