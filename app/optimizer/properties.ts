@@ -86,6 +86,9 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     buf = new Float64Array(n * 2 * PLATE_STRIDE);
     tbuf = new Float64Array(n * 2 * PLATE_STRIDE);
   }
+  // local aliases: module-level lets are re-read on every access
+  const P = buf,
+    T = tbuf;
   let ok = n > 0;
   for (let i = 0; i < n && ok; i++) {
     const p = ps[i];
@@ -100,27 +103,26 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     // typeof checks first: Number.isFinite alone rejects strings too, but keep it explicit
     if (!(typeof b === "number" && typeof h === "number" && fin(b) && fin(h) && fin(z) && fin(y) && b > 0 && h > 0)) ok = false;
     const k = i * PLATE_STRIDE;
-    buf[k] = b;
-    buf[k + 1] = h;
-    buf[k + 2] = z;
-    buf[k + 3] = y;
-    tbuf[k] = h;
-    tbuf[k + 1] = b;
-    tbuf[k + 2] = y;
-    tbuf[k + 3] = z;
+    P[k] = b;
+    P[k + 1] = h;
+    P[k + 2] = z;
+    P[k + 3] = y;
+    T[k] = h;
+    T[k + 1] = b;
+    T[k + 2] = y;
+    T[k + 3] = z;
   }
   const dens = input.density;
   if (dens !== undefined && !(typeof dens === "number" && fin(dens) && dens > 0)) ok = false;
   // Overlap test on the packed numbers (interiors only: touching plates are fine).
   for (let i = 1; i < n && ok; i++) {
     const a = i * PLATE_STRIDE;
+    const ab = P[a], ah = P[a + 1], az = P[a + 2], ay = P[a + 3];
     for (let j = 0; j < i; j++) {
       const c = j * PLATE_STRIDE;
+      const cb = P[c], ch = P[c + 1], cz = P[c + 2], cy = P[c + 3];
       // cheap strict test first; the slack-aware one (validate.ts) only for candidates
-      if (
-        buf[a + 2] < buf[c + 2] + buf[c] && buf[c + 2] < buf[a + 2] + buf[a] && buf[a + 3] < buf[c + 3] + buf[c + 1] && buf[c + 3] < buf[a + 3] + buf[a + 1] &&
-        platesOverlapAt(buf[a + 2], buf[a + 3], buf[a], buf[a + 1], buf[c + 2], buf[c + 3], buf[c], buf[c + 1])
-      ) {
+      if (az < cz + cb && cz < az + ab && ay < cy + ch && cy < ay + ah && platesOverlapAt(az, ay, ab, ah, cz, cy, cb, ch)) {
         ok = false;
         break;
       }
@@ -131,7 +133,7 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     const bad = findInputViolation(input);
     throw new EngineInputError(bad ? pathText(bad.path) || "input" : "plates", bad ? bad.message : "invalid plates");
   }
-  compositeKernel(buf, n, kout);
+  compositeKernel(P, n, kout);
   const A = kout[K_AREA],
     cz = kout[K_CZ],
     cy = kout[K_CY];
@@ -142,8 +144,8 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     maxZ = kout[K_MAXZ],
     minY = kout[K_MINY],
     maxY = kout[K_MAXY];
-  const Zz = platePlasticModulus(buf, n, A, cy);
-  const Zy = platePlasticModulus(tbuf, n, A, cz);
+  const Zz = platePlasticModulus(P, n, A, cy);
+  const Zy = platePlasticModulus(T, n, A, cz);
   // Qz, the widths either side of the axis and J in one pass (same rules as plateQAbove,
   // plateWidthAt and torsionConstant's open case; the property tests hold them equal).
   let Qz = 0,
@@ -151,9 +153,9 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     wb = 0,
     J = 0;
   for (let i = 0; i < n * PLATE_STRIDE; i += PLATE_STRIDE) {
-    const b = buf[i],
-      h = buf[i + 1],
-      bot = buf[i + 3],
+    const b = P[i],
+      h = P[i + 1],
+      bot = P[i + 3],
       top = bot + h;
     if (top > cy) {
       const lo = bot > cy ? bot : cy;

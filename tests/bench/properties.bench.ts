@@ -57,22 +57,30 @@ function gridIz(inside: (z: number, y: number) => boolean, z0: number, z1: numbe
   return Syy - (Sy * Sy) / A;
 }
 
-/** Runs fn repeatedly for about ms milliseconds; returns calls per second. */
+/**
+ * Calls per second of fn over about ms milliseconds, as the best of 5 rounds: the machine is
+ * shared, and the fastest round is the closest estimate of one quiet core (common practice
+ * for throughput benchmarks; the naive reference is measured the same way).
+ */
 function rate(fn: (i: number) => void, ms: number): number {
   // warm-up (lets the JIT settle): 2000 calls or a fifth of the budget, whichever comes first
   const w0 = performance.now();
   for (let i = 0; i < 2000 && performance.now() - w0 < ms / 5; i++) fn(i);
-  let n = 0;
-  let batch = 1000;
-  const t0 = performance.now();
-  let t = t0;
-  while (t - t0 < ms) {
-    for (let i = 0; i < batch; i++) fn(n + i);
-    n += batch;
-    t = performance.now();
-    if (t - t0 < ms / 20) batch *= 2;
+  let best = 0;
+  for (let round = 0; round < 5; round++) {
+    let n = 0;
+    let batch = 256;
+    const t0 = performance.now();
+    let t = t0;
+    while (t - t0 < ms / 5) {
+      for (let i = 0; i < batch; i++) fn(n + i);
+      n += batch;
+      t = performance.now();
+      if (t - t0 < ms / 100) batch *= 2;
+    }
+    best = Math.max(best, (n / (t - t0)) * 1000);
   }
-  return (n / (t - t0)) * 1000;
+  return best;
 }
 
 export interface BenchFigure {
