@@ -23,6 +23,7 @@ const navItems = (isAdmin: boolean) => [
   { to: "/", label: "Dashboard", end: true },
   { to: "/projects", label: "Projects", end: false },
   { to: "/bench", label: "Section bench", end: false },
+  { to: "/stock-lists", label: "Stock lists", end: false },
   ...(isAdmin ? [{ to: "/admin", label: "Admin", end: false }] : []),
 ];
 

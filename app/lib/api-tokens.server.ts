@@ -39,3 +39,20 @@ export async function revokeApiToken(user: SessionUser, tokenId: number): Promis
   if (!n) throw new FieldError("tokenId", "No such active token of yours.", 404);
   await logActivity({ teamId: user.teamId, userId: user.id, action: "api_token_revoked", subjectType: "api_token", subjectId: tokenId });
 }
+
+/** Every active token in the admin's team, with its owner: an admin can cut off a leaked one. */
+export async function listTeamApiTokens(admin: SessionUser) {
+  return db("api_tokens")
+    .join("users", "users.id", "api_tokens.user_id")
+    .where({ "api_tokens.team_id": admin.teamId })
+    .whereNull("api_tokens.revoked_at")
+    .orderBy("api_tokens.created_at", "desc")
+    .select("api_tokens.id", "api_tokens.name", "users.name as owner", "api_tokens.created_at as createdAt", "api_tokens.last_used_at as lastUsedAt");
+}
+
+export async function revokeTeamApiToken(admin: SessionUser, tokenId: number): Promise<void> {
+  const row = await db("api_tokens").where({ id: tokenId, team_id: admin.teamId }).whereNull("revoked_at").first("user_id");
+  if (!row) throw new FieldError("tokenId", "No such active token in your team.", 404);
+  await db("api_tokens").where({ id: tokenId }).update({ revoked_at: db.fn.now() });
+  await logActivity({ teamId: admin.teamId, userId: admin.id, action: "api_token_revoked", subjectType: "api_token", subjectId: tokenId, detail: { owner: row.user_id } });
+}

@@ -19,8 +19,9 @@ export const adminActionSchema = z.discriminatedUnion(
     z.object({ intent: z.literal("changeRole"), memberId: idField("Member"), role: roleField }),
     z.object({ intent: z.literal("remove"), memberId: idField("Member") }),
     z.object({ intent: z.literal("revokeInvitation"), invitationId: idField("Invitation") }),
+    z.object({ intent: z.literal("revokeToken"), tokenId: idField("Token") }),
   ],
-  { error: "Intent must be invite, changeRole, remove or revokeInvitation." },
+  { error: "Intent must be invite, changeRole, remove, revokeInvitation or revokeToken." },
 );
 
 export const acceptSchema = z

@@ -1,6 +1,7 @@
 import { Form } from "react-router";
 import type { Route } from "./+types/admin";
 import { Button, Field, FormError, Notice } from "~/components/ui";
+import { listTeamApiTokens, revokeTeamApiToken } from "~/lib/api-tokens.server";
 import { requirePermission } from "~/lib/auth.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
 import { ROLE_LABELS, ROLES } from "~/lib/roles";
@@ -12,8 +13,8 @@ export function meta() {
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requirePermission(request, "manageTeam");
-  const [members, invitations] = await Promise.all([listMembers(user.teamId), listPendingInvitations(user.teamId)]);
-  return { user, members, invitations };
+  const [members, invitations, tokens] = await Promise.all([listMembers(user.teamId), listPendingInvitations(user.teamId), listTeamApiTokens(user)]);
+  return { user, members, invitations, tokens };
 }
 
 export async function action({ request }: Route.ActionArgs) {
@@ -35,6 +36,9 @@ export async function action({ request }: Route.ActionArgs) {
       case "revokeInvitation":
         await revokeInvitation(admin, input.invitationId);
         return { done: "Invitation withdrawn." };
+      case "revokeToken":
+        await revokeTeamApiToken(admin, input.tokenId);
+        return { done: "API token revoked." };
     }
   });
 }
@@ -55,17 +59,20 @@ function RoleSelect({ id, value, label, showLabel = false }: { id: string; value
 }
 
 export default function Admin({ loaderData, actionData }: Route.ComponentProps) {
-  const { user, members, invitations } = loaderData;
+  const { user, members, invitations, tokens } = loaderData;
   const errors: Record<string, string> = (actionData && "errors" in actionData ? actionData.errors : undefined) ?? {};
   const done = actionData && "done" in actionData ? actionData.done : null;
   return (
     <div className="space-y-8">
       <div className="flex flex-wrap items-baseline justify-between gap-4">
         <h1 className="text-2xl font-bold">{user.teamName}: members</h1>
-        <a href="/admin/outbox" className="text-sm font-semibold text-accent-strong underline">Outbox</a>
+        <nav aria-label="Team admin" className="flex gap-4 text-sm font-semibold">
+          <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
+          <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
+        </nav>
       </div>
       <Notice message={done} />
-      <FormError message={errors.memberId ?? errors.invitationId ?? errors.intent ?? errors.role ?? errors.form} />
+      <FormError message={errors.memberId ?? errors.invitationId ?? errors.tokenId ?? errors.intent ?? errors.role ?? errors.form} />
 
       <section aria-labelledby="members-h">
         <h2 id="members-h" className="sr-only">Members</h2>
@@ -138,6 +145,28 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
               ))}
             </ul>
           </>
+        )}
+      </section>
+
+      <section aria-labelledby="tokens-h" className="space-y-3">
+        <h2 id="tokens-h" className="text-xl font-bold">Active API tokens</h2>
+        {tokens.length === 0 ? (
+          <p className="text-sm text-ink/70">No member has an active API token.</p>
+        ) : (
+          <ul className="divide-y divide-ink/10 text-sm">
+            {tokens.map((t) => (
+              <li key={t.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <span>
+                  <strong>{t.name}</strong> · {t.owner} · created {day(t.createdAt)} · {t.lastUsedAt ? `last used ${day(t.lastUsedAt)}` : "never used"}
+                </span>
+                <Form method="post">
+                  <input type="hidden" name="intent" value="revokeToken" />
+                  <input type="hidden" name="tokenId" value={t.id} />
+                  <Button variant="danger" aria-label={`Revoke the token ${t.name} of ${t.owner}`}>Revoke</Button>
+                </Form>
+              </li>
+            ))}
+          </ul>
         )}
       </section>
     </div>

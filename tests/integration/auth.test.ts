@@ -12,7 +12,7 @@ import * as reset from "~/routes/reset-password.$token";
 import * as invite from "~/routes/invite.$token";
 import * as admin from "~/routes/admin";
 import * as account from "~/routes/account";
-import { callRoute, cookieFor, demoUser, DEMO_EMAIL, DEMO_PASSWORD, formPost, messageOf, requestAs } from "./fixtures";
+import { callRoute, cookieFor, cookieForUser, demoUser, DEMO_EMAIL, DEMO_PASSWORD, formPost, messageOf, requestAs } from "./fixtures";
 
 // People this file creates are removed afterwards, so other files see the demo team as seeded.
 const created = new Set<string>();
@@ -388,5 +388,34 @@ describe("reset e-mails are rationed", () => {
     }
     expect(new Set(answers.map((a) => JSON.stringify(a))).size).toBe(1);
     expect(Number((await db("outbox").where({ to_address: email }).count({ n: "*" }).first())!.n)).toBe(3);
+  });
+});
+
+describe("admin and team API tokens", () => {
+  test("an admin revokes a member's token; another team's admin cannot", async () => {
+    const made = await callRoute(account.action, await formPost("engineer2", "/account", { intent: "createToken", name: "leaky laptop" }));
+    const token = (made.data as { created: { token: string } }).created.token;
+    const row = await db("api_tokens").where({ name: "leaky laptop" }).first("id");
+    const listed = await callRoute(admin.loader, await requestAs("admin", "/admin"));
+    expect((listed.data as { tokens: { id: number; owner: string }[] }).tokens).toContainEqual(expect.objectContaining({ id: row.id, owner: "Priya Hallam" }));
+
+    // An admin elsewhere gets "no such token", and the token keeps working.
+    const otherTeam = await db("teams").insert({ name: "Elsewhere Fabrication", slug: "auth-elsewhere" });
+    const outsider = "outsider-admin@elsewhere.example";
+    created.add(outsider);
+    const [outsiderId] = await db("users").insert({ email: outsider, name: "Outsider", password_hash: null });
+    await db("memberships").insert({ team_id: otherTeam[0], user_id: outsiderId, role: "admin" });
+    const foreign = await callRoute(admin.action, new Request("http://sparwise.test/admin", {
+      method: "POST",
+      headers: { Cookie: await cookieForUser(Number(outsiderId)), "Content-Type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ intent: "revokeToken", tokenId: String(row.id) }),
+    }));
+    expect(foreign.status).toBe(404);
+    expect((await requireApiUser(new Request("http://sparwise.test/x", { headers: { Authorization: `Bearer ${token}` } }))).email).toBe(DEMO_EMAIL.engineer2);
+    await db("teams").where({ slug: "auth-elsewhere" }).delete();
+
+    const revoked = await callRoute(admin.action, await formPost("admin", "/admin", { intent: "revokeToken", tokenId: String(row.id) }));
+    expect(revoked.status).toBe(200);
+    await expect(requireApiUser(new Request("http://sparwise.test/x", { headers: { Authorization: `Bearer ${token}` } }))).rejects.toMatchObject({ status: 401 });
   });
 });
