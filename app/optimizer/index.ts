@@ -12,3 +12,5 @@ export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 export { bruteForceSearch } from "./brute-force";
 export { candidateChecks, type CheckResult, type CandidateVerdict } from "./checks";
 export * from "./units";
+export * from "./materials";
+export { rationalise, rationaliseInputSchema, candidateThicknesses, type RationaliseInput, type RationaliseResult, type RationaliseChoice } from "./rationalise";

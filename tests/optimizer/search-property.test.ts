@@ -12,6 +12,9 @@ import type { SearchProblemInput } from "~/optimizer/search-schema";
 import { sectionStresses } from "~/optimizer/stress";
 
 const STOCK = [3, 4, 5, 6, 8, 10, 12, 15, 20, 25];
+// SEARCH_PROPERTY_RUNS=2000 for a long soak; the default keeps `npm test` quick.
+const RUNS = Number(process.env.SEARCH_PROPERTY_RUNS ?? 0) || undefined;
+const runs = (n: number) => RUNS ?? n;
 
 const axisArb = (lo: number, hi: number) =>
   fc.record({
@@ -103,7 +106,7 @@ describe("fast search against brute force (random small grids)", () => {
         for (let i = 1; i < fast.front.length; i++)
           expect(fast.front[i].cost ?? fast.front[i].area).toBeGreaterThanOrEqual(fast.front[i - 1].cost ?? fast.front[i - 1].area);
       }),
-      { numRuns: 120 },
+      { numRuns: runs(120) },
     );
   });
 });
@@ -171,7 +174,7 @@ describe("the best candidate re-checked by the section engine", () => {
         }
         expect(r.best.utilisation).toBeLessThanOrEqual(1);
       }),
-      { numRuns: 80 },
+      { numRuns: runs(80) },
     );
   });
 });
@@ -189,7 +192,7 @@ describe("monotone in the limits", () => {
           which === "all" ? scaleAllow(p, k) : { ...p, allowable: { ...p.allowable, [which]: (p.allowable as Record<string, number>)[which] * k } };
         expect(objective(searchSections(q))).toBeLessThanOrEqual(objective(searchSections(p)) * (1 + 1e-12));
       }),
-      { numRuns: 80 },
+      { numRuns: runs(80) },
     );
   });
 
@@ -212,7 +215,7 @@ describe("monotone in the limits", () => {
               : p;
         expect(objective(searchSections(q))).toBeGreaterThanOrEqual(objective(searchSections(base)) * (1 - 1e-12));
       }),
-      { numRuns: 80 },
+      { numRuns: runs(80) },
     );
   });
 });
