@@ -1,20 +1,31 @@
-// How a runner executes one sweep's search. One function, so the runner does not care where the
-// search runs.
+// How a runner executes one sweep's search.
 //
-// Now: in the runner's own thread. searchSections is synchronous, so while it runs the runner's
-// timers (heartbeat, cancel poll) wait; that is harmless for the searches a sweep usually runs
-// (the exact search settles typical briefs in milliseconds to a few hundred ms, far inside a
-// lease), and the signal is still checked between families and every 4096 search steps.
-// When app/workers/search-threads.ts (the search helper's worker-thread pool) is available, this
-// is where sweeps switch to it, so long searches leave the runner's event loop free.
-import { searchSections, type SearchProblem, type SearchResult } from "~/optimizer";
+// Small grids run in the runner's own thread: searchSections is synchronous, so the runner's
+// timers wait while it runs, but such searches take milliseconds, and starting worker threads
+// (tens to hundreds of ms each, more under tsx) would cost far more than the search. Larger grids
+// run on worker threads (app/workers/search-threads.ts, the search helper's pool), which leaves
+// the runner's event loop free for heartbeats and the cancel poll, and aborts by terminating the
+// threads at once.
+//
+// Where the line is: a raw grid (rawGridSize, the product of the axes) of IN_THREAD_MAX_GRID
+// shapes. The exact search's time does not follow the grid size closely (it bounds whole rows),
+// but below 1e6 shapes even brute force would be quick, so nothing can hold the loop for long.
+// Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
+// so a runner at full concurrency does not oversubscribe the machine.
+import os from "node:os";
+import { rawGridSize, searchSections, type SearchProblem, type SearchResult } from "~/optimizer";
+import { searchInThreads } from "./search-threads";
+
+export const IN_THREAD_MAX_GRID = 1e6;
 
 export async function runSweepSearch(
   problem: SearchProblem,
-  opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void },
+  opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
 ): Promise<SearchResult> {
-  // Let pending timers (a cancel that arrived while queued in p-queue) run first.
+  // Let pending timers (a cancel that arrived while the sweep waited for a slot) run first.
   await new Promise((r) => setImmediate(r));
   opts.signal.throwIfAborted();
-  return searchSections(problem, { signal: opts.signal, onProgress: opts.onProgress });
+  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) return searchSections(problem, { signal: opts.signal, onProgress: opts.onProgress });
+  const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
+  return searchInThreads(problem, { threads, signal: opts.signal, onProgress: opts.onProgress });
 }
