@@ -17,6 +17,12 @@ export interface SearchOptions {
    * `counts.feasible` are over every feasible candidate. `best` is the same either way.
    */
   exhaustive?: boolean;
+  /**
+   * Fast search only: also evaluate rows whose lightest point is within this fraction of the
+   * family's best objective (0.2 = 20%), so `front` shows the trade-off near the optimum.
+   * Default 0. `best` is exact either way.
+   */
+  explore?: number;
   /** Search only depth-grid indices in [from, to) (used to split a search across threads). */
   depthIndexRange?: [number, number];
 }

@@ -17,6 +17,12 @@ import { DEFAULT_DENSITY } from "./schema";
  * much smaller cap, BRUTE_FORCE_MAX_GRID in brute-force.ts.
  */
 export const MAX_GRID_CANDIDATES = 1e11;
+/**
+ * At most this many combinations of depth and plate thicknesses (summed over the families):
+ * the search keeps one small record per combination (≈ 30 bytes), so this bounds its memory
+ * (≈ 150 MB) whatever the widths. A mono-i grid at 1 mm depth steps with ten thicknesses is 1e6.
+ */
+export const MAX_GRID_ROWS = 5_000_000;
 /** At most this many values per axis (depth or width), so the grid arrays stay small. */
 export const MAX_AXIS_VALUES = 100_000;
 /** At most this many distinct plate thicknesses in the stock list. */
@@ -135,6 +141,13 @@ export const searchProblemSchema = z
     const okAxes = p.depth.max >= p.depth.min && p.width.max >= p.width.min;
     if (okAxes) {
       const n = rawGridSize(p);
+      const rows = rawRowCount(p);
+      if (rows > MAX_GRID_ROWS)
+        ctx.addIssue({
+          code: "custom",
+          path: ["grid"],
+          message: `grid: ${rows.toExponential(2)} combinations of depth and plate thicknesses, over the maximum of ${MAX_GRID_ROWS.toExponential(0)} per request (coarsen the depth step or list fewer thicknesses)`,
+        });
       if (n > MAX_GRID_CANDIDATES)
         ctx.addIssue({
           code: "custom",
@@ -185,6 +198,23 @@ export function rawGridSize(p: Pick<SearchProblem, "depth" | "width" | "thicknes
     for (const dim of FAMILY_DIMENSIONS[f]) {
       const r = dimRole(f, dim);
       n *= r === "depth" ? nd : r === "width" ? nw : nt;
+    }
+    total += n;
+  }
+  return total;
+}
+
+/** Combinations of depth and thicknesses (the widths left out), summed over the families: what MAX_GRID_ROWS caps. */
+export function rawRowCount(p: Pick<SearchProblem, "depth" | "thicknesses" | "families">): number {
+  const nd = axisCount(p.depth),
+    nt = new Set(p.thicknesses).size;
+  let total = 0;
+  for (const f of p.families) {
+    let n = 1;
+    for (const dim of FAMILY_DIMENSIONS[f]) {
+      const r = dimRole(f, dim);
+      if (r === "depth") n *= nd;
+      else if (r === "thickness") n *= nt;
     }
     total += n;
   }

@@ -43,7 +43,9 @@
 // force's; `counts.evaluated` is the number of candidates it actually evaluated;
 // `counts.feasible` and `front` are over those evaluated candidates only (engine contract:
 // "among the feasible candidates evaluated"), so they are a subset of brute force's. Pass
-// `exhaustive: true` to get the brute-force front and feasible count.
+// `exhaustive: true` to get the brute-force front and feasible count, or `explore: 0.2` to
+// keep evaluating rows whose lightest point is within 20% of the family's best (each such
+// row's lightest feasible point joins the front; `best` stays exact).
 //
 // Progress: onProgress(familiesDone, families) per family (a best-first search has no honest
 // per-candidate fraction). Abort: the signal is checked every 4096 heap steps; an aborted
@@ -217,6 +219,7 @@ class FamilySearch {
     readonly pf: PreparedFamily,
     ctx: CheckContext,
     readonly t: Tally,
+    readonly explore = 0,
   ) {
     this.fk = pf.fk;
     this.ctx = ctx;
@@ -242,9 +245,10 @@ class FamilySearch {
     }
   }
 
+  /** Pruning limit: the family's incumbent objective, widened by `explore` (and REL for ties). */
   incumbent(): number {
     const c = this.t.bestByFamily[this.pf.fi];
-    return c ? c.objective * (1 + REL) : Infinity;
+    return c ? c.objective * (1 + this.explore) * (1 + REL) : Infinity;
   }
 
   objectiveAt(k: number): number {
@@ -899,7 +903,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
   options.onProgress?.(0, p.families.length);
   p.families.forEach((pf, i) => {
     checkAbort(options.signal);
-    new FamilySearch(pf, p.ctx, t).run(options.signal);
+    new FamilySearch(pf, p.ctx, t, Math.max(0, options.explore ?? 0)).run(options.signal);
     options.onProgress?.(i + 1, p.families.length);
   });
   return buildResult(p, t);

@@ -108,7 +108,7 @@ describe("fast search against brute force (random small grids)", () => {
       }),
       { numRuns: runs(120) },
     );
-  });
+  }, 600_000);
 });
 
 describe("the best candidate re-checked by the section engine", () => {
@@ -176,7 +176,7 @@ describe("the best candidate re-checked by the section engine", () => {
       }),
       { numRuns: runs(80) },
     );
-  });
+  }, 600_000);
 });
 
 describe("monotone in the limits", () => {
@@ -194,7 +194,7 @@ describe("monotone in the limits", () => {
       }),
       { numRuns: runs(80) },
     );
-  });
+  }, 600_000);
 
   it("narrowing a limit (allowable, slenderness, deflection ratio, depth range) never makes the best lighter", () => {
     fc.assert(
@@ -217,5 +217,5 @@ describe("monotone in the limits", () => {
       }),
       { numRuns: runs(80) },
     );
-  });
+  }, 600_000);
 });

@@ -193,6 +193,19 @@ describe("result shape", () => {
   });
 });
 
+describe("explore", () => {
+  it("widens the front without changing the best", () => {
+    const plain = searchSections(base);
+    const wide = searchSections(base, { explore: 0.3 });
+    expect(wide.best?.dimensions).toEqual(plain.best?.dimensions);
+    expect(wide.front.length).toBeGreaterThan(plain.front.length);
+    for (const c of wide.front) {
+      expect(c.utilisation).toBeLessThanOrEqual(1);
+      expect(c.area).toBeLessThanOrEqual(wide.bestByFamily[c.family]!.area * 1.3 * (1 + 1e-9));
+    }
+  });
+});
+
 describe("progress and abort", () => {
   it("reports progress from 0 to the total", () => {
     const calls: [number, number][] = [];
@@ -257,6 +270,11 @@ describe("schema rejections name the field", () => {
     expect(
       msg({ ...base, families: ["mono-i"], depth: { min: 100, max: 10099, step: 1 }, width: { min: 10, max: 1009, step: 1 }, thicknesses: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10] }),
     ).toMatch(/grid: .* over the maximum/);
+  });
+  it("too many depth × thickness combinations (memory cap)", () => {
+    expect(msg({ ...base, families: ["mono-i"], depth: { min: 100, max: 99999, step: 1 }, width: { min: 100, max: 100, step: 1 }, thicknesses: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10] })).toMatch(
+      /grid: .* combinations of depth and plate thicknesses/,
+    );
   });
   it("cost without prices, and shear without an allowable", () => {
     expect(msg({ ...base, objective: "cost" })).toMatch(/prices are required/);
