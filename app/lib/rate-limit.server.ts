@@ -34,13 +34,19 @@ function getLimiters() {
 const key = (value: string) => createHash("sha256").update(value).digest("hex");
 
 /**
- * The client's address as the first X-Forwarded-For hop (or X-Real-IP). react-router-serve gives
- * route code no socket address, so behind no proxy every client shares the "direct" bucket —
- * the per-account limit still applies to each account.
+ * The client's address from X-Forwarded-For, counted TRUST_PROXY_HOPS (default 1) entries from the
+ * right: the entry our own proxy appended, which a client cannot forge (entries further left can be).
+ * react-router-serve gives route code no socket address, so without a proxy every client shares
+ * the "direct" bucket: the per-address limit then acts team-wide, and the per-account one still
+ * applies to each account. Put a proxy that sets X-Forwarded-For in front of a public deployment.
  */
 export function clientAddress(request: Request): string {
-  const forwarded = request.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || request.headers.get("x-real-ip")?.trim() || "direct";
+  const hops = Math.max(1, Number(process.env.TRUST_PROXY_HOPS ?? 1) || 1);
+  const chain = (request.headers.get("x-forwarded-for") ?? "")
+    .split(",")
+    .map((s) => s.trim())
+    .filter(Boolean);
+  return chain[chain.length - hops] ?? chain[0] ?? "direct";
 }
 
 /** "Too many sign-in attempts; try again in N minutes." for a wait of ms. */
