@@ -90,7 +90,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
             <tbody>
               {members.map((m) => (
                 <tr key={m.membershipId} className="border-b border-ink/10">
-                  <td className="py-2 pr-4 font-semibold">{m.name}{m.userId === user.id && <span className="font-normal text-ink/60"> (you)</span>}</td>
+                  <td className="py-2 pr-4 font-semibold">{m.name}{m.userId === user.id && <span className="font-normal text-ink/70"> (you)</span>}</td>
                   <td className="py-2 pr-4">{m.email}</td>
                   <td className="py-2 pr-4">{day(m.joinedAt)}</td>
                   <td className="py-2 pr-4">

@@ -21,7 +21,7 @@ export default function AppLayout({ loaderData }: Route.ComponentProps) {
       <main id="content" tabIndex={-1} className="mx-auto w-full max-w-6xl flex-1 px-4 py-6 focus:outline-none">
         <Outlet />
       </main>
-      <footer className="no-print border-t border-ink/10 px-4 py-4 text-center text-xs text-ink/60">
+      <footer className="no-print border-t border-ink/10 px-4 py-4 text-center text-xs text-ink/70">
         Sparwise sizes sections; a licensed engineer approves them.
       </footer>
     </div>
