@@ -419,3 +419,21 @@ describe("admin and team API tokens", () => {
     await expect(requireApiUser(new Request("http://sparwise.test/x", { headers: { Authorization: `Bearer ${token}` } }))).rejects.toMatchObject({ status: 401 });
   });
 });
+
+describe("e-mail transport", () => {
+  test("capture by default; with SMTP_URL set, a failed delivery is still kept in the outbox", async () => {
+    const { sendEmail } = await import("~/lib/email.server");
+    const captured = await sendEmail({ to: "capture@example.org", subject: "Captured", text: "hello" });
+    expect((await db("outbox").where({ id: captured }).first()).transport).toBe("capture");
+    const saved = process.env.SMTP_URL;
+    process.env.SMTP_URL = "smtp://127.0.0.1:1"; // nothing listens on port 1: delivery must fail
+    try {
+      const id = await sendEmail({ to: "smtp@example.org", subject: "Via SMTP", text: "hello" });
+      const row = await db("outbox").where({ id }).first();
+      expect(row).toMatchObject({ to_address: "smtp@example.org", subject: "Via SMTP", transport: "smtp-failed" });
+    } finally {
+      if (saved === undefined) delete process.env.SMTP_URL;
+      else process.env.SMTP_URL = saved;
+    }
+  });
+});
