@@ -35,9 +35,11 @@
 //       row and its passing points form one interval, found by bisection.
 //   (6) Slenderness ratios are affine in the free width: explicit limits on it.
 //   (7) Shear through the web band (every family with a web, stem or legs): see webShearOk.
-// - mono-i has two widths: a "super" node per (d, tft, tfb, tw) bounds both with the
-//   fractional-knapsack solution of min objective s.t. I_y0(bt, bb) ≥ I_req (a 2-variable
-//   LP solved in closed form, valid by (4)); popping it spawns one row per bt.
+// - mono-i has two widths: a "super" node per (d, tft, tfb, tw) and range of bt bounds both
+//   with the fractional-knapsack solution of min objective s.t. I_y0(bt, bb) ≥ I_req (a
+//   2-variable LP solved in closed form, valid by (4)), I_req from (2) with each fibre's
+//   distance bounded over the box; popping a wide node halves its bt range (branching),
+//   a narrow one spawns one row per bt.
 //
 // What the fast search guarantees: `best`, `bestByFamily` and `counts.grid` equal brute
 // force's; `counts.evaluated` is the number of candidates it actually evaluated;
@@ -69,6 +71,8 @@ const evaluate = evaluateCandidate,
   objectiveOf = plateObjective;
 
 const REL = 1e-9;
+/** mono-i super nodes spanning more bt values than this are split in two before expanding. */
+const SUPER_SPLIT = 16;
 const KIND_READY = 0,
   KIND_RAW = 1,
   KIND_SUPER = 2,
@@ -558,12 +562,17 @@ class FamilySearch {
         kHi = h.outHi;
       this.decode(id);
       if (h.outKind === KIND_SUPER_RAW) {
-        const bound = this.superBound(id);
-        if (bound !== null && bound <= this.incumbent()) h.push(bound, id, 0, 0, KIND_SUPER);
+        this.pushSuper(id, 0, this.W.length - 1);
         continue;
       }
       if (h.outKind === KIND_SUPER) {
-        this.expandSuper(id);
+        if (kHi - k + 1 > SUPER_SPLIT) {
+          // branch on bt: each half gets its own (tighter) bound
+          const mid = (k + kHi) >> 1;
+          this.pushSuper(id, k, mid);
+          this.decode(id);
+          this.pushSuper(id, mid + 1, kHi);
+        } else this.expandSuper(id, k, kHi);
         continue;
       }
       if (h.outKind === KIND_RAW) {
@@ -770,7 +779,7 @@ class FamilySearch {
   private m = { y0: 0, i00: 0, it: 0, ib: 0, o00: 0, ot: 0, ob: 0, bt0: 0, bb0: 0, jLo: 0, jHi: 0, kLo: 0, kHi: 0, req: 0 };
 
   /** Lower bound on the objective over the super node's (bt, bb) rectangle, or null when none can pass. */
-  superBound(id: number): number | null {
+  superBound(id: number, jA = 0, jB = Infinity): number | null {
     const fk = this.fk,
       v = this.v,
       W = this.W,
@@ -778,7 +787,9 @@ class FamilySearch {
       f = fk.free,
       p = this.plates,
       n = fk.nPlates;
-    const [jLo, jHi] = this.btRange();
+    let [jLo, jHi] = this.btRange();
+    jLo = Math.max(jLo, jA);
+    jHi = Math.min(jHi, jB);
     if (jHi < jLo) {
       this.t.ruledOut[3] += 1;
       return null;
@@ -788,7 +799,25 @@ class FamilySearch {
     v[sec] = W[jLo];
     const kHi = this.rowHi(kLo);
     if (kHi < 0) return null;
-    const req = this.baseIreq(this.depthOf()) * (1 - REL);
+    let req = this.baseIreq(this.depthOf());
+    {
+      // (2) with the fibre distances bounded over the box: the centroid moves toward a widening
+      // flange, so c_top is least with the widest top and narrowest bottom flange, c_bot the reverse
+      const ko = this.kout,
+        ctx = this.ctx;
+      v[sec] = W[jHi];
+      v[f] = W[kLo];
+      fk.fill(v, p);
+      compositeKernel(p, n, ko);
+      const cTop = ko[K_MAXY] - ko[K_CY];
+      v[sec] = W[jLo];
+      v[f] = W[kHi];
+      fk.fill(v, p);
+      compositeKernel(p, n, ko);
+      const cBot = ko[K_CY] - ko[K_MINY];
+      req = Math.max(req, (ctx.Ms * cTop) / ctx.aC, (ctx.Ms * cBot) / ctx.aT, (ctx.Mh * cTop) / ctx.aT, (ctx.Mh * cBot) / ctx.aC);
+    }
+    req *= 1 - REL;
     if (this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi)) {
       this.t.ruledOut[C_SHEAR] += (jHi - jLo + 1) * (kHi - kLo + 1);
       return null;
@@ -866,9 +895,15 @@ class FamilySearch {
     return best;
   }
 
-  /** Pops of a super node: one raw row per bt, keyed by the affine model's bound for that bt. */
-  expandSuper(id: number): void {
-    if (this.superBound(id) === null) return;
+  /** Bounds a super node over bt indices [jA, jB] and pushes it (k, hi = its bt range) if it can still win. */
+  private pushSuper(id: number, jA: number, jB: number): void {
+    const bound = this.superBound(id, jA, jB);
+    if (bound !== null && bound <= this.incumbent()) this.heap.push(bound, id, this.m.jLo, this.m.jHi, KIND_SUPER);
+  }
+
+  /** Pops of a small super node: one raw row per bt, keyed by the affine model's bound for that bt. */
+  expandSuper(id: number, jA: number, jB: number): void {
+    if (this.superBound(id, jA, jB) === null) return;
     const m = this.m,
       W = this.W,
       inc = this.incumbent();
