@@ -1,5 +1,6 @@
 // Small form pieces shared by the account, admin and sign-in pages: one look for labels, errors, buttons.
 import type { InputHTMLAttributes, ReactNode } from "react";
+import { SparwiseMark } from "~/components/AppHeader";
 
 export function Field({
   label,
@@ -71,11 +72,18 @@ export function Notice({ message }: { message?: string | null }) {
 /** The centred card the public pages (sign-in, invitation, reset) sit in. */
 export function PublicCard({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <main className="flex min-h-screen items-start justify-center px-4 py-12 sm:items-center">
+    <main className="flex min-h-screen flex-col items-center justify-start px-4 py-12 sm:justify-center">
+      <p className="mb-6 flex items-center gap-2 text-accent-strong">
+        <SparwiseMark className="h-8 w-8" />
+        <span className="text-xl font-bold tracking-tight text-ink">Sparwise</span>
+      </p>
       <div className="w-full max-w-md rounded-xl border border-ink/15 bg-white p-6 shadow-sm sm:p-8">
         <h1 className="mb-6 text-2xl font-bold">{title}</h1>
         {children}
       </div>
+      <p className="mt-6 max-w-md text-center text-xs text-ink/70">
+        The lightest buildable beam section for your moment and shear, searched exactly and checked by your team.
+      </p>
     </main>
   );
 }
