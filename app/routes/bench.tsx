@@ -25,7 +25,7 @@ import {
   type BenchState,
   type FieldError,
 } from "~/lib/bench-state";
-import type { SectionResponse, SectionWorkerApi } from "~/workers/section.worker";
+import { analyseSection, type SectionRequest, type SectionResponse, type SectionWorkerApi } from "~/workers/section.worker";
 import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, type Family } from "~/optimizer/geometry";
 import { isEngineInputError } from "~/optimizer/errors";
 import { sectionProperties } from "~/optimizer/properties";
@@ -110,6 +110,11 @@ const samePath = (a: (string | number)[], b: (string | number)[]) => a.length ==
 
 // ---------------------------------------------------------------- page
 
+/** The worker through comlink, or the same function in the page when workers are unavailable. */
+interface Engine {
+  analyseSection(req: SectionRequest): Promise<SectionResponse>;
+}
+
 interface Computed {
   response: Extract<SectionResponse, { ok: true }>;
   Mz: number;
@@ -123,14 +128,24 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
   const [computed, setComputed] = useState<Computed | null>(null);
   const [errors, setErrors] = useState<FieldError[]>([]);
   const [busy, setBusy] = useState(false);
-  const [engine, setEngine] = useState<Comlink.Remote<SectionWorkerApi> | null>(null);
+  const [engine, setEngine] = useState<Engine | null>(null);
   const seq = useRef(0);
   const addPlateRef = useRef<HTMLButtonElement>(null);
   const addPolygonRef = useRef<HTMLButtonElement>(null);
 
   useEffect(() => {
-    const worker = new Worker(new URL("../workers/section.worker.ts", import.meta.url), { type: "module" });
+    // Without module workers (an old browser, a blocked script) the same function runs on the
+    // page's thread: slower for big polygons, but the bench still answers.
+    const inPage: Engine = { analyseSection: async (req) => analyseSection(req) };
+    let worker: Worker;
+    try {
+      worker = new Worker(new URL("../workers/section.worker.ts", import.meta.url), { type: "module" });
+    } catch {
+      setEngine(() => inPage);
+      return;
+    }
     const remote = Comlink.wrap<SectionWorkerApi>(worker);
+    worker.addEventListener("error", () => setEngine(() => inPage));
     setEngine(() => remote);
     return () => {
       remote[Comlink.releaseProxy]();

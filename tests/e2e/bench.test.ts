@@ -64,7 +64,15 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await expect(page.locator('[data-testid="fibre-top"]').textContent()).resolves.toMatch(/MPa/);
 
   // the link holds the section
-  await page.waitForFunction(() => new URL(location.href).searchParams.get("s")?.includes('"tee"'), undefined, { timeout: 5_000 });
+  // (written a moment after typing stops: wait for the final value, not an earlier pause)
+  await page.waitForFunction(
+    () => {
+      const s = new URL(location.href).searchParams.get("s") ?? "";
+      return s.includes('"f":"tee"') && s.includes('"d":"500"');
+    },
+    undefined,
+    { timeout: 5_000 },
+  );
   const shared = page.url();
 
   // an impossible stem: the engine's message names the field, the input is marked
