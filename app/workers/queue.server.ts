@@ -324,6 +324,15 @@ export function candidatesToStore(result: SearchResult, objective: "mass" | "cos
   }));
 }
 
+/**
+ * Final writes run READ COMMITTED: under the default REPEATABLE READ the DELETE of a sweep's
+ * (usually absent) earlier candidates takes a gap lock on the (sweep_id, rank) index, and two
+ * workers finishing neighbouring sweeps then deadlock on each other's gap when they insert. The
+ * sweep row lock (FOR UPDATE) still serialises attempts on one sweep, and the unique key still
+ * refuses a duplicate.
+ */
+const FINAL_WRITE = { isolationLevel: "read committed" } as const;
+
 /** Writes results and "succeeded" in one transaction if the claim still holds the lease; false if lost. */
 export async function finishSweep(claim: Claim, result: SearchResult): Promise<boolean> {
   const rows = candidatesToStore(result, claim.problem.objective);
@@ -356,7 +365,7 @@ export async function finishSweep(claim: Claim, result: SearchResult): Promise<b
     const n: EndedNotice = { id: claim.id, teamId: held.team_id, ownerId: held.owner_id, status: "succeeded", summary };
     await announceEnd(n, trx);
     return n;
-  });
+  }, FINAL_WRITE);
   if (!notice) return false;
   emitEnded(notice);
   return true;
@@ -379,7 +388,7 @@ export async function endHeldSweep(claim: Claim, status: "failed" | "cancelled",
     const n: EndedNotice = { id: claim.id, teamId: held.team_id, ownerId: held.owner_id, status, summary: message };
     await announceEnd(n, trx);
     return n;
-  });
+  }, FINAL_WRITE);
   if (!notice) return false;
   emitEnded(notice);
   return true;

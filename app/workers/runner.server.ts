@@ -257,6 +257,7 @@ export class SweepRunner {
         if (!ok) this.log(`sweep ${r.claim.id}: lease lost before the final write; nothing written`);
         return ok;
       } catch (e) {
+        this.log(`sweep ${r.claim.id}: final write failed (${e instanceof Error ? e.message : e}); retrying in ${delay} ms`);
         if (Date.now() - r.lastHeld > leaseMs + 30_000) {
           this.log(`sweep ${r.claim.id}: giving up the final write (${e instanceof Error ? e.message : e}); the lease has long expired`);
           return null;
