@@ -236,10 +236,9 @@ authenticator.use(new FormStrategy<VerifiedUser>(({ form, request }) => verifyCr
 /** Kills every session of the user (bumps session_version) and clears this cookie. */
 export async function signOut(request: Request): Promise<Response> {
   const session = await getSession(request);
-  const userId = session.get("userId");
-  if (typeof userId === "number") {
-    await db("users").where({ id: userId }).increment("session_version", 1);
-  }
+  // Only a live cookie may end the user's sessions; a dead one just gets cleared.
+  const user = await getUser(request);
+  if (user) await db("users").where({ id: user.id }).increment("session_version", 1);
   return redirect("/sign-in", { headers: { "Set-Cookie": await destroySession(session) } });
 }
 
