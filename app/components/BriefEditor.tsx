@@ -60,6 +60,14 @@ function Group({ title, children, note }: { title: string; children: ReactNode; 
   );
 }
 
+/** The problem as typed so far, for the preview: a missing brief name does not hold it back. */
+function previewProblem(form: HTMLFormElement): SearchProblem | null {
+  const fd = new FormData(form);
+  if (!String(fd.get("name") ?? "").trim()) fd.set("name", "preview");
+  const s = parseWithZod(fd, { schema: briefFormSchema });
+  return s.status === "success" ? s.value.problem : null;
+}
+
 /** A mid-grid sample of a family: middle depth and width, middle thickness (for the preview only). */
 function sampleDimensions(problem: SearchProblem, family: Family): Record<string, number> | null {
   const mid = (a: Float64Array) => a[Math.floor(a.length / 2)];
@@ -95,7 +103,7 @@ export function BriefEditor({
 }) {
   const [units, setUnits] = useState<UnitSystem>((defaultValue.units as UnitSystem) ?? "si");
   const [problem, setProblem] = useState<SearchProblem | null>(() => {
-    const r = briefFormSchema.safeParse(defaultValue);
+    const r = briefFormSchema.safeParse({ ...defaultValue, name: defaultValue.name || "preview" });
     return r.success ? r.data.problem : null;
   });
   const formRef = useRef<HTMLFormElement>(null);
@@ -104,11 +112,7 @@ export function BriefEditor({
     defaultValue: defaultValue as never,
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
-    onValidate({ formData }) {
-      const s = parseWithZod(formData, { schema: briefFormSchema });
-      setProblem(s.status === "success" ? s.value.problem : null);
-      return s;
-    },
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: briefFormSchema }),
   });
   const moment = fields.moment.getFieldset();
   const allowable = fields.allowable.getFieldset();
@@ -135,8 +139,7 @@ export function BriefEditor({
           .map((s) => (Number.isFinite(Number(s)) ? String(displayNumber(fromSI("length", toSI("length", Number(s), units), next))) : s))
           .join(", ");
       }
-      const r = parseWithZod(new FormData(el), { schema: briefFormSchema });
-      setProblem(r.status === "success" ? r.value.problem : null);
+      setProblem(previewProblem(el));
     }
     setUnits(next);
   }
@@ -175,10 +178,7 @@ export function BriefEditor({
         {...getFormProps(form)}
         ref={formRef}
         className="space-y-4"
-        onInput={(e) => {
-          const s = parseWithZod(new FormData(e.currentTarget), { schema: briefFormSchema });
-          setProblem(s.status === "success" ? s.value.problem : null);
-        }}
+        onInput={(e) => setProblem(previewProblem(e.currentTarget))}
       >
         {intro}
         {form.errors ? (

@@ -78,6 +78,10 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
   const running = sweep.status === "queued" || sweep.status === "running";
 
   useEffect(() => setLive(sweep), [sweep]);
+  // Results arrive in place when a running sweep ends: select its best then.
+  useEffect(() => {
+    if (selected === null && candidates.length) setSelected(candidates[0].rank);
+  }, [candidates, selected]);
   // Poll the API while the sweep runs; once it ends, reload this route's data (results) in place.
   useEffect(() => {
     if (!running) return;

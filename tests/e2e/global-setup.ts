@@ -12,7 +12,8 @@ export default async function setup(project: TestProject) {
   // Migrations are TypeScript: run them under tsx, not in this process.
   execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { stdio: "inherit", env: { ...process.env, DB_NAME: name } });
   server = spawn("npx", ["react-router-serve", "./build/server/index.js"], {
-    env: { ...process.env, DB_NAME: name, PORT: String(port), NODE_ENV: "production" },
+    // VITEST is blanked so the server starts its in-process sweep workers (in-process.server.ts skips them under vitest).
+    env: { ...process.env, DB_NAME: name, PORT: String(port), NODE_ENV: "production", VITEST: "" },
     stdio: ["ignore", "inherit", "inherit"],
     detached: true,
   });
