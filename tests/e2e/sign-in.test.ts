@@ -27,7 +27,7 @@ test("a newcomer opens the home page, signs in as the demo engineer and sees the
   await page.getByRole("heading", { level: 1, name: "Dashboard" }).waitFor();
   expect(new URL(page.url()).pathname).toBe("/");
   await expect(page.locator("header").textContent()).resolves.toContain("Tallowfield Plate & Beam");
-  await expect(page.getByText("Signed in as Marek Lindqvist, engineer").count()).resolves.toBe(1);
+  await expect(page.locator("header").textContent()).resolves.toContain("Marek Lindqvist");
   // An engineer has no Admin link.
   await expect(page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Admin" }).count()).resolves.toBe(0);
   await screenshot(page, "dashboard-engineer");
@@ -83,6 +83,7 @@ test("an admin invites a member, who joins through the link in the outbox", asyn
   await screenshot(page, "invite-accept");
   await page.getByRole("button", { name: "Join the team" }).click();
   await page.getByRole("heading", { level: 1, name: "Dashboard" }).waitFor();
-  await expect(page.getByText("Signed in as Kit Oyelaran, viewer").count()).resolves.toBe(1);
+  await expect(page.locator("header").textContent()).resolves.toContain("Kit Oyelaran");
+  await expect(page.locator("header").textContent()).resolves.toContain("Viewer");
   await newcomerCtx.close();
 });
