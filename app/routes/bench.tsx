@@ -224,9 +224,10 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
     value: string,
     onChange: (v: string) => void,
     error: FieldError | undefined,
-    opts: { ariaLabel?: string; name?: string; className?: string } = {},
+    opts: { ariaLabel?: string; name?: string; className?: string; onKeyDown?: React.KeyboardEventHandler<HTMLInputElement> } = {},
   ) => (
     <input
+      onKeyDown={opts.onKeyDown}
       type="text"
       inputMode="decimal"
       autoComplete="off"
@@ -320,7 +321,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
             <div className="rounded-lg border border-ink/15 bg-white p-4">
               <table className="w-full text-sm">
                 <caption className="mb-2 text-left text-ink/80">
-                  Each plate is b wide and h high, with its bottom-left corner at (z, y); lengths in {L}. Plates may touch but not overlap.
+                  Each plate is b wide and h high, with its bottom-left corner at (z, y); lengths in {L}. Plates may touch but not overlap. Alt+↑ and Alt+↓ move the row you are typing in.
                 </caption>
                 <thead>
                   <tr className="text-left">
@@ -355,6 +356,17 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
                           <td key={k} className="px-0.5 py-0.5">
                             {input(`plate ${i + 1} ${k}`, p[k], (v) => setPlate(k, v), errorAt("plates", i, k) ?? (bad && bad.path.length === 2 ? bad : undefined), {
                               ariaLabel: `plate ${i + 1} ${k} (${L})`,
+                              // Alt+↑ / Alt+↓ move the row; rows are keyed, so focus stays in this input
+                              onKeyDown: (e) => {
+                                if (!e.altKey) return;
+                                if (e.key === "ArrowUp" && i > 0) {
+                                  e.preventDefault();
+                                  move(i - 1);
+                                } else if (e.key === "ArrowDown" && i < state.plates.length - 1) {
+                                  e.preventDefault();
+                                  move(i + 1);
+                                }
+                              },
                             })}
                           </td>
                         ))}

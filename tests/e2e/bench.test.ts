@@ -106,6 +106,11 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await page.keyboard.press("Enter");
   await expect(page.locator('input[aria-label="plate 3 y (mm)"]').inputValue()).resolves.toBe("400");
   await expect(page.evaluate(() => document.activeElement?.getAttribute("aria-label"))).resolves.toBe("Move plate 3 up");
+  // Alt+↓ from inside the row's input moves it back down, focus staying in the input
+  await page.locator('input[aria-label="plate 3 b (mm)"]').focus();
+  await page.keyboard.press("Alt+ArrowDown");
+  await expect(page.locator('input[aria-label="plate 4 y (mm)"]').inputValue()).resolves.toBe("400");
+  await expect(page.evaluate(() => document.activeElement?.getAttribute("aria-label"))).resolves.toBe("plate 4 b (mm)");
   await screenshot(page, "bench-plates");
 
   // file it under a project (the demo seed has projects when the workflow seed is present)
