@@ -103,7 +103,7 @@ export function combineResults(problemFamilies: string[], parts: SearchResult[])
   if (!best) {
     const withReason = parts.filter((p) => p.reason).sort((a, b) => b.counts.grid - a.counts.grid);
     res.reason = withReason[0]?.reason ?? "No candidate passes every check.";
-    if (counts.grid > 0) res.reason = res.reason.replace(/of the [\d,]+ shapes in the grid/, `of the shapes in the grid (${counts.grid.toLocaleString("en")} in all)`);
+    if (counts.grid > 0) res.reason = res.reason.replace(/Of the [\d,]+ shapes in the grid/, `Of the ${counts.grid.toLocaleString("en")} shapes in the grid`);
   }
   return res;
 }

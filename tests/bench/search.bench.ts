@@ -96,6 +96,17 @@ compare("(2a) same i grid with shear and slenderness limits on", checksOn, 1000,
   console.log(`  grid ${r.counts.grid.toExponential(3)} candidates; evaluated ${r.counts.evaluated.toLocaleString("en")}`);
   console.log(`  time to exact best: ${t.toFixed(1)} ms; best ${desc(r)}`);
   console.log(`  target < 2000 ms: ${verdict(t < 2000)}`);
+  // (3b) a harder variant: unequal allowables (the best mono-i is far from symmetric), shear,
+  // and a web slenderness limit that keeps the best off the deepest grid depth
+  const hard: SearchProblemInput = {
+    ...mono,
+    moment: { sagging: 600, hogging: 0 },
+    shear: 300,
+    allowable: { tension: 220, compression: 90, shear: 100 },
+    slenderness: { outstand: 15, web: 120 },
+  };
+  const [h, th] = timeMedian(() => searchSections(hard), 3);
+  console.log(`  (3b) same grid, allowables 90 / 220 MPa, shear 300 kN, web ≤ 120: ${th.toFixed(1)} ms, evaluated ${h.counts.evaluated}; best ${desc(h)} (target < 2000 ms: ${verdict(th < 2000)})`);
 }
 
 
