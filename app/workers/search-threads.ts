@@ -28,13 +28,13 @@ const nodeEndpoint = nodeEndpointUntyped as (nep: unknown) => Comlink.Endpoint;
 const WORKER_FLAG = "sparwise-search-thread";
 
 interface ThreadApi {
-  run(problem: SearchProblemInput, range: [number, number], exhaustive: boolean, onProgress?: (done: number, total: number) => void): SearchResult;
+  run(problem: SearchProblemInput, range: [number, number], exhaustive: boolean, explore: number, onProgress?: (done: number, total: number) => void): SearchResult;
 }
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
   const api: ThreadApi = {
-    run: (problem, range, exhaustive, onProgress) =>
-      searchSections(problem, { depthIndexRange: range, exhaustive, onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined }),
+    run: (problem, range, exhaustive, explore, onProgress) =>
+      searchSections(problem, { depthIndexRange: range, exhaustive, explore, onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined }),
   };
   Comlink.expose(api, nodeEndpoint(parentPort));
 }
@@ -45,6 +45,8 @@ export interface ThreadSearchOptions {
   signal?: AbortSignal;
   /** brute force on each thread: the combined front and feasible count are then the whole grid's */
   exhaustive?: boolean;
+  /** as SearchOptions.explore (each thread explores around its own range's best) */
+  explore?: number;
   /** summed over the threads (each reports per family, as searchSections does) */
   onProgress?: (done: number, total: number) => void;
 }
@@ -141,7 +143,7 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
             report();
           })
         : undefined;
-      return api.run(input, [cuts[i], cuts[i + 1]], options.exhaustive ?? false, cb) as Promise<SearchResult>;
+      return api.run(input, [cuts[i], cuts[i + 1]], options.exhaustive ?? false, options.explore ?? 0, cb) as Promise<SearchResult>;
     });
     const parts = await Promise.race([Promise.all(runs), aborted]);
     return combineResults(problem.families, parts);
