@@ -23,8 +23,9 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
   const M = designMoment(problem);
   // One scale for every drawing: the largest depth and width decide the pixel size.
   const maxD = Math.max(...candidates.map((c) => c.dimensions.d ?? 0));
+  const W = candidates.length > 2 ? 260 : 380;
   return (
-    <div className={`grid gap-4 ${candidates.length > 2 ? "xl:grid-cols-4 md:grid-cols-2" : "md:grid-cols-2"}`} data-testid="comparison">
+    <div className={`grid gap-4 ${candidates.length > 2 ? "md:grid-cols-2 xl:grid-cols-4" : candidates.length === 2 ? "md:grid-cols-2" : ""}`} data-testid="comparison">
       {candidates.map((c) => {
         const section = { family: c.family as Family, ...c.dimensions, density: problem.density } as SectionInput;
         const stress = sectionStresses(section, { Mz: M, V: problem.shear ?? 0 });
@@ -44,7 +45,7 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
               ) : null}
             </header>
             <p className="tabular-nums">{describeDimensions(c.dimensions, units)}</p>
-            <SectionDrawing section={section} properties={p} units={units} width={260} height={h} showDimensions />
+            <SectionDrawing section={section} properties={p} units={units} width={W} height={h} showDimensions />
             <dl className="grid grid-cols-2 gap-x-2 tabular-nums">
               <dt>Mass</dt>
               <dd>{formatQuantity("massPerLength", p.massPerMetre, units)}</dd>
@@ -63,8 +64,10 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
                 <strong>{verdict.utilisation.toFixed(3)}</strong> ({verdict.governing})
               </dd>
             </dl>
-            <StressDiagram result={stress} moment={M} shearForce={problem.shear ?? 0} units={units} width={260} height={200} />
-            <CheckTable verdict={verdict} units={units} compact />
+            <StressDiagram result={stress} moment={M} shearForce={problem.shear ?? 0} units={units} width={W} height={220} />
+            <div className="overflow-x-auto">
+              <CheckTable verdict={verdict} units={units} compact />
+            </div>
             {actions ? actions(c) : null}
           </article>
         );
