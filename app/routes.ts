@@ -19,6 +19,7 @@ export default [
     // BENCH pages
     route("bench", "routes/bench.tsx"),
     // QUEUE pages
+    route("notices", "routes/notices.tsx"),
     // WORKFLOW pages
     route("projects", "routes/projects.tsx"),
     route("projects/new", "routes/projects.new.tsx"),

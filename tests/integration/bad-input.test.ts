@@ -78,6 +78,7 @@ export const ROWS: Record<string, BadInputRow> = {
   },
 
   // ---- QUEUE (add rows here)
+  "/notices": { as: "viewer", field: "intent", malformed: { intent: "read", id: "third" }, malformedField: "id" },
   "/api/v1/sweeps": {
     as: "engineer",
     api: true,

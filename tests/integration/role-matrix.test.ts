@@ -90,6 +90,8 @@ export const ROWS: Record<string, MatrixRow> = {
   "/api/v1/properties": { get: anyone(405), post: apiPermitted("read", 400), api: true },
 
   // ---- QUEUE (add rows here)
+  // every member reads and marks their own notices; an empty post names the missing intent
+  "/notices": { get: members(200), post: members(400) },
   // POST "{}": roles that may run sweeps (or rechecks) pass the guard and fail validation (400).
   "/api/v1/sweeps": { get: apiPermitted("read", 200), post: { admin: 400, engineer: 400, reviewer: 400, viewer: 403, signedOut: 401 }, api: true },
   "/api/v1/sweeps/:id": { params: wf("sweepId", "id"), foreign: wfForeign("sweepId", "id"), get: apiPermitted("read", 200) },
