@@ -39,7 +39,8 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await page.getByLabel("Password").fill("sparwise-demo");
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((u) => u.pathname === "/bench");
-  await expect(page.locator("h1").textContent()).resolves.toBe("Section bench");
+  // the URL changes a moment before the new page renders: wait for the heading itself
+  await page.locator("h1", { hasText: "Section bench" }).waitFor({ timeout: 15_000 });
 
   // the default welded I, symmetric: centroid at mid-depth
   const iz0 = await waitForChange(page, "Iz", null);
@@ -112,6 +113,17 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await expect(page.locator('input[aria-label="plate 4 y (mm)"]').inputValue()).resolves.toBe("400");
   await expect(page.evaluate(() => document.activeElement?.getAttribute("aria-label"))).resolves.toBe("plate 4 b (mm)");
   await screenshot(page, "bench-plates");
+
+  // polygons: the default hollow rectangle 200 × 300 with a centred hole; by symmetry ȳ = 150 mm
+  await page.getByLabel("Polygons", { exact: true }).check();
+  await page.locator('[data-testid="section-drawing"] path[fill-rule="evenodd"]').waitFor({ timeout: 10_000 });
+  await page.waitForFunction(() => document.querySelector('tr[data-property="centroid.y"] [data-value]')?.textContent === "150 mm", undefined, { timeout: 10_000 });
+  await expect(page.locator('tr[data-property="J"]').textContent()).resolves.toContain("approximate");
+  await page.getByLabel("Polygon 2 points (z,y pairs, mm)").fill("20,20 180,20 180,280 twenty,280");
+  await page.getByRole("alert").filter({ hasText: "polygons[1]" }).waitFor({ timeout: 10_000 });
+  await page.getByLabel("Polygon 2 points (z,y pairs, mm)").fill("20,20 180,20 180,280 20,280");
+  await page.getByRole("alert").filter({ hasText: "not valid" }).waitFor({ state: "detached", timeout: 10_000 });
+  await page.getByLabel("Plates", { exact: true }).check();
 
   // file it under a project (the demo seed has projects when the workflow seed is present)
   const save = page.locator("form").filter({ hasText: "Save to a project" });
