@@ -192,6 +192,17 @@ export async function claimNextSweeps(workerId: string, limit: number): Promise<
           ended.push(n);
           continue;
         }
+        // A stored problem the current schema refuses (written before a schema change) would fail
+        // every claim forever: fail that sweep alone, with the schema's words.
+        const problem = searchProblemSchema.safeParse(parseJson(row.problem));
+        if (!problem.success) {
+          const error = `The sweep's stored problem is no longer valid: ${problem.error.issues.map((i) => `${i.path.join(".") || "problem"}: ${i.message}`).join("; ")}`;
+          await trx("sweeps").where({ id }).update(endColumns(trx, "failed", { error }));
+          const n: EndedNotice = { id, teamId: row.team_id, ownerId: row.owner_id, status: "failed", summary: error };
+          await announceEnd(n, trx);
+          ended.push(n);
+          continue;
+        }
         const token = randomBytes(16).toString("hex");
         await trx.raw(
           `UPDATE sweeps SET status = 'running', lease_token = ?, lease_owner = ?, lease_expires_at = NOW(3) + INTERVAL ? MICROSECOND,
@@ -206,7 +217,7 @@ export async function claimNextSweeps(workerId: string, limit: number): Promise<
           workerId,
           teamId: row.team_id,
           ownerId: row.owner_id,
-          problem: searchProblemSchema.parse(parseJson(row.problem)),
+          problem: problem.data,
         });
       }
       return out;

@@ -152,6 +152,17 @@ describe("claim, fencing, finish", () => {
     }
   });
 
+  test("a stored problem the schema now refuses fails that sweep alone; the queue keeps moving", async () => {
+    const u = await teamAndUser();
+    const [bad] = await db("sweeps").insert({ team_id: u.teamId, owner_id: u.ownerId, status: "queued", problem: JSON.stringify({ moment: { sagging: 10 } }) });
+    const { id: good } = await enqueueSweep({ ...u, problem: tinyProblem(1) });
+    const claims = await claimNextSweeps("A", 2);
+    expect(claims.map((c) => c.id)).toEqual([good]);
+    const row = await db("sweeps").where({ id: bad }).first("status", "error");
+    expect(row.status).toBe("failed");
+    expect(row.error).toMatch(/no longer valid: allowable/);
+  });
+
   test("release hands the sweep back without counting the attempt", async () => {
     const u = await teamAndUser();
     const { id } = await enqueueSweep({ ...u, problem: tinyProblem(6) });
