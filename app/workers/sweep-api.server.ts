@@ -5,6 +5,7 @@ import { db, parseJson } from "~/lib/db.server";
 import { can } from "~/lib/roles";
 import type { SessionUser } from "~/lib/auth.server";
 import { fieldErrorsFrom } from "~/lib/forms.server";
+import { logActivity } from "~/lib/activity.server";
 import { enqueueSweep, getTeamSweep, idempotencyKeySchema, type SweepView } from "./queue.server";
 
 export const SWEEP_BODY_LIMIT = 64 * 1024;
@@ -88,5 +89,17 @@ export async function createSweepFromRequest(user: SessionUser, body: unknown, i
     const project = await db("projects").where({ id: projectId }).first("team_id");
     if (!project || project.team_id !== user.teamId) throw notFound("project");
   }
-  return enqueueSweep({ teamId: user.teamId, ownerId: user.id, projectId, briefId, recheckOf: b.recheckOf ?? null, problem, idempotencyKey });
+  const out = await enqueueSweep({ teamId: user.teamId, ownerId: user.id, projectId, briefId, recheckOf: b.recheckOf ?? null, problem, idempotencyKey });
+  // Same activity entries the workflow pages write when they start a sweep (a replayed key adds none).
+  if (out.created)
+    await logActivity({
+      teamId: user.teamId,
+      projectId,
+      userId: user.id,
+      action: b.recheckOf !== undefined ? "recheck_started" : "sweep_started",
+      subjectType: "sweep",
+      subjectId: out.id,
+      detail: { via: "api", briefId, ...(b.recheckOf !== undefined ? { recheckOf: b.recheckOf } : {}) },
+    });
+  return out;
 }

@@ -60,6 +60,8 @@ describe("POST /api/v1/sweeps", () => {
     expect(res.status).toBe(202);
     const row = await db("sweeps").where({ id: (res.data as { id: number }).id }).first("project_id", "brief_id", "problem");
     expect(row).toMatchObject({ project_id: fx.projectId, brief_id: fx.briefId });
+    const log = await db("activity_log").where({ subject_type: "sweep", subject_id: (res.data as { id: number }).id }).first("action", "project_id");
+    expect(log).toEqual({ action: "sweep_started", project_id: fx.projectId });
   });
 
   test("Idempotency-Key: the same request twice is one sweep; the key with another body is a 409", async () => {
