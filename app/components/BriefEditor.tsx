@@ -12,6 +12,7 @@ import { FAMILY_DIMENSIONS, familyRuleViolation, type Family } from "~/optimizer
 import { axisCount, gridValues, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
 import { sectionProperties } from "~/optimizer/properties";
 import { candidateChecks } from "~/optimizer/checks";
+import { presetFill, STEEL_GRADES } from "~/optimizer/materials";
 import { SectionDrawing } from "~/components/SectionDrawing";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { UnitSwitch } from "~/components/UnitSwitch";
@@ -123,25 +124,60 @@ export function BriefEditor({
   const [sampleFamily, setSampleFamily] = useState<Family>(((defaultValue.families as string[] | undefined)?.[0] as Family) ?? "channel");
 
   // Re-express every number in the other system, so switching units never changes the problem.
+  // Each input remembers the exact SI value behind what it shows, so SI → US → SI gives back 400,
+  // not 399.999 (the display rounds to six figures).
   function switchUnits(next: UnitSystem) {
     const el = formRef.current;
     if (el && next !== units) {
+      const convert = (input: HTMLInputElement, q: Quantity, text: string): string => {
+        const x = Number(text);
+        if (text.trim() === "" || !Number.isFinite(x)) return text;
+        const si = input.dataset.shown === input.value && input.dataset.si ? Number(input.dataset.si) : toSI(q, x, units);
+        return String(displayNumber(fromSI(q, si, next)));
+      };
       for (const input of el.querySelectorAll<HTMLInputElement>("input[data-quantity]")) {
         const q = input.dataset.quantity as Quantity;
         const x = Number(input.value);
-        if (input.value.trim() !== "" && Number.isFinite(x)) input.value = String(displayNumber(fromSI(q, toSI(q, x, units), next)));
+        const si = input.value.trim() !== "" && Number.isFinite(x) ? (input.dataset.shown === input.value && input.dataset.si ? Number(input.dataset.si) : toSI(q, x, units)) : null;
+        input.value = convert(input, q, input.value);
+        if (si !== null) {
+          input.dataset.si = String(si);
+          input.dataset.shown = input.value;
+        }
       }
       const th = el.querySelector<HTMLInputElement>("input[name=thicknesses]");
       if (th) {
-        th.value = th.value
-          .split(/[\s,;]+/)
-          .filter(Boolean)
-          .map((s) => (Number.isFinite(Number(s)) ? String(displayNumber(fromSI("length", toSI("length", Number(s), units), next))) : s))
-          .join(", ");
+        const remembered = th.dataset.shown === th.value && th.dataset.si ? th.dataset.si.split(",").map(Number) : null;
+        const parts = th.value.split(/[\s,;]+/).filter(Boolean);
+        const si = parts.map((p, i) => (remembered && remembered.length === parts.length ? remembered[i] : Number.isFinite(Number(p)) ? toSI("length", Number(p), units) : NaN));
+        th.value = parts.map((p, i) => (Number.isFinite(si[i]) ? String(displayNumber(fromSI("length", si[i], next))) : p)).join(", ");
+        th.dataset.si = si.join(",");
+        th.dataset.shown = th.value;
       }
       setProblem(previewProblem(el));
     }
     setUnits(next);
+  }
+
+  // A material preset only fills fields (materials.ts): every value stays editable and the brief stores values.
+  function applyPreset(id: string) {
+    const el = formRef.current;
+    if (!el || !id) return;
+    const fill = presetFill(id);
+    const set = (name: string, q: Quantity | null, v: number) => {
+      const input = el.querySelector<HTMLInputElement>(`input[name="${name}"]`);
+      if (input) input.value = String(displayNumber(q ? fromSI(q, v, units) : v));
+    };
+    set("density", "density", fill.density);
+    set("allowable.tension", "stress", fill.allowable.tension);
+    set("allowable.compression", "stress", fill.allowable.compression);
+    set("allowable.shear", "stress", fill.allowable.shear);
+    for (const k of ["outstand", "internal", "web", "stem"] as const) set(`slenderness.${k}`, null, fill.slenderness[k]);
+    const E = el.querySelector<HTMLInputElement>('input[name="deflection.E"]');
+    // E only matters with a deflection limit: fill it when the span is already given.
+    const span = el.querySelector<HTMLInputElement>('input[name="deflection.span"]');
+    if (E && span && span.value.trim() !== "") set("deflection.E", "stress", fill.E);
+    setProblem(previewProblem(el));
   }
 
   function useStockList(id: string) {
@@ -181,6 +217,7 @@ export function BriefEditor({
         onInput={(e) => setProblem(previewProblem(e.currentTarget))}
       >
         {intro}
+        <input type="hidden" name={fields.siValues.name} defaultValue={String(defaultValue.siValues ?? "")} />
         {form.errors ? (
           <p role="alert" id={form.errorId} className="rounded-md border border-red-800 bg-red-50 px-3 py-2 text-sm font-semibold text-red-900">
             {form.errors.join("; ")}
@@ -197,6 +234,29 @@ export function BriefEditor({
                 {fields.name.errors.join("; ")}
               </p>
             ) : null}
+          </div>
+          <div className="space-y-1">
+            <label htmlFor="material-preset" className="block text-sm font-semibold">
+              Material preset
+            </label>
+            <select
+              id="material-preset"
+              name={fields.material.name}
+              defaultValue={String(defaultValue.material ?? "")}
+              onChange={(e) => applyPreset(e.target.value)}
+              aria-describedby="material-preset-hint"
+              className="rounded-md border border-ink/30 bg-white px-2 py-1.5"
+            >
+              <option value="">— none —</option>
+              {STEEL_GRADES.map((g) => (
+                <option key={g.id} value={g.id}>
+                  {g.name} (fy {g.fy} MPa)
+                </option>
+              ))}
+            </select>
+            <p id="material-preset-hint" className="text-xs text-ink/70">
+              Fills density, allowables (0.60/0.60/0.40·fy) and slenderness limits; all stay editable.
+            </p>
           </div>
           <UnitSwitch value={units} onChange={switchUnits} name="units" />
         </div>

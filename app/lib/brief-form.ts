@@ -76,6 +76,12 @@ const formFields = z.object({
   families: z.array(z.string(), { error: "families must name at least one family" }).default([]),
   slenderness: z.object({ outstand: num("slenderness.outstand"), internal: num("slenderness.internal"), web: num("slenderness.web"), stem: num("slenderness.stem") }).default({}),
   density: num("density"),
+  /**
+   * JSON { field: SI value } of the values the form was opened with. A US customary display
+   * rounds to six figures, so 165 MPa shows as 23.9312 ksi; a field sent back unchanged takes
+   * its exact SI value from here, so an untouched field never drifts (or shows as a changed limit).
+   */
+  siValues: z.string().max(20000, "siValues: too long").optional(),
   deflection: z
     .object({ span: num("deflection.span"), serviceLoad: num("deflection.serviceLoad"), limitRatio: num("deflection.limitRatio"), E: num("deflection.E") })
     .default({}),
@@ -95,10 +101,27 @@ export interface BriefMeta {
 }
 
 /** Form values (in the chosen units) → a SearchProblem input in SI, not yet validated. */
+function readSiValues(text: string | undefined): Record<string, unknown> {
+  if (!text) return {};
+  try {
+    const v = JSON.parse(text) as unknown;
+    return v && typeof v === "object" && !Array.isArray(v) ? (v as Record<string, unknown>) : {};
+  } catch {
+    return {};
+  }
+}
+
 export function formToProblemInput(f: BriefFormValues): Record<string, unknown> {
   const u = f.units;
-  const si = (field: NumericField, v: number | undefined) => (v === undefined ? undefined : toSI(FIELD_QUANTITIES[field], v, u));
-  const thick = parseThicknessList(f.thicknesses).values.map((t) => toSI("length", t, u));
+  const known = readSiValues(f.siValues);
+  // The exact SI value the form opened with, when the shown number is still what it displayed.
+  const exact = (key: string, q: Quantity, v: number): number => {
+    const k = known[key];
+    return typeof k === "number" && Number.isFinite(k) && displayNumber(fromSI(q, k, u)) === v ? k : toSI(q, v, u);
+  };
+  const si = (field: NumericField, v: number | undefined) => (v === undefined ? undefined : exact(field, FIELD_QUANTITIES[field], v));
+  const knownThick = Array.isArray(known.thicknesses) ? (known.thicknesses as unknown[]).filter((x): x is number => typeof x === "number") : [];
+  const thick = parseThicknessList(f.thicknesses).values.map((t) => knownThick.find((k) => displayNumber(fromSI("length", k, u)) === t) ?? toSI("length", t, u));
   const slenderness = Object.fromEntries(SLENDERNESS_KEYS.filter((k) => f.slenderness[k] !== undefined).map((k) => [k, f.slenderness[k]]));
   const d = f.deflection;
   const anyDeflection = d.span !== undefined || d.serviceLoad !== undefined || d.limitRatio !== undefined || d.E !== undefined;
@@ -154,7 +177,8 @@ export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta;
       ctx.addIssue({ code: "custom", path: ["memberLength"], message: "memberLength must be > 0" });
       return z.NEVER;
     }
-    meta.memberLengthM = toSI("span", f.memberLength, f.units);
+    const k = readSiValues(f.siValues).memberLength;
+    meta.memberLengthM = typeof k === "number" && displayNumber(fromSI("span", k, f.units)) === f.memberLength ? k : toSI("span", f.memberLength, f.units);
   }
   if (f.memberCount !== undefined) meta.memberCount = f.memberCount;
   return { meta, problem: r.data };
@@ -162,7 +186,7 @@ export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta;
 
 export type BriefParsed = z.output<typeof briefFormSchema>;
 
-/** Rounds a converted value for display so 165 MPa shows as 23.9313 ksi, not 23.931326… */
+/** Rounds a converted value for display so 165 MPa shows as 23.9312 ksi, not 23.931245…; six significant figures, the precision of the inputs people type. */
 export function displayNumber(x: number): number {
   if (!Number.isFinite(x) || x === 0) return x;
   return Number(x.toPrecision(6));
@@ -174,7 +198,28 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
   const v = (field: NumericField, x: number | undefined) => (x === undefined ? undefined : displayNumber(fromSI(FIELD_QUANTITIES[field], x, u)));
   const s = problem.slenderness ?? {};
   const d = problem.deflection;
+  const siValues: Record<string, unknown> = {
+    "moment.sagging": problem.moment.sagging,
+    "moment.hogging": problem.moment.hogging,
+    shear: problem.shear,
+    "allowable.tension": problem.allowable.tension,
+    "allowable.compression": problem.allowable.compression,
+    "allowable.shear": problem.allowable.shear,
+    "depth.min": problem.depth.min,
+    "depth.max": problem.depth.max,
+    "depth.step": problem.depth.step,
+    "width.min": problem.width.min,
+    "width.max": problem.width.max,
+    "width.step": problem.width.step,
+    density: problem.density,
+    "deflection.span": d?.span,
+    "deflection.serviceLoad": d?.serviceLoad,
+    "deflection.E": d?.E,
+    memberLength: meta.memberLengthM,
+    thicknesses: problem.thicknesses,
+  };
   return {
+    siValues: JSON.stringify(siValues),
     name: meta.name ?? "",
     units: u,
     material: meta.material ?? "",

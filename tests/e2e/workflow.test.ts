@@ -49,6 +49,18 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   await eng.getByTestId("grid-size").waitFor();
   await expect(eng.getByTestId("grid-size").textContent()).resolves.toMatch(/Grid: .* shapes/);
 
+  // A material preset fills the allowables (0.60·fy for S355 = 213 MPa); every value stays editable.
+  await eng.getByLabel("Material preset").selectOption("s355");
+  await expect(eng.getByLabel(/^Tension/).inputValue()).resolves.toBe("213");
+  await eng.getByLabel(/^Tension/).fill("165");
+  await eng.getByLabel(/^Compression/).fill("165");
+  await eng.getByLabel(/^Shear \(/).fill("100");
+  // The unit switch re-expresses every value (400 mm = 15.748 in) and comes back exactly.
+  await eng.getByText("US customary (in, kip·ft, ksi)").first().click();
+  await expect(eng.getByLabel(/Depth, max/).inputValue()).resolves.toBe("15.748");
+  await eng.getByText("SI (mm, kN·m, MPa)").first().click();
+  await expect(eng.getByLabel(/Depth, max/).inputValue()).resolves.toBe("400");
+
   // A field error sits by its field and nothing is sent until it is fixed.
   await eng.getByLabel(/Depth, max/).fill("50");
   await eng.getByRole("button", { name: "Save and run" }).click();

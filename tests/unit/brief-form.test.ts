@@ -59,3 +59,25 @@ describe("brief form ↔ SearchProblem", () => {
     expect(changedLimits(DEFAULT_PROBLEM, b)).toEqual([{ path: "depth.max", before: 400, after: 350 }]);
   });
 });
+
+describe("US customary round trip", () => {
+  it("an untouched US form gives back the exact SI problem (no drift from the six-figure display)", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "us", name: "B" }) as Record<string, any>;
+    // 165 MPa shows as 23.9312 ksi (165 ÷ 6.894757 MPa per ksi, NIST SP 811); sent back unchanged it is 165 exactly.
+    expect(d.allowable.tension).toBe(23.9312);
+    const s = parseWithZod(formData(d), { schema: briefFormSchema });
+    expect(s.status).toBe("success");
+    if (s.status === "success") {
+      expect(s.value.problem).toEqual(DEFAULT_PROBLEM);
+      expect(changedLimits(DEFAULT_PROBLEM, s.value.problem)).toEqual([]);
+    }
+  });
+  it("an edited US field is converted from what was typed", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "us", name: "B" }) as Record<string, any>;
+    d.allowable = { ...d.allowable, tension: 20 };
+    const s = parseWithZod(formData(d), { schema: briefFormSchema });
+    if (s.status !== "success") throw new Error("expected success");
+    expect(s.value.problem.allowable.tension).toBeCloseTo(20 * 6.894757, 4);
+    expect(s.value.problem.allowable.compression).toBe(165);
+  });
+});
