@@ -3,6 +3,7 @@ import { readJson } from "~/lib/forms.server";
 import { db } from "~/lib/db.server";
 import { can } from "~/lib/roles";
 import { SWEEP_BODY_LIMIT, createSweepFromRequest } from "~/workers/sweep-api.server";
+import { queueHealth } from "~/workers/queue.server";
 
 // POST /api/v1/sweeps: { briefId } or { problem } (+ projectId, recheckOf); Idempotency-Key
 // header honoured per user. 202 with the sweep's id and URLs (200-series either way: a replay
@@ -19,7 +20,7 @@ export async function action({ request }: { request: Request }) {
   return Response.json({ id, created, status: "queued", url, page: `/sweeps/${id}` }, { status: 202, headers: { Location: url } });
 }
 
-// GET /api/v1/sweeps: the team's latest sweeps (for dashboards and scripts).
+// GET /api/v1/sweeps: the team's latest sweeps and the queue's health (for dashboards and scripts).
 export async function loader({ request }: { request: Request }) {
   const user = await requireApiUser(request, "read");
   const rows = await db("sweeps")
@@ -28,6 +29,7 @@ export async function loader({ request }: { request: Request }) {
     .limit(50)
     .select("id", "status", "project_id", "brief_id", "owner_id", "progress_done", "progress_total", "queued_at", "finished_at");
   return Response.json({
+    health: await queueHealth(user.teamId),
     items: rows.map((r) => ({
       id: r.id,
       status: r.status,

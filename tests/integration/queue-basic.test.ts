@@ -163,6 +163,25 @@ describe("claim, fencing, finish", () => {
     expect(row.error).toMatch(/no longer valid: allowable/);
   });
 
+  test("queue health: counts by status, the oldest wait, live workers, expired leases", async () => {
+    process.env.SPARWISE_LEASE_MS = "200";
+    try {
+      const u = await teamAndUser();
+      for (let i = 0; i < 3; i++) await enqueueSweep({ ...u, problem: tinyProblem(i) });
+      await claimNextSweeps("W1", 1);
+      const { queueHealth } = await import("~/workers/queue.server");
+      const h = await queueHealth(u.teamId);
+      expect(h.byStatus).toMatchObject({ queued: 2, running: 1 });
+      expect(h.queuedAll).toBe(2);
+      expect(h.oldestQueuedMs).toBeGreaterThanOrEqual(0);
+      expect(h.activeWorkers).toBe(1);
+      await new Promise((r) => setTimeout(r, 250));
+      expect(await queueHealth(u.teamId)).toMatchObject({ activeWorkers: 0, expiredLeases: 1 });
+    } finally {
+      delete process.env.SPARWISE_LEASE_MS;
+    }
+  });
+
   test("release hands the sweep back without counting the attempt", async () => {
     const u = await teamAndUser();
     const { id } = await enqueueSweep({ ...u, problem: tinyProblem(6) });
