@@ -9,6 +9,7 @@ import { db } from "~/lib/db.server";
 import { can } from "~/lib/roles";
 import { BriefEditor } from "~/components/BriefEditor";
 import { Notice } from "~/components/ui";
+import { BriefSummary } from "~/components/BriefSummary";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `${data?.brief.name ?? "Brief"} · Sparwise` }];
@@ -23,6 +24,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sweeps = await db("sweeps").where({ brief_id: brief.id }).orderBy("id", "desc").limit(20).select("id", "status", "recheck_of", "created_at");
   return {
     brief: { id: brief.id, name: brief.name, units: brief.units },
+    problem: brief.problem,
     project: { id: project.id, name: project.name },
     defaults: problemToFormDefaults(brief.problem, { units: brief.units, name: brief.name, memberLengthM: brief.memberLengthM ?? undefined, memberCount: brief.memberCount ?? undefined }),
     stockLists: await listStockLists(user.teamId),
@@ -39,7 +41,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function BriefPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { brief, project, defaults, stockLists, sweeps, mayEdit, saved } = loaderData;
+  const { brief, problem, project, defaults, stockLists, sweeps, mayEdit, saved } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -67,7 +69,10 @@ export default function BriefPage({ loaderData, actionData }: Route.ComponentPro
       {mayEdit ? (
         <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} />
       ) : (
-        <p className="text-ink/70">Your role may read this brief but not edit it. Open one of its sweeps to recheck it.</p>
+        <div className="max-w-2xl space-y-2">
+          <p className="text-sm text-ink/70">Your role may read this brief but not edit it. Open one of its sweeps to recheck it.</p>
+          <BriefSummary problem={problem} units={brief.units} />
+        </div>
       )}
     </div>
   );
