@@ -70,7 +70,7 @@ export function TradeoffChart({
         <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 10 }}>
           <CartesianGrid stroke="#1d273322" />
           <XAxis type="number" dataKey="x" name="Mass" domain={["auto", "auto"]} label={{ value: `Mass per length (${massUnit})`, position: "bottom", offset: 10 }} tickFormatter={(v: number) => formatNumber(v, 3)} />
-          <YAxis type="number" dataKey="y" name="Utilisation" domain={[0, (max: number) => Math.max(1.05, max)]} label={{ value: "Utilisation", angle: -90, position: "insideLeft" }} tickFormatter={(v: number) => v.toFixed(2)} />
+          <YAxis type="number" dataKey="y" name="Utilisation" domain={[(min: number) => Math.max(0, Math.floor((min - 0.05) * 10) / 10), (max: number) => Math.max(1.05, Math.ceil(max * 20) / 20)]} label={{ value: "Utilisation", angle: -90, position: "insideLeft" }} tickFormatter={(v: number) => v.toFixed(2)} />
           <Tooltip content={<Tip units={units} />} />
           <Legend verticalAlign="top" />
           <ReferenceLine y={1} stroke="#8a4b00" strokeDasharray="6 4" label={{ value: "allowable limit (utilisation 1)", position: "insideTopRight", fill: "#8a4b00", fontSize: 12 }} />
