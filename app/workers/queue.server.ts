@@ -626,13 +626,18 @@ export function mayCancel(actor: SweepActor, sweep: { ownerId: number; teamId: n
  */
 export async function cancelSweep(id: number, actor: SweepActor): Promise<{ id: number; status: SweepStatus; cancelRequested: boolean }> {
   const notice = await db.transaction(async (trx) => {
-    const row = Number.isSafeInteger(id) && id > 0 ? await trx("sweeps").where({ id }).forUpdate().first("id", "team_id", "owner_id", "status", "cancel_requested") : null;
+    const row =
+      Number.isSafeInteger(id) && id > 0
+        ? await trx("sweeps").where({ id }).forUpdate().first("id", "team_id", "owner_id", "status", "cancel_requested", trx.raw("lease_expires_at < NOW(3) AS lease_expired"))
+        : null;
     if (!row || row.team_id !== actor.teamId) throw jsonError(404, `sweep ${id} not found`);
     if (!mayCancel(actor, { ownerId: row.owner_id, teamId: row.team_id }))
       throw jsonError(403, "only the sweep's owner (an engineer) or a team admin may cancel it");
-    if (row.status === "queued") {
-      await trx("sweeps").where({ id }).update(endColumns(trx, "cancelled", { cancel_requested: true, reason: "Cancelled before it ran." }));
-      const n: EndedNotice = { id, teamId: row.team_id, ownerId: row.owner_id, status: "cancelled", summary: "It was cancelled before it ran." };
+    // Queued, or running with its lease run out (its worker is gone; fencing keeps a late one out): end it now.
+    if (row.status === "queued" || (row.status === "running" && row.lease_expired)) {
+      const words = row.status === "queued" ? "Cancelled before it ran." : "Cancelled while its worker was not responding.";
+      await trx("sweeps").where({ id }).update(endColumns(trx, "cancelled", { cancel_requested: true, reason: words }));
+      const n: EndedNotice = { id, teamId: row.team_id, ownerId: row.owner_id, status: "cancelled", summary: words };
       await announceEnd(n, trx);
       return { notice: n, status: "cancelled" as SweepStatus, cancelRequested: true };
     }

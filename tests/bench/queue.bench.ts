@@ -122,5 +122,5 @@ for (const k of [1, 2]) {
   for (const w of ws) await stopWorker(w);
 }
 const os = await import("node:os");
-console.log(`\n(the machine: ${os.availableParallelism()} cores; load average now ${os.loadavg().map((x) => x.toFixed(1)).join(", ")}: with other work on the cores, a second process adds contention, not capacity)`);
+console.log(`\n(the machine: ${os.availableParallelism()} cores; load average now ${os.loadavg().map((x) => x.toFixed(1)).join(", ")}; the throughput figures depend on what else runs on the cores)`);
 await closeDb();

@@ -252,6 +252,21 @@ describe("runner", () => {
     }
   });
 
+  test("cancel of a running sweep whose worker is gone (lease expired) ends it at once", async () => {
+    process.env.SPARWISE_LEASE_MS = "200";
+    try {
+      const u = await teamAndUser();
+      const { id } = await enqueueSweep({ ...u, problem: tinyProblem(2) });
+      const [c] = await claimNextSweeps("gone", 1);
+      await new Promise((r) => setTimeout(r, 250));
+      expect(await cancelSweep(id, { id: u.ownerId, teamId: u.teamId, role: "engineer" })).toMatchObject({ status: "cancelled" });
+      expect(await finishSweep(c, searchSections(tinyProblem(2)))).toBe(false);
+      expect((await getSweep(id))?.status).toBe("cancelled");
+    } finally {
+      delete process.env.SPARWISE_LEASE_MS;
+    }
+  });
+
   test("cancel rights: another engineer may not, a viewer may not, the team admin may", async () => {
     const u = await teamAndUser();
     const other = await teamAndUser("engineer2@tallowfield.example");
