@@ -50,6 +50,8 @@ export interface RunnerOptions {
 
 type StopReason = "cancel" | "lost" | "shutdown";
 
+const PROGRESS_WRITE_MS = 1_000;
+
 interface Running {
   claim: Claim;
   ac: AbortController;
@@ -57,6 +59,8 @@ interface Running {
   lastBeat: number;
   /** local time of the last heartbeat the database confirmed */
   lastHeld: number;
+  /** the progress last sent to the database */
+  written?: { done: number; total: number };
   done: Promise<void>;
 }
 
@@ -291,8 +295,12 @@ export class SweepRunner {
           r.ac.abort("cancel" satisfies StopReason);
           continue;
         }
-        if (now - r.lastBeat >= heartbeatMs) {
+        // Beat when due, and sooner (at most once a second) when the progress moved, so the sweep
+        // page's bar follows the search without a write on every control tick.
+        const moved = r.progress !== undefined && (r.progress.done !== r.written?.done || r.progress.total !== r.written?.total);
+        if (now - r.lastBeat >= heartbeatMs || (moved && now - r.lastBeat >= PROGRESS_WRITE_MS)) {
           r.lastBeat = now;
+          r.written = r.progress;
           try {
             if (await heartbeat(r.claim, r.progress)) r.lastHeld = now;
             else r.ac.abort("lost" satisfies StopReason);

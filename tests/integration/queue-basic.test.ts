@@ -224,6 +224,37 @@ describe("runner", () => {
     }
   });
 
+  test("progress reaches the row while the search runs (for the sweep page's bar)", async () => {
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: tinyProblem(4) });
+    // A stand-in search that reports progress slowly, then gives the engine's answer.
+    const runner = new SweepRunner({
+      workerId: "progress-runner",
+      concurrency: 1,
+      log: () => {},
+      search: async (problem, { onProgress }) => {
+        for (let i = 0; i < 3; i++) {
+          onProgress(i, 3);
+          await new Promise((r) => setTimeout(r, 700));
+        }
+        onProgress(3, 3);
+        return searchSections(problem);
+      },
+    }).start();
+    try {
+      const seen = new Set<string>();
+      await waitFor("the sweep to finish", async () => {
+        const s = await getSweep(id);
+        if (s?.status === "running") seen.add(`${s.progress.done}/${s.progress.total}`);
+        return s?.status === "succeeded";
+      }, 15_000, 50);
+      expect([...seen].filter((x) => x !== "0/0").length).toBeGreaterThanOrEqual(2);
+      expect((await getSweep(id))?.progress.fraction).toBe(1);
+    } finally {
+      await runner.stop();
+    }
+  });
+
   test("cancel while queued ends it at once; the runner never runs it", async () => {
     const u = await teamAndUser();
     const { id } = await enqueueSweep({ ...u, problem: tinyProblem(1) });
