@@ -18,6 +18,11 @@ import { searchInThreads } from "./search-threads";
 
 export const IN_THREAD_MAX_GRID = 1e6;
 
+// A sweep's chart needs more than the handful of shapes a best-first search proves optimal with:
+// keep evaluating rows whose lightest shape is within 25 % of each family's best. `best` stays
+// exact (the engine's contract); only the front and the stored candidates grow.
+export const SWEEP_SEARCH_OPTIONS = { explore: 0.25 } as const;
+
 export async function runSweepSearch(
   problem: SearchProblem,
   opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
@@ -25,7 +30,7 @@ export async function runSweepSearch(
   // Let pending timers (a cancel that arrived while the sweep waited for a slot) run first.
   await new Promise((r) => setImmediate(r));
   opts.signal.throwIfAborted();
-  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) return searchSections(problem, { signal: opts.signal, onProgress: opts.onProgress });
+  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) return searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress: opts.onProgress });
   const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
-  return searchInThreads(problem, { threads, signal: opts.signal, onProgress: opts.onProgress });
+  return searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, onProgress: opts.onProgress });
 }

@@ -17,6 +17,7 @@ import {
 } from "~/workers/queue.server";
 import { SweepRunner } from "~/workers/runner.server";
 import { teamAndUser, tinyProblem, waitFor } from "./queue-helpers";
+import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
 
 afterAll(() => closeDb());
 
@@ -205,7 +206,7 @@ describe("runner", () => {
       await runner.stop();
     }
     for (const [i, id] of ids.entries()) {
-      const expected = searchSections(tinyProblem(i * 7));
+      const expected = searchSections(tinyProblem(i * 7), SWEEP_SEARCH_OPTIONS);
       const s = (await getSweep(id))!;
       expect(s.best?.dimensions).toEqual(expected.best?.dimensions);
       expect(s.counts).toEqual(expected.counts);
