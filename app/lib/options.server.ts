@@ -42,6 +42,9 @@ export interface OptionRecord {
   createdById: number | null;
   createdAt: string;
   units: "si" | "us";
+  /** from the brief, for quantities (m; count) */
+  memberLengthM: number | null;
+  memberCount: number | null;
 }
 
 export const saveOptionSchema = z.object({
@@ -104,7 +107,7 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
         .leftJoin("briefs as b", "b.id", "o.brief_id")
         .leftJoin("users as u", "u.id", "o.created_by")
         .where({ "o.id": id, "p.team_id": teamId })
-        .first("o.*", "p.team_id", "p.name as project_name", "b.name as brief_name", "b.units as brief_units", "u.name as author")
+        .first("o.*", "p.team_id", "p.name as project_name", "b.name as brief_name", "b.units as brief_units", "b.member_length_m", "b.member_count", "u.name as author")
     : undefined;
   if (!row) throw notFound("No such option in your team.");
   return {
@@ -123,6 +126,8 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     createdById: row.created_by,
     createdAt: new Date(row.created_at).toISOString(),
     units: row.brief_units ?? "si",
+    memberLengthM: row.member_length_m ?? null,
+    memberCount: row.member_count ?? null,
   };
 }
 

@@ -71,6 +71,15 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
           1. Inputs{option.briefName ? ` (brief “${option.briefName}”)` : ""}
         </h2>
         <BriefSummary problem={option.problem} units={units} />
+        {option.memberLengthM && option.memberCount ? (
+          <p className="mt-2 text-sm" data-testid="quantity">
+            Quantity: {option.memberCount} members × {n("span", option.memberLengthM)} {unitLabel("span", units)} × {n("massPerLength", p.massPerMetre)} {unitLabel("massPerLength", units)} ={" "}
+            <strong>
+              {formatNumber(option.memberCount * fromSI("span", option.memberLengthM, units) * fromSI("massPerLength", p.massPerMetre, units), 4)} {units === "si" ? "kg" : "lb"}
+            </strong>{" "}
+            of steel (before welds, cut-offs and coatings).
+          </p>
+        ) : null}
       </section>
 
       <section aria-labelledby="section-h" className="grid gap-4 break-inside-avoid sm:grid-cols-2">

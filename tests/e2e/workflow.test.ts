@@ -61,6 +61,9 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   await eng.getByText("SI (mm, kN·m, MPa)").first().click();
   await expect(eng.getByLabel(/Depth, max/).inputValue()).resolves.toBe("400");
 
+  await eng.getByLabel(/^Member length/).fill("5.4");
+  await eng.getByLabel(/^Member count/).fill("4");
+
   // A field error sits by its field and nothing is sent until it is fixed.
   await eng.getByLabel(/Depth, max/).fill("50");
   await eng.getByRole("button", { name: "Save and run" }).click();
@@ -143,6 +146,7 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   await expect(rev.getByTestId("decision").textContent()).resolves.toContain("Approved by Tomasz Ferreira");
   await expect(rev.getByTestId("fibre-sagging").textContent()).resolves.toMatch(/σ_top = −M·c_top ÷ Iz/);
   await expect(rev.getByRole("note", { name: "Caution" }).count()).resolves.toBeGreaterThan(0);
+  await expect(rev.getByTestId("quantity").textContent()).resolves.toMatch(/Quantity: 4 members × 5\.4 m × [\d.]+ kg\/m = [\d,.]+ kg/);
   await rev.emulateMedia({ media: "print" });
   await screenshot(rev, "workflow-record");
 
