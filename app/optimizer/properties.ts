@@ -366,7 +366,14 @@ function finish(
     Jmethod,
     massPerMetre: A * density * 1e-6,
   };
-  if (!(fin(A) && fin(Iz) && fin(Iy) && fin(Iyz) && fin(Zz) && fin(Zy) && fin(J) && fin(out.massPerMetre) && Iz > 0 && Iy > 0))
+  // Extremes and plastic moduli too: a plate placed so far from the origin that its width is
+  // lost to rounding (z = 1e300, b = 1) leaves finite I's but zero fibre distances, so
+  // Sz = Infinity and Zz = 0 (engine contract: never Infinity, never a silent zero).
+  if (
+    !(fin(A) && fin(Iz) && fin(Iy) && fin(Iyz) && fin(Zz) && fin(Zy) && fin(J) && fin(out.massPerMetre) && Iz > 0 && Iy > 0) ||
+    !(top > 0 && bottom > 0 && left > 0 && right > 0 && Zz > 0 && Zy > 0 && Qz > 0 && out.massPerMetre > 0) ||
+    !(fin(out.Sz.top) && fin(out.Sz.bottom) && fin(out.Sy.left) && fin(out.Sy.right))
+  )
     throw new EngineInputError("input", "dimensions are out of the range double precision can handle");
   return out;
 }
