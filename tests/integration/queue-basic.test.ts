@@ -278,6 +278,8 @@ describe("runner", () => {
       await cancelSweep(id, { id: u.ownerId, teamId: u.teamId, role: "engineer" });
       await waitFor("cancelled", async () => (await getSweep(id))?.status === "cancelled", 5_000, 20);
       expect(Date.now() - t0).toBeLessThan(1_000);
+      // The runner counts the cancel just after its write lands: wait for the count, don't race it.
+      await waitFor("the runner to count the cancel", async () => runner.stats.cancelled === 1, 2_000, 20);
       expect(runner.stats.cancelled).toBe(1);
     } finally {
       await runner.stop();
