@@ -122,6 +122,26 @@ describe("SectionProperties fields and conventions", () => {
     expect(p.Jmethod).toBe("closed-bredt");
   });
 
+  // "simple polygons in either winding; holes are subtracted": a clockwise 10 × 10 square with a
+  // 4 × 4 hole: A = 84, Iz = (10⁴ − 4⁴)/12 = 812 (Gere & Goodno, Appendix D, by subtraction).
+  test("polygons: clockwise winding, hole subtracted", () => {
+    const p = sectionProperties({
+      polygons: [
+        { points: [[0, 0], [0, 10], [10, 10], [10, 0]], hole: false },
+        { points: [[3, 3], [3, 7], [7, 7], [7, 3]], hole: true },
+      ],
+    });
+    rel(p.area, 84);
+    rel(p.Iz, 812);
+    rel(p.Iy, 812);
+    expect(p.widthAtNeutralAxis).toBe(6);
+  });
+
+  // "a quarter-circle fillet in each re-entrant corner": each adds r² − πr²/4 (common geometry).
+  test("i with root radius: four fillets of area (1 − π/4)·r²", () => {
+    rel(sectionProperties({ family: "i", d: 200, b: 100, tf: 10, tw: 10, r: 10 }).area, 3800 + 4 * (1 - Math.PI / 4) * 100);
+  });
+
   // "massPerMetre | A × density × 10⁻⁶"; "An optional density (kg/m³, default 7850)".
   test("massPerMetre = A·ρ·1e-6, default density 7850", () => {
     // 100 × 60 rectangle: 6000 mm² × 7850 kg/m³ × 1e-6 = 47.1 kg/m (common practice)
@@ -349,6 +369,20 @@ describe("search checks", () => {
     const Q = 100 * 10 * 95 + 10 * 90 * 45;
     const v = candidateChecks("i", { d: 200, b: 100, tf: 10, tw: 10 }, searchProblemSchema.parse({ ...base, shear: 100, allowable: { tension: 1000, compression: 1000, shear: 100 } }));
     rel(v.checks.find((c) => c.name === "shear")!.demand, (1e5 * Q) / (Iz * 10));
+  });
+
+  // "for piecewise-constant widths the maximum lies at the neutral axis or just beside a plate
+  // edge": tee 60 × 200, tf = 30, tw = 5 has its centroidal axis inside the thick flange, so
+  // the stem's top (width 5) beats the axis (width 200). By hand (parallel axes, Gere & Goodno):
+  // ȳ = (6000·45 + 150·15)/6150; Q at the stem top = 150·(ȳ − 15); at the axis 200·(60 − ȳ)²/2.
+  test("shear: maximum just beside a plate edge, not at the axis", () => {
+    const A = 6150, cy = (6000 * 45 + 150 * 15) / A;
+    const Iz = (200 * 30 ** 3) / 12 + 6000 * (45 - cy) ** 2 + (5 * 30 ** 3) / 12 + 150 * (15 - cy) ** 2;
+    const atEdge = (1e5 * 150 * (cy - 15)) / (Iz * 5);
+    const atAxis = (1e5 * 200 * (60 - cy) ** 2) / 2 / (Iz * 200);
+    expect(atEdge).toBeGreaterThan(atAxis);
+    const v = candidateChecks("tee", { d: 60, b: 200, tf: 30, tw: 5 }, searchProblemSchema.parse({ ...base, shear: 100, allowable: { tension: 1000, compression: 1000, shear: 100 } }));
+    rel(v.checks.find((c) => c.name === "shear")!.demand, atEdge);
   });
 
   // The slenderness ratios, exactly as listed in the contract, per family.
