@@ -22,6 +22,8 @@ export interface StockListChoice {
   name: string;
   /** mm, ascending */
   thicknesses: number[];
+  /** per kg by thickness (mm), for the cost objective; empty when the list has no prices */
+  prices: { thickness: number; pricePerKg: number }[];
 }
 
 type Meta = FieldMetadata<unknown>;
@@ -183,7 +185,15 @@ export function BriefEditor({
   function useStockList(id: string) {
     const list = stockLists.find((s) => String(s.id) === id);
     const th = formRef.current?.querySelector<HTMLInputElement>("input[name=thicknesses]");
-    if (list && th) th.value = list.thicknesses.map((t) => String(displayNumber(fromSI("length", t, units)))).join(", ");
+    if (list && th) {
+      th.value = list.thicknesses.map((t) => String(displayNumber(fromSI("length", t, units)))).join(", ");
+      // The list's exact mm values stand behind what is shown (see switchUnits).
+      th.dataset.si = list.thicknesses.join(",");
+      th.dataset.shown = th.value;
+    }
+    const prices = formRef.current?.querySelector<HTMLInputElement>("input[name=prices]");
+    if (prices) prices.value = list && list.prices.length ? JSON.stringify(list.prices) : "";
+    if (formRef.current) setProblem(previewProblem(formRef.current));
   }
 
   const preview = useMemo(() => {
@@ -320,6 +330,29 @@ export function BriefEditor({
               </select>
             </div>
           </div>
+        </fieldset>
+
+        <fieldset className="rounded-lg border border-ink/15 bg-white p-4">
+          <legend className="px-1 text-base font-bold">Objective</legend>
+          <input type="hidden" name={fields.prices.name} defaultValue={String(defaultValue.prices ?? "")} />
+          <label htmlFor={fields.objective.id} className="sr-only">
+            Objective
+          </label>
+          <select
+            id={fields.objective.id}
+            name={fields.objective.name}
+            defaultValue={String(defaultValue.objective ?? "mass")}
+            aria-describedby={fields.prices.errors ? fields.prices.errorId : undefined}
+            className="rounded-md border border-ink/30 bg-white px-2 py-1.5"
+          >
+            <option value="mass">Lightest (least mass per length)</option>
+            <option value="cost">Cheapest (plate mass × the stock list's price per kg)</option>
+          </select>
+          {fields.prices.errors || fields.objective.errors ? (
+            <p id={fields.prices.errorId} className="mt-1 text-sm font-semibold text-red-800">
+              {[...(fields.objective.errors ?? []), ...(fields.prices.errors ?? [])].join("; ")} (choose a stock list with prices for every thickness)
+            </p>
+          ) : null}
         </fieldset>
 
         <fieldset className="rounded-lg border border-ink/15 bg-white p-4">

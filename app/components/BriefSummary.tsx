@@ -22,6 +22,12 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
     ["Slenderness limits (b/t)", Object.entries(s).map(([k, v]) => `${k} ${v}`).join(", ") || "none"],
     ["Density", q("density", problem.density)],
     [
+      "Objective",
+      problem.objective === "cost"
+        ? `cheapest; prices per kg: ${(problem.prices ?? []).map((x) => `${formatNumber(fromSI("length", x.thickness, units))} ${unitLabel("length", units)} → ${x.pricePerKg}`).join(", ")}`
+        : "lightest (least mass per length)",
+    ],
+    [
       "Deflection",
       problem.deflection
         ? `span ${q("deflection.span", problem.deflection.span)}, service load ${q("deflection.serviceLoad", problem.deflection.serviceLoad)}, limit span/${problem.deflection.limitRatio}, E ${q("deflection.E", problem.deflection.E)}`

@@ -7,7 +7,7 @@ import { describeDimensions, type ChartCandidate } from "~/components/TradeoffCh
 import { FAMILY_STYLE } from "~/components/family-style";
 import type { Family } from "~/optimizer/geometry";
 
-type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing";
+type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing" | "cost";
 export const MAX_COMPARE = 4;
 
 export function CandidateTable({
@@ -29,11 +29,12 @@ export function CandidateTable({
   const [family, setFamily] = useState("");
   const [frontOnly, setFrontOnly] = useState(false);
   const families = [...new Set(candidates.map((c) => c.family))];
+  const withCost = candidates.some((c) => c.cost != null);
   const rows = useMemo(() => {
     const list = candidates.filter((c) => (!family || c.family === family) && (!frontOnly || c.onFront));
     return list.sort((a, b) => {
-      const x = a[sort.key],
-        y = b[sort.key];
+      const x = a[sort.key] ?? 0,
+        y = b[sort.key] ?? 0;
       const d = typeof x === "number" && typeof y === "number" ? x - y : String(x).localeCompare(String(y));
       return d * sort.dir || a.rank - b.rank;
     });
@@ -82,6 +83,7 @@ export function CandidateTable({
                 Dimensions
               </th>
               {head("massPerMetre", `Mass (${unitLabel("massPerLength", units)})`, true)}
+              {withCost ? head("cost", "Cost per m", true) : null}
               {head("utilisation", "Utilisation", true)}
               {head("governing", "Governing check")}
               <th scope="col" className="p-2">
@@ -117,6 +119,7 @@ export function CandidateTable({
                 </td>
                 <td className="p-2 tabular-nums">{describeDimensions(c.dimensions, units)}</td>
                 <td className="p-2 text-right tabular-nums">{formatNumber(fromSI("massPerLength", c.massPerMetre, units))}</td>
+                {withCost ? <td className="p-2 text-right tabular-nums">{c.cost != null ? c.cost.toFixed(2) : "—"}</td> : null}
                 <td className="p-2 text-right tabular-nums">{c.utilisation.toFixed(3)}</td>
                 <td className="p-2">{c.governing}</td>
                 <td className="p-2">{c.onFront ? "yes" : ""}</td>

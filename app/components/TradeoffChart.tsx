@@ -15,6 +15,8 @@ export interface ChartCandidate {
   utilisation: number;
   governing: string;
   onFront: boolean;
+  /** per metre, in the stock list's currency (cost objective only) */
+  cost?: number | null;
 }
 
 interface Point {

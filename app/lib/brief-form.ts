@@ -82,6 +82,9 @@ const formFields = z.object({
    * its exact SI value from here, so an untouched field never drifts (or shows as a changed limit).
    */
   siValues: z.string().max(20000, "siValues: too long").optional(),
+  objective: z.enum(["mass", "cost"], { error: 'objective must be "mass" or "cost"' }).default("mass"),
+  /** JSON [{ thickness (mm), pricePerKg }] filled from the chosen stock list (the cost objective needs it). */
+  prices: z.string().max(20000, "prices: too long").optional(),
   deflection: z
     .object({ span: num("deflection.span"), serviceLoad: num("deflection.serviceLoad"), limitRatio: num("deflection.limitRatio"), E: num("deflection.E") })
     .default({}),
@@ -120,7 +123,15 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
     return typeof k === "number" && Number.isFinite(k) && displayNumber(fromSI(q, k, u)) === v ? k : toSI(q, v, u);
   };
   const si = (field: NumericField, v: number | undefined) => (v === undefined ? undefined : exact(field, FIELD_QUANTITIES[field], v));
-  const knownThick = Array.isArray(known.thicknesses) ? (known.thicknesses as unknown[]).filter((x): x is number => typeof x === "number") : [];
+  // Exact mm values a shown thickness may stand for: the opened problem's and the stock list's (prices).
+  let priced: unknown[] = [];
+  try {
+    const p = f.prices ? (JSON.parse(f.prices) as unknown) : [];
+    if (Array.isArray(p)) priced = p.map((x) => (x && typeof x === "object" ? (x as { thickness?: unknown }).thickness : undefined));
+  } catch {
+    priced = [];
+  }
+  const knownThick = [...(Array.isArray(known.thicknesses) ? (known.thicknesses as unknown[]) : []), ...priced].filter((x): x is number => typeof x === "number" && Number.isFinite(x));
   const thick = parseThicknessList(f.thicknesses).values.map((t) => knownThick.find((k) => displayNumber(fromSI("length", k, u)) === t) ?? toSI("length", t, u));
   const slenderness = Object.fromEntries(SLENDERNESS_KEYS.filter((k) => f.slenderness[k] !== undefined).map((k) => [k, f.slenderness[k]]));
   const d = f.deflection;
@@ -138,6 +149,14 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
     families: f.families,
   };
   if (f.shear !== undefined) out.shear = si("shear", f.shear);
+  out.objective = f.objective;
+  if (f.prices) {
+    try {
+      out.prices = JSON.parse(f.prices) as unknown;
+    } catch {
+      // left out: the engine's schema then names prices as missing
+    }
+  }
   if (Object.keys(slenderness).length) out.slenderness = slenderness;
   if (f.density !== undefined) out.density = si("density", f.density);
   // A partly filled deflection block goes to the engine as given, so its schema names the missing field.
@@ -220,6 +239,8 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
   };
   return {
     siValues: JSON.stringify(siValues),
+    objective: problem.objective,
+    prices: problem.prices ? JSON.stringify(problem.prices) : "",
     name: meta.name ?? "",
     units: u,
     material: meta.material ?? "",

@@ -11,10 +11,14 @@ export async function listStockLists(teamId: number): Promise<(StockListChoice &
   const items = await db("stock_list_items").whereIn("stock_list_id", lists.map((l) => l.id)).select("stock_list_id", "thickness_mm", "price_per_kg");
   return lists.map((l) => {
     const mine = items.filter((i) => i.stock_list_id === l.id);
+    // One price per thickness for the cost objective: the lowest the list offers for it.
+    const prices = new Map<number, number>();
+    for (const i of mine) if (i.price_per_kg != null && !(prices.get(i.thickness_mm)! <= i.price_per_kg)) prices.set(i.thickness_mm, i.price_per_kg);
     return {
       id: l.id,
       name: l.name,
       thicknesses: stockThicknesses(mine.map((i) => ({ thickness: i.thickness_mm }))),
+      prices: [...prices].sort((a, b) => a[0] - b[0]).map(([thickness, pricePerKg]) => ({ thickness, pricePerKg })),
       items: mine.length,
       withPrices: mine.some((i) => i.price_per_kg != null),
     };

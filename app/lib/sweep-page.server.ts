@@ -14,7 +14,7 @@ export async function sweepCandidates(sweepId: number): Promise<ChartCandidate[]
   for (let page = 1; out.length < MAX_CHART_CANDIDATES; page++) {
     const r = await listCandidates(sweepId, { page, pageSize: 500, sort: "rank" });
     for (const c of r.items)
-      out.push({ rank: c.rank, family: c.family, dimensions: c.dimensions, massPerMetre: c.massPerMetre, utilisation: c.utilisation, governing: c.governing, onFront: c.onFront });
+      out.push({ rank: c.rank, family: c.family, dimensions: c.dimensions, massPerMetre: c.massPerMetre, utilisation: c.utilisation, governing: c.governing, onFront: c.onFront, cost: c.cost });
     if (r.items.length < 500) break;
   }
   return out;
@@ -51,7 +51,7 @@ function publicSweep(s: SweepView) {
     cancelRequested: s.cancelRequested,
     progress: s.progress,
     counts: s.counts,
-    best: s.best ? { family: s.best.family, dimensions: s.best.dimensions, massPerMetre: s.best.massPerMetre, utilisation: s.best.utilisation, governing: s.best.governing } : null,
+    best: s.best ? { family: s.best.family, dimensions: s.best.dimensions, massPerMetre: s.best.massPerMetre, utilisation: s.best.utilisation, governing: s.best.governing, cost: s.best.cost ?? null } : null,
     reason: s.reason,
     error: s.error,
     queuedAt: s.queuedAt,

@@ -190,8 +190,8 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
           <section aria-label="Summary" className="rounded-lg border border-ink/15 bg-white p-4 text-sm">
             {sweep.best ? (
               <p data-testid="best">
-                <strong>Lightest section:</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
-                {sweep.best.utilisation.toFixed(3)} ({sweep.best.governing}).
+                <strong>{sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
+                {sweep.best.utilisation.toFixed(3)} ({sweep.best.governing}){sweep.best.cost != null ? `, cost ${sweep.best.cost.toFixed(2)} per m (the cheapest: objective "cost")` : ""}.
               </p>
             ) : (
               <p>

@@ -81,3 +81,26 @@ describe("US customary round trip", () => {
     expect(s.value.problem.allowable.compression).toBe(165);
   });
 });
+
+describe("cost objective", () => {
+  it("takes the stock list's prices; without them the engine names prices", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "B" }) as Record<string, any>;
+    d.objective = "cost";
+    const none = parseWithZod(formData(d), { schema: briefFormSchema });
+    expect(errorsOf(none)?.prices?.[0]).toMatch(/prices are required when objective is "cost"/);
+    d.prices = JSON.stringify(DEFAULT_PROBLEM.thicknesses.map((t) => ({ thickness: t, pricePerKg: 1 + t / 100 })));
+    const ok = parseWithZod(formData(d), { schema: briefFormSchema });
+    if (ok.status !== "success") throw new Error(JSON.stringify(errorsOf(ok)));
+    expect(ok.value.problem.objective).toBe("cost");
+    expect(ok.value.problem.prices).toHaveLength(7);
+  });
+  it("in US units a stock-list thickness shown rounded still matches its price (6.35 mm = 0.25 in)", () => {
+    const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "us", name: "B" }) as Record<string, any>;
+    d.objective = "cost";
+    d.thicknesses = "0.23622, 0.314961"; // 6 mm and 8 mm at six figures
+    d.prices = JSON.stringify([{ thickness: 6, pricePerKg: 1.2 }, { thickness: 8, pricePerKg: 1.1 }]);
+    const ok = parseWithZod(formData(d), { schema: briefFormSchema });
+    if (ok.status !== "success") throw new Error(JSON.stringify(errorsOf(ok)));
+    expect(ok.value.problem.thicknesses).toEqual([6, 8]);
+  });
+});
