@@ -8,15 +8,20 @@ import { clientAddress, resetMailAllowed } from "~/lib/rate-limit.server";
 
 export const RESET_TTL_MS = 60 * 60 * 1000; // one hour (issue 2)
 
-export const newPasswordSchema = z
-  .object({
-    password: z
-      .string({ error: "Choose a password." })
-      .min(MIN_PASSWORD_LENGTH, `Password must be at least ${MIN_PASSWORD_LENGTH} characters.`)
-      .max(200, "Password must be at most 200 characters."),
-    confirm: z.string({ error: "Repeat the password." }),
-  })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+// Shared by the reset form and the invitation form (which adds a name).
+export const passwordFields = {
+  password: z
+    .string({ error: "Choose a password." })
+    .min(MIN_PASSWORD_LENGTH, `Password must be at least ${MIN_PASSWORD_LENGTH} characters.`)
+    .max(200, "Password must be at most 200 characters."),
+  confirm: z.string({ error: "Repeat the password." }),
+};
+export const passwordsMatch: [(v: { password: string; confirm: string }) => boolean, { path: string[]; message: string }] = [
+  (v) => v.password === v.confirm,
+  { path: ["confirm"], message: "The two passwords differ." },
+];
+
+export const newPasswordSchema = z.object(passwordFields).refine(...passwordsMatch);
 
 export const forgotSchema = z.object({
   email: z.string({ error: "Enter your e-mail address." }).trim().max(254, "E-mail address is too long.").pipe(z.email("Enter a valid e-mail address.")),

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { db } from "~/lib/db.server";
-import { hashPassword, hashToken, MIN_PASSWORD_LENGTH, newToken, normaliseEmail, type SessionUser } from "~/lib/auth.server";
+import { hashPassword, hashToken, newToken, normaliseEmail, type SessionUser } from "~/lib/auth.server";
+import { passwordFields, passwordsMatch } from "~/lib/passwords.server";
 import { appUrl, sendEmail } from "~/lib/email.server";
 import { logActivity } from "~/lib/activity.server";
 import { FieldError } from "~/lib/forms.server";
@@ -27,13 +28,9 @@ export const adminActionSchema = z.discriminatedUnion(
 export const acceptSchema = z
   .object({
     name: z.string({ error: "Enter your name." }).trim().min(1, "Enter your name.").max(120, "Name must be at most 120 characters."),
-    password: z
-      .string({ error: "Choose a password." })
-      .min(MIN_PASSWORD_LENGTH, `Password must be at least ${MIN_PASSWORD_LENGTH} characters.`)
-      .max(200, "Password must be at most 200 characters."),
-    confirm: z.string({ error: "Repeat the password." }),
+    ...passwordFields,
   })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+  .refine(...passwordsMatch);
 
 // ---------------------------------------------------------------- members
 
