@@ -107,10 +107,6 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     P[k + 1] = h;
     P[k + 2] = z;
     P[k + 3] = y;
-    T[k] = h;
-    T[k + 1] = b;
-    T[k + 2] = y;
-    T[k + 3] = z;
   }
   const dens = input.density;
   if (dens !== undefined && !(typeof dens === "number" && fin(dens) && dens > 0)) ok = false;
@@ -144,28 +140,89 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     maxZ = kout[K_MAXZ],
     minY = kout[K_MINY],
     maxY = kout[K_MAXY];
-  const Zz = platePlasticModulus(P, n, A, cy);
-  const Zy = platePlasticModulus(T, n, A, cz);
-  // Qz, the widths either side of the axis and J in one pass (same rules as plateQAbove,
-  // plateWidthAt and torsionConstant's open case; the property tests hold them equal).
+  // One pass at the centroid, both axes: Qz, the widths either side of the axis and J (same
+  // rules as plateQAbove, plateWidthAt and torsionConstant's open case; the property tests hold
+  // them equal), and for each axis what the equal-area search needs there: the area beyond the
+  // centroidal axis, the widths cut just beyond/before it and the nearest plate edges (the
+  // first step of platePlasticModulus' walk).
   let Qz = 0,
     wa = 0,
     wb = 0,
-    J = 0;
+    J = 0,
+    aY = 0,
+    eUpY = Infinity,
+    eDnY = -Infinity,
+    Qy = 0,
+    wRz = 0,
+    wLz = 0,
+    aZ = 0,
+    eUpZ = Infinity,
+    eDnZ = -Infinity;
   for (let i = 0; i < n * PLATE_STRIDE; i += PLATE_STRIDE) {
     const b = P[i],
       h = P[i + 1],
+      left = P[i + 2],
+      right = left + b,
       bot = P[i + 3],
       top = bot + h;
     if (top > cy) {
       const lo = bot > cy ? bot : cy;
+      aY += b * (top - lo);
       Qz += b * (top - lo) * (0.5 * (top + lo) - cy);
       if (bot <= cy) wa += b;
+      if (top < eUpY) eUpY = top;
     }
+    if (bot > cy && bot < eUpY) eUpY = bot;
     if (bot < cy && cy <= top) wb += b;
+    if (bot < cy && bot > eDnY) eDnY = bot;
+    if (top < cy && top > eDnY) eDnY = top;
+    if (right > cz) {
+      const lo = left > cz ? left : cz;
+      aZ += h * (right - lo);
+      Qy += h * (right - lo) * (0.5 * (right + lo) - cz);
+      if (left <= cz) wRz += h;
+      if (right < eUpZ) eUpZ = right;
+    }
+    if (left > cz && left < eUpZ) eUpZ = left;
+    if (left < cz && cz <= right) wLz += h;
+    if (left < cz && left > eDnZ) eDnZ = left;
+    if (right < cz && right > eDnZ) eDnZ = right;
     J += b > h ? (b * h * h * h) / 3 : (h * b * b * b) / 3;
   }
+  let Zz = bandPlasticModulus(0.5 * A, cy, Qz, aY, wa, wb, eUpY, eDnY);
+  if (Zz !== Zz) Zz = platePlasticModulus(P, n, A, cy);
+  let Zy = bandPlasticModulus(0.5 * A, cz, Qy, aZ, wRz, wLz, eUpZ, eDnZ);
+  if (Zy !== Zy) {
+    // the transposed copy is only needed here (the walk reads heights as y)
+    for (let i = 0; i < n * PLATE_STRIDE; i += PLATE_STRIDE) {
+      T[i] = P[i + 1];
+      T[i + 1] = P[i];
+      T[i + 2] = P[i + 3];
+      T[i + 3] = P[i + 2];
+    }
+    Zy = platePlasticModulus(T, n, A, cz);
+  }
   return finish(A, cz, cy, Iz, Iy, Iyz, minZ, maxZ, minY, maxY, Zz, Zy, Qz, wa < wb ? wa : wb, J, "open-thin-walled", dens === undefined ? DEFAULT_DENSITY : dens);
+}
+
+/**
+ * Plastic modulus when the equal-area axis lies in the band of constant cut width around the
+ * centroidal axis c (the usual case), else NaN (the caller walks: platePlasticModulus).
+ * half = A/2, Q = ∫_{s>c} (s − c) dA, a = area beyond c, wUp/wDn the widths cut just beyond and
+ * just before c, eUp/eDn the nearest plate edges either side. With p = c ± δ in the band,
+ * Z = ∫|s − p| dA = 2·U(p) − A·(c − p), U(p) = ∫_{s>p} (s − p) dA = Q ∓ (a·δ ∓ w·δ²/2), and
+ * w·δ = |a − half| reduce it to Z = 2Q − w·δ² (either side).
+ */
+function bandPlasticModulus(half: number, c: number, Q: number, a: number, wUp: number, wDn: number, eUp: number, eDn: number): number {
+  if (a === half) return 2 * Q;
+  if (a > half) {
+    if (!(wUp > 0)) return NaN;
+    const d = (a - half) / wUp;
+    return c + d <= eUp ? 2 * Q - wUp * d * d : NaN;
+  }
+  if (!(wDn > 0)) return NaN;
+  const d = (half - a) / wDn;
+  return c - d >= eDn ? 2 * Q - wDn * d * d : NaN;
 }
 
 // ------------------------------------------------------------------ general path

@@ -122,6 +122,25 @@ describe("SectionProperties fields and conventions", () => {
     expect(p.Jmethod).toBe("closed-bredt");
   });
 
+  // "Zz ... about the equal-area axis" when that axis is in another plate than the centroid:
+  // plates 200 × 20 on top of a 10 × 100 web on a 50 × 10 plate. A = 5500, ȳ = 98.6 (in the web),
+  // but A/2 = 2750 < 4000 puts the equal-area axis 2750/200 = 13.75 below the top, in the top
+  // plate. Z = Σ area × distance to that axis (common practice), by hand:
+  // 200·13.75·6.875 + 200·6.25·3.125 + 1000·56.25 + 500·111.25 = 134687.5.
+  test("Zz with the equal-area axis outside the centroid's plate", () => {
+    const plates = [{ b: 50, h: 10, z: 75, y: 0 }, { b: 10, h: 100, z: 95, y: 10 }, { b: 200, h: 20, z: 0, y: 110 }];
+    const p = sectionProperties({ plates });
+    rel(p.centroid.y, (4000 * 120 + 1000 * 60 + 500 * 5) / 5500);
+    rel(p.Zz, 134687.5);
+    // Zy: symmetric about the vertical axis, (b²·t)/4 per plate
+    rel(p.Zy, (50 ** 2 * 10 + 10 ** 2 * 100 + 200 ** 2 * 20) / 4);
+    rel(sectionProperties({ family: "mono-i", d: 130, bt: 200, tft: 20, bb: 50, tfb: 10, tw: 10 }).Zz, 134687.5);
+    // the same plates turned on their side: now Zy is the one whose axis leaves the centroid's plate
+    const side = sectionProperties({ plates: plates.map((q) => ({ b: q.h, h: q.b, z: q.y, y: q.z })) });
+    rel(side.Zy, 134687.5);
+    rel(side.Zz, p.Zy);
+  });
+
   // "simple polygons in either winding; holes are subtracted": a clockwise 10 × 10 square with a
   // 4 × 4 hole: A = 84, Iz = (10⁴ − 4⁴)/12 = 812 (Gere & Goodno, Appendix D, by subtraction).
   test("polygons: clockwise winding, hole subtracted", () => {
