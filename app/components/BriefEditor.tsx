@@ -123,6 +123,7 @@ export function BriefEditor({
   const width = fields.width.getFieldset();
   const slender = fields.slenderness.getFieldset();
   const defl = fields.deflection.getFieldset();
+  const [prices, setPrices] = useState(String(defaultValue.prices ?? ""));
   const [sampleFamily, setSampleFamily] = useState<Family>(((defaultValue.families as string[] | undefined)?.[0] as Family) ?? "channel");
 
   // Re-express every number in the other system, so switching units never changes the problem.
@@ -191,9 +192,15 @@ export function BriefEditor({
       th.dataset.si = list.thicknesses.join(",");
       th.dataset.shown = th.value;
     }
-    const prices = formRef.current?.querySelector<HTMLInputElement>("input[name=prices]");
-    if (prices) prices.value = list && list.prices.length ? JSON.stringify(list.prices) : "";
-    if (formRef.current) setProblem(previewProblem(formRef.current));
+    const next = list && list.prices.length ? JSON.stringify(list.prices) : "";
+    setPrices(next);
+    const el = formRef.current;
+    if (el) {
+      // The state reaches the hidden input on the next render; the preview reads it now.
+      const fd = el.querySelector<HTMLInputElement>("input[name=prices]");
+      if (fd) fd.value = next;
+      setProblem(previewProblem(el));
+    }
   }
 
   const preview = useMemo(() => {
@@ -334,7 +341,8 @@ export function BriefEditor({
 
         <fieldset className="rounded-lg border border-ink/15 bg-white p-4">
           <legend className="px-1 text-base font-bold">Objective</legend>
-          <input type="hidden" name={fields.prices.name} defaultValue={String(defaultValue.prices ?? "")} />
+          {/* Controlled: React re-applies a hidden input's defaultValue on every render, which would wipe a DOM-set value. */}
+          <input type="hidden" name={fields.prices.name} value={prices} />
           <label htmlFor={fields.objective.id} className="sr-only">
             Objective
           </label>
