@@ -35,13 +35,29 @@ const GRID_EPS = 1e-9;
 const finite = (name: string) =>
   z.number({ error: `${name} must be a number` }).refine(Number.isFinite, { message: `${name} must be a finite number` });
 const positive = (name: string) => finite(name).refine((x) => x > 0, { message: `${name} must be > 0` });
+
+/**
+ * Ranges that keep every intermediate of the checks finite and non-zero in double precision
+ * (I ~ length⁴, Iz·Iy ~ length⁸, moments in N·mm): without them a 1e200 mm depth gives Iz =
+ * Infinity and a zero stress, a 1e-120 mm plate an area that underflows to 0, and the search
+ * answers with a wrong reason or an error that names no field. Far wider than any beam
+ * (1 µm … 1 km; 1e12 kN·m), so no real brief meets them. The contract is silent on ranges.
+ */
+export const LENGTH_RANGE = [1e-6, 1e6] as const;
+export const MAX_ACTION = 1e12;
+export const MAX_DENSITY = 1e6;
 const nonNegative = (name: string) => finite(name).refine((x) => x >= 0, { message: `${name} must be ≥ 0` });
+const within = (name: string, lo: number, hi: number, unit: string) =>
+  positive(name).refine((x) => x >= lo && x <= hi, { message: `${name} must be between ${lo} and ${hi} ${unit}`.trimEnd() });
+const length = (name: string) => within(name, LENGTH_RANGE[0], LENGTH_RANGE[1], "mm");
+const action = (name: string, unit: string) =>
+  nonNegative(name).refine((x) => x <= MAX_ACTION, { message: `${name} must be at most ${MAX_ACTION} ${unit}` });
 
 const axisSchema = (name: string) =>
   z
     .object({
-      min: positive(`${name}.min`),
-      max: positive(`${name}.max`),
+      min: length(`${name}.min`),
+      max: length(`${name}.max`),
       step: positive(`${name}.step`),
     })
     .superRefine((a, ctx) => {
@@ -71,10 +87,10 @@ export type CheckName = (typeof CHECK_NAMES)[number];
 export const searchProblemSchema = z
   .object({
     moment: z.object({
-      sagging: nonNegative("moment.sagging").default(0),
-      hogging: nonNegative("moment.hogging").default(0),
+      sagging: action("moment.sagging", "kN·m").default(0),
+      hogging: action("moment.hogging", "kN·m").default(0),
     }),
-    shear: nonNegative("shear").optional(),
+    shear: action("shear", "kN").optional(),
     allowable: z.object({
       tension: positive("allowable.tension"),
       compression: positive("allowable.compression"),
@@ -83,7 +99,7 @@ export const searchProblemSchema = z
     depth: axisSchema("depth"),
     width: axisSchema("width"),
     thicknesses: z
-      .array(positive("thicknesses[]"), { error: "thicknesses must be a list of numbers" })
+      .array(length("thicknesses[]"), { error: "thicknesses must be a list of numbers" })
       .min(1, { message: "thicknesses must list at least one plate thickness" })
       .max(MAX_THICKNESSES, { message: `thicknesses: at most ${MAX_THICKNESSES} values` }),
     families: z
@@ -97,14 +113,14 @@ export const searchProblemSchema = z
         stem: positive("slenderness.stem").optional(),
       })
       .optional(),
-    density: positive("density").default(DEFAULT_DENSITY),
+    density: positive("density").refine((x) => x <= MAX_DENSITY, { message: `density must be at most ${MAX_DENSITY} kg/m³` }).default(DEFAULT_DENSITY),
     /** Simply supported span under uniform service load: 5·w·L⁴/(384·E·I) ≤ L/limitRatio. */
     deflection: z
       .object({
-        span: positive("deflection.span"),
-        serviceLoad: nonNegative("deflection.serviceLoad"),
-        limitRatio: positive("deflection.limitRatio"),
-        E: positive("deflection.E"),
+        span: within("deflection.span", 1e-6, 1e3, "m"),
+        serviceLoad: action("deflection.serviceLoad", "kN/m"),
+        limitRatio: within("deflection.limitRatio", 1e-6, 1e9, ""),
+        E: within("deflection.E", 1e-3, 1e9, "MPa"),
       })
       .optional(),
     /** "mass" (the contract's least area) or "cost": Σ plate mass × price of that plate's thickness. */

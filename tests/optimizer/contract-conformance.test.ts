@@ -315,6 +315,18 @@ describe("bad input", () => {
     expectInputError(() => sectionProperties({ plates: [{ b: "5" as never, h: 1, z: 0, y: 0 }] }), "plates[0].b", /finite/);
   });
 
+  // "Never NaN, never Infinity, never a silent zero" in the search: a 1e200 mm depth makes
+  // Iz = b·d³/12 overflow (a zero stress), a 1e-120 mm plate an area that underflows; both are
+  // refused by the schema naming the field (range choice: 1 µm … 1 km, see search-schema.ts).
+  test("search problem: lengths past double precision's reach name the field", async () => {
+    const msgs = (pr: object) => searchProblemSchema.safeParse(pr).error?.issues.map((i) => `${i.path.join(".")}: ${i.message}`) ?? [];
+    expect(msgs({ ...base, depth: { min: 1e200, max: 1e200, step: 1 } }).join()).toMatch(/depth\.min: depth\.min must be between/);
+    expect(msgs({ ...base, thicknesses: [1e-121] }).join()).toMatch(/thicknesses\.0: thicknesses\[\] must be between/);
+    expect(msgs({ ...base, moment: { sagging: 1e308, hogging: 0 } }).join()).toMatch(/moment\.sagging: moment\.sagging must be at most/);
+    expect(msgs({ ...base, density: 1e300 }).join()).toMatch(/density: density must be at most/);
+    await expect(async () => searchSections({ ...base, width: { min: 1e-120, max: 1e-120, step: 1 } })).rejects.toThrow(/width\.min/);
+  });
+
   // "depth.max must be ≥ depth.min" (the contract's own example)
   test("search problem: max below min, negative moment, no moment", () => {
     const r = searchProblemSchema.safeParse({ ...base, depth: { min: 100, max: 50, step: 1 } });
