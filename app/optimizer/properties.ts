@@ -29,7 +29,7 @@ import { EngineInputError } from "./errors";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
 import { buildShape, shapeAbove, shapeBBox, shapeBreaks, shapeIntegrals, shapeWidth, transposeShape, type Ring, type Shape } from "./shape";
-import { findInputViolation, pathText, platesOverlapAt } from "./validate";
+import { MAX_DENSITY, findInputViolation, pathText, platesOverlapAt } from "./validate";
 
 export type Jmethod = "open-thin-walled" | "closed-bredt" | "polygon-approximate";
 
@@ -109,7 +109,7 @@ function platesProperties(input: { plates: PlateObj[]; density?: number }): Sect
     P[k + 3] = y;
   }
   const dens = input.density;
-  if (dens !== undefined && !(typeof dens === "number" && fin(dens) && dens > 0)) ok = false;
+  if (dens !== undefined && !(typeof dens === "number" && fin(dens) && dens > 0 && dens <= MAX_DENSITY)) ok = false;
   // Overlap test on the packed numbers (interiors only: touching plates are fine).
   for (let i = 1; i < n && ok; i++) {
     const a = i * PLATE_STRIDE;

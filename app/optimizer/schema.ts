@@ -3,14 +3,16 @@
 // engine's own hand-written fast check.
 import { z } from "zod";
 import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, type Family } from "./geometry";
-import { familyViolation, findInputViolation, platesOverlap, polygonsViolation } from "./validate";
+import { MAX_DENSITY, familyViolation, findInputViolation, platesOverlap, polygonsViolation } from "./validate";
 
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` }).refine(Number.isFinite, `${what} must be a finite number`);
 const positive = (what: string) => finite(what).refine((x) => x > 0, `${what} must be positive`);
 
 /** kg/m³; steel 7850 by default (EN 1993-1-1 §3.2.6 gives 7850 kg/m³ for structural steel). */
 export const DEFAULT_DENSITY = 7850;
-const density = positive("density").optional();
+const density = positive("density")
+  .refine((x) => x <= MAX_DENSITY, `density must be at most ${MAX_DENSITY} kg/m³`)
+  .optional();
 
 export const plateSchema = z.object({ b: positive("b"), h: positive("h"), z: finite("z"), y: finite("y") });
 

@@ -5,6 +5,7 @@
 import { z } from "zod";
 import { FAMILIES, FAMILY_DIMENSIONS, type Family } from "./geometry";
 import { DEFAULT_DENSITY } from "./schema";
+import { MAX_DENSITY } from "./validate";
 
 /**
  * Largest grid one request may define, counted as the plain product of the axes per family
@@ -45,7 +46,6 @@ const positive = (name: string) => finite(name).refine((x) => x > 0, { message: 
  */
 export const LENGTH_RANGE = [1e-6, 1e6] as const;
 export const MAX_ACTION = 1e12;
-export const MAX_DENSITY = 1e6;
 const nonNegative = (name: string) => finite(name).refine((x) => x >= 0, { message: `${name} must be ≥ 0` });
 const within = (name: string, lo: number, hi: number, unit: string) =>
   positive(name).refine((x) => x >= lo && x <= hi, { message: `${name} must be between ${lo} and ${hi} ${unit}`.trimEnd() });

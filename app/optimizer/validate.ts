@@ -79,6 +79,12 @@ export function familyViolation(input: Record<string, unknown>): Violation | nul
 const isNum = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
 
 /**
+ * kg/m³. Far above any material (osmium ≈ 22 600) yet low enough that A × density stays
+ * finite for any section whose own properties are (the contract is silent on a range).
+ */
+export const MAX_DENSITY = 1e6;
+
+/**
  * Full check of an untyped value: structure (by hand, mirroring schema.ts) then geometry.
  * Returns the first violation or null.
  */
@@ -86,6 +92,7 @@ export function findInputViolation(input: unknown): Violation | null {
   if (typeof input !== "object" || input === null) return bad([], "section input must be an object with plates, polygons or family");
   const o = input as Record<string, unknown>;
   if (o.density !== undefined && !(isNum(o.density) && o.density > 0)) return bad(["density"], "density must be a positive number (kg/m³)");
+  if (o.density !== undefined && (o.density as number) > MAX_DENSITY) return bad(["density"], `density must be at most ${MAX_DENSITY} kg/m³`);
   if (Array.isArray(o.plates)) {
     const ps = o.plates as unknown[];
     if (ps.length === 0) return bad(["plates"], "plates needs at least one plate");

@@ -308,6 +308,10 @@ describe("bad input", () => {
     expectInputError(() => sectionProperties({ plates: [{ b: 1, h: 1, z: 0, y: 0 }], density: -1 }), "density", /density/);
     expectInputError(() => sectionProperties({ family: "rectangle", b: 1, d: 1, density: 0 }), "density", /density/);
     expect(sectionInputSchema.safeParse({ family: "rectangle", b: 1, d: 1, density: -1 }).success).toBe(false);
+    // A × density past double precision (A = 1e8 mm², ρ = 1e308): refused up front, naming density
+    expectInputError(() => sectionProperties({ plates: [{ b: 1e4, h: 1e4, z: 0, y: 0 }], density: 1e308 }), "density", /density/);
+    expectInputError(() => sectionProperties({ family: "rectangle", b: 1e4, d: 1e4, density: 1e308 }), "density", /density/);
+    expect(sectionInputSchema.safeParse({ family: "rectangle", b: 1, d: 1, density: 1e308 }).success).toBe(false);
   });
 
   test("NaN and strings name the field", () => {
