@@ -13,19 +13,27 @@ import { ProjectFields } from "~/components/ProjectFields";
 import { formFailure } from "~/lib/form-reply.server";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { formatQuantity } from "~/components/PropertyTable";
+import { listSavedSections } from "~/lib/saved-sections.server";
+import { benchHref } from "~/lib/bench-state";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `${data?.project.name ?? "Project"} · Sparwise` }];
 }
+
+const dateOnly = (at: string) => {
+  const d = new Date(at);
+  return Number.isNaN(d.getTime()) ? at : d.toISOString().slice(0, 10);
+};
 
 const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
   const project = await getProject(user.teamId, idParam(params.projectId));
-  const [briefs, options, members, outside, activity] = await Promise.all([
+  const [briefs, options, savedSections, members, outside, activity] = await Promise.all([
     listBriefs(project.id),
     listProjectOptions(project.id),
+    listSavedSections(project.id),
     projectMembers(project.id),
     can(user.role, "createProject") ? teamMembersOutside(user.teamId, project.id) : Promise.resolve([]),
     projectActivity(project.id),
@@ -34,6 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     project: { id: project.id, name: project.name, client: project.client, description: project.description, archived: project.archived_at != null },
     briefs,
     options,
+    savedSections: savedSections.map((x) => ({ id: x.id, name: x.name, by: x.createdByName, on: dateOnly(x.createdAt), href: benchHref(x.section, x.units) })),
     members,
     outside,
     activity,
@@ -73,7 +82,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ProjectPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { project, briefs, options, members, outside, activity, may } = loaderData;
+  const { project, briefs, options, savedSections, members, outside, activity, may } = loaderData;
   return (
     <div className="space-y-8">
       <div className="flex flex-wrap items-start justify-between gap-3">
@@ -172,6 +181,28 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
               ))}
             </tbody>
           </table>
+        )}
+      </section>
+
+      <section aria-labelledby="saved-h">
+        <h2 id="saved-h" className="text-lg font-bold">
+          Saved sections
+        </h2>
+        {savedSections.length === 0 ? (
+          <p className="text-ink/70">No sections saved from the section bench yet.</p>
+        ) : (
+          <ul className="mt-2 space-y-1">
+            {savedSections.map((x) => (
+              <li key={x.id}>
+                <Link to={x.href} className="font-semibold text-accent underline">
+                  {x.name}
+                </Link>{" "}
+                <span className="text-sm text-ink/70">
+                  saved by {x.by ?? "a former member"} on {x.on}
+                </span>
+              </li>
+            ))}
+          </ul>
         )}
       </section>
 

@@ -7,6 +7,7 @@ import { createApiToken } from "~/lib/api-tokens.server";
 import { encodeBenchState, defaultBenchState } from "~/lib/bench-state";
 import * as api from "~/routes/api.v1.properties";
 import * as bench from "~/routes/bench";
+import * as projectPage from "~/routes/projects.$projectId";
 import { BASE, callRoute, demoUser, formPost, requestAs } from "./fixtures";
 
 afterAll(() => closeDb());
@@ -142,6 +143,11 @@ describe("/bench", () => {
     expect(saved).toHaveLength(2);
     want.forEach((w, i) => Object.entries(w).forEach(([k, v]) => expect(saved[i]![k]).toBeCloseTo(v, 9)));
     expect(await db("activity_log").where({ action: "section_saved", subject_id: id }).first()).toBeTruthy();
+    // Nothing saved is lost from sight: the project page lists it with a link that reopens it on the bench.
+    const page = await callRoute(projectPage.loader, await requestAs("viewer", `/projects/${projectId}`), { projectId: String(projectId) });
+    const listed = (page.data as { savedSections: { id: number; name: string; href: string }[] }).savedSections.find((x) => x.id === id);
+    expect(listed?.name).toBe("Trial tee");
+    expect(listed?.href).toMatch(/^\/bench\?s=/);
   });
 
   test("saving refuses: a viewer (403), another team's project (404), an invalid section (400 naming the field), no name", async () => {
