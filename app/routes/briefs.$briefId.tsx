@@ -10,12 +10,12 @@ import { can } from "~/lib/roles";
 import { BriefEditor } from "~/components/BriefEditor";
 import { Notice } from "~/components/ui";
 import { BriefSummary } from "~/components/BriefSummary";
+import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `${data?.brief.name ?? "Brief"} · Sparwise` }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");

@@ -11,12 +11,12 @@ import { CheckTable } from "~/components/CheckTable";
 import { BriefSummary } from "~/components/BriefSummary";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
+import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Calculation record, option ${data?.option.id ?? ""} · Sparwise` }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");

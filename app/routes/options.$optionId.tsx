@@ -10,12 +10,12 @@ import { Caution } from "~/components/Caution";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { BriefSummary } from "~/components/BriefSummary";
+import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Option ${data?.option.id ?? ""} · Sparwise` }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");

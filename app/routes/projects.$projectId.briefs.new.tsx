@@ -6,12 +6,12 @@ import { DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
 import { listStockLists } from "~/lib/stock-lists.server";
 import { submitBrief } from "~/lib/brief-actions.server";
 import { BriefEditor } from "~/components/BriefEditor";
+import { idParam } from "~/lib/route-params";
 
 export function meta() {
   return [{ title: "New brief · Sparwise" }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   // Another team's project is a 404 whatever the role, so look it up before the permission.

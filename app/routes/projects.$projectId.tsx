@@ -15,6 +15,7 @@ import { ReviewBadge } from "~/components/ReviewBadge";
 import { formatQuantity } from "~/components/PropertyTable";
 import { listSavedSections } from "~/lib/saved-sections.server";
 import { benchHref } from "~/lib/bench-state";
+import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `${data?.project.name ?? "Project"} · Sparwise` }];
@@ -25,7 +26,6 @@ const dateOnly = (at: string) => {
   return Number.isNaN(d.getTime()) ? at : d.toISOString().slice(0, 10);
 };
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");

@@ -5,10 +5,11 @@ import { requirePermission } from "~/lib/auth.server";
 import { notFound } from "~/lib/projects.server";
 import { sweepCandidates } from "~/lib/sweep-page.server";
 import { getTeamSweep } from "~/workers/queue.server";
+import { idParam } from "~/lib/route-params";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
-  const id = /^\d{1,9}$/.test(params.sweepId ?? "") ? Number(params.sweepId) : NaN;
+  const id = idParam(params.sweepId);
   const sweep = await getTeamSweep(id, user);
   if (!sweep) throw notFound("No such sweep in your team.");
   const rows = await sweepCandidates(sweep.id);

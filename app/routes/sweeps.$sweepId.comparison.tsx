@@ -11,12 +11,12 @@ import { UnitSwitch } from "~/components/UnitSwitch";
 import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
+import { idParam } from "~/lib/route-params";
 
 export function meta() {
   return [{ title: "Recheck comparison · Sparwise" }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");

@@ -13,12 +13,12 @@ import { getTeamSweep } from "~/workers/queue.server";
 import { BriefEditor } from "~/components/BriefEditor";
 import { formFailure } from "~/lib/form-reply.server";
 import type { UnitSystem } from "~/optimizer/units";
+import { idParam } from "~/lib/route-params";
 
 export function meta() {
   return [{ title: "Recheck · Sparwise" }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   // Another team's sweep is a 404 whatever the role, so look it up before the permission.

@@ -18,12 +18,12 @@ import { UnitSwitch } from "~/components/UnitSwitch";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { formatQuantity } from "~/components/PropertyTable";
 import type { UnitSystem } from "~/optimizer/units";
+import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Sweep ${data?.sweep.id ?? ""} · Sparwise` }];
 }
 
-const idParam = (v: string | undefined) => (/^\d{1,9}$/.test(v ?? "") ? Number(v) : NaN);
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");

@@ -7,6 +7,7 @@ import type { SessionUser } from "~/lib/auth.server";
 import { fieldErrorsFrom } from "~/lib/forms.server";
 import { logActivity } from "~/lib/activity.server";
 import { enqueueSweep, getTeamSweep, idempotencyKeySchema, type SweepView } from "./queue.server";
+import { idParam } from "~/lib/route-params";
 
 export const SWEEP_BODY_LIMIT = 64 * 1024;
 
@@ -16,8 +17,9 @@ export function notFound(what = "sweep"): Response {
 
 /** The :id param as a positive integer, or a thrown 404 (a malformed id is just an id that does not exist). */
 export function sweepIdParam(raw: string | undefined): number {
-  if (!raw || !/^[1-9]\d{0,9}$/.test(raw) || Number(raw) > 2 ** 31 - 1) throw notFound();
-  return Number(raw);
+  const id = idParam(raw);
+  if (Number.isNaN(id)) throw notFound();
+  return id;
 }
 
 /** The sweep in the caller's team, or a thrown 404 (another team's sweep looks exactly like a missing one). */
