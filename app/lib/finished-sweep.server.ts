@@ -4,6 +4,7 @@
 import type { Knex } from "knex";
 import { searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
 import { candidatesToStore } from "~/workers/queue.server";
+import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
 
 export interface FinishedSweepInput {
   teamId: number;
@@ -17,7 +18,8 @@ export interface FinishedSweepInput {
 export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput): Promise<number> {
   const problem = searchProblemSchema.parse(input.problem);
   const t0 = Date.now();
-  const result = await searchSections(problem);
+  // The queue's search options, so fixtures store the same candidates (front included) a real sweep does.
+  const result = await searchSections(problem, SWEEP_SEARCH_OPTIONS);
   const ms = Date.now() - t0;
   const rows = candidatesToStore(result, problem.objective);
   return knex.transaction(async (trx) => {

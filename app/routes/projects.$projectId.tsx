@@ -16,6 +16,8 @@ import { formatQuantity } from "~/components/PropertyTable";
 import { listSavedSections } from "~/lib/saved-sections.server";
 import { benchHref } from "~/lib/bench-state";
 import { idParam } from "~/lib/route-params";
+import { parseRationaliseQuery, rationaliseProject, RATIONALISE_CANDIDATES_PER_BRIEF } from "~/lib/rationalise.server";
+import { RationalisePanel } from "~/components/RationalisePanel";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `${data?.project.name ?? "Project"} · Sparwise` }];
@@ -38,7 +40,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     can(user.role, "createProject") ? teamMembersOutside(user.teamId, project.id) : Promise.resolve([]),
     projectActivity(project.id),
   ]);
-  return {
+  // Rationalisation runs only when asked (?k=…): it is a read-only integer program, in the URL so a
+  // result can be shared; a bad k or m answers 400 with the field's message and the page still renders.
+  const sp = new URL(request.url).searchParams;
+  const asked = sp.has("k") || sp.has("m");
+  const q = asked ? parseRationaliseQuery(sp) : null;
+  const rationalisation = {
+    form: { k: sp.get("k")?.slice(0, 20) ?? "3", m: sp.get("m")?.slice(0, 20) ?? "" },
+    errors: q && !q.ok ? q.errors : null,
+    result: q?.ok ? await rationaliseProject(project.id, q.query) : null,
+    perBrief: RATIONALISE_CANDIDATES_PER_BRIEF,
+  };
+  return data({
     project: { id: project.id, name: project.name, client: project.client, description: project.description, archived: project.archived_at != null },
     briefs,
     options,
@@ -47,7 +60,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     outside,
     activity,
     may: { edit: can(user.role, "createProject"), brief: can(user.role, "editBrief") },
-  };
+    rationalisation,
+  }, { status: q && !q.ok ? 400 : 200 });
 }
 
 const memberSchema = z.object({ userId: z.coerce.number({ error: "userId must be a number" }).int().positive("userId: choose a member") });
@@ -82,7 +96,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ProjectPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { project, briefs, options, savedSections, members, outside, activity, may } = loaderData;
+  const { project, briefs, options, savedSections, members, outside, activity, may, rationalisation } = loaderData;
   return (
     <div className="space-y-8">
       <div className="flex flex-wrap items-start justify-between gap-3">
@@ -205,6 +219,8 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
           </ul>
         )}
       </section>
+
+      <RationalisePanel {...rationalisation} />
 
       <div className="grid gap-8 md:grid-cols-2">
         <section aria-labelledby="members-h">
