@@ -16,6 +16,7 @@ export default [
     route("account", "routes/account.tsx"),
     route("admin", "routes/admin.tsx"),
     route("admin/outbox", "routes/admin.outbox.tsx"),
+    route("admin/materials", "routes/admin.materials.tsx"),
     // BENCH pages
     route("bench", "routes/bench.tsx"),
     // QUEUE pages

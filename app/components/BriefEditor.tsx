@@ -12,7 +12,7 @@ import { FAMILY_DIMENSIONS, familyRuleViolation, type Family } from "~/optimizer
 import { axisCount, gridValues, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
 import { sectionProperties } from "~/optimizer/properties";
 import { candidateChecks } from "~/optimizer/checks";
-import { presetFill, STEEL_GRADES } from "~/optimizer/materials";
+import { materialFill, presetFill, STEEL_GRADES, type MaterialProperties } from "~/optimizer/materials";
 import { SectionDrawing } from "~/components/SectionDrawing";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { UnitSwitch } from "~/components/UnitSwitch";
@@ -25,6 +25,15 @@ export interface StockListChoice {
   /** per kg by thickness (mm), for the cost objective; empty when the list has no prices */
   prices: { thickness: number; pricePerKg: number }[];
 }
+
+/** A team's own material (admin → Materials): E and fy in MPa, density in kg/m³. */
+export interface TeamMaterialChoice extends MaterialProperties {
+  id: number;
+  name: string;
+}
+
+/** The preset list's value for a team material; built-in grades use their own ids ("s355"). */
+const TEAM_PRESET_PREFIX = "team:";
 
 type Meta = FieldMetadata<unknown>;
 
@@ -88,6 +97,7 @@ export function BriefEditor({
   defaultValue,
   lastResult,
   stockLists,
+  teamMaterials = [],
   intro,
   submitLabel = "Save brief",
   runLabel = "Save and run",
@@ -97,6 +107,8 @@ export function BriefEditor({
   defaultValue: Record<string, unknown>;
   lastResult?: SubmissionResult<string[]> | null;
   stockLists: StockListChoice[];
+  /** listed after the built-in presets */
+  teamMaterials?: TeamMaterialChoice[];
   intro?: ReactNode;
   submitLabel?: string;
   runLabel?: string;
@@ -166,7 +178,10 @@ export function BriefEditor({
   function applyPreset(id: string) {
     const el = formRef.current;
     if (!el || !id) return;
-    const fill = presetFill(id);
+    // Built-in grades and team materials go through the same derivation (materialFill).
+    const own = id.startsWith(TEAM_PRESET_PREFIX) ? teamMaterials.find((m) => `${TEAM_PRESET_PREFIX}${m.id}` === id) : undefined;
+    if (id.startsWith(TEAM_PRESET_PREFIX) && !own) return;
+    const fill = own ? materialFill(own) : presetFill(id);
     const set = (name: string, q: Quantity | null, v: number) => {
       const input = el.querySelector<HTMLInputElement>(`input[name="${name}"]`);
       if (input) input.value = String(displayNumber(q ? fromSI(q, v, units) : v));
@@ -265,14 +280,25 @@ export function BriefEditor({
               className="rounded-md border border-ink/30 bg-white px-2 py-1.5"
             >
               <option value="">— none —</option>
-              {STEEL_GRADES.map((g) => (
-                <option key={g.id} value={g.id}>
-                  {g.name} (fy {g.fy} MPa)
-                </option>
-              ))}
+              <optgroup label="Built-in presets">
+                {STEEL_GRADES.map((g) => (
+                  <option key={g.id} value={g.id}>
+                    {g.name} (fy {g.fy} MPa)
+                  </option>
+                ))}
+              </optgroup>
+              {teamMaterials.length ? (
+                <optgroup label="Your team's materials">
+                  {teamMaterials.map((m) => (
+                    <option key={m.id} value={`${TEAM_PRESET_PREFIX}${m.id}`}>
+                      {m.name} (fy {m.fy} MPa)
+                    </option>
+                  ))}
+                </optgroup>
+              ) : null}
             </select>
             <p id="material-preset-hint" className="text-xs text-ink/70">
-              Fills density, allowables (0.60/0.60/0.40·fy) and slenderness limits; all stay editable.
+              Fills density, allowables (0.60/0.60/0.40·fy) and slenderness limits; all stay editable. Team materials take the √(E/fy) limits of AISC 360.
             </p>
           </div>
           <UnitSwitch value={units} onChange={switchUnits} name="units" />

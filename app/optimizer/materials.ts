@@ -20,21 +20,26 @@ export interface SteelGrade {
   /** the width-to-thickness table that belongs with this grade's standard */
   rules: SlendernessRules;
   note: string;
+  /** where the figures come from, as the comments below name it (shown on the admin materials page) */
+  source: string;
 }
+
+const EN_SOURCE = "EN 10025-2 Table 7 (fy for t ≤ 16 mm, fu); EN 1993-1-1 §3.2.6 (E, density); from memory";
+const ASTM_SOURCE = "ASTM specification minima as tabulated in the AISC Steel Construction Manual, Table 2-3 (Fy, Fu); E = 29 000 ksi and 490 lb/ft³ in AISC 360 notation; from memory";
 
 export const STEEL_GRADES: readonly SteelGrade[] = [
   // EN 10025-2 non-alloy structural steels, nominal yield ReH for t ≤ 16 mm and tensile
   // strength for 3 ≤ t ≤ 100 mm (EN 10025-2 Table 7; from memory). E and density from
   // EN 1993-1-1 §3.2.6 (E = 210 000 MPa, ρ = 7850 kg/m³).
-  { id: "s235", name: "S235", standard: "EN 10025-2", E: 210000, fy: 235, fu: 360, density: 7850, rules: "en-1993", note: "fy for t ≤ 16 mm; lower for thicker plate" },
-  { id: "s275", name: "S275", standard: "EN 10025-2", E: 210000, fy: 275, fu: 430, density: 7850, rules: "en-1993", note: "fy for t ≤ 16 mm; lower for thicker plate" },
-  { id: "s355", name: "S355", standard: "EN 10025-2", E: 210000, fy: 355, fu: 490, density: 7850, rules: "en-1993", note: "fy for t ≤ 16 mm; lower for thicker plate" },
+  { id: "s235", name: "S235", standard: "EN 10025-2", E: 210000, fy: 235, fu: 360, density: 7850, rules: "en-1993", note: "fy for t ≤ 16 mm; lower for thicker plate", source: EN_SOURCE },
+  { id: "s275", name: "S275", standard: "EN 10025-2", E: 210000, fy: 275, fu: 430, density: 7850, rules: "en-1993", note: "fy for t ≤ 16 mm; lower for thicker plate", source: EN_SOURCE },
+  { id: "s355", name: "S355", standard: "EN 10025-2", E: 210000, fy: 355, fu: 490, density: 7850, rules: "en-1993", note: "fy for t ≤ 16 mm; lower for thicker plate", source: EN_SOURCE },
   // ASTM grades: A36 Fy 36 ksi / Fu 58 ksi; A572 Grade 50 and A992 Fy 50 ksi / Fu 65 ksi
   // (the ASTM specifications, as tabulated in the AISC Steel Construction Manual, Table 2-3;
   // from memory). E = 29 000 ksi and 490 lb/ft³ (AISC 360 notation). ksi × 6.894757 = MPa.
-  { id: "a36", name: "ASTM A36", standard: "ASTM A36", E: 200000, fy: 250, fu: 400, density: 7850, rules: "aisc-360", note: "36 ksi ≈ 248 MPa; 250 MPa is the usual metric statement" },
-  { id: "a572-50", name: "ASTM A572 Gr 50", standard: "ASTM A572", E: 200000, fy: 345, fu: 450, density: 7850, rules: "aisc-360", note: "50 ksi" },
-  { id: "a992", name: "ASTM A992", standard: "ASTM A992", E: 200000, fy: 345, fu: 450, density: 7850, rules: "aisc-360", note: "50 ksi; rolled wide-flange shapes" },
+  { id: "a36", name: "ASTM A36", standard: "ASTM A36", E: 200000, fy: 250, fu: 400, density: 7850, rules: "aisc-360", note: "36 ksi ≈ 248 MPa; 250 MPa is the usual metric statement", source: ASTM_SOURCE },
+  { id: "a572-50", name: "ASTM A572 Gr 50", standard: "ASTM A572", E: 200000, fy: 345, fu: 450, density: 7850, rules: "aisc-360", note: "50 ksi", source: ASTM_SOURCE },
+  { id: "a992", name: "ASTM A992", standard: "ASTM A992", E: 200000, fy: 345, fu: 450, density: 7850, rules: "aisc-360", note: "50 ksi; rolled wide-flange shapes", source: ASTM_SOURCE },
 ];
 
 export function steelGrade(id: string): SteelGrade | undefined {
@@ -96,15 +101,41 @@ export interface PresetFill {
 
 const round1 = (x: number) => Math.round(x * 10) / 10;
 
+/** What a material must give for a fill: a built-in grade and a team's own material alike. */
+export interface MaterialProperties {
+  /** MPa */
+  E: number;
+  /** MPa */
+  fy: number;
+  /** kg/m³ */
+  density: number;
+}
+
+/**
+ * The slenderness table a team's own material is filled with. AISC 360's limits are written in
+ * √(E/Fy), so they follow a material whose E is not steel's; EN 1993-1-1's ε = √(235/fy) has
+ * E = 210 000 MPa built in and would give an aluminium the limits of a steel of the same yield.
+ */
+export const OWN_MATERIAL_RULES: SlendernessRules = "aisc-360";
+
+/**
+ * The one derivation behind every preset, built-in or the team's own: allowables from fy
+ * (suggestedAllowables, AISC ASD 1989 fractions) and slenderness limits from fy and E
+ * (suggestedSlenderness, EN 1993-1-1 Table 5.2 or AISC 360-16 Table B4.1b), rounded to 0.1.
+ */
+export function materialFill(m: MaterialProperties, options: { compact?: boolean; rules?: SlendernessRules } = {}): PresetFill {
+  const a = suggestedAllowables(m.fy, options.compact);
+  const s = suggestedSlenderness(m.fy, m.E, options.rules ?? OWN_MATERIAL_RULES, options.compact);
+  return {
+    density: m.density,
+    allowable: { tension: round1(a.tension), compression: round1(a.compression), shear: round1(a.shear) },
+    slenderness: { outstand: round1(s.outstand), internal: round1(s.internal), web: round1(s.web), stem: round1(s.stem) },
+    E: m.E,
+  };
+}
+
 export function presetFill(gradeId: string, options: { compact?: boolean; rules?: SlendernessRules } = {}): PresetFill {
   const g = steelGrade(gradeId);
   if (!g) throw new Error(`unknown steel grade "${gradeId}" (one of ${STEEL_GRADES.map((s) => s.id).join(", ")})`);
-  const a = suggestedAllowables(g.fy, options.compact);
-  const s = suggestedSlenderness(g.fy, g.E, options.rules ?? g.rules, options.compact);
-  return {
-    density: g.density,
-    allowable: { tension: round1(a.tension), compression: round1(a.compression), shear: round1(a.shear) },
-    slenderness: { outstand: round1(s.outstand), internal: round1(s.internal), web: round1(s.web), stem: round1(s.stem) },
-    E: g.E,
-  };
+  return materialFill(g, { compact: options.compact, rules: options.rules ?? g.rules });
 }

@@ -67,6 +67,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
       <div className="flex flex-wrap items-baseline justify-between gap-4">
         <h1 className="text-2xl font-bold">{user.teamName}: members</h1>
         <nav aria-label="Team admin" className="flex gap-4 text-sm font-semibold">
+          <a href="/admin/materials" className="text-accent-strong underline">Materials</a>
           <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
           <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
         </nav>

@@ -4,6 +4,7 @@ import { requirePermission } from "~/lib/auth.server";
 import { getBrief, getProject } from "~/lib/projects.server";
 import { problemToFormDefaults } from "~/lib/brief-form";
 import { listStockLists } from "~/lib/stock-lists.server";
+import { listMaterials } from "~/lib/materials.server";
 import { submitBrief } from "~/lib/brief-actions.server";
 import { db } from "~/lib/db.server";
 import { can } from "~/lib/roles";
@@ -28,6 +29,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     project: { id: project.id, name: project.name },
     defaults: problemToFormDefaults(brief.problem, { units: brief.units, name: brief.name, memberLengthM: brief.memberLengthM ?? undefined, memberCount: brief.memberCount ?? undefined }),
     stockLists: await listStockLists(user.teamId),
+    teamMaterials: await listMaterials(user.teamId),
     sweeps: sweeps.map((s) => ({ id: s.id as number, status: s.status as string, recheckOf: s.recheck_of as number | null, at: new Date(s.created_at).toISOString() })),
     mayEdit: can(user.role, "editBrief"),
     saved: new URL(request.url).searchParams.get("saved") === "1",
@@ -41,7 +43,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function BriefPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { brief, problem, project, defaults, stockLists, sweeps, mayEdit, saved } = loaderData;
+  const { brief, problem, project, defaults, stockLists, teamMaterials, sweeps, mayEdit, saved } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -67,7 +69,7 @@ export default function BriefPage({ loaderData, actionData }: Route.ComponentPro
         </p>
       ) : null}
       {mayEdit ? (
-        <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} />
+        <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} />
       ) : (
         <div className="max-w-2xl space-y-2">
           <p className="text-sm text-ink/70">Your role may read this brief but not edit it. Open one of its sweeps to recheck it.</p>

@@ -4,6 +4,7 @@ import { requirePermission } from "~/lib/auth.server";
 import { getProject } from "~/lib/projects.server";
 import { DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
 import { listStockLists } from "~/lib/stock-lists.server";
+import { listMaterials } from "~/lib/materials.server";
 import { submitBrief } from "~/lib/brief-actions.server";
 import { BriefEditor } from "~/components/BriefEditor";
 import { idParam } from "~/lib/route-params";
@@ -23,6 +24,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     project: { id: project.id, name: project.name },
     defaults: problemToFormDefaults(DEFAULT_PROBLEM, { units, name: "" }),
     stockLists: await listStockLists(user.teamId),
+    teamMaterials: await listMaterials(user.teamId),
   };
 }
 
@@ -33,7 +35,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function NewBrief({ loaderData, actionData }: Route.ComponentProps) {
-  const { project, defaults, stockLists } = loaderData;
+  const { project, defaults, stockLists, teamMaterials } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -42,7 +44,7 @@ export default function NewBrief({ loaderData, actionData }: Route.ComponentProp
         </Link>
       </p>
       <h1 className="text-2xl font-bold">New brief</h1>
-      <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} />
+      <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} />
     </div>
   );
 }

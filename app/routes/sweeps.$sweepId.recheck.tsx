@@ -6,6 +6,7 @@ import { readForm } from "~/lib/forms.server";
 import { briefFormSchema, problemToFormDefaults } from "~/lib/brief-form";
 import { notFound } from "~/lib/projects.server";
 import { listStockLists } from "~/lib/stock-lists.server";
+import { listMaterials } from "~/lib/materials.server";
 import { startRecheck } from "~/lib/recheck.server";
 import { queueErrorMessage } from "~/lib/brief-actions.server";
 import { db } from "~/lib/db.server";
@@ -30,7 +31,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const units: UnitSystem = brief?.units === "us" ? "us" : "si";
   const name = `Recheck of sweep ${sweep.id}${brief ? ` (${brief.name})` : ""}`.slice(0, 160);
   const defaults = problemToFormDefaults(sweep.problem, { units, name });
-  return { sweepId: sweep.id, defaults, original: defaults, stockLists: await listStockLists(user.teamId) };
+  return { sweepId: sweep.id, defaults, original: defaults, stockLists: await listStockLists(user.teamId), teamMaterials: await listMaterials(user.teamId) };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -48,7 +49,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function Recheck({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweepId, defaults, original, stockLists } = loaderData;
+  const { sweepId, defaults, original, stockLists, teamMaterials } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -61,7 +62,7 @@ export default function Recheck({ loaderData, actionData }: Route.ComponentProps
         Every value of the original brief is below and editable. Running it starts a new sweep linked to sweep {sweepId}; the original and its brief stay as they were. When it finishes, its
         page links to the comparison.
       </p>
-      <BriefEditor defaultValue={defaults} original={original} lastResult={actionData?.result} stockLists={stockLists} allowSave={false} runLabel="Run recheck" />
+      <BriefEditor defaultValue={defaults} original={original} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} allowSave={false} runLabel="Run recheck" />
     </div>
   );
 }

@@ -66,6 +66,8 @@ export const ROWS: Record<string, BadInputRow> = {
   "/reset-password/:token": { as: null, params: resetToken, field: "password", malformed: { password: "long enough pass", confirm: "another thing" }, malformedField: "confirm" },
   "/account": { as: "engineer", field: "intent", malformed: { intent: "revokeToken", tokenId: "twelve" }, malformedField: "tokenId" },
   "/admin": { as: "admin", field: "intent", malformed: { intent: "invite", email: "new@example.org", role: "overlord" }, malformedField: "role" },
+  // density typed in t/m³ (7.85) instead of kg/m³ is refused by the material's range
+  "/admin/materials": { as: "admin", field: "intent", malformed: { intent: "create", name: "Unit slip", E: "210000", fy: "355", density: "7.85" }, malformedField: "density" },
 
   // ---- BENCH (add rows here)
   "/bench": { as: "engineer", field: "projectId", malformed: { projectId: "1", name: "trial", state: "{not a bench" }, malformedField: "state" },

@@ -82,6 +82,8 @@ export const ROWS: Record<string, MatrixRow> = {
   "/account": { get: members(200), post: members(400) },
   "/admin": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
   "/admin/outbox": { get: permitted("manageTeam", 200) },
+  // reading the team's materials is admin-only like /admin; an empty post names the missing intent
+  "/admin/materials": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
 
   // ---- BENCH (add rows here)
   // the bench is for every member; saving to a project needs editBrief (an empty post is a 400)
