@@ -14,7 +14,9 @@ export interface RationalisePanelProps {
   perBrief: number;
 }
 
-const kg = (x: number) => `${formatNumber(x, 6)} kg`;
+// Job masses to 0.1 kg with a fixed locale, so the server's and the browser's text match.
+const kgNumber = (x: number) => x.toLocaleString("en-GB", { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const kg = (x: number) => `${kgNumber(x)} kg`;
 const mmList = (xs: number[]) => (xs.length ? `${xs.join(", ")} mm` : "—");
 
 export function RationalisePanel({ form, errors, result, perBrief }: RationalisePanelProps) {
@@ -152,8 +154,8 @@ function RationaliseResultView({ result }: { result: ProjectRationalisation }) {
                       {s.count} × {formatNumber(s.lengthM, 4)}
                       {s.defaulted ? <span title="member length or count not set on the brief: 1 m and 1 member assumed"> *</span> : null}
                     </td>
-                    <td className="p-2 text-right tabular-nums">{formatNumber(s.mass, 6)}</td>
-                    <td className="p-2 text-right tabular-nums">{formatNumber(s.ownBestMass, 6)}</td>
+                    <td className="p-2 text-right tabular-nums">{kgNumber(s.mass)}</td>
+                    <td className="p-2 text-right tabular-nums">{kgNumber(s.ownBestMass)}</td>
                   </tr>
                 ))}
               </tbody>
