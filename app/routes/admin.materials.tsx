@@ -57,7 +57,7 @@ const range = (k: keyof typeof MATERIAL_LIMITS) => `${grouped(MATERIAL_LIMITS[k]
 
 function Allowables({ fill }: { fill: PresetFill }) {
   return (
-    <span className="tabular-nums">
+    <span className="whitespace-nowrap tabular-nums">
       {fill.allowable.tension} / {fill.allowable.compression} / {fill.allowable.shear}
     </span>
   );
@@ -139,7 +139,7 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
                   <th scope="col" className="py-2 pr-4 text-right">E (MPa)</th>
                   <th scope="col" className="py-2 pr-4 text-right">fy (MPa)</th>
                   <th scope="col" className="py-2 pr-4 text-right">Density (kg/m³)</th>
-                  <th scope="col" className="py-2 pr-4">Allowables T / C / V (MPa)</th>
+                  <th scope="col" className="py-2 pr-4">Allowables: tension / compression / shear (MPa)</th>
                   <th scope="col" className="py-2 pr-4">Slenderness limits</th>
                   <th scope="col" className="py-2"><span className="sr-only">Actions</span></th>
                 </tr>
@@ -148,9 +148,9 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
                 {materials.map((m) => (
                   <tr key={m.id} className={`border-b border-ink/10 ${editing?.id === m.id ? "bg-teal-50" : ""}`}>
                     <th scope="row" className="py-2 pr-4 font-semibold">{m.name}</th>
-                    <td className="py-2 pr-4 text-right tabular-nums">{mpa(m.E)}</td>
-                    <td className="py-2 pr-4 text-right tabular-nums">{mpa(m.fy)}</td>
-                    <td className="py-2 pr-4 text-right tabular-nums">{grouped(m.density)}</td>
+                    <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(m.E)}</td>
+                    <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(m.fy)}</td>
+                    <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{grouped(m.density)}</td>
                     <td className="py-2 pr-4"><Allowables fill={materialFill(m)} /></td>
                     <td className="py-2 pr-4">{RULES_LABEL[OWN_MATERIAL_RULES]}</td>
                     <td className="py-2">
@@ -197,7 +197,7 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
                 <th scope="col" className="py-2 pr-4 text-right">E (MPa)</th>
                 <th scope="col" className="py-2 pr-4 text-right">fy (MPa)</th>
                 <th scope="col" className="py-2 pr-4 text-right">Density (kg/m³)</th>
-                <th scope="col" className="py-2 pr-4">Allowables T / C / V (MPa)</th>
+                <th scope="col" className="py-2 pr-4">Allowables: tension / compression / shear (MPa)</th>
                 <th scope="col" className="py-2 pr-4">Slenderness limits</th>
                 <th scope="col" className="py-2">Source</th>
               </tr>
@@ -209,9 +209,9 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
                     {g.name}
                     <span className="block text-xs font-normal text-ink/70">{g.note}</span>
                   </th>
-                  <td className="py-2 pr-4 text-right tabular-nums">{mpa(g.E)}</td>
-                  <td className="py-2 pr-4 text-right tabular-nums">{mpa(g.fy)}</td>
-                  <td className="py-2 pr-4 text-right tabular-nums">{grouped(g.density)}</td>
+                  <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(g.E)}</td>
+                  <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(g.fy)}</td>
+                  <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{grouped(g.density)}</td>
                   <td className="py-2 pr-4"><Allowables fill={presetFill(g.id)} /></td>
                   <td className="py-2 pr-4">{RULES_LABEL[g.rules]}</td>
                   <td className="py-2 text-xs">{g.source}</td>
