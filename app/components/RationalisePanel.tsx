@@ -10,7 +10,7 @@ export interface RationalisePanelProps {
   form: { k: string; m: string };
   errors: Partial<Record<"k" | "m", string>> | null;
   result: ProjectRationalisation | null;
-  /** how many stored candidates per brief the program chooses from */
+  /** most stored candidates per brief the program chooses from (fewer on a large project) */
   perBrief: number;
 }
 
@@ -27,7 +27,7 @@ export function RationalisePanel({ form, errors, result, perBrief }: Rationalise
         Rationalise plate thicknesses
       </h2>
       <p className="max-w-2xl text-sm text-ink/80">
-        Picks one section per brief from its latest finished sweep (the lightest {perBrief} stored candidates) so the whole job uses at most k different plate
+        Picks one section per brief from its latest finished sweep (its lightest {result ? result.perBrief : `up to ${perBrief}`} stored candidates) so the whole job uses at most k different plate
         thicknesses, and optionally at most m different depths, for the least total steel mass.
       </p>
       <Form method="get" preventScrollReset className="flex flex-wrap items-end gap-3" noValidate>

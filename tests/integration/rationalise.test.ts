@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, db, parseJson } from "~/lib/db.server";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
-import { RATIONALISE_CANDIDATES_PER_BRIEF } from "~/lib/rationalise.server";
+import { candidatesPerBrief, RATIONALISE_CANDIDATES_PER_BRIEF, RATIONALISE_VARIABLE_BUDGET } from "~/lib/rationalise.server";
 import { callRoute, FixtureContext, loadRouteModule, requestAs, tableCounts, type RouteResult } from "./fixtures";
 import { CHANNEL_PROBLEM, foreignFixture } from "./workflow-fixtures";
 
@@ -100,6 +100,7 @@ type Payload = {
     result: {
       k: number;
       m?: number;
+      perBrief: number;
       skipped: { briefId: number; reason: string }[];
       outcome:
         | null
@@ -131,6 +132,13 @@ describe("project rationalisation", () => {
     expect(all.size).toBeGreaterThan(3);
   });
 
+  test("a large project gets fewer candidates per brief, so the program stays within its budget", () => {
+    expect(candidatesPerBrief(3)).toBe(RATIONALISE_CANDIDATES_PER_BRIEF);
+    expect(candidatesPerBrief(30) * 30).toBeLessThanOrEqual(RATIONALISE_VARIABLE_BUDGET);
+    expect(candidatesPerBrief(60) * 60).toBeLessThanOrEqual(RATIONALISE_VARIABLE_BUDGET);
+    expect(candidatesPerBrief(10_000)).toBeGreaterThanOrEqual(1);
+  });
+
   test("without ?k the page computes nothing and shows the default k = 3", async () => {
     const res = await load(projectId, "");
     expect(res.status).toBe(200);
@@ -152,6 +160,7 @@ describe("project rationalisation", () => {
     const res = await load(projectId, `?k=${k}${m === undefined ? "&m=" : `&m=${m}`}`);
     expect(res.status).toBe(200);
     const r = res.data.rationalisation.result!;
+    expect(r.perBrief).toBe(RATIONALISE_CANDIDATES_PER_BRIEF);
     expect(r.k).toBe(k);
     expect(r.m).toBe(m);
     expect(r.skipped).toEqual([{ briefId: unsweptBriefId, briefName: "Not run yet", reason: expect.stringMatching(/no finished sweep/) }]);
