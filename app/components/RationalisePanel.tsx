@@ -3,6 +3,7 @@
 // stored candidates are SI whatever units each brief was entered in.
 import { Form, Link } from "react-router";
 import { formatNumber } from "~/components/PropertyTable";
+import { Caution } from "~/components/Caution";
 import type { ProjectRationalisation } from "~/lib/rationalise.server";
 
 export interface RationalisePanelProps {
@@ -167,6 +168,7 @@ function RationaliseResultView({ result }: { result: ProjectRationalisation }) {
               mass.
             </p>
           ) : null}
+          <Caution />
         </>
       ) : null}
       {skipped.length ? (
