@@ -2,7 +2,7 @@ import { type RouteConfig, index, layout, route } from "@react-router/dev/routes
 
 // Every route listed here must also appear in tests/integration/role-matrix.test.ts.
 export default [
-  // Public pages: sign-in and the links sent by e-mail (AUTH).
+  // Public pages: sign-in and the links sent by e-mail (sign-in and team).
   route("sign-in", "routes/sign-in.tsx"),
   route("sign-out", "routes/sign-out.tsx"),
   route("invite/:token", "routes/invite.$token.tsx"),
@@ -17,11 +17,11 @@ export default [
     route("admin", "routes/admin.tsx"),
     route("admin/outbox", "routes/admin.outbox.tsx"),
     route("admin/materials", "routes/admin.materials.tsx"),
-    // BENCH pages
+    // Section bench
     route("bench", "routes/bench.tsx"),
-    // QUEUE pages
+    // Sweep notices
     route("notices", "routes/notices.tsx"),
-    // WORKFLOW pages
+    // Projects, briefs, sweeps, options, records
     route("projects", "routes/projects.tsx"),
     route("projects/new", "routes/projects.new.tsx"),
     route("projects/:projectId", "routes/projects.$projectId.tsx"),
@@ -36,13 +36,13 @@ export default [
   ]),
 
   // JSON API (session cookie or Authorization: Bearer <token>; guards answer 401/403 JSON).
-  // BENCH api
+  // Section properties
   route("api/v1/properties", "routes/api.v1.properties.ts"),
-  // QUEUE api
+  // Sweep queue
   route("api/v1/sweeps", "routes/api.v1.sweeps.ts"),
   route("api/v1/sweeps/:id", "routes/api.v1.sweeps.$id.ts"),
   route("api/v1/sweeps/:id/candidates", "routes/api.v1.sweeps.$id.candidates.ts"),
   route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
-  // WORKFLOW api
+  // Candidate downloads
   route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
 ] satisfies RouteConfig;

@@ -3,7 +3,7 @@
 // Small grids run in the runner's own thread: searchSections is synchronous, so the runner's
 // timers wait while it runs, but such searches take milliseconds, and starting worker threads
 // (tens to hundreds of ms each, more under tsx) would cost far more than the search. Larger grids
-// run on worker threads (app/workers/search-threads.ts, the search helper's pool), which leaves
+// run on worker threads (app/workers/search-threads.ts), which leaves
 // the runner's event loop free for heartbeats and the cancel poll, and aborts by terminating the
 // threads at once.
 //

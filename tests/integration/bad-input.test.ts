@@ -24,7 +24,7 @@ export interface BadInputRow {
 }
 
 /** Actions that take no input at all. */
-// (QUEUE: cancel reads no body; its bad ids are covered in queue-api.test.ts)
+// (Sweep queue: cancel reads no body; its bad ids are covered in queue-api.test.ts)
 const NO_BODY = new Set(["/sign-out", "/api/v1/sweeps/:id/cancel"]);
 
 const inviteToken = (ctx: FixtureContext) =>
@@ -40,7 +40,7 @@ const resetToken = (ctx: FixtureContext) =>
     return { token };
   });
 
-// WORKFLOW: fixtures and a complete, valid brief form to break one field of.
+// Workflow: fixtures and a complete, valid brief form to break one field of.
 const wf = (key: keyof WorkflowFixture) => async (ctx: FixtureContext) => ({ [key]: String((await workflowFixture(ctx))[key]) });
 const briefFields: Record<string, string> = {
   name: "Bad-input brief",
@@ -59,7 +59,7 @@ const briefFields: Record<string, string> = {
 };
 
 export const ROWS: Record<string, BadInputRow> = {
-  // ---- AUTH
+  // ---- Sign-in and team
   "/sign-in": { as: null, field: "email", malformed: { email: "not-an-address", password: "x" } },
   "/invite/:token": { as: null, params: inviteToken, field: "name", malformed: { name: "Ada", password: "short", confirm: "short" }, malformedField: "password" },
   "/forgot-password": { as: null, field: "email", malformed: { email: "@@" } },
@@ -69,7 +69,7 @@ export const ROWS: Record<string, BadInputRow> = {
   // density typed in t/m³ (7.85) instead of kg/m³ is refused by the material's range
   "/admin/materials": { as: "admin", field: "intent", malformed: { intent: "create", name: "Unit slip", E: "210000", fy: "355", density: "7.85" }, malformedField: "density" },
 
-  // ---- BENCH (add rows here)
+  // ---- Section bench (add rows here)
   "/bench": { as: "engineer", field: "projectId", malformed: { projectId: "1", name: "trial", state: "{not a bench" }, malformedField: "state" },
   "/api/v1/properties": {
     as: "engineer",
@@ -79,7 +79,7 @@ export const ROWS: Record<string, BadInputRow> = {
     malformedField: "plates",
   },
 
-  // ---- QUEUE (add rows here)
+  // ---- Sweep queue (add rows here)
   "/notices": { as: "viewer", field: "intent", malformed: { intent: "read", id: "third" }, malformedField: "id" },
   "/api/v1/sweeps": {
     as: "engineer",
@@ -89,7 +89,7 @@ export const ROWS: Record<string, BadInputRow> = {
     malformedField: "depth.max",
   },
 
-  // ---- WORKFLOW (add rows here)
+  // ---- Workflow (add rows here)
   "/projects/new": { as: "engineer", field: "name", malformed: { name: "x".repeat(200) }, malformedField: "name" },
   "/projects/:projectId": { as: "engineer", params: wf("projectId"), field: "intent", malformed: { intent: "addMember", userId: "someone" }, malformedField: "userId" },
   "/projects/:projectId/briefs/new": { as: "engineer", params: wf("projectId"), field: "name", malformed: { ...briefFields, "depth.max": "50" }, malformedField: "depth.max" },

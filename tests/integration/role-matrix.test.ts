@@ -70,7 +70,7 @@ const wf = (key: keyof WorkflowFixture, param: string = key) => async (ctx: Fixt
 const wfForeign = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await foreignFixture(ctx))[key]) });
 
 export const ROWS: Record<string, MatrixRow> = {
-  // ---- AUTH
+  // ---- Sign-in and team
   "/sign-in": { get: { ...anyone(302), signedOut: 200 }, post: anyone(400) },
   "/sign-out": { get: { ...members(200) } }, // its POST signs the demo user out everywhere: covered in auth.test.ts
   "/invite/:token": { params: inviteToken, get: anyone(200), post: anyone(400) },
@@ -85,13 +85,13 @@ export const ROWS: Record<string, MatrixRow> = {
   // reading the team's materials is admin-only like /admin; an empty post names the missing intent
   "/admin/materials": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
 
-  // ---- BENCH (add rows here)
+  // ---- Section bench (add rows here)
   // the bench is for every member; saving to a project needs editBrief (an empty post is a 400)
   "/bench": { get: members(200), post: permitted("editBrief", 400) },
   // GET is 405 for anyone (no data); POST "{}" passes the guard and fails validation
   "/api/v1/properties": { get: anyone(405), post: apiPermitted("read", 400), api: true },
 
-  // ---- QUEUE (add rows here)
+  // ---- Sweep queue (add rows here)
   // every member reads and marks their own notices; an empty post names the missing intent
   "/notices": { get: members(200), post: members(400) },
   // POST "{}": roles that may run sweeps (or rechecks) pass the guard and fail validation (400).
@@ -102,7 +102,7 @@ export const ROWS: Record<string, MatrixRow> = {
   // 409 (nothing to cancel, nothing changed); the reviewer and the viewer may not cancel it.
   "/api/v1/sweeps/:id/cancel": { params: wf("sweepId", "id"), foreign: wfForeign("sweepId", "id"), post: { admin: 409, engineer: 409, reviewer: 403, viewer: 403, signedOut: 401 }, api: true },
 
-  // ---- WORKFLOW (add rows here)
+  // ---- Workflow (add rows here)
   "/projects": { get: members(200) },
   "/projects/new": { get: permitted("createProject", 200), post: permitted("createProject", 400) },
   "/projects/:projectId": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200), post: permitted("createProject", 400) },
