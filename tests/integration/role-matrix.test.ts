@@ -65,7 +65,7 @@ async function resetToken(ctx: FixtureContext): Promise<Record<string, string>> 
   });
 }
 
-// WORKFLOW fixtures: one project/brief/sweep/recheck/option per run (workflow-fixtures.ts).
+// Workflow fixtures: one project/brief/sweep/recheck/option per run (workflow-fixtures.ts).
 const wf = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await workflowFixture(ctx))[key]) });
 const wfForeign = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await foreignFixture(ctx))[key]) });
 
