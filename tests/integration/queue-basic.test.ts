@@ -234,11 +234,13 @@ describe("runner", () => {
       concurrency: 1,
       log: () => {},
       search: async (problem, { onProgress }) => {
-        for (let i = 0; i < 3; i++) {
-          onProgress(i, 3);
+        // Five steps of 700 ms outlast three of the runner's once-a-second progress writes, so two
+        // distinct values reach the row even when a write lands just after a step (three steps raced).
+        for (let i = 0; i < 5; i++) {
+          onProgress(i, 5);
           await new Promise((r) => setTimeout(r, 700));
         }
-        onProgress(3, 3);
+        onProgress(5, 5);
         return searchSections(problem);
       },
     }).start();
