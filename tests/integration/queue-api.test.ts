@@ -53,6 +53,8 @@ describe("POST /api/v1/sweeps", () => {
     const s = await get("viewer", String(data.id));
     expect(s.status).toBe(200);
     expect(s.data).toMatchObject({ id: data.id, status: "queued", projectId: fx.projectId, progress: { done: 0, total: 0, fraction: 0 }, best: null });
+    // Results read through the API carry the pages' caution (product.md, "Safety").
+    expect((s.data as { caution: string }).caution).toMatch(/licensed engineer before fabrication/);
   });
 
   test("a brief id → the brief's problem and project", async () => {
