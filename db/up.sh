@@ -22,11 +22,13 @@ fi
 PORT="${PORT:-3000}" NODE_ENV=production setsid nohup npx react-router-serve ./build/server/index.js \
   >"$DATA_DIR/app.log" 2>&1 </dev/null &
 echo $! >"$DATA_DIR/app.pid"
+# Node's fetch, not curl: a fresh machine has Node but not necessarily curl.
+healthy() { node -e "fetch('http://127.0.0.1:${PORT:-3000}/healthz').then((r) => process.exit(r.ok ? 0 : 1), () => process.exit(1))"; }
 for _ in $(seq 1 150); do
-  curl -fsS "http://127.0.0.1:${PORT:-3000}/healthz" >/dev/null 2>&1 && break
+  healthy && break
   sleep 0.2
 done
-curl -fsS "http://127.0.0.1:${PORT:-3000}/healthz" >/dev/null || { echo "The app did not start; see .data/app.log" >&2; tail -30 "$DATA_DIR/app.log" >&2; exit 1; }
+healthy || { echo "The app did not start; see .data/app.log" >&2; tail -30 "$DATA_DIR/app.log" >&2; exit 1; }
 
 cat <<MSG
 
