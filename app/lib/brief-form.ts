@@ -5,7 +5,7 @@
 // searchProblemSchema and are not repeated here.
 import { z } from "zod";
 import { FAMILIES, type Family } from "~/optimizer/geometry";
-import { searchProblemSchema, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
+import { CONTRACT_EXAMPLE_PROBLEM, searchProblemSchema, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
 import { fromSI, toSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 
 /** Which quantity each numeric field holds (for conversion and for the unit shown beside it). */
@@ -271,17 +271,7 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
  * lightest channel. The slenderness limits are the contract's example values (common practice
  * order of magnitude, not a code's classification limits).
  */
-export const DEFAULT_PROBLEM: SearchProblem = searchProblemSchema.parse({
-  moment: { sagging: 120, hogging: 0 },
-  shear: 80,
-  allowable: { tension: 165, compression: 165, shear: 100 },
-  depth: { min: 100, max: 400, step: 10 },
-  width: { min: 50, max: 300, step: 10 },
-  thicknesses: [6, 8, 10, 12, 15, 20, 25],
-  families: ["channel"],
-  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
-  density: 7850,
-});
+export const DEFAULT_PROBLEM: SearchProblem = searchProblemSchema.parse({ ...CONTRACT_EXAMPLE_PROBLEM, families: ["channel"] });
 
 export const FAMILY_LABELS: Record<Family, string> = {
   rectangle: "Rectangle (solid bar)",

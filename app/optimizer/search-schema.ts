@@ -174,6 +174,22 @@ export const searchProblemSchema = z
   });
 
 export type SearchProblemInput = z.input<typeof searchProblemSchema>;
+
+/**
+ * The example problem printed in the engine contract (engine-contract.md, "SearchProblem"), kept
+ * once so the brief editor's defaults, the tests and the fixtures start from the same brief.
+ */
+export const CONTRACT_EXAMPLE_PROBLEM: SearchProblemInput = {
+  moment: { sagging: 120, hogging: 0 },
+  shear: 80,
+  allowable: { tension: 165, compression: 165, shear: 100 },
+  depth: { min: 100, max: 400, step: 10 },
+  width: { min: 50, max: 300, step: 10 },
+  thicknesses: [6, 8, 10, 12, 15, 20, 25],
+  families: ["i", "channel", "tee", "box", "channel-down"],
+  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
+  density: 7850,
+};
 export type SearchProblem = z.output<typeof searchProblemSchema>;
 export interface GridAxis {
   min: number;

@@ -2,19 +2,20 @@
 // option, made once per run for the role-matrix, bad-input and workflow tests.
 import { db, parseJson } from "~/lib/db.server";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
-import type { SearchProblemInput } from "~/optimizer";
+import { CONTRACT_EXAMPLE_PROBLEM, type SearchProblemInput } from "~/optimizer";
+
+// The fixture brief leaves density to the engine's default, as a typed brief would.
+function withoutDensity({ density: _density, ...rest }: SearchProblemInput): SearchProblemInput {
+  return rest;
+}
 import type { FixtureContext } from "./fixtures";
 
 /** The engine contract's example problem, channels only, on a coarse grid (runs in milliseconds). */
 export const CHANNEL_PROBLEM: SearchProblemInput = {
-  moment: { sagging: 120, hogging: 0 },
-  shear: 80,
-  allowable: { tension: 165, compression: 165, shear: 100 },
+  ...withoutDensity(CONTRACT_EXAMPLE_PROBLEM),
   depth: { min: 100, max: 400, step: 20 },
   width: { min: 50, max: 300, step: 25 },
-  thicknesses: [6, 8, 10, 12, 15, 20, 25],
   families: ["channel", "i"],
-  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
 };
 
 export interface WorkflowFixture {

@@ -4,6 +4,7 @@
 import { describe, expect, test } from "vitest";
 import * as engine from "~/optimizer";
 import {
+  CONTRACT_EXAMPLE_PROBLEM,
   EngineInputError,
   candidateChecks,
   normalStress,
@@ -540,15 +541,9 @@ describe("tie-breaks", () => {
 
 describe("SearchResult", () => {
   const problem: SearchProblemInput = {
-    moment: { sagging: 120, hogging: 0 },
-    shear: 80,
-    allowable: { tension: 165, compression: 165, shear: 100 },
+    ...CONTRACT_EXAMPLE_PROBLEM,
     depth: { min: 100, max: 400, step: 20 },
     width: { min: 50, max: 300, step: 25 },
-    thicknesses: [6, 8, 10, 12, 15, 20, 25],
-    families: ["i", "channel", "tee", "box", "channel-down"],
-    slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
-    density: 7850,
   };
 
   // "best ... { family, dimensions, area, massPerMetre, utilisation, governing, properties } with

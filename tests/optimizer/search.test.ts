@@ -6,19 +6,9 @@ import { bruteForceSearch } from "~/optimizer/brute-force";
 import { FAMILY_KERNELS } from "~/optimizer/family-kernel";
 import { FAMILIES, FAMILY_DIMENSIONS, familyPlates, familyRuleViolation, type Family } from "~/optimizer/geometry";
 import { searchSections } from "~/optimizer/search";
-import { MAX_GRID_CANDIDATES, gridValues, searchProblemSchema, type SearchProblemInput } from "~/optimizer/search-schema";
+import { CONTRACT_EXAMPLE_PROBLEM, MAX_GRID_CANDIDATES, gridValues, searchProblemSchema, type SearchProblemInput } from "~/optimizer/search-schema";
 
-const base: SearchProblemInput = {
-  moment: { sagging: 120, hogging: 0 },
-  shear: 80,
-  allowable: { tension: 165, compression: 165, shear: 100 },
-  depth: { min: 100, max: 400, step: 10 },
-  width: { min: 50, max: 300, step: 10 },
-  thicknesses: [6, 8, 10, 12, 15, 20, 25],
-  families: ["i", "channel", "tee", "box", "channel-down"],
-  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
-  density: 7850,
-};
+const base: SearchProblemInput = CONTRACT_EXAMPLE_PROBLEM;
 
 describe("family kernels match geometry.ts", () => {
   const dimsArb = (f: Family) =>
