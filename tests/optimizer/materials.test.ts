@@ -2,6 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { STEEL_GRADES, presetFill, suggestedAllowables, suggestedSlenderness } from "~/optimizer/materials";
 import { searchProblemSchema } from "~/optimizer/search-schema";
+import { briefFromFill } from "./material-brief";
 
 describe("steel presets", () => {
   it("EN 10025-2 yields for t ≤ 16 mm and ASTM minimum yields (from memory)", () => {
@@ -39,18 +40,7 @@ describe("steel presets", () => {
 
   it("a preset fills a brief that the search schema accepts", () => {
     const f = presetFill("s355");
-    const p = searchProblemSchema.parse({
-      moment: { sagging: 100 },
-      shear: 50,
-      allowable: f.allowable,
-      slenderness: f.slenderness,
-      density: f.density,
-      depth: { min: 200, max: 400, step: 10 },
-      width: { min: 100, max: 200, step: 10 },
-      thicknesses: [8, 10],
-      families: ["i"],
-      deflection: { span: 6, serviceLoad: 10, limitRatio: 360, E: f.E },
-    });
+    const p = searchProblemSchema.parse(briefFromFill(f));
     expect(p.allowable.compression).toBe(213);
     expect(() => presetFill("s999")).toThrow(/unknown steel grade/);
   });

@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import { materialFill, OWN_MATERIAL_RULES, presetFill, STEEL_GRADES } from "~/optimizer/materials";
 import { searchProblemSchema } from "~/optimizer/search-schema";
 import { MATERIAL_LIMITS } from "~/lib/material-limits";
+import { briefFromFill } from "../optimizer/material-brief";
 
 describe("materialFill", () => {
   it("is what every built-in preset fills (same function, the grade's own table)", () => {
@@ -45,18 +46,7 @@ describe("materialFill", () => {
         for (const rho of [density.min, density.max])
           for (const compact of [false, true]) {
             const f = materialFill({ E: e, fy: y, density: rho }, { compact });
-            const r = searchProblemSchema.safeParse({
-              moment: { sagging: 100 },
-              shear: 50,
-              allowable: f.allowable,
-              slenderness: f.slenderness,
-              density: f.density,
-              depth: { min: 200, max: 400, step: 10 },
-              width: { min: 100, max: 200, step: 10 },
-              thicknesses: [8, 10],
-              families: ["i"],
-              deflection: { span: 6, serviceLoad: 10, limitRatio: 360, E: f.E },
-            });
+            const r = searchProblemSchema.safeParse(briefFromFill(f));
             expect(r.success, `E ${e}, fy ${y}, ρ ${rho}, compact ${compact}: ${JSON.stringify(r.error?.issues)}`).toBe(true);
           }
   });
