@@ -4,8 +4,10 @@ import { ROLE_LABELS, type Role } from "~/lib/roles";
 export interface HeaderUser {
   name: string;
   email: string;
+  teamId: number;
   teamName: string;
   role: Role;
+  teams: { id: number; name: string; role: Role }[];
 }
 
 // The Sparwise mark: a welded I section in outline, drawn here so it is ours and needs no asset.
@@ -40,9 +42,13 @@ export function AppHeader({ user, unreadNotices }: { user: HeaderUser; unreadNot
           <SparwiseMark />
           <span className="text-lg font-bold tracking-tight text-ink">Sparwise</span>
         </a>
-        <span className="hidden text-sm text-ink/70 sm:inline" title="Your team">
-          {user.teamName}
-        </span>
+        {user.teams.length > 1 ? (
+          <TeamSwitcher user={user} />
+        ) : (
+          <span className="hidden text-sm text-ink/70 sm:inline" title="Your team">
+            {user.teamName}
+          </span>
+        )}
 
         <nav aria-label="Main" className="order-last -mx-1 flex w-full gap-1 overflow-x-auto md:order-none md:w-auto">
           {navItems(user.role === "admin").map((item) => (
@@ -86,6 +92,24 @@ export function AppHeader({ user, unreadNotices }: { user: HeaderUser; unreadNot
         </div>
       </div>
     </header>
+  );
+}
+
+// A plain form (works without scripts): the server checks the membership and keeps the choice in the session.
+function TeamSwitcher({ user }: { user: HeaderUser }) {
+  return (
+    <Form method="post" action="/account" className="flex items-center gap-1 text-sm">
+      <input type="hidden" name="intent" value="switchTeam" />
+      <label htmlFor="acting-team" className="sr-only">Team you act in</label>
+      <select id="acting-team" name="teamId" defaultValue={user.teamId} className="rounded-md border border-ink/30 bg-white px-2 py-1 text-sm">
+        {user.teams.map((t) => (
+          <option key={t.id} value={t.id}>
+            {t.name} ({ROLE_LABELS[t.role]})
+          </option>
+        ))}
+      </select>
+      <button type="submit" className="rounded-md px-2 py-1 text-sm font-semibold hover:bg-ink/10">Switch</button>
+    </Form>
   );
 }
 

@@ -13,8 +13,9 @@ export const accountActionSchema = z.discriminatedUnion(
   [
     z.object({ intent: z.literal("createToken"), name: z.string({ error: "Token name is required." }).trim().min(1, "Token name is required.").max(80, "Token name must be at most 80 characters.") }),
     z.object({ intent: z.literal("revokeToken"), tokenId: z.coerce.number({ error: "Token is required." }).int("Token must be a whole number.").positive("Token must be positive.") }),
+    z.object({ intent: z.literal("switchTeam"), teamId: z.coerce.number({ error: "Team is required." }).int("Team must be a whole number.").positive("Team must be positive.") }),
   ],
-  { error: "Intent must be createToken or revokeToken." },
+  { error: "Intent must be createToken, revokeToken or switchTeam." },
 );
 
 export async function listApiTokens(user: SessionUser) {

@@ -6,18 +6,28 @@ import { FormStrategy } from "remix-auth-form";
 import { z } from "zod";
 import { db } from "~/lib/db.server";
 import { can, isRole, type Permission, type Role } from "~/lib/roles";
-import { destroySession, getSession } from "~/lib/session.server";
+import { commitSession, destroySession, getSession } from "~/lib/session.server";
 import { clientAddress, recordSignInFailure, recordSignInSuccess, signInWait, tooManyMessage } from "~/lib/rate-limit.server";
 
 export type { Role, Permission } from "~/lib/roles";
+
+/** One team the user belongs to, for the header's team switcher. */
+export interface TeamChoice {
+  id: number;
+  name: string;
+  role: Role;
+}
 
 export interface SessionUser {
   id: number;
   email: string;
   name: string;
+  /** The team the user acts in now (chosen in the header, kept in the session); every guard uses it. */
   teamId: number;
   teamName: string;
   role: Role;
+  /** Every team the user belongs to, the acting one included. */
+  teams: TeamChoice[];
 }
 
 // ---------------------------------------------------------------- tokens and passwords
@@ -45,7 +55,7 @@ export function normaliseEmail(email: string): string {
 
 // ---------------------------------------------------------------- loading the signed-in user
 
-interface UserRow {
+interface MembershipRow {
   id: number;
   email: string;
   name: string;
@@ -55,15 +65,19 @@ interface UserRow {
   role: string;
 }
 
-/** The user with their first team membership, or null when disabled or belonging to no team. */
-async function loadUser(userId: number): Promise<(SessionUser & { sessionVersion: number }) | null> {
-  const row = (await db("users")
+/**
+ * The user acting in `teamId` when they are a member of it, else in their first team (oldest
+ * membership); null when disabled or belonging to no team. The team is only ever one of the
+ * user's own memberships, so a stale or forged choice cannot reach another team.
+ */
+async function loadUser(userId: number, teamId?: number | null): Promise<(SessionUser & { sessionVersion: number }) | null> {
+  const rows = (await db("users")
     .join("memberships", "memberships.user_id", "users.id")
     .join("teams", "teams.id", "memberships.team_id")
     .where("users.id", userId)
     .whereNull("users.disabled_at")
     .orderBy("memberships.id")
-    .first(
+    .select(
       "users.id",
       "users.email",
       "users.name",
@@ -71,15 +85,18 @@ async function loadUser(userId: number): Promise<(SessionUser & { sessionVersion
       "memberships.team_id",
       "teams.name as team_name",
       "memberships.role",
-    )) as UserRow | undefined;
-  if (!row || !isRole(row.role)) return null;
+    )) as MembershipRow[];
+  const valid = rows.filter((r) => isRole(r.role));
+  const row = valid.find((r) => r.team_id === teamId) ?? valid[0];
+  if (!row) return null;
   return {
     id: row.id,
     email: row.email,
     name: row.name,
     teamId: row.team_id,
     teamName: row.team_name,
-    role: row.role,
+    role: row.role as Role,
+    teams: valid.map((r) => ({ id: r.team_id, name: r.team_name, role: r.role as Role })),
     sessionVersion: row.session_version,
   };
 }
@@ -95,7 +112,8 @@ export function getUser(request: Request): Promise<SessionUser | null> {
       const userId = session.get("userId");
       const sv = session.get("sv");
       if (typeof userId !== "number" || typeof sv !== "number") return null;
-      const user = await loadUser(userId);
+      const chosen = session.get("teamId");
+      const user = await loadUser(userId, typeof chosen === "number" ? chosen : null);
       // A cookie minted before the last sign-out or password reset is dead.
       if (!user || user.sessionVersion !== sv) return null;
       const { sessionVersion: _sv, ...rest } = user;
@@ -170,8 +188,9 @@ async function userForApiToken(token: string): Promise<SessionUser | null> {
   if (token.length > 200) return null;
   const row = await db("api_tokens").where({ token_hash: hashToken(token) }).whereNull("revoked_at").first("id", "user_id", "team_id");
   if (!row) return null;
-  const user = await loadUser(row.user_id);
-  // The token is bound to the team it was made in; a member who left that team loses it.
+  // The token acts in the team it was made in, whatever team the owner's browser session has chosen;
+  // a member who left that team loses it.
+  const user = await loadUser(row.user_id, row.team_id);
   if (!user || user.teamId !== row.team_id) return null;
   await db("api_tokens").where({ id: row.id }).update({ last_used_at: db.fn.now() });
   const { sessionVersion: _sv, ...rest } = user;
@@ -211,18 +230,27 @@ export async function verifyCredentials(form: FormData, request: Request): Promi
     const field = issue.path[0] === "password" ? "password" : "email";
     throw new SignInError(issue.message, 400, field);
   }
-  const email = normaliseEmail(parsed.data.email);
+  const user = await checkPassword(parsed.data.email, parsed.data.password, request);
+  if (!(await loadUser(user.id))) {
+    throw new SignInError("This account is not a member of any team. Ask your admin for an invitation.", 403, "email");
+  }
+  return user;
+}
+
+/**
+ * The account's own password, with the sign-in throttle: used by sign-in and by an existing
+ * user accepting an invitation. A disabled account never passes.
+ */
+export async function checkPassword(rawEmail: string, password: string, request: Request): Promise<VerifiedUser> {
+  const email = normaliseEmail(rawEmail);
   const ip = clientAddress(request);
   const wait = await signInWait(email, ip);
   if (wait > 0) throw new SignInError(tooManyMessage(wait), 429, "form");
   const row = await db("users").where({ email }).whereNull("disabled_at").first("id", "password_hash", "session_version");
-  const ok = await bcrypt.compare(parsed.data.password, row?.password_hash ?? DUMMY_HASH);
+  const ok = await bcrypt.compare(password, row?.password_hash ?? DUMMY_HASH);
   if (!row || !row.password_hash || !ok) {
     await recordSignInFailure(email, ip);
     throw new SignInError("E-mail address or password is wrong.", 401, "password");
-  }
-  if (!(await loadUser(row.id))) {
-    throw new SignInError("This account is not a member of any team. Ask your admin for an invitation.", 403, "email");
   }
   await recordSignInSuccess(email, ip);
   return { id: row.id, sessionVersion: row.session_version };
@@ -230,6 +258,25 @@ export async function verifyCredentials(form: FormData, request: Request): Promi
 
 export const authenticator = new Authenticator<VerifiedUser>();
 authenticator.use(new FormStrategy<VerifiedUser>(({ form, request }) => verifyCredentials(form, request)), "form");
+
+// ---------------------------------------------------------------- the acting team
+
+/**
+ * Makes `teamId` the team the signed-in user acts in; a team they do not belong to is refused
+ * (404: whether the team exists is none of their business). Returns the Set-Cookie value.
+ */
+export async function chooseTeam(request: Request, teamId: number): Promise<{ user: SessionUser; setCookie: string }> {
+  const user = await requireUser(request);
+  if (!user.teams.some((t) => t.id === teamId)) throw forbiddenTeam();
+  const session = await getSession(request);
+  session.set("teamId", teamId);
+  const chosen = user.teams.find((t) => t.id === teamId)!;
+  return { user: { ...user, teamId, teamName: chosen.name, role: chosen.role }, setCookie: await commitSession(session) };
+}
+
+function forbiddenTeam(): Response {
+  return new Response("You are not a member of that team.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+}
 
 // ---------------------------------------------------------------- sign-out
 

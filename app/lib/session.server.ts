@@ -7,6 +7,8 @@ import "~/lib/db.server"; // loads .env (through knexfile) before the secret is 
 export interface SessionData {
   userId: number;
   sv: number;
+  /** The team the user acts in (a user may belong to several); only ever one of their memberships counts. */
+  teamId: number;
 }
 export interface SessionFlash {
   notice: string;
@@ -60,18 +62,21 @@ export function safeRedirect(to: unknown, fallback = "/"): string {
 }
 
 /** A fresh session for a user who just proved who they are; redirects with the cookie set. */
-export async function createUserSession(request: Request, user: { id: number; sessionVersion: number }, redirectTo: string) {
+export async function createUserSession(request: Request, user: { id: number; sessionVersion: number }, redirectTo: string, teamId?: number) {
   const session = await getSession(request);
   session.set("userId", user.id);
   session.set("sv", user.sessionVersion);
+  if (teamId !== undefined) session.set("teamId", teamId);
+  else session.unset("teamId");
   return redirect(safeRedirect(redirectTo), { headers: { "Set-Cookie": await commitSession(session) } });
 }
 
 /** A Set-Cookie header value for a session that is not bound to a request (tests, scripts). */
-export async function sessionCookieFor(userId: number, sessionVersion: number): Promise<string> {
+export async function sessionCookieFor(userId: number, sessionVersion: number, teamId?: number): Promise<string> {
   const session = await getSessionStorage().getSession();
   session.set("userId", userId);
   session.set("sv", sessionVersion);
+  if (teamId !== undefined) session.set("teamId", teamId);
   return commitSession(session);
 }
 

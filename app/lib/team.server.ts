@@ -1,3 +1,4 @@
+import type { Knex } from "knex";
 import { z } from "zod";
 import { db } from "~/lib/db.server";
 import { hashPassword, hashToken, newToken, normaliseEmail, type SessionUser } from "~/lib/auth.server";
@@ -25,12 +26,19 @@ export const adminActionSchema = z.discriminatedUnion(
   { error: "Intent must be invite, changeRole, remove, revokeInvitation or revokeToken." },
 );
 
+/** A newcomer (no account at the invited address) chooses a name and password. */
 export const acceptSchema = z
   .object({
     name: z.string({ error: "Enter your name." }).trim().min(1, "Enter your name.").max(120, "Name must be at most 120 characters."),
     ...passwordFields,
   })
   .refine(...passwordsMatch);
+
+/** An existing account accepts with its own password (or, already signed in as that address, with none). */
+export const joinSchema = z.object({
+  intent: z.literal("join"),
+  password: z.string({ error: "Enter your password." }).max(200, "Password is too long.").optional(),
+});
 
 // ---------------------------------------------------------------- members
 
@@ -119,7 +127,8 @@ export async function inviteMember(request: Request, admin: SessionUser, rawEmai
         subject: `${admin.name} invites you to ${admin.teamName} on Sparwise`,
         text:
           `Hello,\n\n${admin.name} invites you to join ${admin.teamName} on Sparwise as ${role}.\n` +
-          `Open this link within seven days to choose your name and password:\n\n${link}\n\n` +
+          `Open this link within seven days. If you already have a Sparwise account, sign in there with your own\n` +
+          `password to accept; otherwise choose your name and password:\n\n${link}\n\n` +
           `The link works once. If you were not expecting this, ignore this message.\n`,
       },
       trx,
@@ -162,35 +171,57 @@ export async function findInvitation(token: string) {
     | (InvitationRow & { team_name: string })
     | undefined;
   const state = stateOf(row);
-  return state === "valid" ? { state, email: row!.email, role: row!.role, teamName: row!.team_name } : { state };
+  if (state !== "valid") return { state };
+  const account = await db("users").where({ email: row!.email }).first("id");
+  return { state, email: row!.email, role: row!.role, teamId: row!.team_id, teamName: row!.team_name, hasAccount: Boolean(account) };
+}
+
+async function claimInvitation(trx: Knex.Transaction, token: string): Promise<InvitationRow> {
+  const row = (await trx("invitations").where({ token_hash: hashToken(token) }).forUpdate().first()) as InvitationRow | undefined;
+  const state = stateOf(row);
+  if (state !== "valid") throw new FieldError("token", INVITATION_MESSAGES[state], 400);
+  return row!;
+}
+
+async function joinTeam(trx: Knex.Transaction, inv: InvitationRow, userId: number): Promise<void> {
+  const existing = await trx("memberships").where({ team_id: inv.team_id, user_id: userId }).first("id");
+  if (!existing) await trx("memberships").insert({ team_id: inv.team_id, user_id: userId, role: inv.role });
+  await trx("invitations").where({ id: inv.id }).update({ accepted_at: trx.fn.now(), updated_at: trx.fn.now() });
+  await logActivity({ teamId: inv.team_id, userId, action: "member_joined", subjectType: "user", subjectId: userId, detail: { role: inv.role } }, trx);
+}
+
+export const EXISTING_ACCOUNT_MESSAGE = "An account with this address already exists: sign in with its own password to accept.";
+
+/**
+ * A newcomer's account and membership, once per token. An invitation never changes an existing
+ * account: holding the link proves the address, not that its holder is the account's owner (an
+ * admin of the inviting team can read the link), so an existing account accepts through
+ * acceptInvitationAsUser with its own password instead.
+ */
+export async function acceptInvitation(token: string, name: string, password: string): Promise<{ id: number; sessionVersion: number; teamId: number }> {
+  const passwordHash = await hashPassword(password);
+  return db.transaction(async (trx) => {
+    const inv = await claimInvitation(trx, token);
+    const user = await trx("users").where({ email: inv.email }).forUpdate().first("id");
+    if (user) throw new FieldError("password", EXISTING_ACCOUNT_MESSAGE, 409);
+    const [id] = await trx("users").insert({ email: inv.email, name, password_hash: passwordHash });
+    await joinTeam(trx, inv, Number(id));
+    return { id: Number(id), sessionVersion: 1, teamId: inv.team_id };
+  });
 }
 
 /**
- * Creates (or completes) the account and the membership, once per token. An address that
- * already has an account gets the name and password it sets here: opening the e-mailed link
- * proves the address as a password reset would.
+ * An existing, signed-in (or just password-checked) account joins the inviting team. The account
+ * itself is untouched: no name, password or disabled_at change. Only the invited address may accept.
  */
-export async function acceptInvitation(token: string, name: string, password: string): Promise<{ id: number; sessionVersion: number }> {
-  const passwordHash = await hashPassword(password);
+export async function acceptInvitationAsUser(token: string, userId: number): Promise<{ teamId: number }> {
   return db.transaction(async (trx) => {
-    const row = (await trx("invitations").where({ token_hash: hashToken(token) }).forUpdate().first()) as InvitationRow | undefined;
-    const state = stateOf(row);
-    if (state !== "valid") throw new FieldError("token", INVITATION_MESSAGES[state], 400);
-    const inv = row!;
-    let user = await trx("users").where({ email: inv.email }).forUpdate().first("id", "session_version");
-    let sessionVersion: number;
-    if (user) {
-      sessionVersion = user.session_version + 1;
-      await trx("users").where({ id: user.id }).update({ name, password_hash: passwordHash, session_version: sessionVersion, disabled_at: null, updated_at: trx.fn.now() });
-    } else {
-      const [id] = await trx("users").insert({ email: inv.email, name, password_hash: passwordHash });
-      user = { id: Number(id) };
-      sessionVersion = 1;
+    const inv = await claimInvitation(trx, token);
+    const user = await trx("users").where({ id: userId }).whereNull("disabled_at").first("email");
+    if (!user || normaliseEmail(user.email) !== inv.email) {
+      throw new FieldError("form", `This invitation is for ${inv.email}. Sign out and sign in with that address to accept it.`, 403);
     }
-    const existing = await trx("memberships").where({ team_id: inv.team_id, user_id: user.id }).first("id");
-    if (!existing) await trx("memberships").insert({ team_id: inv.team_id, user_id: user.id, role: inv.role });
-    await trx("invitations").where({ id: inv.id }).update({ accepted_at: trx.fn.now(), updated_at: trx.fn.now() });
-    await logActivity({ teamId: inv.team_id, userId: user.id, action: "member_joined", subjectType: "user", subjectId: user.id, detail: { role: inv.role } }, trx);
-    return { id: user.id as number, sessionVersion };
+    await joinTeam(trx, inv, userId);
+    return { teamId: inv.team_id };
   });
 }

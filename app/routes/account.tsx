@@ -1,8 +1,8 @@
-import { Form } from "react-router";
+import { Form, redirect } from "react-router";
 import type { Route } from "./+types/account";
 import { Button, Field, FormError } from "~/components/ui";
 import { accountActionSchema, createApiToken, listApiTokens, revokeApiToken } from "~/lib/api-tokens.server";
-import { requireUser } from "~/lib/auth.server";
+import { chooseTeam, requireUser } from "~/lib/auth.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
 import { ROLE_LABELS } from "~/lib/roles";
 
@@ -21,6 +21,11 @@ export async function action({ request }: Route.ActionArgs) {
   if (!parsed.ok) return badRequest(parsed.errors);
   const input = parsed.data;
   return withFieldErrors(async () => {
+    if (input.intent === "switchTeam") {
+      // To the dashboard, not back: the page the switch was made on may belong to the old team.
+      const { setCookie } = await chooseTeam(request, input.teamId);
+      return redirect("/", { headers: { "Set-Cookie": setCookie } });
+    }
     if (input.intent === "createToken") {
       const created = await createApiToken(user, input.name);
       return { created: { name: input.name, token: created.token } };

@@ -1,0 +1,180 @@
+// Account and sign-in security (issue 9), against the real MariaDB with two teams: the demo team
+// ("team A", seeded with projects) and a second team created here ("team B"). Each test was written
+// to fail on the code before its fix.
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb, db } from "~/lib/db.server";
+import { getUser, hashPassword } from "~/lib/auth.server";
+import * as admin from "~/routes/admin";
+import * as account from "~/routes/account";
+import * as invite from "~/routes/invite.$token";
+import * as project from "~/routes/projects.$projectId";
+import * as signIn from "~/routes/sign-in";
+import { callRoute, cookieForUser, type RouteResult } from "./fixtures";
+
+const BASE = "http://sparwise.test";
+const SLUG_B = "security-auth-team-b";
+const SLUG_C = "security-auth-team-c";
+const created = new Set<string>();
+
+let teamA: number;
+let teamB: number;
+let adminB: number;
+let projectA: number;
+
+async function makeUser(email: string, password: string | null, teamId: number, role: string): Promise<number> {
+  created.add(email);
+  const [id] = await db("users").insert({ email, name: email.split("@")[0], password_hash: password ? await hashPassword(password) : null });
+  await db("memberships").insert({ team_id: teamId, user_id: id, role });
+  return Number(id);
+}
+
+async function makeTeam(name: string, slug: string): Promise<number> {
+  const [id] = await db("teams").insert({ name, slug });
+  return Number(id);
+}
+
+beforeAll(async () => {
+  teamA = (await db("teams").where({ slug: "tallowfield" }).first("id")).id;
+  projectA = (await db("projects").where({ team_id: teamA }).orderBy("id").first("id")).id;
+  teamB = await makeTeam("Sallowmere Structures (test)", SLUG_B);
+  adminB = await makeUser("admin-b@sallowmere.example", "team b admin password", teamB, "admin");
+});
+
+afterAll(async () => {
+  await db("teams").whereIn("slug", [SLUG_B, SLUG_C]).delete();
+  await db("users").whereIn("email", [...created]).delete();
+  await db("invitations").whereIn("email", [...created]).delete();
+  await closeDb();
+});
+
+let ipSeq = 0;
+const freshIp = () => `203.0.113.${++ipSeq}`; // TEST-NET-3 (RFC 5737)
+
+async function post(cookie: string | null, path: string, fields: Record<string, string>): Promise<Request> {
+  const headers = new Headers({ "Content-Type": "application/x-www-form-urlencoded", "X-Forwarded-For": freshIp() });
+  if (cookie) headers.set("Cookie", cookie);
+  return new Request(new URL(path, BASE), { method: "POST", headers, body: new URLSearchParams(fields) });
+}
+
+function get(cookie: string | null, path: string): Request {
+  return new Request(new URL(path, BASE), { headers: cookie ? { Cookie: cookie } : {} });
+}
+
+function cookieFrom(result: RouteResult): string {
+  const set = result.headers.get("set-cookie");
+  if (!set) throw new Error(`no Set-Cookie in the answer (status ${result.status})`);
+  return set.split(";")[0]!;
+}
+
+async function inviteToken(email: string): Promise<string> {
+  const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
+  const m = /\/invite\/([A-Za-z0-9_-]+)/.exec(mail.text_body);
+  if (!m) throw new Error(`no invitation link in: ${mail.text_body}`);
+  return m[1]!;
+}
+
+const projectPage = (cookie: string) => callRoute(project.loader, get(cookie, `/projects/${projectA}`), { projectId: String(projectA) });
+
+describe("1. an invitation never takes over an existing account", () => {
+  test("team B's admin invites a member of team A: the link sets no password, signs nobody in, and team A stays out of reach", async () => {
+    const email = "victim@tallowfield.example";
+    const victimPassword = "the victim's own password";
+    const victim = await makeUser(email, victimPassword, teamA, "engineer");
+    const before = await db("users").where({ id: victim }).first();
+    const adminBCookie = await cookieForUser(adminB);
+
+    const sent = await callRoute(admin.action, await post(adminBCookie, "/admin", { intent: "invite", email, role: "viewer" }));
+    expect(sent.status).toBe(200);
+    // Whoever reads the link (here: team B's admin) tries to set a password through it.
+    const token = await inviteToken(email);
+    const page = await callRoute(invite.loader, get(null, `/invite/${token}`), { token });
+    expect(page.data).toMatchObject({ invitation: { email, hasAccount: true } });
+    const takeover = await callRoute(invite.action, await post(null, `/invite/${token}`, { name: "Mallory", password: "attacker's password", confirm: "attacker's password" }), { token });
+    expect(takeover.status).toBe(409);
+    expect(takeover.headers.get("set-cookie")).toBeNull();
+    expect(JSON.stringify(takeover.data)).toMatch(/sign in with its own password/);
+    // The join path wants the account's own password.
+    const guess = await callRoute(invite.action, await post(null, `/invite/${token}`, { intent: "join", password: "attacker's password" }), { token });
+    expect(guess.status).toBe(401);
+    expect(guess.headers.get("set-cookie")).toBeNull();
+
+    const after = await db("users").where({ id: victim }).first();
+    expect(after.password_hash).toBe(before.password_hash);
+    expect(after.name).toBe(before.name);
+    expect(after.session_version).toBe(before.session_version);
+    expect(await db("memberships").where({ user_id: victim, team_id: teamB }).first()).toBeUndefined();
+    expect((await db("invitations").where({ email, team_id: teamB }).first()).accepted_at).toBeNull();
+    expect((await callRoute(signIn.action, await post(null, "/sign-in", { email, password: "attacker's password" }))).status).toBe(401);
+    expect((await callRoute(signIn.action, await post(null, "/sign-in", { email, password: victimPassword }))).status).toBe(302);
+
+    // Team B's admin never reaches team A's projects.
+    expect([403, 404]).toContain((await projectPage(adminBCookie)).status);
+  });
+
+  test("the invited user accepts with their own password, then acts in the team they choose and only those they belong to", async () => {
+    const email = "twoteams@tallowfield.example";
+    const password = "two teams password";
+    const user = await makeUser(email, password, teamA, "engineer");
+    await callRoute(admin.action, await post(await cookieForUser(adminB), "/admin", { intent: "invite", email, role: "viewer" }));
+    const token = await inviteToken(email);
+    const hashBefore = (await db("users").where({ id: user }).first()).password_hash;
+
+    const joined = await callRoute(invite.action, await post(null, `/invite/${token}`, { intent: "join", password }), { token });
+    expect(joined.status).toBe(302);
+    expect((await db("users").where({ id: user }).first()).password_hash).toBe(hashBefore);
+    expect(await db("memberships").where({ user_id: user, team_id: teamB }).first("role")).toEqual({ role: "viewer" });
+
+    // Having just joined team B, the session acts in team B: team A's project is out of reach.
+    let cookie = cookieFrom(joined);
+    const me = await getUser(get(cookie, "/"));
+    expect(me).toMatchObject({ teamId: teamB, role: "viewer" });
+    expect(me!.teams.map((t) => t.id).sort()).toEqual([teamA, teamB].sort());
+    expect((await projectPage(cookie)).status).toBe(404);
+
+    // Switching to team A (a member) works and every guard follows it.
+    const toA = await callRoute(account.action, await post(cookie, "/account", { intent: "switchTeam", teamId: String(teamA) }));
+    expect(toA.status).toBe(302);
+    cookie = cookieFrom(toA);
+    expect(await getUser(get(cookie, "/"))).toMatchObject({ teamId: teamA, role: "engineer" });
+    expect((await projectPage(cookie)).status).toBe(200);
+
+    // A team they are not a member of cannot be chosen, and the session keeps its team.
+    const teamC = await makeTeam("Foreign team (test)", SLUG_C);
+    const toC = await callRoute(account.action, await post(cookie, "/account", { intent: "switchTeam", teamId: String(teamC) }));
+    expect(toC.status).toBe(404);
+    expect(toC.headers.get("set-cookie")).toBeNull();
+    expect(await getUser(get(cookie, "/"))).toMatchObject({ teamId: teamA });
+  });
+
+  test("a signed-in invitee accepts with one click; someone else signed in cannot accept for them", async () => {
+    const email = "oneclick@tallowfield.example";
+    const user = await makeUser(email, "one click password", teamA, "reviewer");
+    await callRoute(admin.action, await post(await cookieForUser(adminB), "/admin", { intent: "invite", email, role: "engineer" }));
+    const token = await inviteToken(email);
+
+    const other = await callRoute(invite.action, await post(await cookieForUser(adminB), `/invite/${token}`, { intent: "join" }), { token });
+    expect(other.status).toBe(400);
+    expect(await db("memberships").where({ user_id: user, team_id: teamB }).first()).toBeUndefined();
+
+    const ok = await callRoute(invite.action, await post(await cookieForUser(user), `/invite/${token}`, { intent: "join" }), { token });
+    expect(ok.status).toBe(302);
+    expect(await getUser(get(cookieFrom(ok), "/"))).toMatchObject({ teamId: teamB, role: "engineer" });
+  });
+
+  test("accepting never re-enables a disabled account", async () => {
+    const email = "disabled@tallowfield.example";
+    const password = "disabled account password";
+    const user = await makeUser(email, password, teamA, "engineer");
+    await db("users").where({ id: user }).update({ disabled_at: new Date() });
+    await callRoute(admin.action, await post(await cookieForUser(adminB), "/admin", { intent: "invite", email, role: "engineer" }));
+    const token = await inviteToken(email);
+
+    const create = await callRoute(invite.action, await post(null, `/invite/${token}`, { name: "Back Again", password: "a new long password", confirm: "a new long password" }), { token });
+    expect(create.status).toBe(409);
+    const join = await callRoute(invite.action, await post(null, `/invite/${token}`, { intent: "join", password }), { token });
+    expect(join.status).toBe(401);
+    const row = await db("users").where({ id: user }).first();
+    expect(row.disabled_at).not.toBeNull();
+    expect(await db("memberships").where({ user_id: user, team_id: teamB }).first()).toBeUndefined();
+  });
+});
