@@ -7,6 +7,7 @@ import * as composite from "./composite";
 import type { Family } from "./geometry";
 import * as fkm from "./family-kernel";
 import type { FamilyKernel } from "./family-kernel";
+import type { DesignBlock } from "./design-types";
 import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
@@ -14,6 +15,8 @@ const { compositeKernel, maxShearFactor, KERNEL_OUT, K_AREA, K_CY, K_CZ, K_IY, K
 const { C_COMP, C_DEFL, C_SHEAR, C_TENS, FAMILY_KERNELS, N_CHECKS } = fkm;
 
 export interface CheckContext {
+  /** 0 = "allowable", 1 = "en1993" (member-checks.md §2). */
+  basis: 0 | 1;
   /** Design moments, N·mm (kN·m × 10⁶). */
   Ms: number;
   Mh: number;
@@ -45,7 +48,8 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     if (s.web !== undefined) slenderLimit[5] = s.web;
     if (s.stem !== undefined) slenderLimit[6] = s.stem;
   }
-  const hasShear = p.shear !== undefined && p.allowable.shear !== undefined;
+  const en = p.basis === "en1993";
+  const hasShear = p.shear !== undefined && (en || p.allowable?.shear !== undefined);
   let deflNumerator = 0,
     deflLimit = Infinity;
   if (p.deflection) {
@@ -55,14 +59,17 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     deflNumerator = (5 * p.deflection.serviceLoad * L ** 4) / (384 * p.deflection.E);
     deflLimit = L / p.deflection.limitRatio;
   }
+  // Under "en1993" the allowable stresses are absent: Infinity keeps every stress-based bound
+  // of search.ts vacuous (and so sound) without touching it.
   return {
+    basis: en ? 1 : 0,
     Ms: p.moment.sagging * 1e6,
     Mh: p.moment.hogging * 1e6,
     V: hasShear ? p.shear! * 1000 : 0,
     hasShear,
-    aT: p.allowable.tension,
-    aC: p.allowable.compression,
-    aS: p.allowable.shear ?? Infinity,
+    aT: en ? Infinity : p.allowable!.tension,
+    aC: en ? Infinity : p.allowable!.compression,
+    aS: en ? Infinity : (p.allowable!.shear ?? Infinity),
     slenderLimit,
     hasDeflection: p.deflection !== undefined,
     deflNumerator,
@@ -136,6 +143,15 @@ export function evaluateCandidate(fk: FamilyKernel, v: Float64Array, ctx: CheckC
   compositeKernel(p, fk.nPlates, k);
   s.area = k[K_AREA];
   const Iz = k[K_IZ];
+  if (ctx.basis === 1) {
+    // EN 1993 basis: its families are all symmetric about the vertical axis.
+    if (ctx.hasDeflection) {
+      dem[C_DEFL] = ctx.deflNumerator / Iz;
+      cap[C_DEFL] = ctx.deflLimit;
+      if (dem[C_DEFL] > ctx.deflLimit) ok = false;
+    }
+    return finish(s, ok, ctx, fk, v);
+  }
   // Bending about the horizontal axis (engine contract). Sagging compresses the top fibre.
   let comp: number, tens: number, Ibend: number;
   if (!fk.unsymmetric) {
@@ -220,12 +236,17 @@ function finish(s: Scratch, ok: boolean, ctx?: CheckContext, fk?: FamilyKernel, 
   return ok;
 }
 
+export type CheckUnit = "MPa" | "mm" | "ratio" | "kN·m" | "kN";
+
 export interface CheckResult {
   name: CheckName;
-  /** MPa for stresses, mm for deflection, a plain ratio for slenderness. */
+  /** In `unit`: MPa for stresses, mm for deflection and weld throat, kN·m for moments, kN for forces, a plain ratio for slenderness and class 4. */
   demand: number;
   capacity: number;
   utilisation: number;
+  unit: CheckUnit;
+  /** where the check comes from (standard and clause, or the engine contract) */
+  clause: string;
 }
 
 export interface CandidateVerdict {
@@ -234,7 +255,49 @@ export interface CandidateVerdict {
   governing: CheckName;
   feasible: boolean;
   area: number;
+  /** basis "en1993" only: what the limit-state checks worked out */
+  design?: DesignBlock;
 }
+
+/** Unit of each check's demand and capacity. */
+export const CHECK_UNITS: Record<CheckName, CheckUnit> = {
+  "bending-compression": "MPa",
+  "bending-tension": "MPa",
+  shear: "MPa",
+  "slenderness-outstand": "ratio",
+  "slenderness-internal": "ratio",
+  "slenderness-web": "ratio",
+  "slenderness-stem": "ratio",
+  deflection: "mm",
+  "class-4": "ratio",
+  "bending-resistance": "kN·m",
+  ltb: "kN·m",
+  "shear-resistance": "kN",
+  "shear-buckling": "kN",
+  "bending-shear": "kN·m",
+  weld: "mm",
+  bearing: "kN",
+};
+
+/** The clause (or contract rule) each check implements, shown beside its numbers. */
+export const CHECK_CLAUSES: Record<CheckName, string> = {
+  "bending-compression": "engine contract: σ = M·c/Iz (general formula for the angle) ≤ allowable.compression",
+  "bending-tension": "engine contract: σ = M·c/Iz (general formula for the angle) ≤ allowable.tension",
+  shear: "engine contract: τ = V·Q/(Iz·b), maximum over the depth ≤ allowable.shear",
+  "slenderness-outstand": "the brief's limit slenderness.outstand",
+  "slenderness-internal": "the brief's limit slenderness.internal",
+  "slenderness-web": "the brief's limit slenderness.web",
+  "slenderness-stem": "the brief's limit slenderness.stem",
+  deflection: "5·w·L⁴/(384·E·I) ≤ L/limitRatio (simply supported, uniform service load)",
+  "class-4": "EN 1993-1-1 §5.5.2, Table 5.2 (class 4 outside this version)",
+  "bending-resistance": "EN 1993-1-1 §6.2.5",
+  ltb: "EN 1993-1-1 §6.3.2.2",
+  "shear-resistance": "EN 1993-1-1 §6.2.6",
+  "shear-buckling": "EN 1993-1-5 §5.2, §5.3",
+  "bending-shear": "EN 1993-1-1 §6.2.8",
+  weld: "EN 1993-1-8 §4.5.3.3",
+  bearing: "EN 1993-1-5 §6",
+};
 
 /** Every applicable check of one family section (for results, records and tests). */
 export function candidateChecks(family: Family, dims: Record<string, number>, problem: SearchProblem): CandidateVerdict {
@@ -246,7 +309,8 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
   for (let c = 0; c < N_CHECKS; c++) {
     const d = s.demand[c];
     if (d !== d) continue;
-    checks.push({ name: CHECK_NAMES[c], demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c] });
+    const name = CHECK_NAMES[c];
+    checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: CHECK_CLAUSES[name] });
   }
   return { checks, utilisation: s.utilisation, governing: CHECK_NAMES[s.governing], feasible, area: s.area };
 }

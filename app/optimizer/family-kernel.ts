@@ -16,7 +16,16 @@ export const C_COMP = 0,
   C_WEB = 5,
   C_STEM = 6,
   C_DEFL = 7,
-  N_CHECKS = 8;
+  // EN 1993 basis (member-checks.md §2)
+  C_CLASS4 = 8,
+  C_BEND = 9,
+  C_LTB = 10,
+  C_VPL = 11,
+  C_VB = 12,
+  C_MV = 13,
+  C_WELD = 14,
+  C_BEARING = 15,
+  N_CHECKS = 16;
 
 export interface FamilyKernel {
   family: Family;

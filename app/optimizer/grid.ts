@@ -5,6 +5,7 @@ import { candidateChecks, makeCheckContext, type CheckContext, type CheckResult 
 import { FAMILY_KERNELS, N_CHECKS, dimsObject, type FamilyKernel } from "./family-kernel";
 import { Front, compareAcross, type RawCandidate } from "./front";
 import type { Family } from "./geometry";
+import type { DesignBlock } from "./design-types";
 import { sectionProperties, type SectionProperties } from "./properties";
 import { CHECK_NAMES, gridValues, type CheckName, type SearchProblem } from "./search-schema";
 
@@ -38,6 +39,8 @@ export interface SearchCandidate {
   governing: CheckName;
   checks: CheckResult[];
   properties: SectionProperties;
+  /** basis "en1993" only: class, resistances, Mcr, χLT, weld throat … (design-types.ts) */
+  design?: DesignBlock;
 }
 
 export interface SearchResult {
@@ -110,6 +113,7 @@ function toOutput(p: Prepared, c: RawCandidate): SearchCandidate {
     checks: verdict.checks,
     properties,
   };
+  if (verdict.design) out.design = verdict.design;
   if (p.ctx.cost) out.cost = c.objective;
   return out;
 }
@@ -123,6 +127,14 @@ const CHECK_WORDS: Record<CheckName, string> = {
   "slenderness-web": "the web is more slender than slenderness.web",
   "slenderness-stem": "the stem (or leg) is more slender than slenderness.stem",
   deflection: "the deflection exceeds span / deflection.limitRatio",
+  "class-4": "a plate is too slender for class 3 (class 4 sections are outside this version)",
+  "bending-resistance": "the design moment exceeds the bending resistance Mc,Rd",
+  ltb: "the design moment exceeds the lateral-torsional buckling resistance Mb,Rd over the restraint length",
+  "shear-resistance": "the design shear exceeds the plastic shear resistance Vpl,Rd",
+  "shear-buckling": "the design shear exceeds the web's shear buckling resistance Vb,Rd",
+  "bending-shear": "the design moment exceeds the bending resistance reduced for shear MV,Rd",
+  weld: "the flange-to-web weld needs a throat larger than 0.7 × the thinner plate",
+  bearing: "the reaction exceeds the unstiffened web's patch-loading resistance at the support",
 };
 
 const CHECK_HINTS: Record<CheckName, string> = {
@@ -134,6 +146,14 @@ const CHECK_HINTS: Record<CheckName, string> = {
   "slenderness-web": "allow thicker webs or shallower depths, or relax the web limit",
   "slenderness-stem": "allow thicker stems or shallower depths, or relax the stem limit",
   deflection: "allow deeper sections or relax the deflection limit",
+  "class-4": "allow thicker plates or narrower widths",
+  "bending-resistance": "allow deeper or wider sections or thicker plates",
+  ltb: "add lateral restraints (a shorter restraint.length), or allow wider, stockier flanges",
+  "shear-resistance": "allow thicker webs or deeper sections",
+  "shear-buckling": "allow thicker webs, or shallower webs",
+  "bending-shear": "allow thicker webs or deeper sections",
+  weld: "allow thicker webs (the weld throat is limited by the thinner plate)",
+  bearing: "provide bearing stiffeners (supports.stiffened), a longer bearing, or thicker webs",
 };
 
 function reasonText(p: Prepared, t: Tally): string {

@@ -25,6 +25,7 @@ import {
   K_MINZ,
   PLATE_STRIDE,
 } from "./composite";
+import type { StabilityProperties } from "./design-types";
 import { EngineInputError } from "./errors";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
@@ -52,6 +53,8 @@ export interface SectionProperties {
   J: number;
   Jmethod: Jmethod;
   massPerMetre: number;
+  /** member-checks.md §1 (h0, shear centre, Cw, betaX, J for LTB); null for plates, polygons, angle, channel-down */
+  stability: StabilityProperties | null;
 }
 
 /** Every property of one section. Throws EngineInputError naming the field on bad input. */
@@ -422,6 +425,7 @@ function finish(
     J,
     Jmethod,
     massPerMetre: A * density * 1e-6,
+    stability: null,
   };
   // Extremes and plastic moduli too: a plate placed so far from the origin that its width is
   // lost to rounding (z = 1e300, b = 1) leaves finite I's but zero fibre distances, so

@@ -81,8 +81,112 @@ export const CHECK_NAMES = [
   "slenderness-web",
   "slenderness-stem",
   "deflection",
+  // EN 1993 basis (member-checks.md §2), in its numbering: ties in governing go to the first
+  "class-4",
+  "bending-resistance",
+  "ltb",
+  "shear-resistance",
+  "shear-buckling",
+  "bending-shear",
+  "weld",
+  "bearing",
 ] as const;
 export type CheckName = (typeof CHECK_NAMES)[number];
+
+/** Design bases (member-checks.md §2): "allowable" = typed allowable stresses; "en1993" = limit states. */
+export const BASES = ["allowable", "en1993"] as const;
+export type Basis = (typeof BASES)[number];
+
+/** Families the EN 1993 basis covers (member-checks.md §2); the others need the allowable basis. */
+export const EN1993_FAMILIES = ["i", "mono-i", "channel", "tee", "box", "rectangle"] as const satisfies readonly Family[];
+export const EN1993_REFUSAL = "not covered by the EN 1993 basis; use the allowable-stress basis";
+
+/**
+ * EN 1993 grade presets: fy bands by plate thickness, fu and the weld correlation factor βw.
+ * fy: EN 10025-2 Table 7, nominal yield ReH for t ≤ 16 / ≤ 40 / ≤ 63 mm; fu: EN 10025-2 Table 7
+ * for 3 ≤ t ≤ 100 mm (360 / 410 / 470; chosen over EN 1993-1-1 Table 3.1's 360 / 430 / 510
+ * for t ≤ 40 mm so one fu holds over every band); βw: EN 1993-1-8 Table 4.1 (0.8 / 0.85 / 0.9).
+ * All from memory (member-checks.md lists the same figures, marked mem.).
+ */
+export const EN1993_GRADES = {
+  S235: { fy: [{ maxThickness: 16, fy: 235 }, { maxThickness: 40, fy: 225 }, { maxThickness: 63, fy: 215 }], fu: 360, betaW: 0.8 },
+  S275: { fy: [{ maxThickness: 16, fy: 275 }, { maxThickness: 40, fy: 265 }, { maxThickness: 63, fy: 255 }], fu: 410, betaW: 0.85 },
+  S355: { fy: [{ maxThickness: 16, fy: 355 }, { maxThickness: 40, fy: 345 }, { maxThickness: 63, fy: 335 }], fu: 470, betaW: 0.9 },
+} as const;
+export type En1993Grade = keyof typeof EN1993_GRADES;
+/**
+ * Steel constants and partial factors when the brief leaves them out: E = 210 000 MPa and
+ * G = 81 000 MPa (EN 1993-1-1 §3.2.6(1)); γM0 = 1.00, γM1 = 1.00, γM2 = 1.25 (EN 1993-1-1
+ * §6.1(1) Note 2B, the recommended values); η = 1.2 (EN 1993-1-5 §5.1(2) Note 2, steels up
+ * to S460). βw without a preset grade: 1.0, the largest in EN 1993-1-8 Table 4.1 (the
+ * thickest weld), so an unknown steel is never credited with a stronger weld than it has.
+ * From memory.
+ */
+export const EN1993_DEFAULTS = { E: 210000, G: 81000, gammaM0: 1.0, gammaM1: 1.0, gammaM2: 1.25, eta: 1.2, betaW: 1.0 } as const;
+export const LOAD_POSITIONS = ["top", "shearCentre", "bottom"] as const;
+export type LoadPosition = (typeof LOAD_POSITIONS)[number];
+
+const ratio = (name: string, lo: number, hi: number) => within(name, lo, hi, "");
+const factor = (name: string) => finite(name).refine((x) => Math.abs(x) <= 100, { message: `${name} must be between −100 and 100` });
+
+const steelSchema = z
+  .object({
+    grade: z.string({ error: "steel.grade must be text" }).max(40, { message: "steel.grade: at most 40 characters" }).optional(),
+    fy: z
+      .array(z.object({ maxThickness: length("steel.fy[].maxThickness"), fy: within("steel.fy[].fy", 1, 5000, "MPa") }), {
+        error: "steel.fy must be a list of { maxThickness, fy } bands",
+      })
+      .min(1, { message: "steel.fy must list at least one band" })
+      .max(20, { message: "steel.fy: at most 20 bands" })
+      .optional(),
+    fu: within("steel.fu", 1, 10000, "MPa").optional(),
+    E: within("steel.E", 1, 1e7, "MPa").default(EN1993_DEFAULTS.E),
+    G: within("steel.G", 1, 1e7, "MPa").default(EN1993_DEFAULTS.G),
+    gammaM0: ratio("steel.gammaM0", 0.5, 5).default(EN1993_DEFAULTS.gammaM0),
+    gammaM1: ratio("steel.gammaM1", 0.5, 5).default(EN1993_DEFAULTS.gammaM1),
+    gammaM2: ratio("steel.gammaM2", 0.5, 5).default(EN1993_DEFAULTS.gammaM2),
+    eta: ratio("steel.eta", 1, 1.5).default(EN1993_DEFAULTS.eta),
+    betaW: ratio("steel.betaW", 0.1, 2).optional(),
+  })
+  .superRefine((s, ctx) => {
+    s.fy?.forEach((b, i) => {
+      if (i > 0 && !(b.maxThickness > s.fy![i - 1].maxThickness))
+        ctx.addIssue({ code: "custom", path: ["fy", i, "maxThickness"], message: `steel.fy[${i}].maxThickness must exceed steel.fy[${i - 1}].maxThickness (bands in ascending order)` });
+    });
+  })
+  .transform((s, ctx) => {
+    // A named preset grade fills what the brief leaves out; the brief's own values win.
+    const preset = s.grade !== undefined && s.grade in EN1993_GRADES ? EN1993_GRADES[s.grade as En1993Grade] : undefined;
+    const fy = s.fy ?? preset?.fy.map((b) => ({ ...b }));
+    const fu = s.fu ?? preset?.fu;
+    if (!fy) ctx.addIssue({ code: "custom", path: ["fy"], message: "steel.fy is required (bands of { maxThickness, fy }) unless steel.grade names a preset (S235, S275, S355)" });
+    if (fu === undefined) ctx.addIssue({ code: "custom", path: ["fu"], message: "steel.fu is required unless steel.grade names a preset (S235, S275, S355)" });
+    if (!fy || fu === undefined) return z.NEVER;
+    return { ...s, fy, fu, betaW: s.betaW ?? preset?.betaW ?? EN1993_DEFAULTS.betaW };
+  });
+
+const restraintSchema = z.object({
+  /** Longest segment between lateral-torsional restraints, m. */
+  length: within("restraint.length", 1e-3, 1e3, "m"),
+  C1: ratio("restraint.C1", 0.1, 100).default(1),
+  C2: factor("restraint.C2").default(0),
+  C3: factor("restraint.C3").default(1),
+  loadAt: z.enum(LOAD_POSITIONS, { error: 'restraint.loadAt must be "top", "shearCentre" or "bottom"' }).default("shearCentre"),
+});
+
+const supportsSchema = z.object({
+  stiffened: z.boolean({ error: "supports.stiffened must be true or false" }).default(true),
+  /** Stiff bearing length at an end support, mm (patch loading, when not stiffened). */
+  bearingLength: finite("supports.bearingLength")
+    .refine((x) => x >= 0 && x <= LENGTH_RANGE[1], { message: `supports.bearingLength must be between 0 and ${LENGTH_RANGE[1]} mm` })
+    .optional(),
+});
+
+const fabricationSchema = z.object({
+  minThickness: length("fabrication.minThickness").optional(),
+  flangeAtLeastWeb: z.boolean({ error: "fabrication.flangeAtLeastWeb must be true or false" }).optional(),
+  minBoxClear: length("fabrication.minBoxClear").optional(),
+});
 
 export const searchProblemSchema = z
   .object({
@@ -91,11 +195,24 @@ export const searchProblemSchema = z
       hogging: action("moment.hogging", "kN·m").default(0),
     }),
     shear: action("shear", "kN").optional(),
-    allowable: z.object({
-      tension: positive("allowable.tension"),
-      compression: positive("allowable.compression"),
-      shear: positive("allowable.shear").optional(),
-    }),
+    /** member-checks.md §2: "allowable" (typed allowable stresses, the default) or "en1993". */
+    basis: z.enum(BASES, { error: 'basis must be "allowable" or "en1993"' }).default("allowable"),
+    /** Required under "allowable"; not used under "en1993". */
+    allowable: z
+      .object({
+        tension: positive("allowable.tension"),
+        compression: positive("allowable.compression"),
+        shear: positive("allowable.shear").optional(),
+      })
+      .optional(),
+    /** EN 1993 steel: fy bands by plate thickness, fu, E, G, partial factors, η, βw (required under "en1993"). */
+    steel: steelSchema.optional(),
+    /** Lateral-torsional restraint (EN 1993 basis); absent: compression flange restrained throughout. */
+    restraint: restraintSchema.optional(),
+    /** Bearing stiffeners at the supports (EN 1993 basis); unstiffened adds the patch-loading check. */
+    supports: supportsSchema.default({ stiffened: true }),
+    /** Fabrication rules: grid exclusions under either basis. */
+    fabrication: fabricationSchema.optional(),
     depth: axisSchema("depth"),
     width: axisSchema("width"),
     thicknesses: z
@@ -133,8 +250,27 @@ export const searchProblemSchema = z
   .superRefine((p, ctx) => {
     if (!(p.moment.sagging > 0 || p.moment.hogging > 0))
       ctx.addIssue({ code: "custom", path: ["moment"], message: "moment: sagging or hogging must be > 0" });
-    if (p.shear !== undefined && p.shear > 0 && p.allowable.shear === undefined)
-      ctx.addIssue({ code: "custom", path: ["allowable", "shear"], message: "allowable.shear is required when shear is given" });
+    if (p.basis === "allowable") {
+      if (!p.allowable) ctx.addIssue({ code: "custom", path: ["allowable"], message: 'allowable is required when basis is "allowable" (tension, compression, and shear when a shear force is given)' });
+      else if (p.shear !== undefined && p.shear > 0 && p.allowable.shear === undefined)
+        ctx.addIssue({ code: "custom", path: ["allowable", "shear"], message: "allowable.shear is required when shear is given" });
+    } else {
+      if (!p.steel) ctx.addIssue({ code: "custom", path: ["steel"], message: 'steel is required when basis is "en1993" (fy bands, fu; or a preset grade)' });
+      else {
+        // A section takes fy from the band holding its thickest plate; a plate beyond the last band has none.
+        const last = p.steel.fy[p.steel.fy.length - 1].maxThickness;
+        p.thicknesses.forEach((t, i) => {
+          if (t > last)
+            ctx.addIssue({ code: "custom", path: ["thicknesses", i], message: `thicknesses: ${t} mm is beyond the last fy band (steel.fy up to ${last} mm); add a band or remove the plate` });
+        });
+      }
+      p.families.forEach((f, i) => {
+        if (!(EN1993_FAMILIES as readonly string[]).includes(f))
+          ctx.addIssue({ code: "custom", path: ["families", i], message: `families: "${f}" is ${EN1993_REFUSAL}` });
+      });
+      if (p.supports.stiffened === false && p.supports.bearingLength === undefined)
+        ctx.addIssue({ code: "custom", path: ["supports", "bearingLength"], message: "supports.bearingLength is required when supports.stiffened is false (the stiff bearing length, mm)" });
+    }
     const seen = new Set<string>();
     p.families.forEach((f, i) => {
       if (seen.has(f)) ctx.addIssue({ code: "custom", path: ["families", i], message: `families lists "${f}" twice` });

@@ -20,6 +20,7 @@ export const UNITS = {
   area: { si: "mm²", us: "in²", factor: IN * IN },
   modulus: { si: "mm³", us: "in³", factor: IN * IN * IN },
   inertia: { si: "mm⁴", us: "in⁴", factor: IN * IN * IN * IN },
+  warping: { si: "mm⁶", us: "in⁶", factor: IN ** 6 },
   moment: { si: "kN·m", us: "kip·ft", factor: (KIP * FT) / 1e6 }, // N·mm → kN·m
   force: { si: "kN", us: "kip", factor: KIP / 1e3 },
   stress: { si: "MPa", us: "ksi", factor: KIP / (IN * IN) }, // N/mm²
@@ -74,17 +75,28 @@ export const PROPERTY_QUANTITIES: Record<string, Quantity> = {
   massPerMetre: "massPerLength",
 };
 
+/** The quantity of each field of `properties.stability` (member-checks.md §1), by dotted path. */
+export const STABILITY_QUANTITIES: Record<string, Quantity> = {
+  "stability.h0": "length",
+  "stability.shearCentre.z": "length",
+  "stability.shearCentre.y": "length",
+  "stability.Cw": "warping",
+  "stability.betaX": "length",
+  "stability.J": "inertia",
+};
+
 /** SectionProperties in the given system (a new object; Jmethod and other strings kept). */
 export function propertiesIn(p: SectionProperties, to: UnitSystem): SectionProperties {
   if (to === "si") return p;
   const out = structuredClone(p) as unknown as Record<string, unknown>;
-  for (const [path, q] of Object.entries(PROPERTY_QUANTITIES)) {
-    const [a, b] = path.split(".");
-    if (b === undefined) out[a] = fromSI(q, out[a] as number, to);
-    else {
-      const o = out[a] as Record<string, number>;
-      o[b] = fromSI(q, o[b], to);
-    }
+  for (const [path, q] of [...Object.entries(PROPERTY_QUANTITIES), ...Object.entries(STABILITY_QUANTITIES)]) {
+    const keys = path.split(".");
+    let o = out as Record<string, unknown> | null;
+    for (let i = 0; i < keys.length - 1 && o; i++) o = o[keys[i]] as Record<string, unknown> | null;
+    // stability is null for sections it is not defined for
+    if (!o) continue;
+    const k = keys[keys.length - 1];
+    o[k] = fromSI(q, o[k] as number, to);
   }
   return out as unknown as SectionProperties;
 }

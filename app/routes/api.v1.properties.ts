@@ -6,13 +6,14 @@ import { DEFAULT_JSON_LIMIT, readJson } from "~/lib/forms.server";
 import { describeFieldError, parseSectionInput, type FieldError } from "~/lib/bench-state";
 import { isEngineInputError } from "~/optimizer/errors";
 import { sectionProperties } from "~/optimizer/properties";
-import { PROPERTY_QUANTITIES, UNITS, propertiesIn, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, UNITS, propertiesIn, type Quantity, type UnitSystem } from "~/optimizer/units";
 
 /** Which unit each quantity of the answer is in, so an API client never guesses. */
 function unitsBlock(system: UnitSystem) {
-  const used = new Set<Quantity>([...Object.values(PROPERTY_QUANTITIES), "density"]);
+  const all = { ...PROPERTY_QUANTITIES, ...STABILITY_QUANTITIES };
+  const used = new Set<Quantity>([...Object.values(all), "density"]);
   const quantities = Object.fromEntries([...used].map((q) => [q, UNITS[q][system]]));
-  const fields = Object.fromEntries(Object.entries(PROPERTY_QUANTITIES).map(([k, q]) => [k, UNITS[q][system]]));
+  const fields = Object.fromEntries(Object.entries(all).map(([k, q]) => [k, UNITS[q][system]]));
   return { system, quantities, fields };
 }
 

@@ -65,7 +65,7 @@ describe("briefs", () => {
     expect(brief.units).toBe("us");
     const problem = parseJson<SearchProblem>(brief.problem);
     expect(problem.depth.max).toBeCloseTo(304.8, 9);
-    expect(problem.allowable.tension).toBe(165); // untouched: exactly the SI value it opened with
+    expect(problem.allowable!.tension).toBe(165); // untouched: exactly the SI value it opened with
     expect(await db("sweeps").where({ brief_id: briefId }).count({ n: "*" }).first()).toMatchObject({ n: 0 });
 
     const edit = await loadRouteModule("routes/briefs.$briefId.tsx");

@@ -41,7 +41,7 @@ describe("steel presets", () => {
   it("a preset fills a brief that the search schema accepts", () => {
     const f = presetFill("s355");
     const p = searchProblemSchema.parse(briefFromFill(f));
-    expect(p.allowable.compression).toBe(213);
+    expect(p.allowable!.compression).toBe(213);
     expect(() => presetFill("s999")).toThrow(/unknown steel grade/);
   });
 });

@@ -125,9 +125,9 @@ describe("the best candidate re-checked by the section engine", () => {
         for (const M of [Ms, -Mh]) {
           if (M === 0) continue;
           const s = sectionStresses(input, { Mz: M, V: p.shear ?? 0 });
-          expect(-s.maxCompression.sigma).toBeLessThanOrEqual(p.allowable.compression * tol);
-          expect(s.maxTension.sigma).toBeLessThanOrEqual(p.allowable.tension * tol);
-          if (p.shear !== undefined) expect(Math.abs(s.maxShear)).toBeLessThanOrEqual(p.allowable.shear! * tol);
+          expect(-s.maxCompression.sigma).toBeLessThanOrEqual(p.allowable!.compression * tol);
+          expect(s.maxTension.sigma).toBeLessThanOrEqual(p.allowable!.tension * tol);
+          if (p.shear !== undefined) expect(Math.abs(s.maxShear)).toBeLessThanOrEqual(p.allowable!.shear! * tol);
           if (p.deflection) {
             const P = s.properties;
             // vertical deflection uses Iz, or Iz − Iyz²/Iy for the unsymmetric angle
@@ -182,14 +182,14 @@ describe("the best candidate re-checked by the section engine", () => {
 describe("monotone in the limits", () => {
   const scaleAllow = (p: SearchProblemInput, k: number): SearchProblemInput => ({
     ...p,
-    allowable: { tension: p.allowable.tension * k, compression: p.allowable.compression * k, shear: p.allowable.shear! * k },
+    allowable: { tension: p.allowable!.tension * k, compression: p.allowable!.compression * k, shear: p.allowable!.shear! * k },
   });
 
   it("raising an allowable never makes the best heavier", () => {
     fc.assert(
       fc.property(problemArb, fc.double({ min: 1, max: 2, noNaN: true }), fc.constantFrom("tension", "compression", "shear", "all"), (p, k, which) => {
         const q =
-          which === "all" ? scaleAllow(p, k) : { ...p, allowable: { ...p.allowable, [which]: (p.allowable as Record<string, number>)[which] * k } };
+          which === "all" ? scaleAllow(p, k) : { ...p, allowable: { ...p.allowable!, [which]: (p.allowable as Record<string, number>)[which] * k } };
         expect(objective(searchSections(q))).toBeLessThanOrEqual(objective(searchSections(p)) * (1 + 1e-12));
       }),
       { numRuns: runs(80) },

@@ -31,7 +31,7 @@ describe("brief form ↔ SearchProblem", () => {
     expect(s.status).toBe("success");
     if (s.status === "success") {
       expect(s.value.problem.depth).toEqual({ min: 101.6, max: 406.4, step: 25.4 });
-      expect(s.value.problem.allowable.tension).toBeCloseTo(24 * 6.894757, 4);
+      expect(s.value.problem.allowable!.tension).toBeCloseTo(24 * 6.894757, 4);
       expect(s.value.meta.units).toBe("us");
     }
   });
@@ -77,8 +77,8 @@ describe("US customary round trip", () => {
     d.allowable = { ...d.allowable, tension: 20 };
     const s = parseWithZod(formData(d), { schema: briefFormSchema });
     if (s.status !== "success") throw new Error("expected success");
-    expect(s.value.problem.allowable.tension).toBeCloseTo(20 * 6.894757, 4);
-    expect(s.value.problem.allowable.compression).toBe(165);
+    expect(s.value.problem.allowable!.tension).toBeCloseTo(20 * 6.894757, 4);
+    expect(s.value.problem.allowable!.compression).toBe(165);
   });
 });
 
