@@ -3,6 +3,7 @@
 // check, which keeps zod out of the hot path (zod parsing costs several microseconds a
 // section; the bench needs well under one).
 import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, familyRuleViolation, filletRuleViolation, type Family } from "./geometry";
+import { HOLLOW_DIMENSIONS, SECTION_FAMILIES, hollowRuleViolation, isHollowFamily } from "./hollow";
 import { ringDefect, ringInside, ringsOverlap } from "./polygon";
 import { dropClosingPoint, makeRing } from "./shape";
 
@@ -70,6 +71,10 @@ export function polygonsViolation(polygons: readonly { points: readonly (readonl
 
 /** Family dimensions, fillet radius. */
 export function familyViolation(input: Record<string, unknown>): Violation | null {
+  if (isHollowFamily(input.family)) {
+    const h = hollowRuleViolation(input.family, input as Record<string, number>);
+    return h ? bad([h.field], h.message) : null;
+  }
   const family = input.family as Family;
   const dims = input as Record<string, number>;
   const v = familyRuleViolation(family, dims) ?? filletRuleViolation(family, dims);
@@ -122,7 +127,14 @@ export function findInputViolation(input: unknown): Violation | null {
     return polygonsViolation(gs as { points: number[][]; hole?: boolean }[]);
   }
   if (typeof o.family === "string") {
-    if (!(FAMILIES as readonly string[]).includes(o.family)) return bad(["family"], `family must be one of ${FAMILIES.join(", ")}`);
+    if (isHollowFamily(o.family)) {
+      const f = o.family;
+      if (o.flip !== undefined && typeof o.flip !== "boolean") return bad(["flip"], "flip must be true or false");
+      if (o.r !== undefined) return bad(["r"], `${f}: takes no root radius r (its corners are ro and ri)`);
+      for (const k of HOLLOW_DIMENSIONS[f]) if (!isNum(o[k])) return bad([k], `${f}: ${k} must be a finite number`);
+      return familyViolation(o);
+    }
+    if (!(FAMILIES as readonly string[]).includes(o.family)) return bad(["family"], `family must be one of ${SECTION_FAMILIES.join(", ")}`);
     const f = o.family as Family;
     if (o.flip !== undefined && typeof o.flip !== "boolean") return bad(["flip"], "flip must be true or false");
     if (o.r !== undefined) {
