@@ -48,9 +48,25 @@ export function platesOverlap(plates: readonly PlateLike[]): Violation | null {
   return null;
 }
 
-/** Polygons: simple rings; holes inside a solid; no two holes (or two solids) overlapping. */
+/**
+ * Most points (summed over every polygon, a closing repeat included) and most polygons one
+ * section may have. Why: the checks below cost O(n log n) for ordinary outlines but can reach
+ * O(n²) pair tests for contrived ones (a fan of spikes all meeting near one point; see
+ * polygon.ts), and the ring-against-ring checks run for every pair of polygons; these caps keep
+ * the worst accepted section to a few milliseconds (tests/bench/load.bench.ts measures it).
+ * 2,000 points draws a rolled section's fillets and any plate outline many times over.
+ */
+export const MAX_SECTION_POINTS = 2_000;
+export const MAX_SECTION_POLYGONS = 100;
+
+/** Polygons: within the caps; simple rings; holes inside a solid; no two holes (or two solids) overlapping. */
 export function polygonsViolation(polygons: readonly { points: readonly (readonly number[])[]; hole?: boolean }[]): Violation | null {
   if (polygons.length === 0) return bad(["polygons"], "polygons needs at least one polygon");
+  if (polygons.length > MAX_SECTION_POLYGONS)
+    return bad(["polygons"], `polygons: ${polygons.length.toLocaleString("en")} polygons; at most ${MAX_SECTION_POLYGONS} per section`);
+  const points = polygons.reduce((s, p) => s + p.points.length, 0);
+  if (points > MAX_SECTION_POINTS)
+    return bad(["polygons"], `polygons: ${points.toLocaleString("en")} points in all; at most ${MAX_SECTION_POINTS.toLocaleString("en")} per section (simplify the outline)`);
   const rings = polygons.map((p) => makeRing(dropClosingPoint(p.points), p.hole === true));
   for (let i = 0; i < rings.length; i++) {
     const d = ringDefect(rings[i].pts);
