@@ -7,6 +7,7 @@ import { z } from "zod";
 import { db } from "~/lib/db.server";
 import { can, isRole, type Permission, type Role } from "~/lib/roles";
 import { commitSession, destroySession, getSession } from "~/lib/session.server";
+import { spendApiPoints } from "~/lib/api-rate-limit.server";
 import { clientAddress, recordSignInFailure, recordSignInSuccess, signInWait, tooManyMessage } from "~/lib/rate-limit.server";
 
 export type { Role, Permission } from "~/lib/roles";
@@ -166,7 +167,11 @@ export async function requirePermission(request: Request, permission: Permission
 }
 
 /** API routes: the session cookie or `Authorization: Bearer <token>`; failures are JSON 401/403. */
-export async function requireApiUser(request: Request, permission?: Permission): Promise<SessionUser> {
+/**
+ * The API caller (bearer token or cookie session), charged `cost` points of their per-minute API
+ * budget (api-rate-limit.server.ts: 429 with Retry-After when spent), then checked for `permission`.
+ */
+export async function requireApiUser(request: Request, permission?: Permission, cost = 1): Promise<SessionUser> {
   const header = request.headers.get("authorization");
   let user: SessionUser | null = null;
   if (header) {
@@ -178,6 +183,7 @@ export async function requireApiUser(request: Request, permission?: Permission):
     user = await getUser(request);
     if (!user) throw Response.json({ error: "sign in or send an API token" }, { status: 401 });
   }
+  await spendApiPoints(user.id, cost);
   if (permission && !can(user.role, permission)) {
     throw Response.json({ error: `role ${user.role} may not ${PERMISSION_WORDS[permission]}` }, { status: 403 });
   }

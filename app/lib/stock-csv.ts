@@ -2,6 +2,7 @@
 // Parsed with papaparse (no hand-written CSV splitting); every problem is reported with the
 // line it is on, and a file with any error yields no rows, so nothing half-valid is kept.
 import Papa from "papaparse";
+import { MAX_THICKNESSES } from "~/optimizer/search-schema";
 
 /** Larger files are refused before parsing (a stock list is a few dozen lines). */
 export const STOCK_CSV_MAX_BYTES = 1024 * 1024;
@@ -40,6 +41,13 @@ const HEADERS: Record<string, keyof StockRow> = {
   priceperkg: "pricePerKg",
   price: "pricePerKg",
 };
+
+/**
+ * A decimal number as people write one in a stock list: digits, an optional decimal point and an
+ * optional exponent (6, 0.5, .5, 1e1). Number() alone would also take 0x10, 0b11, 0o7 and "Infinity"
+ * (issue 9): a hexadecimal thickness is a mistake, never a plate.
+ */
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 export const STOCK_CSV_EXAMPLE = "thickness_mm,width_mm,price_per_kg\n6,1500,1.12\n8,1500,1.10\n10,2000,1.08\n";
 
@@ -89,8 +97,8 @@ export function parseStockCsv(text: string, byteLength = new TextEncoder().encod
         if (c === "thickness") push(line, "thickness_mm is empty");
         return;
       }
-      const x = Number(raw);
-      if (!Number.isFinite(x)) push(line, `${columnName(c!)} "${raw.slice(0, 20)}" is not a number`);
+      const x = DECIMAL.test(raw) ? Number(raw) : NaN;
+      if (!Number.isFinite(x)) push(line, `${columnName(c!)} "${raw.slice(0, 20)}" is not a number${/^[+-]?0[xbo]/i.test(raw) ? " (write it in decimal)" : ""}`);
       else if (!(x > 0)) push(line, `${columnName(c!)} must be > 0`);
       else if (c === "thickness" && x > 500) push(line, "thickness_mm over 500 mm (is the column in mm?)");
       else row[c!] = x;
@@ -98,6 +106,10 @@ export function parseStockCsv(text: string, byteLength = new TextEncoder().encod
     rows.push(row);
   });
   if (errors.length) return { ok: false, errors };
+  // A brief takes the list's thicknesses as its own, and a brief lists at most MAX_THICKNESSES.
+  const distinct = stockThicknesses(rows).length;
+  if (distinct > MAX_THICKNESSES)
+    return { ok: false, errors: [{ line: 0, message: `thickness_mm: ${distinct} different thicknesses; a brief takes at most ${MAX_THICKNESSES}, so a stock list may list at most ${MAX_THICKNESSES}` }] };
   return { ok: true, rows };
 }
 

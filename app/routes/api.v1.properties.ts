@@ -2,6 +2,7 @@
 // `units: "us"` means the lengths sent are inches and the properties come back in in-based
 // units; the response's `units` block says which unit each quantity is in.
 import { requireApiUser } from "~/lib/auth.server";
+import { API_ENGINE_COST } from "~/lib/api-rate-limit.server";
 import { DEFAULT_JSON_LIMIT, readJson } from "~/lib/forms.server";
 import { describeFieldError, type FieldError } from "~/lib/bench-state";
 import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, UNITS, type Quantity, type UnitSystem } from "~/optimizer/units";
@@ -30,7 +31,7 @@ export async function loader() {
 
 export async function action({ request }: { request: Request }) {
   if (request.method !== "POST") return METHOD_NOT_ALLOWED();
-  await requireApiUser(request, "read");
+  await requireApiUser(request, "read", API_ENGINE_COST);
   const body = await readJson(request, DEFAULT_JSON_LIMIT);
   if (typeof body !== "object" || body === null || Array.isArray(body)) {
     return Response.json({ error: "body must be a JSON object (a SectionInput)", issues: [] }, { status: 400 });

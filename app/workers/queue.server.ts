@@ -658,26 +658,28 @@ export async function cancelSweep(id: number, actor: SweepActor): Promise<{ id: 
 export interface QueueHealth {
   /** the team's sweeps by status */
   byStatus: Record<SweepStatus, number>;
-  /** the whole queue (every team): waiting sweeps and how long the oldest has waited */
-  queuedAll: number;
+  /** how long the team's oldest waiting sweep has waited */
   oldestQueuedMs: number | null;
-  /** distinct workers holding an unexpired lease right now (0 with work queued: no worker is running) */
+  /** distinct workers holding an unexpired lease on one of the team's sweeps */
   activeWorkers: number;
-  /** running sweeps whose lease ran out (their worker died; another will take them over) */
+  /** the team's running sweeps whose lease ran out (their worker died; another will take them over) */
   expiredLeases: number;
 }
 
-/** Queue health for the dashboard: one small query each, by the database clock. */
+/**
+ * Queue health for one team, by the database clock. Every figure is the team's own (issue 9:
+ * the whole server's queue length and oldest wait told one team how busy the others were).
+ */
 export async function queueHealth(teamId: number): Promise<QueueHealth> {
   const byStatus: Record<SweepStatus, number> = { queued: 0, running: 0, succeeded: 0, failed: 0, cancelled: 0 };
   for (const r of await db("sweeps").where({ team_id: teamId }).groupBy("status").select("status", db.raw("COUNT(*) AS n"))) byStatus[r.status as SweepStatus] = Number(r.n);
-  const [[q]] = await db.raw(`SELECT COUNT(*) AS n, TIMESTAMPDIFF(MICROSECOND, MIN(queued_at), NOW(3)) DIV 1000 AS oldest FROM sweeps WHERE status = 'queued'`);
+  const [[q]] = await db.raw(`SELECT TIMESTAMPDIFF(MICROSECOND, MIN(queued_at), NOW(3)) DIV 1000 AS oldest FROM sweeps WHERE status = 'queued' AND team_id = ?`, [teamId]);
   const [[w]] = await db.raw(
-    `SELECT COUNT(DISTINCT CASE WHEN lease_expires_at >= NOW(3) THEN lease_owner END) AS workers, SUM(lease_expires_at < NOW(3)) AS expired FROM sweeps WHERE status = 'running'`,
+    `SELECT COUNT(DISTINCT CASE WHEN lease_expires_at >= NOW(3) THEN lease_owner END) AS workers, SUM(lease_expires_at < NOW(3)) AS expired FROM sweeps WHERE status = 'running' AND team_id = ?`,
+    [teamId],
   );
   return {
     byStatus,
-    queuedAll: Number(q.n),
     oldestQueuedMs: q.oldest === null ? null : Number(q.oldest),
     activeWorkers: Number(w.workers ?? 0),
     expiredLeases: Number(w.expired ?? 0),
