@@ -2,7 +2,7 @@
 // and the queue use (briefFormSchema wraps searchProblemSchema), wired with Conform so errors
 // sit beside their fields with aria-describedby, and the form still posts without JavaScript.
 // The preview (grid size, one sample section's properties and checks) runs the engine in the browser.
-import { useMemo, useRef, useState, type ReactNode } from "react";
+import { useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { Form } from "react-router";
 import { getCollectionProps, getFormProps, getInputProps, useForm, type FieldMetadata, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
@@ -16,6 +16,8 @@ import { materialFill, presetFill, STEEL_GRADES, type MaterialProperties } from 
 import { SectionDrawing } from "~/components/SectionDrawing";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { UnitSwitch } from "~/components/UnitSwitch";
+import { BasisPanels, BasisSwitch, fillGrade, type BasisFields } from "~/components/DesignBasisPanel";
+import { EN1993_FAMILIES, EN1993_GRADES, type Basis, type En1993Grade } from "~/optimizer/search-schema";
 
 export interface StockListChoice {
   id: number;
@@ -62,9 +64,10 @@ function NumberInput({ meta, label, field, units, hint }: { meta: Meta; label: s
   );
 }
 
-function Group({ title, children, note }: { title: string; children: ReactNode; note?: string }) {
+function Group({ title, children, note, hidden }: { title: string; children: ReactNode; note?: string; hidden?: boolean }) {
+  // Hidden groups are disabled too, so they send nothing (the allowables under the EN 1993 basis).
   return (
-    <fieldset className="rounded-lg border border-ink/15 bg-white p-4">
+    <fieldset className="rounded-lg border border-ink/15 bg-white p-4" hidden={hidden} disabled={hidden}>
       <legend className="px-1 text-base font-bold">{title}</legend>
       {note ? <p className="mb-2 text-xs text-ink/70">{note}</p> : null}
       <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">{children}</div>
@@ -137,6 +140,11 @@ export function BriefEditor({
   const defl = fields.deflection.getFieldset();
   const [prices, setPrices] = useState(String(defaultValue.prices ?? ""));
   const [sampleFamily, setSampleFamily] = useState<Family>(((defaultValue.families as string[] | undefined)?.[0] as Family) ?? "channel");
+  const [basis, setBasis] = useState<Basis>(defaultValue.basis === "en1993" ? "en1993" : "allowable");
+  // The basis decides which panels are enabled (and so sent): re-read the preview once they have re-rendered.
+  useEffect(() => {
+    if (formRef.current) setProblem(previewProblem(formRef.current));
+  }, [basis]);
 
   // Re-express every number in the other system, so switching units never changes the problem.
   // Each input remembers the exact SI value behind what it shows, so SI → US → SI gives back 400,
@@ -195,6 +203,9 @@ export function BriefEditor({
     // E only matters with a deflection limit: fill it when the span is already given.
     const span = el.querySelector<HTMLInputElement>('input[name="deflection.span"]');
     if (E && span && span.value.trim() !== "") set("deflection.E", "stress", fill.E);
+    // A built-in EN grade (s355) also fills the EN 1993 steel: bands, fu, βw.
+    const en = id.toUpperCase();
+    if (en in EN1993_GRADES) fillGrade(el, en as En1993Grade, units);
     setProblem(previewProblem(el));
   }
 
@@ -304,17 +315,30 @@ export function BriefEditor({
           <UnitSwitch value={units} onChange={switchUnits} name="units" />
         </div>
 
-        <Group title="Loads" note="Design moments about the horizontal axis; sagging compresses the top fibre.">
+        <BasisSwitch meta={fields.basis} basis={basis} onChange={setBasis} />
+
+        <Group
+          title="Loads"
+          note={`Design moments about the horizontal axis; sagging compresses the top fibre.${basis === "en1993" ? " Factored values (ultimate limit state)." : ""}`}
+        >
           <NumberInput meta={moment.sagging} label="Sagging moment" field="moment.sagging" units={units} />
           <NumberInput meta={moment.hogging} label="Hogging moment" field="moment.hogging" units={units} />
           <NumberInput meta={fields.shear} label="Shear force" field="shear" units={units} hint="optional" />
         </Group>
 
-        <Group title="Allowable stresses">
+        <Group title="Allowable stresses" hidden={basis === "en1993"}>
           <NumberInput meta={allowable.tension} label="Tension" field="allowable.tension" units={units} />
           <NumberInput meta={allowable.compression} label="Compression" field="allowable.compression" units={units} />
           <NumberInput meta={allowable.shear} label="Shear" field="allowable.shear" units={units} hint="required when a shear force is given" />
         </Group>
+
+        <BasisPanels
+          fields={fields as unknown as BasisFields}
+          units={units}
+          basis={basis}
+          defaultValue={defaultValue}
+          onChange={() => formRef.current && setProblem(previewProblem(formRef.current))}
+        />
 
         <Group title="Depth and width limits" note="The grid takes every min + k·step up to max.">
           <NumberInput meta={depth.min} label="Depth, min" field="depth.min" units={units} />
@@ -396,6 +420,7 @@ export function BriefEditor({
               <label key={p.key} className="flex items-center gap-2 text-sm">
                 <input {...p} key={p.key} />
                 {FAMILY_LABELS[p.value as Family]}
+                {basis === "en1993" && !(EN1993_FAMILIES as readonly string[]).includes(p.value) ? <span className="text-xs text-ink/70">(allowable basis only)</span> : null}
               </label>
             ))}
           </div>

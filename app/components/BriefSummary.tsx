@@ -8,13 +8,54 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
   const q = (field: NumericField, v: number | undefined) => (v === undefined ? "—" : `${formatNumber(fromSI(FIELD_QUANTITIES[field], v, units))} ${unitLabel(FIELD_QUANTITIES[field], units)}`);
   const axis = (name: "depth" | "width") => `${q(`${name}.min`, problem[name].min)} to ${q(`${name}.max`, problem[name].max)}, step ${q(`${name}.step`, problem[name].step)}`;
   const s = problem.slenderness ?? {};
+  const en = problem.basis === "en1993";
+  const st = problem.steel;
+  const r = problem.restraint;
+  const fab = problem.fabrication;
+  const L = (x: number) => `${formatNumber(fromSI("length", x, units))} ${unitLabel("length", units)}`;
+  const S = (x: number) => `${formatNumber(fromSI("stress", x, units))} ${unitLabel("stress", units)}`;
+  const basisRows: [string, string][] = en
+    ? [
+        ["Design basis", "EN 1993 limit states (factored design actions)"],
+        [
+          "Steel",
+          st
+            ? `${st.grade ? `${st.grade}: ` : ""}fy ${st.fy.map((b) => `${S(b.fy)} to ${L(b.maxThickness)}`).join(", ")}; fu ${S(st.fu)}; E ${S(st.E)}; G ${S(st.G)}`
+            : "—",
+        ],
+        ["Partial factors", st ? `γM0 ${st.gammaM0}, γM1 ${st.gammaM1}, γM2 ${st.gammaM2}; η ${st.eta}; βw ${st.betaW}` : "—"],
+        [
+          "Lateral-torsional restraint",
+          r ? `${q("restraint.length", r.length)} between restraints; C1 ${r.C1}, C2 ${r.C2}, C3 ${r.C3}; load at the ${r.loadAt === "shearCentre" ? "shear centre" : `${r.loadAt} flange`}` : "compression flange restrained throughout",
+        ],
+        [
+          "Supports",
+          problem.supports?.stiffened === false
+            ? `no bearing stiffeners (patch loading checked${problem.supports.bearingLength !== undefined ? `, stiff bearing ${q("supports.bearingLength", problem.supports.bearingLength)}` : ""})`
+            : "bearing stiffeners at both supports",
+        ],
+      ]
+    : [
+        ["Design basis", "allowable stresses (stresses only: no stability checks)"],
+        ["Allowable tension", q("allowable.tension", problem.allowable?.tension)],
+        ["Allowable compression", q("allowable.compression", problem.allowable?.compression)],
+        ["Allowable shear", q("allowable.shear", problem.allowable?.shear)],
+      ];
+  const fabText = fab
+    ? [
+        fab.minThickness !== undefined ? `plates ≥ ${q("fabrication.minThickness", fab.minThickness)}` : null,
+        fab.flangeAtLeastWeb ? "flange ≥ web thickness" : null,
+        fab.minBoxClear !== undefined ? `box clear width ≥ ${q("fabrication.minBoxClear", fab.minBoxClear)}` : null,
+      ]
+        .filter(Boolean)
+        .join("; ")
+    : "";
   const rows: [string, string][] = [
     ["Sagging moment", q("moment.sagging", problem.moment.sagging)],
     ["Hogging moment", q("moment.hogging", problem.moment.hogging)],
     ["Shear force", q("shear", problem.shear)],
-    ["Allowable tension", q("allowable.tension", problem.allowable?.tension)],
-    ["Allowable compression", q("allowable.compression", problem.allowable?.compression)],
-    ["Allowable shear", q("allowable.shear", problem.allowable?.shear)],
+    ...basisRows,
+    ["Fabrication rules", fabText || "none"],
     ["Depth", axis("depth")],
     ["Width", axis("width")],
     ["Plate thicknesses", `${problem.thicknesses.map((t) => formatNumber(fromSI("length", t, units))).join(", ")} ${unitLabel("length", units)}`],

@@ -6,8 +6,33 @@ import { formatNumber } from "~/components/PropertyTable";
 import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { FAMILY_STYLE } from "~/components/family-style";
 import type { Family } from "~/optimizer/geometry";
+import type { DesignRow } from "~/lib/design-summary";
+import { STRESSES_ONLY } from "~/lib/caution";
 
-type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing" | "cost";
+/** The EN 1993 columns of one row; Mb,Rd where lateral-torsional buckling is checked, else Mc,Rd (marked). */
+function DesignCells({ d, units }: { d: DesignRow | null; units: UnitSystem }) {
+  const n = (q: "moment" | "force" | "length", x: number | null | undefined) => (x == null ? "—" : formatNumber(fromSI(q, x, units)));
+  return (
+    <>
+      <td className="p-2 text-right tabular-nums" data-col="class">
+        {d?.sectionClass ?? "—"}
+      </td>
+      <td className="p-2 text-right tabular-nums" data-col="mcr">
+        {n("moment", d?.Mcr)}
+      </td>
+      <td className="p-2 text-right tabular-nums" data-col="chi">
+        {d?.chiLT == null ? "—" : d.chiLT.toFixed(3)}
+      </td>
+      <td className="p-2 text-right tabular-nums">{d ? (d.MbRd != null ? n("moment", d.MbRd) : `${n("moment", d.McRd)} (c)`) : "—"}</td>
+      <td className="p-2 text-right tabular-nums">{n("force", d?.VRd)}</td>
+      <td className="p-2 text-right tabular-nums" data-col="weld">
+        {n("length", d?.weldThroat)}
+      </td>
+    </>
+  );
+}
+
+type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing" | "cost" | "sectionClass" | "Mcr" | "chiLT" | "MRd" | "VRd" | "weldThroat";
 export const MAX_COMPARE = 4;
 
 export function CandidateTable({
@@ -30,11 +55,32 @@ export function CandidateTable({
   const [frontOnly, setFrontOnly] = useState(false);
   const families = [...new Set(candidates.map((c) => c.family))];
   const withCost = candidates.some((c) => c.cost != null);
+  // EN 1993 results carry the engine's design figures; allowable ones say they check no stability.
+  const withDesign = candidates.some((c) => c.design);
   const rows = useMemo(() => {
     const list = candidates.filter((c) => (!family || c.family === family) && (!frontOnly || c.onFront));
+    const key = (c: ChartCandidate) => {
+      const d = c.design;
+      switch (sort.key) {
+        case "sectionClass":
+          return d?.sectionClass;
+        case "Mcr":
+          return d?.Mcr;
+        case "chiLT":
+          return d?.chiLT;
+        case "MRd":
+          return d ? (d.MbRd ?? d.McRd) : null;
+        case "VRd":
+          return d?.VRd;
+        case "weldThroat":
+          return d?.weldThroat;
+        default:
+          return c[sort.key];
+      }
+    };
     return list.sort((a, b) => {
-      const x = a[sort.key] ?? 0,
-        y = b[sort.key] ?? 0;
+      const x = key(a) ?? 0,
+        y = key(b) ?? 0;
       const d = typeof x === "number" && typeof y === "number" ? x - y : String(x).localeCompare(String(y));
       return d * sort.dir || a.rank - b.rank;
     });
@@ -66,6 +112,11 @@ export function CandidateTable({
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={frontOnly} onChange={(e) => setFrontOnly(e.target.checked)} /> front only
         </label>
+        {withDesign ? null : (
+          <span className="font-semibold text-caution" data-testid="stresses-only">
+            Allowable stresses: {STRESSES_ONLY}
+          </span>
+        )}
         <span className="text-ink/70">
           {rows.length} of {candidates.length} shown · tick up to {MAX_COMPARE} to compare ({compare.length} ticked)
         </span>
@@ -85,6 +136,16 @@ export function CandidateTable({
               {head("massPerMetre", `Mass (${unitLabel("massPerLength", units)})`, true)}
               {withCost ? head("cost", "Cost per m", true) : null}
               {head("utilisation", "Utilisation", true)}
+              {withDesign ? (
+                <>
+                  {head("sectionClass", "Class", true)}
+                  {head("Mcr", `Mcr (${unitLabel("moment", units)})`, true)}
+                  {head("chiLT", "χLT", true)}
+                  {head("MRd", `Mb,Rd or Mc,Rd (${unitLabel("moment", units)})`, true)}
+                  {head("VRd", `VRd (${unitLabel("force", units)})`, true)}
+                  {head("weldThroat", `Weld a (${unitLabel("length", units)})`, true)}
+                </>
+              ) : null}
               {head("governing", "Governing check")}
               <th scope="col" className="p-2">
                 Front
@@ -121,13 +182,22 @@ export function CandidateTable({
                 <td className="p-2 text-right tabular-nums">{formatNumber(fromSI("massPerLength", c.massPerMetre, units))}</td>
                 {withCost ? <td className="p-2 text-right tabular-nums">{c.cost != null ? c.cost.toFixed(2) : "—"}</td> : null}
                 <td className="p-2 text-right tabular-nums">{c.utilisation.toFixed(3)}</td>
-                <td className="p-2">{c.governing}</td>
+                {withDesign ? <DesignCells d={c.design ?? null} units={units} /> : null}
+                <td className="p-2">
+                  {c.governing}
+                  {c.design?.governingClause ? <span className="block text-xs text-ink/70">{c.design.governingClause}</span> : null}
+                </td>
                 <td className="p-2">{c.onFront ? "yes" : ""}</td>
               </tr>
             ))}
           </tbody>
         </table>
       </div>
+      {withDesign ? (
+        <p className="text-xs text-ink/70">
+          Moment resistance: Mb,Rd where lateral-torsional buckling is checked; “(c)” marks Mc,Rd where the compression flange is restrained throughout. Figures from the engine's EN 1993 checks.
+        </p>
+      ) : null}
     </div>
   );
 }

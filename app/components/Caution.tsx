@@ -1,20 +1,18 @@
 // The one caution every results page and calculation record carries (product.md, "Safety").
-// Keep the wording here only, so the screen and the printed record can never disagree.
-export const CAUTION_TEXT =
-  "Sparwise is a sizing aid. Its checks cover only the elastic bending stress, shear stress and plate slenderness " +
-  "rules listed (and deflection, when a limit is given); they do not cover lateral-torsional buckling, web crippling, " +
-  "connections, fatigue, fire or load combinations. Verify every result against the governing local design code and " +
-  "have it approved by a licensed engineer before fabrication.";
+// The wording lives in lib/caution.ts (the API answers with the same text); it follows the
+// brief's design basis, so pass the problem the results belong to.
+import { cautionText, type CautionBasis } from "~/lib/caution";
 
-export function Caution({ className = "" }: { className?: string }) {
+export function Caution({ problem, scope = "bench", className = "" }: { problem?: CautionBasis | null; scope?: "bench" | "project"; className?: string }) {
   return (
     <aside
       role="note"
       aria-label="Caution"
+      data-basis={problem ? (problem.basis ?? "allowable") : scope}
       className={`rounded-md border-l-4 border-caution bg-amber-50 px-4 py-3 text-sm text-ink print:bg-white ${className}`}
     >
       <strong className="font-bold text-caution">Caution. </strong>
-      {CAUTION_TEXT}
+      {cautionText(problem, scope)}
     </aside>
   );
 }

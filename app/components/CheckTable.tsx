@@ -1,10 +1,12 @@
-// Every check of one section with demand, capacity and utilisation (candidateChecks' output),
-// in the page's units: stresses MPa/ksi, deflection mm/in, slenderness a plain ratio.
-import type { CandidateVerdict } from "~/optimizer/checks";
-import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
+// Every check of one section with demand, capacity, utilisation and the clause it implements
+// (candidateChecks' output), in the page's units: each check's own unit (CheckResult.unit) is
+// converted through units.ts. Under the allowable basis the caption says that no stability is checked.
+import type { CandidateVerdict, CheckResult } from "~/optimizer/checks";
+import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
+import { STRESSES_ONLY } from "~/lib/caution";
 
-const WORDS: Record<string, string> = {
+export const CHECK_WORDS: Record<string, string> = {
   "bending-compression": "Bending, compressive fibre stress",
   "bending-tension": "Bending, tensile fibre stress",
   shear: "Shear stress V·Q/(Iz·b)",
@@ -13,36 +15,51 @@ const WORDS: Record<string, string> = {
   "slenderness-web": "Slenderness, web",
   "slenderness-stem": "Slenderness, stem",
   deflection: "Deflection 5wL⁴/(384EI)",
+  "class-4": "Cross-section class (c/t over the class 3 limit)",
+  "bending-resistance": "Bending resistance MEd ≤ Mc,Rd",
+  ltb: "Lateral-torsional buckling MEd ≤ Mb,Rd",
+  "shear-resistance": "Shear resistance VEd ≤ Vpl,Rd",
+  "shear-buckling": "Shear buckling VEd ≤ Vb,Rd",
+  "bending-shear": "Bending with shear MEd ≤ MV,Rd",
+  weld: "Flange-to-web weld throat a ≤ 0.7·t",
+  bearing: "Web under the support reaction VEd ≤ FRd",
 };
 
-function unitOf(name: string, units: UnitSystem): { q: "stress" | "length" | null; label: string } {
-  if (name.startsWith("slenderness")) return { q: null, label: "ratio" };
-  if (name === "deflection") return { q: "length", label: unitLabel("length", units) };
-  return { q: "stress", label: unitLabel("stress", units) };
+const UNIT_QUANTITY: Record<CheckResult["unit"], Quantity | null> = { MPa: "stress", mm: "length", "kN·m": "moment", kN: "force", ratio: null };
+
+function unitOf(c: CheckResult, units: UnitSystem): { q: Quantity | null; label: string } {
+  const q = UNIT_QUANTITY[c.unit] ?? null;
+  return { q, label: q ? unitLabel(q, units) : "ratio" };
 }
 
 export function CheckTable({ verdict, units, compact = false }: { verdict: CandidateVerdict; units: UnitSystem; compact?: boolean }) {
+  const stressesOnly = !verdict.design;
   return (
-    <table className="w-full border-collapse text-xs sm:text-sm">
-      <caption className="text-left font-semibold">Checks {verdict.feasible ? "(all pass)" : "(FAILS)"}</caption>
+    <table className="w-full border-collapse text-xs sm:text-sm" data-testid="check-table">
+      <caption className="text-left font-semibold">
+        Checks {verdict.feasible ? "(all pass)" : "(FAILS)"}
+        {stressesOnly ? <span className="font-normal text-caution"> — {STRESSES_ONLY}</span> : null}
+      </caption>
       <thead>
         <tr className="border-b border-ink/30 text-left">
           <th className="py-1 pr-2">Check</th>
           <th className="py-1 pr-2 text-right">Demand</th>
           <th className="py-1 pr-2 text-right">Capacity</th>
           {compact ? null : <th className="py-1 pr-2">Unit</th>}
-          <th className="py-1 text-right">Utilisation</th>
+          <th className="py-1 pr-2 text-right">Utilisation</th>
+          {compact ? null : <th className="py-1">Clause</th>}
         </tr>
       </thead>
       <tbody>
         {verdict.checks.map((c) => {
-          const u = unitOf(c.name, units);
+          const u = unitOf(c, units);
           const v = (x: number) => formatNumber(u.q ? fromSI(u.q, x, units) : x);
           return (
-            <tr key={c.name} className={`border-b border-ink/10 ${c.name === verdict.governing ? "font-semibold" : ""}`} data-check={c.name}>
+            <tr key={c.name} className={`border-b border-ink/10 align-top ${c.name === verdict.governing ? "font-semibold" : ""}`} data-check={c.name}>
               <td className="py-1 pr-2">
-                {WORDS[c.name] ?? c.name}
+                {CHECK_WORDS[c.name] ?? c.name}
                 {c.name === verdict.governing ? " (governs)" : ""}
+                {compact && c.clause ? <span className="block text-[0.7rem] font-normal text-ink/70">{c.clause}</span> : null}
               </td>
               <td className="py-1 pr-2 text-right tabular-nums">
                 {v(c.demand)}
@@ -53,7 +70,8 @@ export function CheckTable({ verdict, units, compact = false }: { verdict: Candi
                 {compact ? ` ${u.label}` : ""}
               </td>
               {compact ? null : <td className="py-1 pr-2">{u.label}</td>}
-              <td className={`py-1 text-right tabular-nums ${c.utilisation > 1 ? "text-red-800" : ""}`}>{c.utilisation.toFixed(3)}</td>
+              <td className={`py-1 pr-2 text-right tabular-nums ${c.utilisation > 1 ? "text-red-800" : ""}`}>{c.utilisation.toFixed(3)}</td>
+              {compact ? null : <td className="py-1 text-xs font-normal text-ink/80">{c.clause}</td>}
             </tr>
           );
         })}

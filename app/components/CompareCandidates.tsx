@@ -12,6 +12,7 @@ import { StressDiagram } from "~/components/StressDiagram";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { CheckTable } from "~/components/CheckTable";
+import { DesignFigures } from "~/components/BasisAssumptions";
 
 /** The moment the diagrams show: the larger of sagging and hogging (hogging as a negative Mz). */
 export function designMoment(problem: SearchProblem): number {
@@ -64,6 +65,7 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
                 <strong>{verdict.utilisation.toFixed(3)}</strong> ({verdict.governing})
               </dd>
             </dl>
+            <DesignFigures verdict={verdict} units={units} />
             <StressDiagram result={stress} moment={M} shearForce={problem.shear ?? 0} units={units} width={W} height={220} />
             <div className="overflow-x-auto">
               <CheckTable verdict={verdict} units={units} compact />

@@ -168,7 +168,7 @@ function RationaliseResultView({ result }: { result: ProjectRationalisation }) {
               mass.
             </p>
           ) : null}
-          <Caution />
+          <Caution scope="project" />
         </>
       ) : null}
       {skipped.length ? (

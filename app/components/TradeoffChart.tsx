@@ -6,6 +6,7 @@ import type { Family } from "~/optimizer/geometry";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { FAMILY_STYLE } from "~/components/family-style";
 import { formatNumber } from "~/components/PropertyTable";
+import type { DesignRow } from "~/lib/design-summary";
 
 export interface ChartCandidate {
   rank: number;
@@ -17,6 +18,8 @@ export interface ChartCandidate {
   onFront: boolean;
   /** per metre, in the stock list's currency (cost objective only) */
   cost?: number | null;
+  /** EN 1993 basis: the engine's class, Mcr, χLT, resistances and weld throat (null under the allowable basis) */
+  design?: DesignRow | null;
 }
 
 interface Point {

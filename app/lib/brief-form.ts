@@ -7,6 +7,7 @@ import { z } from "zod";
 import { FAMILIES, type Family } from "~/optimizer/geometry";
 import { CONTRACT_EXAMPLE_PROBLEM, searchProblemSchema, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
 import { fromSI, toSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { BASIS_FIELD_QUANTITIES, DEFAULT_GRADE, bandQuantity, gradeFill, basisFormDefaults, basisFormShape, basisIssuePath, basisIssues, basisToProblemInput } from "~/lib/brief-form-basis";
 
 /** Which quantity each numeric field holds (for conversion and for the unit shown beside it). */
 export const FIELD_QUANTITIES = {
@@ -27,8 +28,14 @@ export const FIELD_QUANTITIES = {
   "deflection.serviceLoad": "lineLoad",
   "deflection.E": "stress",
   memberLength: "span",
+  ...BASIS_FIELD_QUANTITIES,
 } as const satisfies Record<string, Quantity>;
 export type NumericField = keyof typeof FIELD_QUANTITIES;
+
+/** The quantity of any numeric problem path, the fy bands' included (for showing changed limits with units). */
+export function pathQuantity(path: string): Quantity | undefined {
+  return (FIELD_QUANTITIES as Record<string, Quantity>)[path] ?? bandQuantity(path);
+}
 
 export const SLENDERNESS_KEYS = ["outstand", "internal", "web", "stem"] as const;
 
@@ -88,6 +95,8 @@ const formFields = z.object({
   deflection: z
     .object({ span: num("deflection.span"), serviceLoad: num("deflection.serviceLoad"), limitRatio: num("deflection.limitRatio"), E: num("deflection.E") })
     .default({}),
+  // Design basis, steel, restraint, supports, fabrication (brief-form-basis.ts).
+  ...basisFormShape,
 });
 export type BriefFormValues = z.output<typeof formFields>;
 /** The form's shape before parsing (what Conform's field metadata is typed by). */
@@ -138,11 +147,15 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
   const anyDeflection = d.span !== undefined || d.serviceLoad !== undefined || d.limitRatio !== undefined || d.E !== undefined;
   const out: Record<string, unknown> = {
     moment: { sagging: si("moment.sagging", f.moment.sagging) ?? 0, hogging: si("moment.hogging", f.moment.hogging) ?? 0 },
-    allowable: {
-      tension: si("allowable.tension", f.allowable.tension),
-      compression: si("allowable.compression", f.allowable.compression),
-      ...(f.allowable.shear !== undefined ? { shear: si("allowable.shear", f.allowable.shear) } : {}),
-    },
+    // The EN 1993 basis uses no allowable stresses: a brief on it stores none.
+    allowable:
+      f.basis === "en1993"
+        ? undefined
+        : {
+            tension: si("allowable.tension", f.allowable.tension),
+            compression: si("allowable.compression", f.allowable.compression),
+            ...(f.allowable.shear !== undefined ? { shear: si("allowable.shear", f.allowable.shear) } : {}),
+          },
     depth: { min: si("depth.min", f.depth.min), max: si("depth.max", f.depth.max), step: si("depth.step", f.depth.step) },
     width: { min: si("width.min", f.width.min), max: si("width.max", f.width.max), step: si("width.step", f.width.step) },
     thicknesses: thick,
@@ -167,6 +180,8 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
       limitRatio: d.limitRatio,
       E: si("deflection.E", d.E),
     };
+  if (out.allowable === undefined) delete out.allowable;
+  Object.assign(out, basisToProblemInput(f, (key, q, v) => (v === undefined ? undefined : exact(key, q, v))).fields);
   return out;
 }
 
@@ -177,17 +192,24 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
 export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta; problem: SearchProblem } => {
   const t = parseThicknessList(f.thicknesses);
   if (t.error) ctx.addIssue({ code: "custom", path: ["thicknesses"], message: t.error });
+  // The basis fields' own plain-word messages first; the engine's issue on the same field is then left out.
+  const own = basisIssues(f);
+  for (const i of own) ctx.addIssue({ code: "custom", path: i.path, message: i.message });
+  const ownPaths = new Set(own.map((i) => i.path.join(".")));
   const r = searchProblemSchema.safeParse(formToProblemInput(f));
   if (!r.success) {
+    const { bandRows } = basisToProblemInput(f, (_k, _q, v) => v);
     for (const issue of r.error.issues) {
-      // Array items (thicknesses[3], families[1]) belong to the list's one field; the grid cap to the steps.
-      let path = issue.path.filter((p) => typeof p === "string") as string[];
+      // Array items (thicknesses[3], families[1]) belong to the list's one field; the grid cap to the
+      // steps; an fy band to the row it was typed in.
+      let path: (string | number)[] = basisIssuePath(issue.path as (string | number)[], bandRows) ?? (issue.path.filter((p) => typeof p === "string") as string[]);
       if (path[0] === "grid") path = ["depth", "step"];
+      if (ownPaths.has(path.join("."))) continue;
       ctx.addIssue({ code: "custom", path, message: issue.message });
     }
     return z.NEVER;
   }
-  if (t.error) return z.NEVER;
+  if (t.error || own.length) return z.NEVER;
   const meta: BriefMeta = { name: f.name, units: f.units };
   if (f.material) meta.material = f.material;
   if (f.stockListId) meta.stockListId = f.stockListId;
@@ -217,7 +239,9 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
   const v = (field: NumericField, x: number | undefined) => (x === undefined ? undefined : displayNumber(fromSI(FIELD_QUANTITIES[field], x, u)));
   const s = problem.slenderness ?? {};
   const d = problem.deflection;
+  const basis = basisFormDefaults(problem, (q, x) => (x === undefined ? undefined : displayNumber(fromSI(q, x, u))));
   const siValues: Record<string, unknown> = {
+    ...basis.si,
     "moment.sagging": problem.moment.sagging,
     "moment.hogging": problem.moment.hogging,
     shear: problem.shear,
@@ -263,6 +287,7 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
     deflection: d
       ? { span: v("deflection.span", d.span), serviceLoad: v("deflection.serviceLoad", d.serviceLoad), limitRatio: d.limitRatio, E: v("deflection.E", d.E) }
       : {},
+    ...basis.values,
   };
 }
 
@@ -272,6 +297,27 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
  * order of magnitude, not a code's classification limits).
  */
 export const DEFAULT_PROBLEM: SearchProblem = searchProblemSchema.parse({ ...CONTRACT_EXAMPLE_PROBLEM, families: ["channel"] });
+
+/**
+ * A new brief (member-checks.md §3): the EN 1993 basis with the S355 preset, on the contract's
+ * example loads and grid. Its allowables stay in the form (hidden) so a switch to the
+ * allowable basis starts filled in; its slenderness limits are left out, since the EN 1993
+ * classification already bounds every plate. Fabrication rules: the member-checks.md example
+ * (common practice: flanges no thinner than the web, 100 mm to weld inside a box).
+ */
+export const NEW_BRIEF_PROBLEM: SearchProblem = searchProblemSchema.parse({
+  ...CONTRACT_EXAMPLE_PROBLEM,
+  families: ["channel"],
+  slenderness: undefined,
+  basis: "en1993",
+  steel: { grade: DEFAULT_GRADE, ...gradeFill(DEFAULT_GRADE) },
+  fabrication: { minThickness: 6, flangeAtLeastWeb: true, minBoxClear: 100 },
+});
+
+/** The new-brief form: the restraint length is left for the engineer to state (or to tick "restrained throughout"). */
+export function newBriefFormDefaults(units: UnitSystem): Record<string, unknown> {
+  return { ...problemToFormDefaults(NEW_BRIEF_PROBLEM, { units, name: "" }), restraintThroughout: false };
+}
 
 export const FAMILY_LABELS: Record<Family, string> = {
   rectangle: "Rectangle (solid bar)",
@@ -296,9 +342,12 @@ export function changedLimits(a: SearchProblem, b: SearchProblem): { path: strin
     const out: Record<string, unknown> = {};
     const walk = (o: unknown, prefix: string) => {
       if (o && typeof o === "object" && !Array.isArray(o)) for (const [k, x] of Object.entries(o)) walk(x, prefix ? `${prefix}.${k}` : k);
+      // Lists of objects (the fy bands) by item: steel.fy[1].fy.
+      else if (Array.isArray(o) && o.some((x) => x && typeof x === "object")) o.forEach((x, i) => walk(x, `${prefix}[${i}]`));
       else out[prefix] = Array.isArray(o) ? o.join(", ") : o;
     };
-    walk(p, "");
+    // A problem stored before the basis existed is an allowable-stress problem.
+    walk({ ...p, basis: p.basis ?? "allowable" }, "");
     return out;
   };
   const fa = flat(a),

@@ -5,19 +5,46 @@ import { notFound } from "~/lib/projects.server";
 import { listCandidates, getTeamSweep, type SweepView } from "~/workers/queue.server";
 import type { ChartCandidate } from "~/components/TradeoffChart";
 import type { UnitSystem } from "~/optimizer/units";
+import { candidateChecks, type Family, type SearchProblem } from "~/optimizer";
+import { designRow } from "~/lib/design-summary";
 
 /** The chart shows every stored candidate; the queue stores at most its front cap plus family bests. */
 const MAX_CHART_CANDIDATES = 2_500;
 
-export async function sweepCandidates(sweepId: number): Promise<ChartCandidate[]> {
+/**
+ * The stored candidates; under the EN 1993 basis each with the engine's design figures (class,
+ * Mcr, χLT, resistances, weld throat), taken from candidateChecks, the one evaluation the search
+ * itself ran (the rows store only the summary columns). About 2 500 evaluations at most.
+ */
+export async function sweepCandidates(sweepId: number, problem?: SearchProblem): Promise<ChartCandidate[]> {
   const out: ChartCandidate[] = [];
+  const en = problem?.basis === "en1993";
   for (let page = 1; out.length < MAX_CHART_CANDIDATES; page++) {
     const r = await listCandidates(sweepId, { page, pageSize: 500, sort: "rank" });
     for (const c of r.items)
-      out.push({ rank: c.rank, family: c.family, dimensions: c.dimensions, massPerMetre: c.massPerMetre, utilisation: c.utilisation, governing: c.governing, onFront: c.onFront, cost: c.cost });
+      out.push({
+        rank: c.rank,
+        family: c.family,
+        dimensions: c.dimensions,
+        massPerMetre: c.massPerMetre,
+        utilisation: c.utilisation,
+        governing: c.governing,
+        onFront: c.onFront,
+        cost: c.cost,
+        design: en ? designOf(c.family, c.dimensions, problem!) : null,
+      });
     if (r.items.length < 500) break;
   }
   return out;
+}
+
+function designOf(family: string, dimensions: Record<string, number>, problem: SearchProblem) {
+  try {
+    return designRow(candidateChecks(family as Family, dimensions, problem));
+  } catch {
+    // A row the current engine cannot evaluate (stored by an older version) shows no figures rather than failing the page.
+    return null;
+  }
 }
 
 export async function loadSweepPage(teamId: number, id: number) {
@@ -32,7 +59,7 @@ export async function loadSweepPage(teamId: number, id: number) {
   const done = sweep.status === "succeeded";
   return {
     sweep: publicSweep(sweep),
-    candidates: done ? await sweepCandidates(sweep.id) : [],
+    candidates: done ? await sweepCandidates(sweep.id, sweep.problem) : [],
     brief: brief ? { id: brief.id as number, name: brief.name as string } : null,
     project: project ? { id: project.id as number, name: project.name as string } : null,
     units: ((brief?.units as UnitSystem | undefined) ?? "si") as UnitSystem,
@@ -51,7 +78,18 @@ function publicSweep(s: SweepView) {
     cancelRequested: s.cancelRequested,
     progress: s.progress,
     counts: s.counts,
-    best: s.best ? { family: s.best.family, dimensions: s.best.dimensions, massPerMetre: s.best.massPerMetre, utilisation: s.best.utilisation, governing: s.best.governing, cost: s.best.cost ?? null } : null,
+    best: s.best
+      ? {
+          family: s.best.family,
+          dimensions: s.best.dimensions,
+          massPerMetre: s.best.massPerMetre,
+          utilisation: s.best.utilisation,
+          governing: s.best.governing,
+          cost: s.best.cost ?? null,
+          // the engine's stated simplifications for the section it found (EN 1993 basis)
+          notes: s.best.design?.notes ?? null,
+        }
+      : null,
     reason: s.reason,
     error: s.error,
     queuedAt: s.queuedAt,

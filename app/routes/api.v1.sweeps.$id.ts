@@ -1,6 +1,6 @@
 import { requireApiUser } from "~/lib/auth.server";
 import { requireTeamSweep, sweepIdParam } from "~/workers/sweep-api.server";
-import { CAUTION_TEXT } from "~/components/Caution";
+import { cautionText } from "~/lib/caution";
 
 // GET /api/v1/sweeps/:id: status, progress (done/total, elapsed, estimate), counts, best. The
 // sweep page polls this. Another team's sweep is a 404. Results read through the API carry the
@@ -9,7 +9,7 @@ export async function loader({ request, params }: { request: Request; params: { 
   const user = await requireApiUser(request, "read");
   const sweep = await requireTeamSweep(sweepIdParam(params.id), user);
   return Response.json(
-    { ...sweep, url: `/api/v1/sweeps/${sweep.id}`, candidatesUrl: `/api/v1/sweeps/${sweep.id}/candidates`, page: `/sweeps/${sweep.id}`, caution: CAUTION_TEXT },
+    { ...sweep, url: `/api/v1/sweeps/${sweep.id}`, candidatesUrl: `/api/v1/sweeps/${sweep.id}/candidates`, page: `/sweeps/${sweep.id}`, caution: cautionText(sweep.problem) },
     { headers: { "Cache-Control": "no-store" } },
   );
 }

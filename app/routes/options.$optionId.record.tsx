@@ -64,7 +64,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
           </button>
         </div>
       </header>
-      <Caution />
+      <Caution problem={option.problem} />
 
       <section aria-labelledby="inputs-h" className="break-inside-avoid">
         <h2 id="inputs-h" className="text-lg font-bold">
@@ -225,7 +225,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         </p>
         <p className="mt-2 text-xs text-ink/70">Printed {printedAt.slice(0, 16).replace("T", " ")} UTC from Sparwise.</p>
       </section>
-      <Caution />
+      <Caution problem={option.problem} />
     </article>
   );
 }

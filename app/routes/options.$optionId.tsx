@@ -10,6 +10,7 @@ import { Caution } from "~/components/Caution";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { BriefSummary } from "~/components/BriefSummary";
+import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
@@ -24,6 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     option,
     feasible: verdict.feasible,
+    notes: verdict.design?.notes ?? null,
     reviews: await listReviews(option.id),
     may: {
       request: can(user.role, "requestReview") && (option.reviewState === "draft" || option.reviewState === "returned"),
@@ -41,7 +43,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   await getOption(user.teamId, id);
   const form = await readForm(request);
   const intent = String(form.get("intent") ?? "");
-  const link = (path: string) => appUrl(path);
+  const link = (path: string) => appUrl(request, path);
   try {
     if (intent === "requestReview") {
       await requirePermission(request, "requestReview");
@@ -65,7 +67,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function OptionPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { option, reviews, may, feasible } = loaderData;
+  const { option, reviews, may, feasible, notes } = loaderData;
   const errors = (actionData?.errors ?? null) as Record<string, string> | null;
   const c = option.candidate;
   return (
@@ -114,7 +116,7 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           {Object.values(errors).join("; ")}
         </p>
       ) : null}
-      <Caution />
+      <Caution problem={option.problem} />
       {!feasible ? <p className="rounded-md border border-red-800 bg-red-50 p-3 text-sm">This section fails its own brief's checks (the engine may have changed since it was saved). Recheck it.</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <section aria-label="Candidate">
@@ -124,7 +126,9 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           <h2 id="brief-h" className="text-lg font-bold">
             Brief{option.briefName ? `: ${option.briefName}` : ""}
           </h2>
+          <BasisNote problem={option.problem} />
           <BriefSummary problem={option.problem} units={option.units} />
+          <Assumptions problem={option.problem} units={option.units} notes={notes ?? undefined} />
         </section>
       </div>
       <section aria-labelledby="review-h" className="space-y-3">

@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import type { Route } from "./+types/projects.$projectId.briefs.new";
 import { requirePermission } from "~/lib/auth.server";
 import { getProject } from "~/lib/projects.server";
-import { DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
+import { newBriefFormDefaults } from "~/lib/brief-form";
 import { listStockLists } from "~/lib/stock-lists.server";
 import { listMaterials } from "~/lib/materials.server";
 import { submitBrief } from "~/lib/brief-actions.server";
@@ -22,7 +22,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const units = new URL(request.url).searchParams.get("units") === "us" ? "us" : "si";
   return {
     project: { id: project.id, name: project.name },
-    defaults: problemToFormDefaults(DEFAULT_PROBLEM, { units, name: "" }),
+    defaults: newBriefFormDefaults(units),
     stockLists: await listStockLists(user.teamId),
     teamMaterials: await listMaterials(user.teamId),
   };

@@ -12,11 +12,26 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const id = idParam(params.sweepId);
   const sweep = await getTeamSweep(id, user);
   if (!sweep) throw notFound("No such sweep in your team.");
-  const rows = await sweepCandidates(sweep.id);
+  const rows = await sweepCandidates(sweep.id, sweep.problem);
   const dims = [...new Set(rows.flatMap((r) => Object.keys(r.dimensions)))];
+  // EN 1993 sweeps add the engine's design figures; allowable ones say in a column that no stability was checked.
+  const en = sweep.problem.basis === "en1993";
+  const designFields = en ? ["class", "Mcr_kNm", "chiLT", "McRd_kNm", "MbRd_kNm", "VRd_kN", "weld_throat_mm", "governing_clause"] : ["basis"];
+  const blank = (x: number | null | undefined) => (x == null ? "" : x);
   const csv = Papa.unparse({
-    fields: ["rank", "family", ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front"],
-    data: rows.map((r) => [r.rank, r.family, ...dims.map((d) => r.dimensions[d] ?? ""), r.massPerMetre, r.utilisation, r.governing, r.onFront ? "yes" : "no"]),
+    fields: ["rank", "family", ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front", ...designFields],
+    data: rows.map((r) => [
+      r.rank,
+      r.family,
+      ...dims.map((d) => r.dimensions[d] ?? ""),
+      r.massPerMetre,
+      r.utilisation,
+      r.governing,
+      r.onFront ? "yes" : "no",
+      ...(en
+        ? [r.design?.sectionClass ?? "", blank(r.design?.Mcr), blank(r.design?.chiLT), blank(r.design?.McRd), blank(r.design?.MbRd), blank(r.design?.VRd), blank(r.design?.weldThroat), r.design?.governingClause ?? ""]
+        : ["allowable stresses (stresses only: no stability checks)"]),
+    ]),
   });
   return new Response(csv + "\n", {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="sweep-${sweep.id}-candidates.csv"`, "Cache-Control": "no-store" },

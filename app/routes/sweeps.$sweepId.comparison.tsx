@@ -3,10 +3,11 @@ import { useState } from "react";
 import type { Route } from "./+types/sweeps.$sweepId.comparison";
 import { requirePermission } from "~/lib/auth.server";
 import { compareRecheck } from "~/lib/recheck.server";
-import { FIELD_QUANTITIES, type NumericField } from "~/lib/brief-form";
+import { pathQuantity } from "~/lib/brief-form";
 import { Caution } from "~/components/Caution";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { ReviewBadge } from "~/components/ReviewBadge";
+import { BasisNote } from "~/components/BasisAssumptions";
 import { UnitSwitch } from "~/components/UnitSwitch";
 import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
@@ -27,7 +28,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 
 function valueText(path: string, v: unknown, units: UnitSystem): string {
   if (v === undefined || v === null) return "—";
-  const q = FIELD_QUANTITIES[path as NumericField];
+  const q = pathQuantity(path);
   if (typeof v === "number" && q) return `${formatNumber(fromSI(q, v, units))} ${unitLabel(q, units)}`;
   if (path === "thicknesses" && typeof v === "string" && units === "us")
     return `${v
@@ -60,7 +61,8 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
         </div>
         <UnitSwitch value={units} onChange={setUnits} name="view-units" />
       </div>
-      <Caution />
+      <Caution problem={recheck.problem} />
+      {(original.problem.basis ?? "allowable") !== (recheck.problem.basis ?? "allowable") ? <Caution problem={original.problem} /> : null}
       <section aria-labelledby="changes-h">
         <h2 id="changes-h" className="text-lg font-bold">
           Limits that changed
@@ -104,10 +106,12 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
             <div className="grid gap-4 md:grid-cols-2">
               <div>
                 <h3 className="font-semibold">Original (sweep {original.id})</h3>
+                <BasisNote problem={original.problem} />
                 <CompareCandidates candidates={asCandidate(original, 1)} problem={original.problem} units={units} />
               </div>
               <div>
                 <h3 className="font-semibold">Recheck (sweep {recheck.id})</h3>
+                <BasisNote problem={recheck.problem} />
                 <CompareCandidates candidates={asCandidate(recheck, 1)} problem={recheck.problem} units={units} />
               </div>
             </div>

@@ -16,7 +16,8 @@ import { CandidateTable } from "~/components/CandidateTable";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { UnitSwitch } from "~/components/UnitSwitch";
 import { ReviewBadge } from "~/components/ReviewBadge";
-import { formatQuantity } from "~/components/PropertyTable";
+import { formatNumber, formatQuantity } from "~/components/PropertyTable";
+import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 
@@ -116,6 +117,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
     document.querySelector(`tr[data-rank="${rank}"]`)?.scrollIntoView({ block: "nearest" });
   };
   const sel = candidates.find((c) => c.rank === selected) ?? null;
+  const bestDesign = candidates[0]?.design ?? null;
   const compared = compare.map((r) => candidates.find((c) => c.rank === r)).filter((c): c is (typeof candidates)[number] => Boolean(c));
   const errors = actionData?.errors as Record<string, string> | null | undefined;
 
@@ -192,12 +194,22 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               <p data-testid="best">
                 <strong>{sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
                 {sweep.best.utilisation.toFixed(3)} ({sweep.best.governing}){sweep.best.cost != null ? `, cost ${sweep.best.cost.toFixed(2)} per m (the cheapest: objective "cost")` : ""}.
+                {bestDesign ? (
+                  <span data-testid="best-design">
+                    {" "}
+                    Class {bestDesign.sectionClass}
+                    {bestDesign.Mcr !== null ? `, Mcr ${formatQuantity("moment", bestDesign.Mcr, units)}, χLT ${formatNumber(bestDesign.chiLT!, 3)}, Mb,Rd ${formatQuantity("moment", bestDesign.MbRd!, units)}` : bestDesign.McRd !== null ? `, Mc,Rd ${formatQuantity("moment", bestDesign.McRd, units)} (no lateral-torsional buckling check: restrained throughout)` : ""}
+                    {bestDesign.VRd !== null ? `, VRd ${formatQuantity("force", bestDesign.VRd, units)}` : ""}
+                    {bestDesign.weldThroat !== null ? `, weld throat a = ${formatQuantity("length", bestDesign.weldThroat, units)}` : ""}; governing clause {bestDesign.governingClause}.
+                  </span>
+                ) : null}
               </p>
             ) : (
               <p>
                 <strong>No feasible section.</strong> {sweep.reason}
               </p>
             )}
+            <BasisNote problem={sweep.problem} className="mt-1" />
             {sweep.counts ? (
               <p className="mt-1 text-ink/80 tabular-nums">
                 Grid {sweep.counts.grid.toLocaleString("en")} shapes · evaluated {sweep.counts.evaluated.toLocaleString("en")} · feasible among them {sweep.counts.feasible.toLocaleString("en")} · stored {candidates.length} · time{" "}
@@ -238,7 +250,13 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               ) : null}
             </p>
           </section>
-          <Caution />
+          <Caution problem={sweep.problem} />
+          <details className="rounded-lg border border-ink/15 bg-white p-4" open={sweep.problem.basis === "en1993"}>
+            <summary className="cursor-pointer font-semibold">Basis and assumptions</summary>
+            <div className="mt-2">
+              <Assumptions problem={sweep.problem} units={units} notes={sweep.best?.notes ?? undefined} heading="What this sweep assumed" />
+            </div>
+          </details>
           {candidates.length ? (
             <>
               <section aria-labelledby="chart-h" className="space-y-2">

@@ -43,6 +43,8 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   await eng.getByRole("heading", { level: 1, name: /Footbridge landing/ }).waitFor();
   await eng.getByRole("link", { name: "New brief" }).click();
   await eng.getByLabel("Brief name").fill("Landing beam, lightest channel");
+  // New briefs start on the EN 1993 basis; this story sizes by allowable stresses.
+  await eng.getByLabel(/^Allowable stresses/).check();
   await eng.getByLabel("I (equal flanges)").check();
   await eng.getByLabel("Tee").check();
   // The preview is computed in the browser from the same schema and engine.

@@ -7,21 +7,13 @@ import { problemToFormDefaults, DEFAULT_PROBLEM } from "~/lib/brief-form";
 import type { SearchProblem } from "~/optimizer/search-schema";
 import { callRoute, FixtureContext, formPost, loadRouteModule, requestAs } from "./fixtures";
 import { workflowFixture } from "./workflow-fixtures";
+import { formFields } from "../unit/form-data";
 
 afterAll(() => closeDb());
 const ctx = new FixtureContext();
 
 /** A brief form's fields (flattened names) from form defaults. */
-function briefFields(values: Record<string, unknown>): Record<string, string | string[]> {
-  const out: Record<string, string | string[]> = {};
-  const walk = (o: unknown, p: string) => {
-    if (Array.isArray(o)) out[p] = o.map(String);
-    else if (o && typeof o === "object") for (const [k, v] of Object.entries(o)) walk(v, p ? `${p}.${k}` : k);
-    else if (o !== undefined && o !== null) out[p] = String(o);
-  };
-  walk(values, "");
-  return out;
-}
+const briefFields = (values: Record<string, unknown>) => formFields(values);
 
 describe("projects", () => {
   test("create, edit, add a member, archive and restore; each step in the activity log", async () => {
@@ -95,7 +87,7 @@ describe("candidates CSV", () => {
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = String(res.data).trim().split(/\r?\n/);
-    expect(lines[0]).toBe("rank,family,d_mm,b_mm,tf_mm,tw_mm,mass_kg_per_m,utilisation,governing,on_front");
+    expect(lines[0]).toBe("rank,family,d_mm,b_mm,tf_mm,tw_mm,mass_kg_per_m,utilisation,governing,on_front,basis");
     const stored = await db("candidates").where({ sweep_id: f.sweepId }).count({ n: "*" }).first();
     expect(lines.length - 1).toBe(Number(stored!.n));
     expect(lines[1].startsWith("1,")).toBe(true);

@@ -2,19 +2,10 @@ import { describe, expect, it } from "vitest";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { briefFormSchema, changedLimits, DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
 import { searchProblemSchema } from "~/optimizer/search-schema";
+import { formData } from "./form-data";
 
 const errorsOf = (s: unknown) => (s as { error?: Record<string, string[] | null> }).error;
 
-function formData(values: Record<string, unknown>, prefix = ""): FormData {
-  const fd = new FormData();
-  const walk = (o: unknown, p: string) => {
-    if (Array.isArray(o)) for (const x of o) fd.append(p, String(x));
-    else if (o && typeof o === "object") for (const [k, v] of Object.entries(o)) walk(v, p ? `${p}.${k}` : k);
-    else if (o !== undefined) fd.append(p, String(o));
-  };
-  walk(values, prefix);
-  return fd;
-}
 
 describe("brief form ↔ SearchProblem", () => {
   it("round-trips the default problem in SI", () => {

@@ -1,0 +1,87 @@
+// The caution every results page, API answer and calculation record carries (product.md,
+// "Safety"), worded once here so the screen, the API and the printed record never disagree.
+// It changes with the brief's design basis (member-checks.md §2–§3): what the checks cover
+// and, as plainly, what they do not.
+
+/** The part of a problem the caution depends on (a SearchProblem fits; absent fields read as the spec's defaults). */
+export interface CautionBasis {
+  basis?: "allowable" | "en1993" | string;
+  restraint?: unknown;
+  supports?: { stiffened?: boolean } | null;
+  deflection?: unknown;
+}
+
+/** The words shown wherever allowable-basis results appear (member-checks.md §2). */
+export const STRESSES_ONLY = "stresses only: no stability checks";
+
+const VERIFY =
+  "Verify every result against the governing local design code and have it approved by a licensed engineer before fabrication.";
+
+/**
+ * Simplifications the EN 1993 basis states (member-checks.md §2, "Readings pinned"), in words;
+ * the record lists them too, so they are kept here once.
+ */
+export const EN1993_SIMPLIFICATIONS: readonly string[] = [
+  "Class 4 sections are not designed: a section with a class 4 element is rejected, not checked with effective widths.",
+  "A tee's stem is classified as an outstand in compression whatever its stress gradient (conservative).",
+  "Lateral-torsional buckling uses the general case of EN 1993-1-1 §6.3.2.2 (no §6.3.2.3 rolled-section curves, no modification factor f), with Mcr from the three-factor formula (C1, C2, C3) over the stated restraint length; the load is taken to act in the plane of the web without twist.",
+  "Shear buckling takes the web alone (the flanges' share is ignored) with a non-rigid end post.",
+  "Bending with shear uses the EN 1993-1-1 §6.2.8(5) reduction for every family with a web, class 3 and mono-symmetric sections included.",
+  "The flange-to-web weld throat is sized by the simplified method of EN 1993-1-8 §4.5.3.3 from the longitudinal shear flow only.",
+  "The moments and shear are taken as factored design values for one load case; nothing combines load cases.",
+];
+
+/**
+ * The caution's text for a problem's basis. Without a problem: on the section bench ("bench") it
+ * speaks of properties alone; on a project-wide page ("project", briefs of either basis) it
+ * sends the reader to each brief's own caution.
+ */
+export function cautionText(p?: CautionBasis | null, scope: "bench" | "project" = "bench"): string {
+  if (!p && scope === "project") {
+    return (
+      "Sparwise is a sizing aid. Each brief's sections were checked on that brief's design basis only (allowable stresses: " +
+      `${STRESSES_ONLY}; EN 1993: the member checks its sweep page lists); none covers connections, fatigue, fire or load ` +
+      `combinations. ${VERIFY}`
+    );
+  }
+  if (!p) {
+    return (
+      "Sparwise is a sizing aid. The section bench computes section properties and elastic stresses only; it checks no " +
+      `resistance, stability, connection, fatigue or fire. ${VERIFY}`
+    );
+  }
+  if (p.basis === "en1993") {
+    const stiffened = p.supports?.stiffened !== false;
+    const covers = [
+      "cross-section class (EN 1993-1-1 Table 5.2)",
+      "bending resistance",
+      p.restraint ? "lateral-torsional buckling over the stated restraint length" : null,
+      "shear with shear buckling",
+      "bending with shear",
+      "the flange-to-web weld throat",
+      stiffened ? null : "web crippling (patch loading) at an end support",
+      p.deflection ? "deflection" : null,
+      "the slenderness limits given",
+    ].filter(Boolean);
+    const notCovered = [
+      p.restraint ? null : "lateral-torsional buckling (the compression flange is taken as restrained throughout)",
+      stiffened ? "web crippling or bearing at supports (bearing stiffeners are assumed there and must be provided)" : null,
+      "connections",
+      "fatigue",
+      "fire",
+      "load combinations",
+      "torsion",
+    ].filter(Boolean);
+    return (
+      `Sparwise is a sizing aid. On the EN 1993 basis its checks cover only ${covers.join(", ")}; ` +
+      `they do not cover ${notCovered.join(", ")}, and they make the simplifications stated in the record ` +
+      `(class 4 excluded, tee stems as outstands, the general lateral-torsional buckling case, web-only shear buckling). ${VERIFY}`
+    );
+  }
+  return (
+    `Sparwise is a sizing aid. On the allowable-stress basis (${STRESSES_ONLY}) its checks cover only the elastic bending ` +
+    "stress, shear stress and plate slenderness rules listed (and deflection, when a limit is given); they do not cover " +
+    "lateral-torsional buckling or any other stability check, web crippling, connections, fatigue, fire or load " +
+    `combinations. ${VERIFY}`
+  );
+}
