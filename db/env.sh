@@ -19,6 +19,12 @@ ensure_env() {
     } > "$ROOT/.env"
     chmod 600 "$ROOT/.env"
   fi
+  # Links in e-mail are built from APP_URL alone (the server refuses to start without it in
+  # production); an .env from before that rule gets the local address appended.
+  if ! grep -q '^APP_URL=' "$ROOT/.env"; then
+    [ -z "$(tail -c 1 "$ROOT/.env")" ] || echo >> "$ROOT/.env"
+    echo "APP_URL=http://localhost:3000" >> "$ROOT/.env"
+  fi
   set -a; . "$ROOT/.env"; set +a
   DB_PORT="${SPARWISE_DB_PORT:-${DB_PORT:-3307}}"
   export DB_PORT DB_HOST=127.0.0.1 DB_USER="${DB_USER:-sparwise}"

@@ -97,6 +97,11 @@ export function SectionDrawing({
     );
   }
   const { width: bw, depth: bh } = outline;
+  // A hollow section's corners (hollow.ts) are spandrels cut from its outer ring and added back
+  // inside its hole: drawn in the rings' even-odd path they leave exactly the rounded wall.
+  const hollow = outline.fillets.some((f) => f.sign === -1);
+  const ringFillets = hollow ? outline.fillets : [];
+  const looseFillets = hollow ? [] : outline.fillets;
   // Margins leave room for the dimension lines and their labels in screen pixels, so text
   // keeps its size whatever the section's scale.
   const ml = showDimensions ? 70 : 16,
@@ -132,9 +137,9 @@ export function SectionDrawing({
           {outline.plates.map((p, i) => (
             <rect key={`p${i}`} x={X(p.z)} y={Y(p.y + p.h)} width={p.b * scale} height={p.h * scale} />
           ))}
-          {outline.rings.length > 0 ? <path d={outline.rings.map((r) => poly(r.points)).join("")} fillRule="evenodd" /> : null}
+          {outline.rings.length > 0 ? <path d={[...outline.rings.map((r) => poly(r.points)), ...ringFillets.map((f) => poly(filletPoints(f)))].join("")} fillRule="evenodd" /> : null}
         </g>
-        {outline.fillets.map((f, i) => (
+        {looseFillets.map((f, i) => (
           <path key={`f${i}`} d={poly(filletPoints(f))} fill={ACCENT} fillOpacity={0.22} stroke="none" />
         ))}
         {/* dimensions */}

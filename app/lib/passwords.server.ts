@@ -49,7 +49,7 @@ export async function requestPasswordReset(request: Request, rawEmail: string): 
       token_hash: hashToken(token),
       expires_at: new Date(Date.now() + RESET_TTL_MS),
     });
-    const link = appUrl(request, `/reset-password/${token}`);
+    const link = appUrl(`/reset-password/${token}`);
     await sendEmail(
       {
         teamId: user.team_id,

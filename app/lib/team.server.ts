@@ -102,7 +102,7 @@ export async function removeMember(admin: SessionUser, membershipId: number): Pr
 // ---------------------------------------------------------------- invitations
 
 /** Records the invitation (hashed token, seven days) and e-mails the link; returns the outbox id. */
-export async function inviteMember(request: Request, admin: SessionUser, rawEmail: string, role: Role): Promise<number> {
+export async function inviteMember(admin: SessionUser, rawEmail: string, role: Role): Promise<number> {
   const email = normaliseEmail(rawEmail);
   const token = newToken();
   return db.transaction(async (trx) => {
@@ -119,7 +119,7 @@ export async function inviteMember(request: Request, admin: SessionUser, rawEmai
       expires_at: new Date(Date.now() + INVITATION_TTL_MS),
     });
     await logActivity({ teamId: admin.teamId, userId: admin.id, action: "member_invited", subjectType: "invitation", subjectId: Number(id), detail: { email, role } }, trx);
-    const link = appUrl(request, `/invite/${token}`);
+    const link = appUrl(`/invite/${token}`);
     return sendEmail(
       {
         teamId: admin.teamId,

@@ -25,12 +25,13 @@ export function filletIntegrals(f: Fillet, oz: number, oy: number, out: Float64A
   const muv = r2 * r2 * (19 / 24 - QPI);
   const Z0 = f.z - oz,
     Y0 = f.y - oy;
-  out[I_A] += A;
-  out[I_Z] += A * Z0 + f.dz * m1;
-  out[I_Y] += A * Y0 + f.dy * m1;
-  out[I_ZZ] += A * Z0 * Z0 + 2 * Z0 * f.dz * m1 + m2;
-  out[I_YY] += A * Y0 * Y0 + 2 * Y0 * f.dy * m1 + m2;
-  out[I_ZY] += A * Z0 * Y0 + Z0 * f.dy * m1 + Y0 * f.dz * m1 + f.dz * f.dy * muv;
+  const w = f.sign ?? 1;
+  out[I_A] += w * A;
+  out[I_Z] += w * (A * Z0 + f.dz * m1);
+  out[I_Y] += w * (A * Y0 + f.dy * m1);
+  out[I_ZZ] += w * (A * Z0 * Z0 + 2 * Z0 * f.dz * m1 + m2);
+  out[I_YY] += w * (A * Y0 * Y0 + 2 * Y0 * f.dy * m1 + m2);
+  out[I_ZY] += w * (A * Z0 * Y0 + Z0 * f.dy * m1 + Y0 * f.dz * m1 + f.dz * f.dy * muv);
 }
 
 /** ½(u√(r² − u²) + r²·asin(u/r)) = ∫₀ᵘ √(r² − s²) ds (standard integral). */
@@ -48,7 +49,7 @@ function partial(t: number, r: number): [number, number] {
   return [G, H];
 }
 
-/** Area and ∫(y − oy) dA of the fillet's part with y ≥ c. */
+/** Area and ∫(y − oy) dA of the fillet's part with y ≥ c (negative for a cut-away spandrel, sign −1). */
 export function filletAbove(f: Fillet, c: number, oy: number, out: Float64Array): void {
   const r = f.r;
   const A = r * r * (1 - QPI),
@@ -68,18 +69,25 @@ export function filletAbove(f: Fillet, c: number, oy: number, out: Float64Array)
     out[0] = G;
     out[1] = Y0 * G - H;
   }
+  if (f.sign === -1) {
+    out[0] = -out[0];
+    out[1] = -out[1];
+  }
 }
 
-/** Width cut at height y (side +1 just above, −1 just below). */
+/** Width cut at height y (side +1 just above, −1 just below); negative for a cut-away spandrel. */
 export function filletWidth(f: Fillet, y: number, side: 1 | -1): number {
   const v = f.dy * (y - f.y);
   const into = side * f.dy > 0;
   if (into ? v < 0 || v >= f.r : v <= 0 || v > f.r) return 0;
   const s = f.r - v;
-  return f.r - Math.sqrt(Math.max(0, f.r * f.r - s * s));
+  const w = f.r - Math.sqrt(Math.max(0, f.r * f.r - s * s));
+  return f.sign === -1 ? -w : w;
 }
 
 /** The fillet with z and y exchanged (for properties about the vertical axis). */
 export function transposeFillet(f: Fillet): Fillet {
-  return { z: f.y, y: f.z, dz: f.dy, dy: f.dz, r: f.r };
+  const t: Fillet = { z: f.y, y: f.z, dz: f.dy, dy: f.dz, r: f.r };
+  if (f.sign !== undefined) t.sign = f.sign;
+  return t;
 }

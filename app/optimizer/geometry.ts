@@ -36,6 +36,11 @@ export interface Fillet {
   dz: 1 | -1;
   dy: 1 | -1;
   r: number;
+  /**
+   * −1: the spandrel is cut away rather than added (the rounded outer corners of a hollow
+   * section, hollow.ts). Absent means +1, as every root fillet.
+   */
+  sign?: 1 | -1;
 }
 
 const v = (field: string, message: string) => ({ field, message });

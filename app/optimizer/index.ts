@@ -2,6 +2,7 @@
 export * from "./errors";
 export * from "./composite";
 export * from "./geometry";
+export * from "./hollow";
 export * from "./schema";
 export * from "./properties";
 export { findInputViolation, type Violation } from "./validate";

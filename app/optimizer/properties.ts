@@ -29,6 +29,7 @@ import type { StabilityProperties } from "./design-types";
 import { EngineInputError } from "./errors";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
+import { hollowTorsion } from "./hollow";
 import { buildShape, shapeAbove, shapeBBox, shapeBreaks, shapeIntegrals, shapeWidth, transposeShape, type Ring, type Shape } from "./shape";
 import { MAX_DENSITY, findInputViolation, pathText, platesOverlapAt } from "./validate";
 
@@ -322,6 +323,7 @@ function torsionConstant(s: Shape): [number, Jmethod] {
     const Am = (b - tw) * (d - tf);
     return [(4 * Am * Am) / ((2 * (b - tw)) / tf + (2 * (d - tf)) / tw), "closed-bredt"];
   }
+  if (s.torsion === "hollow" && s.hollow) return [hollowTorsion(s.hollow), "closed-bredt"];
   if (s.torsion === "open") {
     // Open thin-walled: Σ b·t³/3 over plates, long side b, short side t (fillets ignored).
     let J = 0;

@@ -3,6 +3,7 @@
 // engine's own hand-written fast check.
 import { z } from "zod";
 import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, type Family } from "./geometry";
+import { HOLLOW_DIMENSIONS, SECTION_FAMILIES, type HollowFamily } from "./hollow";
 import { MAX_DENSITY, familyViolation, findInputViolation, platesOverlap, polygonsViolation } from "./validate";
 
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` }).refine(Number.isFinite, `${what} must be a finite number`);
@@ -52,6 +53,21 @@ function familyObject<F extends Family>(family: F) {
   });
 }
 
+/** Hollow families: their corner radii ro, ri may be 0 (sharp), every other dimension positive. */
+function hollowObject<F extends HollowFamily>(family: F) {
+  const dims: Record<string, z.ZodType<number>> = {};
+  for (const k of HOLLOW_DIMENSIONS[family])
+    dims[k] = k === "ro" || k === "ri" ? finite(`${family}: ${k}`).refine((x) => x >= 0, `${family}: ${k} must be ≥ 0`) : positive(`${family}: ${k}`);
+  return z.object({
+    family: z.literal(family),
+    ...(dims as { [K in (typeof HOLLOW_DIMENSIONS)[F][number]]: z.ZodNumber }),
+    // refused rather than dropped: a root radius given here is a mistake worth naming
+    r: z.never({ error: `${family}: takes no root radius r (its corners are ro and ri)` }).optional(),
+    flip: z.boolean().default(false),
+    density,
+  });
+}
+
 const familyObjects = [
   familyObject("rectangle"),
   familyObject("i"),
@@ -61,10 +77,12 @@ const familyObjects = [
   familyObject("tee"),
   familyObject("box"),
   familyObject("angle"),
+  hollowObject("rhs"),
+  hollowObject("chs"),
 ] as const;
 
 export const familyInputSchema = z
-  .discriminatedUnion("family", familyObjects, { error: `family must be one of ${FAMILIES.join(", ")}` })
+  .discriminatedUnion("family", familyObjects, { error: `family must be one of ${SECTION_FAMILIES.join(", ")}` })
   .superRefine((v, ctx) => {
     const bad = familyViolation(v as Record<string, unknown>);
     if (bad) ctx.addIssue({ code: "custom", path: bad.path, message: bad.message });

@@ -3,6 +3,7 @@
 import { PLATE_STRIDE, packPlates, type PlateRect } from "./composite";
 import { filletAbove, filletIntegrals, filletWidth, transposeFillet } from "./fillet";
 import { familyFillets, familyPlates, type Family, type Fillet } from "./geometry";
+import { hollowPieces, isHollowFamily, type HollowPieces } from "./hollow";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, ringAbove, ringIntegrals, ringSignedArea, ringWidth } from "./polygon";
 import type { SectionInput } from "./schema";
 
@@ -17,10 +18,12 @@ export interface Shape {
   plateCount: number;
   fillets: Fillet[];
   rings: Ring[];
-  /** how J is found: "open" Σb·t³/3 over plates; "box" Bredt on the family's cell; "polygon" approximations */
-  torsion: "open" | "box" | "polygon";
+  /** how J is found: "open" Σb·t³/3 over plates; "box" Bredt on the family's cell; "hollow" hollow.ts; "polygon" approximations */
+  torsion: "open" | "box" | "hollow" | "polygon";
   /** box family dimensions, for Bredt's formula */
   box?: { d: number; b: number; tf: number; tw: number };
+  /** hollow family dimensions (hollow.ts), for its torsion constant */
+  hollow?: HollowPieces["torsion"];
 }
 
 export function makeRing(points: readonly (readonly number[])[], hole: boolean): Ring {
@@ -42,6 +45,18 @@ export function buildShape(input: SectionInput): Shape {
     return { plates: new Float64Array(0), plateCount: 0, fillets: [], rings, torsion: "polygon" };
   }
   const { family, flip, ...rest } = input as unknown as { family: Family; flip?: boolean } & Record<string, number>;
+  if (isHollowFamily(family)) {
+    // symmetric about both axes, so flip changes nothing
+    const h = hollowPieces(family, rest);
+    return {
+      plates: new Float64Array(0),
+      plateCount: 0,
+      fillets: h.fillets,
+      rings: [makeRing(h.outer, false), makeRing(h.inner, true)],
+      torsion: "hollow",
+      hollow: h.torsion,
+    };
+  }
   const plates: PlateRect[] = familyPlates(family, rest, flip === true);
   const shape: Shape = {
     plates: packPlates(plates),

@@ -3,6 +3,7 @@
 // check, which keeps zod out of the hot path (zod parsing costs several microseconds a
 // section; the bench needs well under one).
 import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, familyRuleViolation, filletRuleViolation, type Family } from "./geometry";
+import { HOLLOW_DIMENSIONS, SECTION_FAMILIES, hollowRuleViolation, isHollowFamily } from "./hollow";
 import { ringDefect, ringInside, ringsOverlap } from "./polygon";
 import { dropClosingPoint, makeRing } from "./shape";
 
@@ -47,9 +48,25 @@ export function platesOverlap(plates: readonly PlateLike[]): Violation | null {
   return null;
 }
 
-/** Polygons: simple rings; holes inside a solid; no two holes (or two solids) overlapping. */
+/**
+ * Most points (summed over every polygon, a closing repeat included) and most polygons one
+ * section may have. Why: the checks below cost O(n log n) for ordinary outlines but can reach
+ * O(n²) pair tests for contrived ones (a fan of spikes all meeting near one point; see
+ * polygon.ts), and the ring-against-ring checks run for every pair of polygons; these caps keep
+ * the worst accepted section to a few milliseconds (tests/bench/load.bench.ts measures it).
+ * 2,000 points draws a rolled section's fillets and any plate outline many times over.
+ */
+export const MAX_SECTION_POINTS = 2_000;
+export const MAX_SECTION_POLYGONS = 100;
+
+/** Polygons: within the caps; simple rings; holes inside a solid; no two holes (or two solids) overlapping. */
 export function polygonsViolation(polygons: readonly { points: readonly (readonly number[])[]; hole?: boolean }[]): Violation | null {
   if (polygons.length === 0) return bad(["polygons"], "polygons needs at least one polygon");
+  if (polygons.length > MAX_SECTION_POLYGONS)
+    return bad(["polygons"], `polygons: ${polygons.length.toLocaleString("en")} polygons; at most ${MAX_SECTION_POLYGONS} per section`);
+  const points = polygons.reduce((s, p) => s + p.points.length, 0);
+  if (points > MAX_SECTION_POINTS)
+    return bad(["polygons"], `polygons: ${points.toLocaleString("en")} points in all; at most ${MAX_SECTION_POINTS.toLocaleString("en")} per section (simplify the outline)`);
   const rings = polygons.map((p) => makeRing(dropClosingPoint(p.points), p.hole === true));
   for (let i = 0; i < rings.length; i++) {
     const d = ringDefect(rings[i].pts);
@@ -70,6 +87,10 @@ export function polygonsViolation(polygons: readonly { points: readonly (readonl
 
 /** Family dimensions, fillet radius. */
 export function familyViolation(input: Record<string, unknown>): Violation | null {
+  if (isHollowFamily(input.family)) {
+    const h = hollowRuleViolation(input.family, input as Record<string, number>);
+    return h ? bad([h.field], h.message) : null;
+  }
   const family = input.family as Family;
   const dims = input as Record<string, number>;
   const v = familyRuleViolation(family, dims) ?? filletRuleViolation(family, dims);
@@ -122,7 +143,14 @@ export function findInputViolation(input: unknown): Violation | null {
     return polygonsViolation(gs as { points: number[][]; hole?: boolean }[]);
   }
   if (typeof o.family === "string") {
-    if (!(FAMILIES as readonly string[]).includes(o.family)) return bad(["family"], `family must be one of ${FAMILIES.join(", ")}`);
+    if (isHollowFamily(o.family)) {
+      const f = o.family;
+      if (o.flip !== undefined && typeof o.flip !== "boolean") return bad(["flip"], "flip must be true or false");
+      if (o.r !== undefined) return bad(["r"], `${f}: takes no root radius r (its corners are ro and ri)`);
+      for (const k of HOLLOW_DIMENSIONS[f]) if (!isNum(o[k])) return bad([k], `${f}: ${k} must be a finite number`);
+      return familyViolation(o);
+    }
+    if (!(FAMILIES as readonly string[]).includes(o.family)) return bad(["family"], `family must be one of ${SECTION_FAMILIES.join(", ")}`);
     const f = o.family as Family;
     if (o.flip !== undefined && typeof o.flip !== "boolean") return bad(["flip"], "flip must be true or false");
     if (o.r !== undefined) {

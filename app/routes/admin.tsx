@@ -25,7 +25,7 @@ export async function action({ request }: Route.ActionArgs) {
   return withFieldErrors(async () => {
     switch (input.intent) {
       case "invite":
-        await inviteMember(request, admin, input.email, input.role);
+        await inviteMember(admin, input.email, input.role);
         return { done: `Invitation sent to ${input.email}. You can follow it in the outbox.` };
       case "changeRole":
         await changeRole(admin, input.memberId, input.role);

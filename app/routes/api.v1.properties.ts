@@ -4,10 +4,9 @@
 import { requireApiUser } from "~/lib/auth.server";
 import { API_ENGINE_COST } from "~/lib/api-rate-limit.server";
 import { DEFAULT_JSON_LIMIT, readJson } from "~/lib/forms.server";
-import { describeFieldError, parseSectionInput, type FieldError } from "~/lib/bench-state";
-import { isEngineInputError } from "~/optimizer/errors";
-import { sectionProperties } from "~/optimizer/properties";
-import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, UNITS, propertiesIn, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { describeFieldError, type FieldError } from "~/lib/bench-state";
+import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, UNITS, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { runOnEngineThread } from "~/workers/engine-thread.server";
 
 /** Which unit each quantity of the answer is in, so an API client never guesses. */
 function unitsBlock(system: UnitSystem) {
@@ -42,16 +41,8 @@ export async function action({ request }: { request: Request }) {
     return invalid([{ path: ["units"], field: "units", message: 'units must be "si" or "us"' }]);
   }
   const units: UnitSystem = rawUnits ?? "si";
-  const parsed = parseSectionInput(input, units);
-  if (!parsed.ok) return invalid(parsed.errors);
-  try {
-    const properties = propertiesIn(sectionProperties(parsed.input), units);
-    return Response.json({ units: unitsBlock(units), properties });
-  } catch (e) {
-    // The engine names the field (e.g. sizes beyond double precision); still the caller's input.
-    if (isEngineInputError(e)) {
-      return invalid([{ path: [e.field], field: e.field, message: e.message }]);
-    }
-    throw e;
-  }
+  // Checking and integrating a polygon section can take tens of milliseconds: off the event loop.
+  const answer = await runOnEngineThread("sectionProperties", input, units);
+  if (!answer.ok) return invalid(answer.errors);
+  return Response.json({ units: unitsBlock(units), properties: answer.properties });
 }

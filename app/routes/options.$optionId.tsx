@@ -43,7 +43,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   await getOption(user.teamId, id);
   const form = await readForm(request);
   const intent = String(form.get("intent") ?? "");
-  const link = (path: string) => appUrl(request, path);
+  const link = (path: string) => appUrl(path);
   try {
     if (intent === "requestReview") {
       await requirePermission(request, "requestReview");

@@ -11,20 +11,15 @@
 // - reason (nothing feasible anywhere): the reason of the part with the largest grid.
 // Abort: the threads are terminated at once (a synchronous search cannot read messages while
 // it runs, so terminating is the prompt way) and the promise rejects with the signal's reason.
-import { createRequire } from "node:module";
 import { availableParallelism } from "node:os";
-import { pathToFileURL } from "node:url";
-import { Worker, isMainThread, parentPort, workerData } from "node:worker_threads";
+import { isMainThread, parentPort, workerData } from "node:worker_threads";
 import * as Comlink from "comlink";
-// @ts-expect-error comlink ships node-adapter.d.ts, not the .d.mts this .mjs path would need
-import nodeEndpointUntyped from "comlink/dist/esm/node-adapter.mjs";
 import { FAMILY_KERNELS } from "../optimizer/family-kernel";
 import { Front, compareAcross, type RawCandidate } from "../optimizer/front";
 import type { SearchCandidate, SearchResult } from "../optimizer/grid";
 import { searchSections } from "../optimizer/search";
 import { axisCount, searchProblemSchema, type SearchProblemInput } from "../optimizer/search-schema";
-
-const nodeEndpoint = nodeEndpointUntyped as (nep: unknown) => Comlink.Endpoint;
+import { nodeEndpoint, spawnThread } from "./thread-spawn";
 const WORKER_FLAG = "sparwise-search-thread";
 
 interface ThreadApi {
@@ -51,16 +46,7 @@ export interface ThreadSearchOptions {
   onProgress?: (done: number, total: number) => void;
 }
 
-function spawn(): Worker {
-  const url = new URL(import.meta.url);
-  const workerOptions = { workerData: { kind: WORKER_FLAG } };
-  if (!url.pathname.endsWith(".ts")) return new Worker(url, workerOptions);
-  // From TypeScript source (tests, the tsx-run queue worker) the thread registers tsx's loader
-  // first (loader hooks are per thread), then imports this file.
-  const tsxApi = pathToFileURL(createRequire(import.meta.url).resolve("tsx/esm/api").replace(/index\.cjs$/, "index.mjs")).href;
-  const boot = `import(${JSON.stringify(tsxApi)}).then((m) => { m.register(); return import(${JSON.stringify(url.href)}); });`;
-  return new Worker(boot, { ...workerOptions, eval: true });
-}
+const spawn = () => spawnThread(import.meta.url, WORKER_FLAG);
 
 function raw(problemFamilies: string[], c: SearchCandidate): RawCandidate & { out: SearchCandidate } {
   const fk = FAMILY_KERNELS[c.family];

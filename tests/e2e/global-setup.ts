@@ -11,9 +11,10 @@ export default async function setup(project: TestProject) {
   execFileSync("bash", ["db/create-database.sh", name, "--fresh"], { stdio: "inherit" });
   // Migrations are TypeScript: run them under tsx, not in this process.
   execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { stdio: "inherit", env: { ...process.env, DB_NAME: name } });
+  // APP_URL: links in the e-mails the tests open must lead back to this server.
   server = spawn("npx", ["react-router-serve", "./build/server/index.js"], {
     // VITEST is blanked so the server starts its in-process sweep workers (in-process.server.ts skips them under vitest).
-    env: { ...process.env, DB_NAME: name, PORT: String(port), NODE_ENV: "production", VITEST: "" },
+    env: { ...process.env, DB_NAME: name, PORT: String(port), NODE_ENV: "production", VITEST: "", APP_URL: `http://127.0.0.1:${port}` },
     stdio: ["ignore", "inherit", "inherit"],
     detached: true,
   });

@@ -161,7 +161,7 @@ describe("claim, fencing, finish", () => {
     expect(claims.map((c) => c.id)).toEqual([good]);
     const row = await db("sweeps").where({ id: bad }).first("status", "error");
     expect(row.status).toBe("failed");
-    expect(row.error).toMatch(/no longer valid: allowable/);
+    expect(row.error).toMatch(/no longer valid: depth/);
   });
 
   test("queue health: counts by status, the oldest wait, live workers, expired leases", async () => {

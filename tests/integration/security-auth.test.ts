@@ -9,6 +9,8 @@ import * as account from "~/routes/account";
 import * as invite from "~/routes/invite.$token";
 import * as project from "~/routes/projects.$projectId";
 import * as signIn from "~/routes/sign-in";
+import * as forgot from "~/routes/forgot-password";
+import { appBaseUrl, DEV_APP_URL } from "~/lib/email.server";
 import { callRoute, cookieForUser, type RouteResult } from "./fixtures";
 
 const BASE = "http://sparwise.test";
@@ -176,5 +178,58 @@ describe("1. an invitation never takes over an existing account", () => {
     const row = await db("users").where({ id: user }).first();
     expect(row.disabled_at).not.toBeNull();
     expect(await db("memberships").where({ user_id: user, team_id: teamB }).first()).toBeUndefined();
+  });
+});
+
+/** Runs `fn` with environment variables set (undefined removes one), restoring them after. */
+async function withEnv<T>(vars: Record<string, string | undefined>, fn: () => Promise<T> | T): Promise<T> {
+  const saved = Object.fromEntries(Object.keys(vars).map((k) => [k, process.env[k]]));
+  const set = (k: string, v: string | undefined) => (v === undefined ? delete process.env[k] : (process.env[k] = v));
+  for (const [k, v] of Object.entries(vars)) set(k, v);
+  try {
+    return await fn();
+  } finally {
+    for (const [k, v] of Object.entries(saved)) set(k, v);
+  }
+}
+
+describe("2. links in e-mail come from APP_URL only", () => {
+  const hostile = { Host: "evil.example", "X-Forwarded-Host": "evil.example", "X-Forwarded-Proto": "https" };
+
+  async function hostilePost(cookie: string | null, path: string, fields: Record<string, string>): Promise<Request> {
+    const headers = new Headers({ "Content-Type": "application/x-www-form-urlencoded", "X-Forwarded-For": freshIp(), ...hostile });
+    if (cookie) headers.set("Cookie", cookie);
+    return new Request(new URL(path, "http://evil.example"), { method: "POST", headers, body: new URLSearchParams(fields) });
+  }
+
+  test("a reset requested with a forged Host mails a link to APP_URL, not to the forged host", async () => {
+    const email = "hostpoison@tallowfield.example";
+    await makeUser(email, "host poison password", teamA, "viewer");
+    await withEnv({ APP_URL: "https://sparwise.example.org/" }, async () => {
+      const res = await callRoute(forgot.action, await hostilePost(null, "/forgot-password", { email }));
+      expect(res.status).toBe(200);
+    });
+    const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
+    expect(mail.text_body).toMatch(/https:\/\/sparwise\.example\.org\/reset-password\/[A-Za-z0-9_-]{20,}/);
+    expect(mail.text_body).not.toMatch(/evil\.example/);
+  });
+
+  test("an invitation sent through a forged Host links to APP_URL; unset outside production it is the local address", async () => {
+    const email = "hostpoison-invitee@example.org";
+    created.add(email);
+    await withEnv({ APP_URL: undefined }, async () => {
+      const res = await callRoute(admin.action, await hostilePost(await cookieForUser(adminB), "/admin", { intent: "invite", email, role: "viewer" }));
+      expect(res.status).toBe(200);
+    });
+    const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
+    expect(mail.text_body).toContain(`${DEV_APP_URL}/invite/`);
+    expect(mail.text_body).not.toMatch(/evil\.example/);
+  });
+
+  test("in production a missing or malformed APP_URL is refused with a message naming it", async () => {
+    await withEnv({ NODE_ENV: "production", APP_URL: undefined }, () => expect(() => appBaseUrl()).toThrow(/APP_URL is not set/));
+    await withEnv({ NODE_ENV: "production", APP_URL: "not a url" }, () => expect(() => appBaseUrl()).toThrow(/APP_URL is not a valid URL/));
+    await withEnv({ NODE_ENV: "production", APP_URL: "ftp://x.example" }, () => expect(() => appBaseUrl()).toThrow(/APP_URL must start with http/));
+    await withEnv({ NODE_ENV: "production", APP_URL: "https://steel.example.com/sparwise/" }, () => expect(appBaseUrl()).toBe("https://steel.example.com/sparwise"));
   });
 });

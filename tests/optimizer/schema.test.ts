@@ -25,7 +25,7 @@ describe("sectionInputSchema", () => {
     [{ family: "box", d: 200, b: 10, tf: 10, tw: 5 }, "b", "box: b must exceed 2·tw"],
     [{ family: "i", d: 200, b: 100, tf: 10, tw: 5, r: 60 }, "r", "i: r must not exceed (b − tw)/2"],
     [{ family: "i", b: 100, tf: 10, tw: 5 }, "", "i: d must be a finite number"],
-    [{ family: "girder" }, "", "family must be one of rectangle, i, mono-i, channel, channel-down, tee, box, angle"],
+    [{ family: "girder" }, "", "family must be one of rectangle, i, mono-i, channel, channel-down, tee, box, angle, rhs, chs"],
     [{ polygons: [{ points: [[0, 0], [1, 1], [1, 0], [0, 1]] }] }, "polygons.0.points", "polygons[0] self-intersects (edges 0 and 2)"],
     [{ polygons: [{ points: [[0, 0], [1, 0]] }] }, "polygons.0.points", "a polygon needs at least 3 points"],
     [{ plates: [{ b: 1, h: 1, z: 0, y: 0 }], density: 0 }, "density", "density must be positive"],

@@ -64,6 +64,14 @@ describe("SectionDrawing", () => {
     expect(renderToString(createElement(SectionDrawing, { section: tube }))).toContain('fill-rule="evenodd"');
   });
 
+  test("a hollow section's rounded corners go into the rings' even-odd path (cut from the outer ring, added back in the hole)", () => {
+    const html = renderToString(createElement(SectionDrawing, { section: { family: "rhs", d: 200, b: 100, t: 10, ro: 15, ri: 10 } as SectionInput }));
+    const paths = [...html.matchAll(/<path d="([^"]+)"[^>]*fill-rule="evenodd"/g)];
+    expect(paths).toHaveLength(1);
+    // two rings and eight spandrels, each its own closed sub-path
+    expect(paths[0]![1]!.split("Z").filter(Boolean)).toHaveLength(10);
+  });
+
   test("an invalid section renders a message, not an exception", () => {
     const html = text(renderToString(createElement(SectionDrawing, { section: { family: "i", d: 10, b: 100, tf: 6, tw: 5 } })));
     expect(html).toContain("No drawing");
