@@ -14,6 +14,7 @@ export default [
   layout("routes/app-layout.tsx", [
     index("routes/dashboard.tsx"),
     route("account", "routes/account.tsx"),
+    route("messages", "routes/messages.tsx"),
     route("admin", "routes/admin.tsx"),
     route("admin/outbox", "routes/admin.outbox.tsx"),
     route("admin/materials", "routes/admin.materials.tsx"),

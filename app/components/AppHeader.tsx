@@ -82,6 +82,9 @@ export function AppHeader({ user, unreadNotices }: { user: HeaderUser; unreadNot
               <a href="/account" className="block rounded-md px-3 py-2 text-sm hover:bg-ink/10">
                 Account and API tokens
               </a>
+              <a href="/messages" className="block rounded-md px-3 py-2 text-sm hover:bg-ink/10">
+                My messages
+              </a>
               <Form method="post" action="/sign-out">
                 <button type="submit" className="w-full rounded-md px-3 py-2 text-left text-sm hover:bg-ink/10">
                   Sign out

@@ -101,8 +101,11 @@ export async function removeMember(admin: SessionUser, membershipId: number): Pr
 
 // ---------------------------------------------------------------- invitations
 
-/** Records the invitation (hashed token, seven days) and e-mails the link; returns the outbox id. */
-export async function inviteMember(admin: SessionUser, rawEmail: string, role: Role): Promise<number> {
+/**
+ * Records the invitation (hashed token, seven days) and e-mails the link. Returns the link too:
+ * the inviting admin may copy it once, from this answer only (the outbox shows it masked).
+ */
+export async function inviteMember(admin: SessionUser, rawEmail: string, role: Role): Promise<{ outboxId: number; link: string }> {
   const email = normaliseEmail(rawEmail);
   const token = newToken();
   return db.transaction(async (trx) => {
@@ -120,7 +123,7 @@ export async function inviteMember(admin: SessionUser, rawEmail: string, role: R
     });
     await logActivity({ teamId: admin.teamId, userId: admin.id, action: "member_invited", subjectType: "invitation", subjectId: Number(id), detail: { email, role } }, trx);
     const link = appUrl(`/invite/${token}`);
-    return sendEmail(
+    const outboxId = await sendEmail(
       {
         teamId: admin.teamId,
         to: email,
@@ -133,6 +136,7 @@ export async function inviteMember(admin: SessionUser, rawEmail: string, role: R
       },
       trx,
     );
+    return { outboxId, link };
   });
 }
 

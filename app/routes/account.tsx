@@ -56,6 +56,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           <dd>{ROLE_LABELS[user.role]}</dd>
         </dl>
         <p className="mt-3 text-sm">
+          E-mails Sparwise sent you (invitations, password resets, reviews) are under <a className="text-accent-strong underline" href="/messages">My messages</a>.
+        </p>
+        <p className="mt-3 text-sm">
           To change your password, use <a className="text-accent-strong underline" href="/forgot-password">the reset link by e-mail</a>.
         </p>
       </section>

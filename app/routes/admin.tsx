@@ -24,9 +24,10 @@ export async function action({ request }: Route.ActionArgs) {
   const input = parsed.data;
   return withFieldErrors(async () => {
     switch (input.intent) {
-      case "invite":
-        await inviteMember(admin, input.email, input.role);
-        return { done: `Invitation sent to ${input.email}. You can follow it in the outbox.` };
+      case "invite": {
+        const { link } = await inviteMember(admin, input.email, input.role);
+        return { done: `Invitation sent to ${input.email}.`, inviteLink: { email: input.email, link } };
+      }
       case "changeRole":
         await changeRole(admin, input.memberId, input.role);
         return { done: "Role changed." };
@@ -62,6 +63,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
   const { user, members, invitations, tokens } = loaderData;
   const errors: Record<string, string> = (actionData && "errors" in actionData ? actionData.errors : undefined) ?? {};
   const done = actionData && "done" in actionData ? actionData.done : null;
+  const inviteLink = actionData && "inviteLink" in actionData ? actionData.inviteLink : null;
   return (
     <div className="space-y-8">
       <div className="flex flex-wrap items-baseline justify-between gap-4">
@@ -128,6 +130,16 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
           </div>
           <Button>Send invitation</Button>
         </Form>
+        {inviteLink && (
+          <div role="status" className="rounded-md border border-accent bg-teal-50 p-3 text-sm">
+            <p className="font-semibold">
+              The invitation link for {inviteLink.email}, shown this once: copy it now if you want to pass it on yourself. The outbox shows it
+              with the secret part hidden.
+            </p>
+            <label htmlFor="invite-link" className="sr-only">Invitation link</label>
+            <input id="invite-link" readOnly value={inviteLink.link} className="mt-2 w-full rounded border border-ink/30 bg-white px-2 py-1 font-mono text-xs" onFocus={(e) => e.currentTarget.select()} />
+          </div>
+        )}
         {invitations.length > 0 && (
           <>
             <h3 className="pt-2 font-bold">Pending invitations</h3>

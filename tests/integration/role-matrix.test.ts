@@ -80,6 +80,7 @@ export const ROWS: Record<string, MatrixRow> = {
   "(layout) routes/app-layout.tsx": { get: members(200) },
   "/": { get: members(200) },
   "/account": { get: members(200), post: members(400) },
+  "/messages": { get: members(200) },
   "/admin": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
   "/admin/outbox": { get: permitted("manageTeam", 200) },
   // reading the team's materials is admin-only like /admin; an empty post names the missing intent

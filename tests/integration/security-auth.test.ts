@@ -10,6 +10,9 @@ import * as invite from "~/routes/invite.$token";
 import * as project from "~/routes/projects.$projectId";
 import * as signIn from "~/routes/sign-in";
 import * as forgot from "~/routes/forgot-password";
+import * as adminOutbox from "~/routes/admin.outbox";
+import * as messages from "~/routes/messages";
+import { execFileSync } from "node:child_process";
 import { appBaseUrl, DEV_APP_URL } from "~/lib/email.server";
 import { callRoute, cookieForUser, type RouteResult } from "./fixtures";
 
@@ -231,5 +234,58 @@ describe("2. links in e-mail come from APP_URL only", () => {
     await withEnv({ NODE_ENV: "production", APP_URL: "not a url" }, () => expect(() => appBaseUrl()).toThrow(/APP_URL is not a valid URL/));
     await withEnv({ NODE_ENV: "production", APP_URL: "ftp://x.example" }, () => expect(() => appBaseUrl()).toThrow(/APP_URL must start with http/));
     await withEnv({ NODE_ENV: "production", APP_URL: "https://steel.example.com/sparwise/" }, () => expect(appBaseUrl()).toBe("https://steel.example.com/sparwise"));
+  });
+});
+
+describe("3. the outbox is each recipient's mailbox; admins see tokens masked", () => {
+  type Listed = { messages: { to: string; subject: string; body: string }[] };
+
+  test("an admin cannot read another person's reset token; the recipient reads it in full under /messages", async () => {
+    const email = "outbox-reader@tallowfield.example";
+    const other = "outbox-bystander@tallowfield.example";
+    const user = await makeUser(email, "outbox reader password", teamA, "reviewer");
+    const bystander = await makeUser(other, "outbox bystander password", teamA, "viewer");
+    await callRoute(forgot.action, await post(null, "/forgot-password", { email }));
+    const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
+    const token = /\/reset-password\/([A-Za-z0-9_-]+)/.exec(mail.text_body)![1]!;
+
+    const adminA = (await db("users").where({ email: "admin@tallowfield.example" }).first("id")).id;
+    const listed = (await callRoute(adminOutbox.loader, get(await cookieForUser(adminA), "/admin/outbox"))).data as Listed;
+    const seen = listed.messages.find((m) => m.to === email);
+    expect(seen?.body).toMatch(/\/reset-password\/\[token hidden\]/);
+    expect(JSON.stringify(listed)).not.toContain(token);
+
+    const mine = (await callRoute(messages.loader, get(await cookieForUser(user), "/messages"))).data as Listed;
+    expect(mine.messages.some((m) => m.body.includes(`/reset-password/${token}`))).toBe(true);
+    expect(mine.messages.every((m) => m.to === email)).toBe(true);
+
+    const theirs = (await callRoute(messages.loader, get(await cookieForUser(bystander), "/messages"))).data as Listed;
+    expect(JSON.stringify(theirs)).not.toContain(token);
+  });
+
+  test("the inviting admin sees the invitation link once, in the answer to the invite; the outbox masks it", async () => {
+    const email = "copied-link@example.org";
+    created.add(email);
+    const adminBCookie = await cookieForUser(adminB);
+    const sent = await callRoute(admin.action, await post(adminBCookie, "/admin", { intent: "invite", email, role: "engineer" }));
+    const token = await inviteToken(email);
+    expect((sent.data as { inviteLink: { link: string } }).inviteLink.link).toMatch(new RegExp(`/invite/${token}$`));
+
+    const adminPage = await callRoute(admin.loader, get(adminBCookie, "/admin"));
+    expect(JSON.stringify(adminPage.data)).not.toContain(token);
+    const outbox = await callRoute(adminOutbox.loader, get(adminBCookie, "/admin/outbox"));
+    expect(JSON.stringify(outbox.data)).not.toContain(token);
+    expect(JSON.stringify(outbox.data)).toContain("/invite/[token hidden]");
+  });
+
+  test("npm run outbox prints a message in full for the person running the server", async () => {
+    const email = "terminal-reader@tallowfield.example";
+    await makeUser(email, "terminal reader password", teamA, "viewer");
+    await callRoute(forgot.action, await post(null, "/forgot-password", { email }));
+    const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
+    const token = /\/reset-password\/([A-Za-z0-9_-]+)/.exec(mail.text_body)![1]!;
+    const out = execFileSync("npx", ["tsx", "db/outbox.ts", "--to", email], { env: { ...process.env }, encoding: "utf8" });
+    expect(out).toContain(`To:      ${email}`);
+    expect(out).toContain(`/reset-password/${token}`);
   });
 });
