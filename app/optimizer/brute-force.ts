@@ -1,5 +1,7 @@
 // The plain reference: every grid point of every family, every check, no bounds. The tests
-// and the benchmark compare the fast search against it. Deliberately simple.
+// and the benchmark compare the fast search against it. Deliberately simple. Its front is the
+// grid's (every candidate is evaluated), and it keeps the context points (each family's
+// lightest feasible per depth) as the fast search does.
 import { Scratch, evaluateCandidate } from "./checks";
 import { EngineInputError } from "./errors";
 import type { RawCandidate } from "./front";
@@ -15,7 +17,7 @@ export function bruteForceSearch(input: SearchProblemInput, options: SearchOptio
   if (raw > BRUTE_FORCE_MAX_GRID)
     throw new EngineInputError("grid", `grid: ${raw.toExponential(2)} candidates is too many for brute force (at most ${BRUTE_FORCE_MAX_GRID.toExponential(0)})`);
   const p = prepare(problem, options.depthIndexRange);
-  const t = new Tally(p.families.length);
+  const t = new Tally(p.families.length, p.depths.length);
   const s = new Scratch();
   let enumerated = 0;
   const total = raw;
@@ -28,6 +30,7 @@ export function bruteForceSearch(input: SearchProblemInput, options: SearchOptio
     if (axes.some((a) => a.length === 0)) continue;
     for (let j = 0; j < n; j++) v[j] = axes[j][0];
     const cand: RawCandidate = { fi: pf.fi, fk, v, objective: 0, area: 0, utilisation: 0, governing: -1 };
+    const dDim = fk.roles.indexOf("depth");
     for (;;) {
       // validity: the same strict rules as geometry.ts (tested against familyRuleViolation)
       const sec = fk.second;
@@ -39,7 +42,7 @@ export function bruteForceSearch(input: SearchProblemInput, options: SearchOptio
           cand.area = s.area;
           cand.utilisation = s.utilisation;
           cand.governing = s.governing;
-          offerFeasible(t, cand);
+          offerFeasible(t, cand, idx[dDim]);
         } else t.ruledOut[s.governing]++;
         if (t.evaluated % ABORT_EVERY === 0) {
           checkAbort(options.signal);
@@ -63,5 +66,6 @@ export function bruteForceSearch(input: SearchProblemInput, options: SearchOptio
     }
   }
   options.onProgress?.(total, total);
-  return buildResult(p, t);
+  // every candidate evaluated: the front is the grid's
+  return buildResult(p, t, "grid");
 }

@@ -73,6 +73,29 @@ export class Front {
     return { ok: true, at: lo };
   }
 
+  /**
+   * The least utilisation among members strictly lighter than obj (Infinity when none). Every
+   * feasible candidate offered so far that is strictly lighter than obj has a utilisation at
+   * least this (a non-member is beaten by a lighter member with a lower utilisation), so any
+   * candidate of objective ≥ obj whose utilisation exceeds it is beaten: the search's dominance
+   * bound (search.ts, (D)).
+   */
+  minUtilBelow(obj: number): number {
+    const it = this.items;
+    let lo = 0,
+      hi = it.length;
+    while (lo < hi) {
+      const m = (lo + hi) >> 1;
+      if (it[m].objective < obj) lo = m + 1;
+      else hi = m;
+    }
+    if (lo === 0) return Infinity;
+    const g = it[lo - 1].objective;
+    let minU = Infinity;
+    for (let j = lo - 1; j >= 0 && it[j].objective === g; j--) if (it[j].utilisation < minU) minU = it[j].utilisation;
+    return minU;
+  }
+
   offer(c: RawCandidate, copy: (c: RawCandidate) => RawCandidate): void {
     const { ok, at } = this.admits(c.objective, c.utilisation);
     if (!ok) return;

@@ -3,13 +3,21 @@
 // the contract's SearchResult.
 import { candidateChecks, makeCheckContext, type CheckContext, type CheckResult } from "./checks";
 import { FAMILY_KERNELS, N_CHECKS, dimsObject, type FamilyKernel } from "./family-kernel";
-import { Front, compareAcross, type RawCandidate } from "./front";
+import { Front, compareAcross, compareInFamily, type RawCandidate } from "./front";
 import type { Family } from "./geometry";
 import type { DesignBlock } from "./design-types";
 import { sectionProperties, type SectionProperties } from "./properties";
 import { CHECK_NAMES, gridValues, type CheckName, type SearchProblem } from "./search-schema";
 
+/**
+ * What onProgress counts: shapes of the grid (valid geometry, as counts.grid) settled so far,
+ * i.e. evaluated or proven unable to change the answer; total is the grid. Brute force counts the
+ * raw product of the axes instead (it meets invalid shapes one by one).
+ */
+export const PROGRESS_UNIT = "shapes";
+
 export interface SearchOptions {
+  /** done, total in PROGRESS_UNIT; total stays fixed through one search. */
   onProgress?: (done: number, total: number) => void;
   /** Checked every few thousand evaluations; an aborted search throws the signal's reason (an AbortError DOMException by default). */
   signal?: AbortSignal;
@@ -19,16 +27,25 @@ export interface SearchOptions {
    */
   exhaustive?: boolean;
   /**
-   * Fast search only: also evaluate rows whose lightest point is within this fraction of the
-   * family's best objective (0.2 = 20%), so `front` shows the trade-off near the optimum.
-   * Default 0. `best` is exact either way.
+   * What `front` means. "grid" (the default): the exact front of every feasible candidate on the
+   * grid, proven by the same branch-and-bound (search.ts, (D)), and `context` with it.
+   * "evaluated": only `best` and `bestByFamily` are proven; `front` is the front of the candidates
+   * the search happened to evaluate (the fastest search, for callers that want the best alone).
+   */
+  front?: "grid" | "evaluated";
+  /**
+   * A labelled approximation, front "evaluated" only (given alone it selects it): also evaluate
+   * rows whose lightest point is within this fraction of the family's best objective (0.2 = 20%),
+   * so the evaluated front widens near the optimum. `best` is exact either way; the front is not
+   * the grid's. Kept to measure the exact front against (tests/bench/search.bench.ts).
    */
   explore?: number;
   /** Search only depth-grid indices in [from, to) (used to split a search across threads). */
   depthIndexRange?: [number, number];
 }
 
-export interface SearchCandidate {
+/** A candidate as the front and the context points carry it (no check table, no properties). */
+export interface SearchPoint {
   family: Family;
   dimensions: Record<string, number>;
   area: number;
@@ -37,6 +54,9 @@ export interface SearchCandidate {
   cost?: number;
   utilisation: number;
   governing: CheckName;
+}
+
+export interface SearchCandidate extends SearchPoint {
   checks: CheckResult[];
   properties: SectionProperties;
   /** basis "en1993" only: class, resistances, Mcr, χLT, weld throat … (design-types.ts) */
@@ -47,7 +67,18 @@ export interface SearchResult {
   best: SearchCandidate | null;
   reason?: string;
   bestByFamily: Partial<Record<Family, SearchCandidate | null>>;
-  front: SearchCandidate[];
+  /**
+   * Candidates no other feasible candidate beats on both objective and utilisation, sorted by
+   * objective, then utilisation, then the contract's order. Over the whole grid when frontScope
+   * is "grid"; over the candidates the search evaluated when it is "evaluated".
+   */
+  front: SearchPoint[];
+  frontScope: "grid" | "evaluated";
+  /**
+   * frontScope "grid" only: each family's lightest feasible candidate at each grid depth (the
+   * chart's context points), by family in problem order, then depth.
+   */
+  context?: SearchPoint[];
   counts: { grid: number; evaluated: number; feasible: number };
 }
 
@@ -93,9 +124,31 @@ export class Tally {
   ruledOut = new Float64Array(N_CHECKS);
   bestByFamily: (RawCandidate | null)[];
   front = new Front();
-  constructor(nFamilies: number) {
+  /** lightest feasible per (family, depth index): family·nDepths + depth index; empty when not tracked */
+  ctxBest: (RawCandidate | null)[];
+  /** their objectives (Infinity while none), read in the search's hot loop */
+  ctxObj: Float64Array;
+  constructor(
+    nFamilies: number,
+    readonly nDepths = 0,
+  ) {
     this.bestByFamily = new Array(nFamilies).fill(null);
+    this.ctxBest = new Array(nFamilies * nDepths).fill(null);
+    this.ctxObj = new Float64Array(nFamilies * nDepths).fill(Infinity);
   }
+}
+
+function toPoint(p: Prepared, c: RawCandidate): SearchPoint {
+  const out: SearchPoint = {
+    family: c.fk.family,
+    dimensions: dimsObject(c.fk, c.v),
+    area: c.area,
+    massPerMetre: c.area * p.problem.density * 1e-6,
+    utilisation: c.utilisation,
+    governing: CHECK_NAMES[c.governing],
+  };
+  if (p.ctx.cost) out.cost = c.objective;
+  return out;
 }
 
 function toOutput(p: Prepared, c: RawCandidate): SearchCandidate {
@@ -167,7 +220,8 @@ function reasonText(p: Prepared, t: Tally): string {
   return `No candidate passes every check. Of the ${t.grid.toLocaleString("en")} shapes in the grid, the ${name} limit rules out the most: ${CHECK_WORDS[name]}. To find a section, ${CHECK_HINTS[name]}.`;
 }
 
-export function buildResult(p: Prepared, t: Tally): SearchResult {
+/** frontScope: "grid" when every grid candidate was evaluated or proven not on the front (then with context). */
+export function buildResult(p: Prepared, t: Tally, frontScope: "grid" | "evaluated"): SearchResult {
   let best: RawCandidate | null = null;
   for (const c of t.bestByFamily) if (c && (!best || compareAcross(c, best) < 0)) best = c;
   const bestByFamily: Partial<Record<Family, SearchCandidate | null>> = {};
@@ -177,23 +231,36 @@ export function buildResult(p: Prepared, t: Tally): SearchResult {
   });
   const front = [...t.front.items]
     .sort((a, b) => a.objective - b.objective || a.utilisation - b.utilisation || compareAcross(a, b))
-    .map((c) => toOutput(p, c));
+    .map((c) => toPoint(p, c));
   const res: SearchResult = {
     best: best ? bestByFamily[best.fk.family]! : null,
     bestByFamily,
     front,
+    frontScope,
     counts: { grid: t.grid, evaluated: t.evaluated, feasible: t.feasible },
   };
+  if (frontScope === "grid") res.context = t.ctxBest.filter((c): c is RawCandidate => c !== null).map((c) => toPoint(p, c));
   if (!best) res.reason = reasonText(p, t);
   return res;
 }
 
-/** Offers a feasible candidate to the family best and the front (copies only what it keeps). */
-export function offerFeasible(t: Tally, c: RawCandidate): void {
+/**
+ * Offers a feasible candidate to the family best, the front and (depth index di ≥ 0, when the
+ * tally tracks them) the context points. Copies only what it keeps.
+ */
+export function offerFeasible(t: Tally, c: RawCandidate, di = -1): void {
   t.feasible++;
   const cur = t.bestByFamily[c.fi];
   if (!cur || compareAcross(c, cur) < 0) t.bestByFamily[c.fi] = copyCandidate(c);
   t.front.offer(c, copyCandidate);
+  if (di >= 0 && t.nDepths > 0) {
+    const j = c.fi * t.nDepths + di;
+    const cc = t.ctxBest[j];
+    if (!cc || compareInFamily(c, cc) < 0) {
+      t.ctxBest[j] = copyCandidate(c);
+      t.ctxObj[j] = c.objective;
+    }
+  }
 }
 
 export const ABORT_EVERY = 4096;

@@ -9,7 +9,7 @@ export { findInputViolation, type Violation } from "./validate";
 export * from "./stress";
 export * from "./search-schema";
 export { searchSections } from "./search";
-export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
+export { PROGRESS_UNIT, type SearchOptions, type SearchResult, type SearchCandidate, type SearchPoint } from "./grid";
 export { bruteForceSearch } from "./brute-force";
 export { candidateChecks, CHECK_CLAUSES, CHECK_UNITS, type CheckResult, type CheckUnit, type CandidateVerdict } from "./checks";
 export type * from "./design-types";

@@ -41,17 +41,43 @@
 //   distance bounded over the box; popping a wide node halves its bt range (branching),
 //   a narrow one spawns one row per bt.
 //
-// What the fast search guarantees: `best`, `bestByFamily` and `counts.grid` equal brute
-// force's; `counts.evaluated` is the number of candidates it actually evaluated;
-// `counts.feasible` and `front` are over those evaluated candidates only (engine contract:
-// "among the feasible candidates evaluated"), so they are a subset of brute force's. Pass
-// `exhaustive: true` to get the brute-force front and feasible count, or `explore: 0.2` to
-// keep evaluating rows whose lightest point is within 20% of the family's best (each such
-// row's lightest feasible point joins the front; `best` stays exact).
+// (D) The grid's front and the context points (front "grid", the default). One heap holds
+//   every family, so entries pop lightest first across families. An entry (a raw row, a row
+//   tail, a mono-i node) with key o, a lower bound on the objective of its points, is needed:
+//   - for a context point (each family's lightest feasible per depth) only while o is within
+//     its (family, depth)'s lightest feasible so far (1e-9 margin for ties): then as above;
+//   - for the front, otherwise. A point x is off the front when some feasible y has
+//     objective(y) < objective(x) and u(y) < u(x) (u = utilisation; front.ts's "beats").
+//     cap = the least utilisation among the evaluated feasible candidates strictly lighter
+//     than o (Front.minUtilBelow: a candidate off the current front is beaten by a lighter
+//     member of lower utilisation, so the members give the least). Every x in the entry has
+//     objective ≥ o, so each x with u(x) > cap is beaten and only u(x) ≤ cap matters. Every
+//     bound (1)–(7) is "demand ≤ capacity" for a demand that is one term of u's maximum, and
+//     u ≤ cap implies that demand ≤ cap × capacity: run with the allowables and slenderness
+//     limits scaled by cap (the required I divided by cap) each bound excludes only points
+//     that cannot reach u ≤ cap. So the entry is re-bounded at cap when it pops: a row tail
+//     whose first point cannot reach cap is re-queued at its first point that can, a mono-i
+//     node whose bound rose (by more than REKEY) is re-queued at it, anything else is expanded
+//     or its point evaluated. What is dropped stays beaten: dominance is transitive (strictly
+//     lighter and strictly lower twice over), and only evaluated candidates enter the front.
+//   A feasible point does not end its row here: heavier points may reach lower utilisation.
+//   The heap empties, so every grid point is evaluated or proven off the front and heavier
+//   than its depth's context point: the front and context equal brute force's.
 //
-// Progress: onProgress(familiesDone, families) per family (a best-first search has no honest
-// per-candidate fraction). Abort: the signal is checked every 4096 heap steps; an aborted
-// search throws the signal's reason (an AbortError DOMException unless the caller gave one).
+// What the fast search guarantees: `best`, `bestByFamily` and `counts.grid` equal brute
+// force's; `counts.evaluated` is the number of candidates it actually evaluated and
+// `counts.feasible` the feasible among them. front "grid" (default): `front` and `context`
+// equal brute force's, member for member (frontScope "grid"). front "evaluated": only best and
+// bestByFamily are proven; `front` is over the candidates evaluated (the engine contract's
+// original wording, frontScope "evaluated"), and `explore: 0.2` (a labelled approximation)
+// keeps evaluating rows whose lightest point is within 20% of the family's best (each such
+// row's lightest feasible point joins that front). `exhaustive: true` runs brute force.
+//
+// Progress: onProgress(done, total) in shapes (grid.ts PROGRESS_UNIT): total = counts.grid
+// (known once every family is seeded), done = shapes evaluated or proven unable to change the
+// answer; each heap entry carries how many shapes it stands for, so done moves with the work.
+// Abort: the signal is checked every 4096 heap steps; an aborted search throws the signal's
+// reason (an AbortError DOMException unless the caller gave one).
 import { Scratch, evaluateCandidate, plateObjective, type CheckContext } from "./checks";
 import * as composite from "./composite";
 import { bruteForceSearch } from "./brute-force";
@@ -71,6 +97,8 @@ const evaluate = evaluateCandidate,
   objectiveOf = plateObjective;
 
 const REL = 1e-9;
+/** Grid mode: a super node whose bound at the dominance cap rises by more than this (relative) is re-queued, not expanded. */
+const REKEY = 1e-3;
 /** mono-i super nodes spanning more bt values than this are split in two before expanding. */
 const SUPER_SPLIT = 16;
 const KIND_READY = 0,
@@ -78,13 +106,19 @@ const KIND_READY = 0,
   KIND_SUPER = 2,
   KIND_SUPER_RAW = 3;
 
-/** Binary min-heap on typed arrays: key, row id, k (next free-width index), kHi, kind. */
+/**
+ * Binary min-heap on typed arrays: key, row id, k (next free-width index), kHi, kind, the
+ * family's index (one heap serves every family in the grid-front search) and n, the number of
+ * grid shapes the entry stands for (progress).
+ */
 class Heap {
   key = new Float64Array(1024);
   id = new Float64Array(1024);
   k = new Int32Array(1024);
   hi = new Int32Array(1024);
   kind = new Int8Array(1024);
+  fam = new Int8Array(1024);
+  n = new Float64Array(1024);
   size = 0;
   private grow() {
     const n = this.key.length * 2;
@@ -98,9 +132,11 @@ class Heap {
     this.k = g(this.k, Int32Array);
     this.hi = g(this.hi, Int32Array);
     this.kind = g(this.kind, Int8Array);
+    this.fam = g(this.fam, Int8Array);
+    this.n = g(this.n, Float64Array);
   }
   /** Appends without ordering (the seed list uses the same arrays as a plain buffer). */
-  append(key: number, id: number, k: number, hi: number, kind: number) {
+  append(key: number, id: number, k: number, hi: number, kind: number, fam: number, n: number) {
     if (this.size === this.key.length) this.grow();
     const i = this.size++;
     this.key[i] = key;
@@ -108,8 +144,10 @@ class Heap {
     this.k[i] = k;
     this.hi[i] = hi;
     this.kind[i] = kind;
+    this.fam[i] = fam;
+    this.n[i] = n;
   }
-  push(key: number, id: number, k: number, hi: number, kind: number) {
+  push(key: number, id: number, k: number, hi: number, kind: number, fam: number, n: number) {
     if (this.size === this.key.length) this.grow();
     let i = this.size++;
     while (i > 0) {
@@ -123,6 +161,8 @@ class Heap {
     this.k[i] = k;
     this.hi[i] = hi;
     this.kind[i] = kind;
+    this.fam[i] = fam;
+    this.n[i] = n;
   }
   private move(from: number, to: number) {
     this.key[to] = this.key[from];
@@ -130,6 +170,8 @@ class Heap {
     this.k[to] = this.k[from];
     this.hi[to] = this.hi[from];
     this.kind[to] = this.kind[from];
+    this.fam[to] = this.fam[from];
+    this.n[to] = this.n[from];
   }
   // pops the top into the out fields
   outKey = 0;
@@ -137,12 +179,16 @@ class Heap {
   outK = 0;
   outHi = 0;
   outKind = 0;
+  outFam = 0;
+  outN = 0;
   pop() {
     this.outKey = this.key[0];
     this.outId = this.id[0];
     this.outK = this.k[0];
     this.outHi = this.hi[0];
     this.outKind = this.kind[0];
+    this.outFam = this.fam[0];
+    this.outN = this.n[0];
     const n = --this.size;
     if (n === 0) return;
     const key = this.key[n];
@@ -204,9 +250,16 @@ class FamilySearch {
   readonly plates = new Float64Array(8 * PLATE_STRIDE);
   readonly kout = new Float64Array(16);
   readonly scratch = new Scratch();
-  readonly heap = new Heap();
   /** every row (or mono-i super node) with its first, cheap key, before it enters the heap */
-  readonly seeds = new Heap();
+  seeds = new Heap();
+  /** shapes of this family not yet settled (in the seeds or the heap), for progress */
+  pending = 0;
+  /** this family's index in problem.families (heap entries carry it) */
+  readonly fam: number;
+  /** context points: this family's slots in the tally start here; depth index of a row id = ⌊id / depthStride⌋ mod depthRadix */
+  readonly ctxBase: number;
+  readonly depthStride: number;
+  readonly depthRadix: number;
   readonly groupDims: number[];
   readonly radix: number[];
   readonly sym: boolean;
@@ -223,9 +276,14 @@ class FamilySearch {
     readonly pf: PreparedFamily,
     ctx: CheckContext,
     readonly t: Tally,
+    /** the heap the family pushes to: its own (best mode) or the one every family shares (grid mode) */
+    readonly heap: Heap,
+    /** true: the exact grid front and context points (D); false: best and bestByFamily only */
+    readonly gridMode: boolean,
     readonly explore = 0,
   ) {
     this.fk = pf.fk;
+    this.fam = pf.fi;
     this.ctx = ctx;
     this.W = pf.axes[pf.fk.free];
     this.v = new Float64Array(pf.fk.dims.length);
@@ -236,6 +294,27 @@ class FamilySearch {
     this.minAllow = Math.min(ctx.aC, ctx.aT);
     this.Idefl = ctx.hasDeflection ? ctx.deflNumerator / ctx.deflLimit : 0;
     this.cand = { fi: pf.fi, fk: this.fk, v: this.v, objective: 0, area: 0, utilisation: 0, governing: -1 };
+    const dPos = this.groupDims.indexOf(pf.fk.roles.indexOf("depth"));
+    let stride = 1;
+    for (let j = this.groupDims.length - 1; j > dPos; j--) stride *= this.radix[j];
+    this.depthStride = stride;
+    this.depthRadix = this.radix[dPos];
+    this.ctxBase = pf.fi * t.nDepths;
+  }
+
+  depthIndex(id: number): number {
+    return Math.floor(id / this.depthStride) % this.depthRadix;
+  }
+
+  /** Pushes onto the heap (this family's entry, standing for n grid shapes). */
+  push(key: number, id: number, k: number, hi: number, kind: number, n: number): void {
+    this.heap.push(key, id, k, hi, kind, this.fam, n);
+    this.pending += n;
+  }
+
+  /** Keys above this cannot matter: the incumbent in best mode; none in grid mode (dominance decides there). */
+  limit(): number {
+    return this.gridMode ? Infinity : this.incumbent();
   }
 
   /** row id (mixed radix over the group dimensions) → v */
@@ -261,22 +340,25 @@ class FamilySearch {
     return objectiveOf(this.fk, this.v, this.plates, this.ctx);
   }
 
-  /** Base I requirement from (2) and (3) for depth d (relaxed by REL later). */
-  baseIreq(d: number): number {
+  /**
+   * Base I requirement from (2) and (3) for depth d (relaxed by REL later), for a utilisation
+   * of at most cap (1: feasibility; below 1: the dominance bound (D), every demand ÷ cap).
+   */
+  baseIreq(d: number, cap: number): number {
     const c = this.ctx;
     const M = Math.max(c.Ms, c.Mh);
     const bend = this.sym ? (M * d) / 2 / this.minAllow : (M * d) / this.sumAllow;
-    return Math.max(bend, this.Idefl);
+    return Math.max(bend, this.Idefl) / cap;
   }
 
   /**
-   * Slenderness limits along the row, (6): returns kHi (last allowed free index), or −1 when
-   * a ratio that does not involve the free width already fails. kLo given.
+   * Slenderness limits along the row, (6), for indices [kLo, last] and utilisation ≤ cap:
+   * returns kHi (last allowed free index), or −1 when a ratio that does not involve the free
+   * width already fails.
    */
-  rowHi(kLo: number): number {
+  rowHi(kLo: number, last: number, cap: number): number {
     const fk = this.fk,
-      W = this.W,
-      last = W.length - 1;
+      W = this.W;
     let kHi = last;
     if (fk.slenderKinds.length === 0) return kHi;
     const v = this.v,
@@ -287,7 +369,7 @@ class FamilySearch {
     fk.slender(v, this.slR2);
     for (let e = 0; e < fk.slenderKinds.length; e++) {
       const c = fk.slenderKinds[e];
-      const lim = this.ctx.slenderLimit[c];
+      const lim = this.ctx.slenderLimit[c] * cap;
       if (lim !== lim) continue;
       const r1 = this.slR1[e],
         r2 = this.slR2[e];
@@ -313,9 +395,10 @@ class FamilySearch {
   }
 
   /**
-   * First index ≥ k (≤ kHi) not excluded by (1)–(5), or −1. Leaves nothing in v but the free width.
+   * First index ≥ k (≤ kHi) not excluded by (1)–(5) and (7) at utilisation ≤ cap, or −1.
+   * Leaves nothing in v but the free width.
    */
-  rowStart(k: number, kHi: number): number {
+  rowStart(k: number, kHi: number, cap: number): number {
     const fk = this.fk,
       ctx = this.ctx,
       W = this.W,
@@ -326,7 +409,9 @@ class FamilySearch {
       f = fk.free;
     if (k > kHi) return -1;
     const d = this.depthOf();
-    const base = this.baseIreq(d);
+    const base = this.baseIreq(d, cap);
+    const aC = ctx.aC * cap,
+      aT = ctx.aT * cap;
     let cTopHi = 0,
       cBotHi = 0;
     if (!this.sym && !fk.unsymmetric) {
@@ -344,16 +429,16 @@ class FamilySearch {
       const Iz = ko[K_IZ],
         cy = ko[K_CY];
       let req = base;
-      let cause = base === this.Idefl && this.Idefl > 0 ? C_DEFL : ctx.aT <= ctx.aC ? C_TENS : C_COMP;
+      let cause = base === this.Idefl / cap && this.Idefl > 0 ? C_DEFL : ctx.aT <= ctx.aC ? C_TENS : C_COMP;
       if (!this.sym && !fk.unsymmetric) {
         const cTop = ko[K_MAXY] - cy,
           cBot = cy - ko[K_MINY];
         const cTopLb = fk.centroidDir > 0 ? cTopHi : cTop;
         const cBotLb = fk.centroidDir > 0 ? cBot : cBotHi;
-        const r1 = (ctx.Ms * cTopLb) / ctx.aC,
-          r2 = (ctx.Ms * cBotLb) / ctx.aT,
-          r3 = (ctx.Mh * cTopLb) / ctx.aT,
-          r4 = (ctx.Mh * cBotLb) / ctx.aC;
+        const r1 = (ctx.Ms * cTopLb) / aC,
+          r2 = (ctx.Ms * cBotLb) / aT,
+          r3 = (ctx.Mh * cTopLb) / aT,
+          r4 = (ctx.Mh * cBotLb) / aC;
         if (r1 > req) (req = r1), (cause = C_COMP);
         if (r2 > req) (req = r2), (cause = C_TENS);
         if (r3 > req) (req = r3), (cause = C_TENS);
@@ -377,22 +462,22 @@ class FamilySearch {
       k = k2;
     }
     if (ctx.hasShear && ctx.V > 0 && this.sym) {
-      if (!this.shearOk(k)) {
+      if (!this.shearOk(k, cap)) {
         this.cause = C_SHEAR;
-        if (k === kHi || !this.shearOk(kHi)) return this.dead(k, kHi);
+        if (k === kHi || !this.shearOk(kHi, cap)) return this.dead(k, kHi);
         // monotone along the row, (5): bisect for the first passing index
         let lo = k,
           hi = kHi; // lo fails, hi passes
         while (hi - lo > 1) {
           const m = (lo + hi) >> 1;
-          if (this.shearOk(m)) hi = m;
+          if (this.shearOk(m, cap)) hi = m;
           else lo = m;
         }
         this.t.ruledOut[C_SHEAR] += hi - k;
         k = hi;
       }
     }
-    if (ctx.hasShear && ctx.V > 0 && !this.webShearOk(k, kHi)) {
+    if (ctx.hasShear && ctx.V > 0 && !this.webShearOk(k, kHi, cap)) {
       this.cause = C_SHEAR;
       return this.dead(k, kHi);
     }
@@ -407,7 +492,7 @@ class FamilySearch {
    * fibre with the reverse (the centroid moves toward a widening flange); F is largest with
    * both flanges widest and those distances.
    */
-  private superShearOk(jLo: number, jHi: number, kLo: number, kHi: number): boolean {
+  private superShearOk(jLo: number, jHi: number, kLo: number, kHi: number, cap: number): boolean {
     const fk = this.fk,
       v = this.v,
       p = this.plates,
@@ -433,7 +518,7 @@ class FamilySearch {
     v[f] = W[kHi];
     fk.shearBands(v, cTop, cBot, this.bands);
     const tauLb = (this.ctx.V * (Iz - this.bands[0])) / (Iz * this.bands[1]);
-    return tauLb <= this.ctx.aS * (1 + REL);
+    return tauLb <= this.ctx.aS * cap * (1 + REL);
   }
 
   /**
@@ -445,7 +530,7 @@ class FamilySearch {
    * distance at its largest (F grows with the widths and with c; c moves monotonically, as in (2)).
    * False when even that lower bound exceeds the allowable (then no point of the rest passes).
    */
-  private webShearOk(k: number, kHi: number): boolean {
+  private webShearOk(k: number, kHi: number, cap: number): boolean {
     const fk = this.fk,
       v = this.v,
       p = this.plates,
@@ -471,7 +556,7 @@ class FamilySearch {
     const F = this.bands[0],
       aw = this.bands[1];
     const tauLb = (this.ctx.V * (Iz - F)) / (Iz * aw);
-    return tauLb <= this.ctx.aS * (1 + REL);
+    return tauLb <= this.ctx.aS * cap * (1 + REL);
   }
 
   private dead(k: number, kHi: number): number {
@@ -480,7 +565,7 @@ class FamilySearch {
   }
 
   /** (5): the shear stress at the neutral axis does not exceed the allowable (necessary). */
-  shearOk(k: number): boolean {
+  shearOk(k: number, cap: number): boolean {
     const fk = this.fk,
       p = this.plates,
       n = fk.nPlates;
@@ -493,7 +578,7 @@ class FamilySearch {
     // the contract's maximum at the NA takes the larger of q/w_above, q/w_below; the smaller
     // width gives the larger factor, so the larger width gives a value it cannot be below
     const tau = (this.ctx.V * q) / (this.kout[K_IZ] * w);
-    return tau <= this.ctx.aS * (1 + REL);
+    return tau <= this.ctx.aS * cap * (1 + REL);
   }
 
   depthOf(): number {
@@ -501,102 +586,161 @@ class FamilySearch {
     return this.v[this.fk.dims.indexOf("d")];
   }
 
-  /** Pushes a ready row node at its first unexcluded index, if it can still beat the incumbent. */
-  pushReady(id: number, k: number, kHi: number): void {
-    const k2 = this.rowStart(k, kHi);
+  /** Pushes a ready row node at its first index not excluded at utilisation ≤ cap, if it can still matter. */
+  pushReady(id: number, k: number, kHi: number, cap: number): void {
+    const k2 = this.rowStart(k, kHi, cap);
     if (k2 < 0) return;
     const key = this.objectiveAt(k2);
-    if (key <= this.incumbent()) this.heap.push(key, id, k2, kHi, KIND_READY);
+    if (key <= this.limit()) this.push(key, id, k2, kHi, KIND_READY, kHi - k2 + 1);
   }
 
-  run(signal: AbortSignal | undefined): void {
-    const fk = this.fk;
+  /** Seeds the family (counting its grid); every seed is pending until the search settles it. */
+  seed(): void {
     if (this.pf.axes.some((a) => a.length === 0)) return;
-    if (fk.second >= 0) this.seedSupers();
+    if (this.fk.second >= 0) this.seedSupers();
     else this.seedRows();
+    const sd = this.seeds;
+    for (let i = 0; i < sd.size; i++) this.pending += sd.n[i];
+  }
+
+  /** Best mode: this family's own best-first search (its heap is its own). */
+  run(signal: AbortSignal | undefined, report: () => void): void {
     // Phases, same answer as pushing every seed at once: first the seeds with the ~2000 least
     // keys (cheap to order; they usually hold a good incumbent), then 4× more, and so on until
     // an incumbent exists; then only the seeds that can still beat it. A seed above the
     // incumbent could never be popped, so it never needs to enter the heap.
     const sd = this.seeds,
-      n = sd.size;
-    if (n === 0) return;
-    const sample = new Float64Array(Math.min(n, 4096));
-    for (let i = 0; i < sample.length; i++) sample[i] = sd.key[Math.floor((i * n) / sample.length)];
-    sample.sort();
-    let lo = -Infinity;
-    for (let quota = 2000; ; quota *= 4) {
-      const q = Math.ceil((sample.length * quota) / n);
-      const thr = q >= sample.length ? Infinity : sample[q];
-      const hi = Math.min(thr, this.incumbent());
-      for (let i = 0; i < n; i++) {
-        const key = sd.key[i];
-        if (key > lo && key <= hi) this.heap.push(key, sd.id[i], sd.k[i], sd.hi[i], sd.kind[i]);
-      }
-      this.loop(signal);
-      lo = hi;
-      if (hi === Infinity || this.incumbent() <= lo) break;
-      if (this.incumbent() < Infinity) {
-        // an incumbent now exists: the rest can only matter up to it
-        const inc = this.incumbent();
+      n = sd.size,
+      h = this.heap;
+    if (n > 0) {
+      const sample = new Float64Array(Math.min(n, 4096));
+      for (let i = 0; i < sample.length; i++) sample[i] = sd.key[Math.floor((i * n) / sample.length)];
+      sample.sort();
+      let lo = -Infinity;
+      // seeds already count as pending: move them to the heap without counting them again
+      const move = (i: number) => h.push(sd.key[i], sd.id[i], sd.k[i], sd.hi[i], sd.kind[i], this.fam, sd.n[i]);
+      for (let quota = 2000; ; quota *= 4) {
+        const q = Math.ceil((sample.length * quota) / n);
+        const thr = q >= sample.length ? Infinity : sample[q];
+        const hi = Math.min(thr, this.incumbent());
         for (let i = 0; i < n; i++) {
           const key = sd.key[i];
-          if (key > lo && key <= inc) this.heap.push(key, sd.id[i], sd.k[i], sd.hi[i], sd.kind[i]);
+          if (key > lo && key <= hi) move(i);
         }
-        this.loop(signal);
-        break;
+        this.loop(signal, report);
+        lo = hi;
+        if (hi === Infinity || this.incumbent() <= lo) break;
+        if (this.incumbent() < Infinity) {
+          // an incumbent now exists: the rest can only matter up to it
+          const inc = this.incumbent();
+          for (let i = 0; i < n; i++) {
+            const key = sd.key[i];
+            if (key > lo && key <= inc) move(i);
+          }
+          this.loop(signal, report);
+          break;
+        }
       }
     }
+    // Everything left (in the heap or never pushed) is pruned by the incumbent.
+    h.size = 0;
+    this.seeds = new Heap();
+    this.pending = 0;
   }
 
-  private loop(signal: AbortSignal | undefined): void {
-    const fk = this.fk;
+  private loop(signal: AbortSignal | undefined, report: () => void): void {
     const h = this.heap;
     let steps = 0;
     while (h.size > 0) {
-      if (++steps % ABORT_EVERY === 0) checkAbort(signal);
+      if (++steps % ABORT_EVERY === 0) {
+        checkAbort(signal);
+        report();
+      }
       if (h.key[0] > this.incumbent()) break;
       h.pop();
-      const id = h.outId,
-        k = h.outK,
-        kHi = h.outHi;
-      this.decode(id);
-      if (h.outKind === KIND_SUPER_RAW) {
-        this.pushSuper(id, 0, this.W.length - 1);
-        continue;
-      }
-      if (h.outKind === KIND_SUPER) {
-        if (kHi - k + 1 > SUPER_SPLIT) {
-          // branch on bt: each half gets its own (tighter) bound
-          const mid = (k + kHi) >> 1;
-          this.pushSuper(id, k, mid);
-          this.decode(id);
-          this.pushSuper(id, mid + 1, kHi);
-        } else this.expandSuper(id, k, kHi);
-        continue;
-      }
-      if (h.outKind === KIND_RAW) {
-        this.pushReady(id, k, kHi);
-        continue;
-      }
-      // KIND_READY: evaluate the point (same evaluation as brute force)
-      this.v[fk.free] = this.W[k];
-      this.t.evaluated++;
-      const s = this.scratch;
-      if (evaluate(fk, this.v, this.ctx, s, false)) {
-        const c = this.cand;
-        c.objective = s.objective;
-        c.area = s.area;
-        c.utilisation = s.utilisation;
-        c.governing = s.governing;
-        offerFeasible(this.t, c);
-        // the rest of the row is heavier
-      } else {
-        this.t.ruledOut[s.governing]++;
-        if (k < kHi) this.pushReady(id, k + 1, kHi);
-      }
+      this.pending -= h.outN;
+      this.step(h.outKey, h.outId, h.outK, h.outHi, h.outKind);
     }
     // Rows left in the heap are pruned by the incumbent, which exists whenever anything was left.
+  }
+
+  /**
+   * One popped heap entry. Grid mode first asks what the entry can still give: a context point
+   * (its key is within its depth's lightest so far) needs every feasible point, so cap = 1;
+   * otherwise only front members, which have utilisation ≤ cap = the least utilisation of the
+   * front strictly lighter than the key (D); every bound then runs at that cap.
+   */
+  step(key: number, id: number, k: number, kHi: number, kind: number): void {
+    const fk = this.fk;
+    this.decode(id);
+    let cap = 1;
+    if (this.gridMode && !(key <= this.t.ctxObj[this.ctxBase + this.depthIndex(id)] * (1 + REL))) {
+      const u = this.t.front.minUtilBelow(key);
+      // (below 1e-9 the utilisations carry too few digits (subnormal demands) for the bounds'
+      // relative slack: no dominance bound then, only a slower search)
+      if (u < 1 && u > 1e-9) cap = u;
+    }
+    if (kind === KIND_SUPER_RAW) {
+      this.pushSuper(id, 0, this.W.length - 1, cap);
+      return;
+    }
+    if (kind === KIND_SUPER) {
+      if (cap < 1) {
+        // re-key first: a node whose bound at this cap has moved up waits for its turn
+        const b = this.superBound(id, k, kHi, cap);
+        if (b === null) return;
+        const m = this.m;
+        if (b > key * (1 + REKEY)) {
+          this.push(b, id, m.jLo, m.jHi, KIND_SUPER, (m.jHi - m.jLo + 1) * (m.kHi - m.kLo + 1));
+          return;
+        }
+        this.decode(id);
+      }
+      if (kHi - k + 1 > SUPER_SPLIT) {
+        // branch on bt: each half gets its own (tighter) bound
+        const mid = (k + kHi) >> 1;
+        this.pushSuper(id, k, mid, cap);
+        this.decode(id);
+        this.pushSuper(id, mid + 1, kHi, cap);
+      } else this.expandSuper(id, k, kHi, cap);
+      return;
+    }
+    if (kind === KIND_RAW) {
+      this.pushReady(id, k, kHi, cap);
+      return;
+    }
+    // KIND_READY
+    if (cap < 1) {
+      // (D): drop the points that cannot reach utilisation cap; re-queue at the next one that can
+      const hi = this.rowHi(k, kHi, cap);
+      if (hi < 0) return;
+      const k2 = this.rowStart(k, hi, cap);
+      if (k2 < 0) return;
+      if (k2 > k) {
+        this.push(this.objectiveAt(k2), id, k2, hi, KIND_READY, hi - k2 + 1);
+        return;
+      }
+      kHi = hi;
+    }
+    // evaluate the point (same evaluation as brute force)
+    this.v[fk.free] = this.W[k];
+    this.t.evaluated++;
+    const s = this.scratch;
+    if (evaluate(fk, this.v, this.ctx, s, false)) {
+      const c = this.cand;
+      c.objective = s.objective;
+      c.area = s.area;
+      c.utilisation = s.utilisation;
+      c.governing = s.governing;
+      if (this.gridMode) {
+        offerFeasible(this.t, c, this.depthIndex(id));
+        // the rest of the row is heavier but may reach a lower utilisation: a front matter
+        if (k < kHi) this.push(this.objectiveAt(k + 1), id, k + 1, kHi, KIND_READY, kHi - k);
+      } else offerFeasible(this.t, c); // the rest of the row is heavier
+    } else {
+      this.t.ruledOut[s.governing]++;
+      if (k < kHi) this.pushReady(id, k + 1, kHi, 1);
+    }
   }
 
   /**
@@ -605,7 +749,7 @@ class FamilySearch {
    * the objective (also affine) there is a lower bound. NaN when no width in the row can reach
    * it (the row is then ruled out by bending or deflection). Exact for shapes symmetric about z.
    */
-  rowRawKey(kLo: number, kHi: number): number {
+  rowRawKey(kLo: number, kHi: number, cap: number): number {
     const fk = this.fk,
       v = this.v,
       W = this.W,
@@ -613,7 +757,7 @@ class FamilySearch {
       n = fk.nPlates,
       f = fk.free;
     const d = this.depthOf();
-    const req = this.baseIreq(d) * (1 - REL);
+    const req = this.baseIreq(d, cap) * (1 - REL);
     v[f] = W[kLo];
     fk.fill(v, p);
     const i0 = iAbout(p, n, d / 2),
@@ -630,7 +774,7 @@ class FamilySearch {
   }
 
   private deadRaw(kLo: number, kHi: number): number {
-    this.t.ruledOut[this.Idefl > this.baseIreq(this.depthOf()) * 0.999999 ? C_DEFL : this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP] += kHi - kLo + 1;
+    this.t.ruledOut[this.Idefl > this.baseIreq(this.depthOf(), 1) * 0.999999 ? C_DEFL : this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP] += kHi - kLo + 1;
     return NaN;
   }
 
@@ -649,10 +793,10 @@ class FamilySearch {
         const kLo = firstAbove(W, fk.freeMin(v));
         if (kLo < W.length) {
           this.t.grid += W.length - kLo;
-          const kHi = this.rowHi(kLo);
+          const kHi = this.rowHi(kLo, W.length - 1, 1);
           if (kHi >= 0) {
-            const key = this.rowRawKey(kLo, kHi);
-            if (key === key) this.seeds.append(key, id, kLo, kHi, KIND_RAW);
+            const key = this.rowRawKey(kLo, kHi, 1);
+            if (key === key) this.seeds.append(key, id, kLo, kHi, KIND_RAW, this.fam, kHi - kLo + 1);
           }
         }
       }
@@ -675,7 +819,7 @@ class FamilySearch {
   // ---- mono-i: two widths ----------------------------------------------------------------
   // super node = (d, tft, tfb, tw) with bt index 0 in its id; rows add bt.
 
-  private btRange(): [number, number] {
+  private btRange(cap: number): [number, number] {
     // bt > tw; top outstand (bt − tw)/2/tft ≤ limit (6)
     const fk = this.fk,
       v = this.v,
@@ -683,7 +827,7 @@ class FamilySearch {
       sec = fk.second;
     const lo = firstAbove(W, fk.secondMin(v));
     let hi = W.length - 1;
-    const lim = this.ctx.slenderLimit[3];
+    const lim = this.ctx.slenderLimit[3] * cap;
     if (lim === lim && lo < W.length) {
       // (bt − tw)/2/tft is the first slenderness element of mono-i
       v[sec] = W[lo];
@@ -718,7 +862,7 @@ class FamilySearch {
         const nBb = W.length - kLo;
         if (nBt > 0 && nBb > 0) {
           this.t.grid += nBt * nBb;
-          this.seeds.append(this.superRawKey(W[W.length - nBt], W[kLo]), this.encode(idx), 0, 0, KIND_SUPER_RAW);
+          this.seeds.append(this.superRawKey(W[W.length - nBt], W[kLo]), this.encode(idx), 0, 0, KIND_SUPER_RAW, this.fam, nBt * nBb);
         }
       }
       let o = outer.length - 1;
@@ -752,7 +896,7 @@ class FamilySearch {
       tft = v[2],
       tfb = v[4],
       tw = v[5];
-    const req = this.baseIreq(d);
+    const req = this.baseIreq(d, 1);
     const afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
     const at0 = btLo * tft,
       ab0 = bbLo * tfb,
@@ -779,7 +923,7 @@ class FamilySearch {
   private m = { y0: 0, i00: 0, it: 0, ib: 0, o00: 0, ot: 0, ob: 0, bt0: 0, bb0: 0, jLo: 0, jHi: 0, kLo: 0, kHi: 0, req: 0 };
 
   /** Lower bound on the objective over the super node's (bt, bb) rectangle, or null when none can pass. */
-  superBound(id: number, jA = 0, jB = Infinity): number | null {
+  superBound(id: number, jA: number, jB: number, cap: number): number | null {
     const fk = this.fk,
       v = this.v,
       W = this.W,
@@ -787,7 +931,7 @@ class FamilySearch {
       f = fk.free,
       p = this.plates,
       n = fk.nPlates;
-    let [jLo, jHi] = this.btRange();
+    let [jLo, jHi] = this.btRange(cap);
     jLo = Math.max(jLo, jA);
     jHi = Math.min(jHi, jB);
     if (jHi < jLo) {
@@ -797,9 +941,9 @@ class FamilySearch {
     const kLo = firstAbove(W, fk.freeMin(v));
     // bottom outstand and web; the top outstand element is held at an allowed bt (jLo)
     v[sec] = W[jLo];
-    const kHi = this.rowHi(kLo);
+    const kHi = this.rowHi(kLo, W.length - 1, cap);
     if (kHi < 0) return null;
-    let req = this.baseIreq(this.depthOf());
+    let req = this.baseIreq(this.depthOf(), cap);
     {
       // (2) with the fibre distances bounded over the box: the centroid moves toward a widening
       // flange, so c_top is least with the widest top and narrowest bottom flange, c_bot the reverse
@@ -815,10 +959,12 @@ class FamilySearch {
       fk.fill(v, p);
       compositeKernel(p, n, ko);
       const cBot = ko[K_CY] - ko[K_MINY];
-      req = Math.max(req, (ctx.Ms * cTop) / ctx.aC, (ctx.Ms * cBot) / ctx.aT, (ctx.Mh * cTop) / ctx.aT, (ctx.Mh * cBot) / ctx.aC);
+      const aC = ctx.aC * cap,
+        aT = ctx.aT * cap;
+      req = Math.max(req, (ctx.Ms * cTop) / aC, (ctx.Ms * cBot) / aT, (ctx.Mh * cTop) / aT, (ctx.Mh * cBot) / aC);
     }
     req *= 1 - REL;
-    if (this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi)) {
+    if (this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi, cap)) {
       this.t.ruledOut[C_SHEAR] += (jHi - jLo + 1) * (kHi - kLo + 1);
       return null;
     }
@@ -895,18 +1041,19 @@ class FamilySearch {
     return best;
   }
 
-  /** Bounds a super node over bt indices [jA, jB] and pushes it (k, hi = its bt range) if it can still win. */
-  private pushSuper(id: number, jA: number, jB: number): void {
-    const bound = this.superBound(id, jA, jB);
-    if (bound !== null && bound <= this.incumbent()) this.heap.push(bound, id, this.m.jLo, this.m.jHi, KIND_SUPER);
+  /** Bounds a super node over bt indices [jA, jB] at cap and pushes it (k, hi = its bt range) if it can still matter. */
+  private pushSuper(id: number, jA: number, jB: number, cap: number): void {
+    const bound = this.superBound(id, jA, jB, cap);
+    const m = this.m;
+    if (bound !== null && bound <= this.limit()) this.push(bound, id, m.jLo, m.jHi, KIND_SUPER, (m.jHi - m.jLo + 1) * (m.kHi - m.kLo + 1));
   }
 
   /** Pops of a small super node: one raw row per bt, keyed by the affine model's bound for that bt. */
-  expandSuper(id: number, jA: number, jB: number): void {
-    if (this.superBound(id, jA, jB) === null) return;
+  expandSuper(id: number, jA: number, jB: number, cap: number): void {
+    if (this.superBound(id, jA, jB, cap) === null) return;
     const m = this.m,
       W = this.W,
-      inc = this.incumbent();
+      inc = this.limit();
     const secPos = this.groupDims.indexOf(this.fk.second);
     // the second width's radix position: id with bt index j = id + j·stride
     let stride = 1;
@@ -924,7 +1071,7 @@ class FamilySearch {
       if (key > inc) continue;
       const k = Math.max(m.kLo, firstAtLeast(W, bb - REL * (Math.abs(bb) + 1)));
       if (k > m.kHi) continue;
-      this.heap.push(key, id + j * stride, k, m.kHi, KIND_RAW);
+      this.push(key, id + j * stride, k, m.kHi, KIND_RAW, m.kHi - k + 1);
     }
   }
 }
@@ -934,12 +1081,47 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
   if (options.exhaustive) return bruteForceSearch(input, options);
   const problem = searchProblemSchema.parse(input);
   const p = prepare(problem, options.depthIndexRange);
-  const t = new Tally(p.families.length);
-  options.onProgress?.(0, p.families.length);
-  p.families.forEach((pf, i) => {
-    checkAbort(options.signal);
-    new FamilySearch(pf, p.ctx, t, Math.max(0, options.explore ?? 0)).run(options.signal);
-    options.onProgress?.(i + 1, p.families.length);
-  });
-  return buildResult(p, t);
+  const explore = Math.max(0, options.explore ?? 0);
+  const gridMode = (options.front ?? (explore > 0 ? "evaluated" : "grid")) === "grid";
+  const t = new Tally(p.families.length, gridMode ? p.depths.length : 0);
+  const shared = gridMode ? new Heap() : null;
+  const fams = p.families.map((pf) => new FamilySearch(pf, p.ctx, t, shared ?? new Heap(), gridMode, gridMode ? 0 : explore));
+  checkAbort(options.signal);
+  for (const fs of fams) fs.seed();
+  const report = () => {
+    if (!options.onProgress) return;
+    let pending = 0;
+    for (const fs of fams) pending += fs.pending;
+    options.onProgress(t.grid - pending, t.grid);
+  };
+  report();
+  if (!gridMode) {
+    for (const fs of fams) {
+      checkAbort(options.signal);
+      fs.run(options.signal, report);
+      report();
+    }
+    return buildResult(p, t, "evaluated");
+  }
+  // Grid mode: one heap over every family, so the front (which spans families) is built
+  // lightest first and its dominance bound (D) is as strong as it can be when each entry pops.
+  const h = shared!;
+  for (const fs of fams) {
+    const sd = fs.seeds;
+    for (let i = 0; i < sd.size; i++) h.push(sd.key[i], sd.id[i], sd.k[i], sd.hi[i], sd.kind[i], fs.fam, sd.n[i]);
+    fs.seeds = new Heap();
+  }
+  let steps = 0;
+  while (h.size > 0) {
+    if (++steps % ABORT_EVERY === 0) {
+      checkAbort(options.signal);
+      report();
+    }
+    h.pop();
+    const fs = fams[h.outFam];
+    fs.pending -= h.outN;
+    fs.step(h.outKey, h.outId, h.outK, h.outHi, h.outKind);
+  }
+  report();
+  return buildResult(p, t, "grid");
 }

@@ -20,7 +20,7 @@ import { z } from "zod";
 import { db, parseJson } from "~/lib/db.server";
 import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
-import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate } from "~/optimizer";
+import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
 import { notify } from "~/lib/notifications.server";
 
@@ -307,15 +307,15 @@ async function lockHeld(trx: Knex.Transaction, claim: Pick<Claim, "id" | "token"
  * (lightest first) so one pathological sweep cannot write an unbounded number of rows.
  */
 export function candidatesToStore(result: SearchResult, objective: "mass" | "cost") {
-  const keyOf = (c: SearchCandidate) => `${c.family}|${JSON.stringify(c.dimensions)}`;
+  const keyOf = (c: SearchPoint) => `${c.family}|${JSON.stringify(c.dimensions)}`;
   const familyBest = new Set<string>();
   for (const c of Object.values(result.bestByFamily)) if (c) familyBest.add(keyOf(c));
   const front = new Set(result.front.slice(0, STORED_FRONT_CAP).map(keyOf));
-  const all = new Map<string, SearchCandidate>();
+  const all = new Map<string, SearchPoint>();
   for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily)])
     if (c && !all.has(keyOf(c))) all.set(keyOf(c), c);
   const bestKey = result.best ? keyOf(result.best) : null;
-  const obj = (c: SearchCandidate) => (objective === "cost" && c.cost !== undefined ? c.cost : c.area);
+  const obj = (c: SearchPoint) => (objective === "cost" && c.cost !== undefined ? c.cost : c.area);
   const list = [...all.values()].sort((a, b) => {
     if (bestKey && keyOf(a) === bestKey) return -1;
     if (bestKey && keyOf(b) === bestKey) return 1;

@@ -16,20 +16,20 @@ import { isMainThread, parentPort, workerData } from "node:worker_threads";
 import * as Comlink from "comlink";
 import { FAMILY_KERNELS } from "../optimizer/family-kernel";
 import { Front, compareAcross, type RawCandidate } from "../optimizer/front";
-import type { SearchCandidate, SearchResult } from "../optimizer/grid";
+import type { SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "../optimizer/grid";
 import { searchSections } from "../optimizer/search";
 import { axisCount, searchProblemSchema, type SearchProblemInput } from "../optimizer/search-schema";
 import { nodeEndpoint, spawnThread } from "./thread-spawn";
 const WORKER_FLAG = "sparwise-search-thread";
 
 interface ThreadApi {
-  run(problem: SearchProblemInput, range: [number, number], exhaustive: boolean, explore: number, onProgress?: (done: number, total: number) => void): SearchResult;
+  run(problem: SearchProblemInput, range: [number, number], options: Pick<SearchOptions, "exhaustive" | "explore" | "front">, onProgress?: (done: number, total: number) => void): SearchResult;
 }
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
   const api: ThreadApi = {
-    run: (problem, range, exhaustive, explore, onProgress) =>
-      searchSections(problem, { depthIndexRange: range, exhaustive, explore, onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined }),
+    run: (problem, range, options, onProgress) =>
+      searchSections(problem, { ...options, depthIndexRange: range, onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined }),
   };
   Comlink.expose(api, nodeEndpoint(parentPort));
 }
@@ -42,13 +42,15 @@ export interface ThreadSearchOptions {
   exhaustive?: boolean;
   /** as SearchOptions.explore (each thread explores around its own range's best) */
   explore?: number;
-  /** summed over the threads (each reports per family, as searchSections does) */
+  /** as SearchOptions.front: "grid" (default) combines the parts' exact fronts into the grid's */
+  front?: SearchOptions["front"];
+  /** shapes settled and the grid, summed over the threads (SearchOptions.onProgress) */
   onProgress?: (done: number, total: number) => void;
 }
 
 const spawn = () => spawnThread(import.meta.url, WORKER_FLAG);
 
-function raw(problemFamilies: string[], c: SearchCandidate): RawCandidate & { out: SearchCandidate } {
+function raw<T extends SearchPoint>(problemFamilies: string[], c: T): RawCandidate & { out: T } {
   const fk = FAMILY_KERNELS[c.family];
   return {
     fi: problemFamilies.indexOf(c.family),
@@ -76,18 +78,25 @@ export function combineResults(problemFamilies: string[], parts: SearchResult[])
     bestByFamily[f] = fb ? fb.out : null;
     if (fb && (!best || compareAcross(fb, best) < 0)) best = fb;
   }
+  // The grid's front is the front of the parts' grid fronts (a grid front member is on its own
+  // part's front; a part's member beaten in the union is beaten in the grid).
   const front = new Front();
   for (const p of parts) for (const c of p.front) front.offer(raw(problemFamilies, c), (x) => x);
   const frontOut = [...front.items]
     .sort((a, b) => a.objective - b.objective || a.utilisation - b.utilisation || compareAcross(a, b))
-    .map((x) => (x as RawCandidate & { out: SearchCandidate }).out);
+    .map((x) => (x as RawCandidate & { out: SearchPoint }).out);
   const counts = { grid: 0, evaluated: 0, feasible: 0 };
   for (const p of parts) {
     counts.grid += p.counts.grid;
     counts.evaluated += p.counts.evaluated;
     counts.feasible += p.counts.feasible;
   }
-  const res: SearchResult = { best: best ? best.out : null, bestByFamily, front: frontOut, counts };
+  const frontScope = parts.length > 0 && parts.every((p) => p.frontScope === "grid") ? "grid" : "evaluated";
+  const res: SearchResult = { best: best ? best.out : null, bestByFamily, front: frontOut, frontScope, counts };
+  if (frontScope === "grid") {
+    // parts hold disjoint, ascending depth ranges: per family, their context points in part order
+    res.context = problemFamilies.flatMap((f) => parts.flatMap((p) => (p.context ?? []).filter((c) => c.family === f)));
+  }
   if (!best) {
     const withReason = parts.filter((p) => p.reason).sort((a, b) => b.counts.grid - a.counts.grid);
     res.reason = withReason[0]?.reason ?? "No candidate passes every check.";
@@ -104,9 +113,11 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
   const n = Math.max(1, Math.min(options.threads ?? availableParallelism(), nDepths));
   const cuts = Array.from({ length: n + 1 }, (_, i) => Math.round((i * nDepths) / n));
   const workers = Array.from({ length: n }, spawn);
-  const progress = new Array<[number, number]>(n).fill([0, problem.families.length]);
+  // Each thread reports shapes of its own grid part; the sum is the whole grid's only once every
+  // part has counted its grid, so nothing is reported before then (the total never jumps).
+  const progress = new Array<[number, number]>(n).fill([0, -1]);
   const report = () => {
-    if (!options.onProgress) return;
+    if (!options.onProgress || progress.some((p) => p[1] < 0)) return;
     options.onProgress(
       progress.reduce((s, p) => s + p[0], 0),
       progress.reduce((s, p) => s + p[1], 0),
@@ -129,7 +140,7 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
             report();
           })
         : undefined;
-      return api.run(input, [cuts[i], cuts[i + 1]], options.exhaustive ?? false, options.explore ?? 0, cb) as Promise<SearchResult>;
+      return api.run(input, [cuts[i], cuts[i + 1]], { exhaustive: options.exhaustive, explore: options.explore, front: options.front }, cb) as Promise<SearchResult>;
     });
     const parts = await Promise.race([Promise.all(runs), aborted]);
     return combineResults(problem.families, parts);

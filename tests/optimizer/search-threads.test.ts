@@ -16,7 +16,7 @@ const problem: SearchProblemInput = {
 };
 
 describe("search on worker threads", () => {
-  it("gives the same best, bests per family and grid count as one thread; exhaustive fronts match", async () => {
+  it("gives the same best, bests per family, grid count, grid front and context as one thread; exhaustive fronts match", async () => {
     const one = searchSections(problem);
     const progress: number[] = [];
     const many = await searchInThreads(problem, { threads: 3, onProgress: (d) => progress.push(d) });
@@ -24,7 +24,12 @@ describe("search on worker threads", () => {
     expect(many.best?.dimensions).toEqual(one.best?.dimensions);
     for (const f of problem.families) expect(many.bestByFamily[f]?.dimensions ?? null).toEqual(one.bestByFamily[f]?.dimensions ?? null);
     expect(many.counts.grid).toBe(one.counts.grid);
-    expect(progress.at(-1)).toBe(3 * problem.families.length);
+    // progress in shapes: the parts' grids add up to the whole grid
+    expect(progress.at(-1)).toBe(one.counts.grid);
+    // the parts' exact fronts combine to the whole grid's front; context points by family, then depth
+    expect(many.frontScope).toBe("grid");
+    expect(many.front.map((c) => [c.family, c.dimensions])).toEqual(one.front.map((c) => [c.family, c.dimensions]));
+    expect(many.context!.map((c) => [c.family, c.dimensions])).toEqual(one.context!.map((c) => [c.family, c.dimensions]));
     const small: SearchProblemInput = { ...problem, depth: { min: 150, max: 300, step: 10 }, width: { min: 80, max: 200, step: 20 } };
     const ex1 = searchSections(small, { exhaustive: true });
     const exN = await searchInThreads(small, { threads: 2, exhaustive: true });

@@ -184,9 +184,11 @@ describe("result shape", () => {
 });
 
 describe("explore", () => {
-  it("widens the front without changing the best", () => {
-    const plain = searchSections(base);
+  it("widens the evaluated front without changing the best (a labelled approximation)", () => {
+    const plain = searchSections(base, { front: "evaluated" });
     const wide = searchSections(base, { explore: 0.3 });
+    expect(wide.frontScope).toBe("evaluated");
+    expect(wide.context).toBeUndefined();
     expect(wide.best?.dimensions).toEqual(plain.best?.dimensions);
     expect(wide.front.length).toBeGreaterThan(plain.front.length);
     for (const c of wide.front) {
@@ -197,11 +199,19 @@ describe("explore", () => {
 });
 
 describe("progress and abort", () => {
-  it("reports progress from 0 to the total", () => {
-    const calls: [number, number][] = [];
-    searchSections(base, { onProgress: (d, t) => calls.push([d, t]) });
-    expect(calls[0]).toEqual([0, 5]);
-    expect(calls.at(-1)).toEqual([5, 5]);
+  it("reports shapes settled against the grid, ending at the grid", () => {
+    for (const front of ["grid", "evaluated"] as const) {
+      const calls: [number, number][] = [];
+      const r = searchSections({ ...base, families: ["i", "mono-i", "tee"] }, { front, onProgress: (d, t) => calls.push([d, t]) });
+      expect(calls.length).toBeGreaterThan(2);
+      for (const [d, t] of calls) {
+        expect(t).toBe(r.counts.grid);
+        expect(d).toBeGreaterThanOrEqual(0);
+        expect(d).toBeLessThanOrEqual(t);
+      }
+      for (let i = 1; i < calls.length; i++) expect(calls[i][0]).toBeGreaterThanOrEqual(calls[i - 1][0]);
+      expect(calls.at(-1)).toEqual([r.counts.grid, r.counts.grid]);
+    }
   });
 
   it("an aborted signal stops the search with an AbortError", () => {
