@@ -18,6 +18,7 @@ export default [
     route("admin", "routes/admin.tsx"),
     route("admin/outbox", "routes/admin.outbox.tsx"),
     route("admin/materials", "routes/admin.materials.tsx"),
+    route("admin/catalogues", "routes/admin.catalogues.tsx"),
     // Section bench
     route("bench", "routes/bench.tsx"),
     // Sweep notices

@@ -97,11 +97,6 @@ export function SectionDrawing({
     );
   }
   const { width: bw, depth: bh } = outline;
-  // A hollow section's corners (hollow.ts) are spandrels cut from its outer ring and added back
-  // inside its hole: drawn in the rings' even-odd path they leave exactly the rounded wall.
-  const hollow = outline.fillets.some((f) => f.sign === -1);
-  const ringFillets = hollow ? outline.fillets : [];
-  const looseFillets = hollow ? [] : outline.fillets;
   // Margins leave room for the dimension lines and their labels in screen pixels, so text
   // keeps its size whatever the section's scale.
   const ml = showDimensions ? 70 : 16,
@@ -114,6 +109,26 @@ export function SectionDrawing({
   const X = (z: number) => ox + z * scale;
   const Y = (y: number) => oy + (bh - y) * scale;
   const poly = (pts: [number, number][]) => pts.map(([z, y], i) => `${i ? "L" : "M"}${X(z).toFixed(2)},${Y(y).toFixed(2)}`).join("") + "Z";
+  // Spandrels cut away (sign −1: a hollow section's outer corners, an angle's rounded toes) are
+  // drawn as sub-paths of one even-odd path with what they are cut from, so they show as gaps.
+  // A hollow section (rings) puts every corner piece there: those inside its hole come back
+  // filled. Otherwise the cut ones go with the plates and root fillets stay separate pieces.
+  const hasRings = outline.rings.length > 0;
+  const cuts = outline.fillets.some((f) => f.sign === -1);
+  const platesInPath = !hasRings && cuts;
+  const pathFillets = hasRings ? outline.fillets : outline.fillets.filter((f) => f.sign === -1);
+  const looseFillets = hasRings ? [] : outline.fillets.filter((f) => f.sign !== -1);
+  const rectPoints = (p: { b: number; h: number; z: number; y: number }): [number, number][] => [
+    [p.z, p.y],
+    [p.z + p.b, p.y],
+    [p.z + p.b, p.y + p.h],
+    [p.z, p.y + p.h],
+  ];
+  const evenOdd = [
+    ...outline.rings.map((r) => poly(r.points)),
+    ...(platesInPath ? outline.plates.map((p) => poly(rectPoints(p))) : []),
+    ...(hasRings || platesInPath ? pathFillets.map((f) => poly(filletPoints(f))) : []),
+  ].join("");
 
   const c = properties ? { z: properties.centroid.z, y: properties.centroid.y } : null;
   const inclined = c && neutralAxisAngleDeg != null && Number.isFinite(neutralAxisAngleDeg) && Math.abs(neutralAxisAngleDeg) > 1e-6;
@@ -134,10 +149,10 @@ export function SectionDrawing({
         </defs>
         {/* material */}
         <g fill={ACCENT} fillOpacity={0.22} stroke={INK} strokeWidth={1.25}>
-          {outline.plates.map((p, i) => (
-            <rect key={`p${i}`} x={X(p.z)} y={Y(p.y + p.h)} width={p.b * scale} height={p.h * scale} />
-          ))}
-          {outline.rings.length > 0 ? <path d={[...outline.rings.map((r) => poly(r.points)), ...ringFillets.map((f) => poly(filletPoints(f)))].join("")} fillRule="evenodd" /> : null}
+          {platesInPath
+            ? null
+            : outline.plates.map((p, i) => <rect key={`p${i}`} x={X(p.z)} y={Y(p.y + p.h)} width={p.b * scale} height={p.h * scale} />)}
+          {evenOdd ? <path d={evenOdd} fillRule="evenodd" /> : null}
         </g>
         {looseFillets.map((f, i) => (
           <path key={`f${i}`} d={poly(filletPoints(f))} fill={ACCENT} fillOpacity={0.22} stroke="none" />

@@ -15,6 +15,8 @@ export const PERMISSIONS = [
   "review",
   "cancelAnySweep",
   "manageTeam",
+  // upload, replace and delete the team's section catalogues (product.md, "Catalogue")
+  "manageCatalogues",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 

@@ -21,7 +21,13 @@ export const FAMILY_DIMENSIONS = {
 } as const satisfies Record<Family, readonly string[]>;
 
 /** Families that take an optional root radius r. */
-export const FILLETED_FAMILIES: readonly Family[] = ["i", "channel", "tee"];
+export const FILLETED_FAMILIES: readonly Family[] = ["i", "channel", "tee", "angle"];
+/**
+ * Families that also take a toe radius rt: a rolled angle's leg tips are rounded on the inner
+ * face (EN 10056-1 prints it as r2), which moves its area by about 1%, far beyond a table's
+ * rounding, so matching printed angle properties needs it.
+ */
+export const TOE_RADIUS_FAMILIES: readonly Family[] = ["angle"];
 
 export type FamilyDims = Record<string, number>;
 
@@ -94,11 +100,21 @@ export function familyRuleViolation(family: Family, dims: FamilyDims): { field: 
 
 /** Root-radius rule: the fillet must fit in the clear outstand and the clear web/stem. */
 export function filletRuleViolation(family: Family, dims: FamilyDims): { field: string; message: string } | null {
+  const rt = dims.rt ?? 0;
+  if (rt !== 0) {
+    if (!TOE_RADIUS_FAMILIES.includes(family)) return v("rt", `${family}: takes no toe radius rt`);
+    if (!Number.isFinite(rt) || rt < 0) return v("rt", `${family}: rt must be a finite number ≥ 0`);
+    if (rt > dims.t) return v("rt", `${family}: rt must not exceed t`);
+  }
   const r = dims.r ?? 0;
   if (r === 0) return null;
   if (!FILLETED_FAMILIES.includes(family)) return v("r", `${family}: takes no root radius r`);
   if (!Number.isFinite(r) || r < 0) return v("r", `${family}: r must be a finite number ≥ 0`);
   const { d, b, tf, tw } = dims;
+  if (family === "angle") {
+    if (r > Math.min(d, b) - dims.t) return v("r", "angle: r must not exceed the clear leg, min(d, b) − t");
+    return null;
+  }
   const outstand = family === "channel" ? b - tw : (b - tw) / 2;
   if (r > outstand) return v("r", family === "channel" ? "channel: r must not exceed b − tw" : `${family}: r must not exceed (b − tw)/2`);
   if (family === "tee") {
@@ -155,17 +171,26 @@ function unflippedPlates(family: Family, dims: FamilyDims): PlateRect[] {
   }
 }
 
-/** Root fillets for i / channel / tee when r > 0 (empty otherwise). Same frame and flip as familyPlates. */
+/**
+ * Root fillets for i / channel / tee / angle when r > 0, and an angle's rounded toes when rt > 0
+ * (spandrels cut away, sign −1); empty otherwise. Same frame and flip as familyPlates.
+ */
 export function familyFillets(family: Family, dims: FamilyDims, flip = false): Fillet[] {
   const r = dims.r ?? 0;
-  if (r <= 0 || !FILLETED_FAMILIES.includes(family)) return [];
+  const rt = dims.rt ?? 0;
+  if ((r <= 0 && rt <= 0) || !FILLETED_FAMILIES.includes(family)) return [];
   check(family, dims);
   const { d, b, tf, tw } = dims;
   const F = (z: number, y: number, dz: 1 | -1, dy: 1 | -1): Fillet => ({ z, y, dz, dy, r });
   let out: Fillet[];
   const wl = (b - tw) / 2,
     wr = (b + tw) / 2;
-  if (family === "i") out = [F(wl, tf, -1, 1), F(wr, tf, 1, 1), F(wl, d - tf, -1, -1), F(wr, d - tf, 1, -1)];
+  if (family === "angle") {
+    const t = dims.t;
+    out = r > 0 ? [F(t, t, 1, 1)] : [];
+    // the inner corner of each leg's tip: top of the vertical leg, right end of the horizontal one
+    if (rt > 0) out.push({ z: t, y: d, dz: -1, dy: -1, r: rt, sign: -1 }, { z: b, y: t, dz: -1, dy: -1, r: rt, sign: -1 });
+  } else if (family === "i") out = [F(wl, tf, -1, 1), F(wr, tf, 1, 1), F(wl, d - tf, -1, -1), F(wr, d - tf, 1, -1)];
   else if (family === "channel") out = [F(tw, tf, 1, 1), F(tw, d - tf, 1, -1)];
   else out = [F(wl, d - tf, -1, -1), F(wr, d - tf, 1, -1)];
   if (!flip) return out;

@@ -16,3 +16,4 @@ export type * from "./design-types";
 export * from "./units";
 export * from "./materials";
 export { rationalise, rationaliseInputSchema, candidateThicknesses, type RationaliseInput, type RationaliseResult, type RationaliseChoice } from "./rationalise";
+export * from "./catalogue";

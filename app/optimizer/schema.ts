@@ -2,7 +2,7 @@
 // API routes and workers. The geometry rules come from validate.ts, shared with the
 // engine's own hand-written fast check.
 import { z } from "zod";
-import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, type Family } from "./geometry";
+import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, TOE_RADIUS_FAMILIES, type Family } from "./geometry";
 import { HOLLOW_DIMENSIONS, SECTION_FAMILIES, type HollowFamily } from "./hollow";
 import { MAX_DENSITY, familyViolation, findInputViolation, platesOverlap, polygonsViolation } from "./validate";
 
@@ -41,9 +41,10 @@ export const polygonsInputSchema = z
 function familyObject<F extends Family>(family: F) {
   const dims: Record<string, z.ZodNumber> = {};
   for (const k of FAMILY_DIMENSIONS[family]) dims[k] = positive(`${family}: ${k}`);
-  const extra = FILLETED_FAMILIES.includes(family)
-    ? { r: finite(`${family}: r`).refine((x) => x >= 0, `${family}: r must be ≥ 0`).optional() }
-    : {};
+  const extra = {
+    ...(FILLETED_FAMILIES.includes(family) ? { r: finite(`${family}: r`).refine((x) => x >= 0, `${family}: r must be ≥ 0`).optional() } : {}),
+    ...(TOE_RADIUS_FAMILIES.includes(family) ? { rt: finite(`${family}: rt`).refine((x) => x >= 0, `${family}: rt must be ≥ 0`).optional() } : {}),
+  };
   return z.object({
     family: z.literal(family),
     ...(dims as { [K in (typeof FAMILY_DIMENSIONS)[F][number]]: z.ZodNumber }),

@@ -2,7 +2,7 @@
 // at the edges: forms, API, workers) and by sectionProperties' own hand-written structural
 // check, which keeps zod out of the hot path (zod parsing costs several microseconds a
 // section; the bench needs well under one).
-import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, familyRuleViolation, filletRuleViolation, type Family } from "./geometry";
+import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, TOE_RADIUS_FAMILIES, familyRuleViolation, filletRuleViolation, type Family } from "./geometry";
 import { HOLLOW_DIMENSIONS, SECTION_FAMILIES, hollowRuleViolation, isHollowFamily } from "./hollow";
 import { ringDefect, ringInside, ringsOverlap } from "./polygon";
 import { dropClosingPoint, makeRing } from "./shape";
@@ -156,6 +156,10 @@ export function findInputViolation(input: unknown): Violation | null {
     if (o.r !== undefined) {
       if (!FILLETED_FAMILIES.includes(f)) return bad(["r"], `${f}: takes no root radius r`);
       if (!(isNum(o.r) && o.r >= 0)) return bad(["r"], `${f}: r must be a finite number ≥ 0`);
+    }
+    if (o.rt !== undefined) {
+      if (!TOE_RADIUS_FAMILIES.includes(f)) return bad(["rt"], `${f}: takes no toe radius rt`);
+      if (!(isNum(o.rt) && o.rt >= 0)) return bad(["rt"], `${f}: rt must be a finite number ≥ 0`);
     }
     for (const k of FAMILY_DIMENSIONS[f]) if (!isNum(o[k])) return bad([k], `${f}: ${k} must be a finite number`);
     return familyViolation(o);

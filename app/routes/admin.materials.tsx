@@ -113,6 +113,7 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
         <nav aria-label="Team admin" className="flex gap-4 text-sm font-semibold">
           <a href="/admin" className="text-accent-strong underline">Members</a>
           <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
+          <a href="/admin/catalogues" className="text-accent-strong underline">Catalogues</a>
           <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
         </nav>
       </div>

@@ -70,6 +70,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
         <h1 className="text-2xl font-bold">{user.teamName}: members</h1>
         <nav aria-label="Team admin" className="flex gap-4 text-sm font-semibold">
           <a href="/admin/materials" className="text-accent-strong underline">Materials</a>
+          <a href="/admin/catalogues" className="text-accent-strong underline">Catalogues</a>
           <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
           <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
         </nav>

@@ -68,6 +68,8 @@ export const ROWS: Record<string, BadInputRow> = {
   "/admin": { as: "admin", field: "intent", malformed: { intent: "invite", email: "new@example.org", role: "overlord" }, malformedField: "role" },
   // density typed in t/m³ (7.85) instead of kg/m³ is refused by the material's range
   "/admin/materials": { as: "admin", field: "intent", malformed: { intent: "create", name: "Unit slip", E: "210000", fy: "355", density: "7.85" }, malformedField: "density" },
+  // a catalogue whose one line has text where a dimension is due: malformed, nothing kept
+  "/admin/catalogues": { as: "admin", field: "intent", malformed: { intent: "create", name: "Bad catalogue", file: "designation,shape,d_mm\nX,I,abc\n" }, malformedField: "file" },
 
   // ---- Section bench (add rows here)
   "/bench": { as: "engineer", field: "projectId", malformed: { projectId: "1", name: "trial", state: "{not a bench" }, malformedField: "state" },

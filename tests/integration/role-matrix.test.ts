@@ -85,6 +85,8 @@ export const ROWS: Record<string, MatrixRow> = {
   "/admin/outbox": { get: permitted("manageTeam", 200) },
   // reading the team's materials is admin-only like /admin; an empty post names the missing intent
   "/admin/materials": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
+  // section catalogues: admin only; an empty post names the missing intent
+  "/admin/catalogues": { get: permitted("manageCatalogues", 200), post: permitted("manageCatalogues", 400) },
 
   // ---- Section bench (add rows here)
   // the bench is for every member; saving to a project needs editBrief (an empty post is a 400)

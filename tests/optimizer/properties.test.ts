@@ -222,7 +222,7 @@ describe("bad input throws EngineInputError naming the field", () => {
     [{ plates: [] }, "plates", "plates needs at least one plate"],
     [{ family: "i", d: 20, b: 100, tf: 10, tw: 6 }, "d", "i: d must exceed 2·tf"],
     [{ family: "box", d: 100, b: 10, tf: 10, tw: 6 }, "b", "box: b must exceed 2·tw"],
-    [{ family: "angle", d: 100, b: 100, t: 10, r: 5 }, "r", "angle: takes no root radius r"],
+    [{ family: "box", d: 100, b: 100, tf: 10, tw: 10, r: 5 }, "r", "box: takes no root radius r"],
     [{ polygons: [{ points: [[0, 0], [1, 1], [1, 0], [0, 1]] }] }, "polygons[0].points", "polygons[0] self-intersects (edges 0 and 2)"],
     [{ polygons: [{ points: [[0, 0], [1, 0], [2, 0]] }] }, "polygons[0].points", "polygons[0] edges 0 and 2 fold back on each other"],
     [{ polygons: [{ points: [[0, 0], [10, 0], [0, 10]] }, { points: [[5, 5], [20, 5], [5, 20]], hole: true }] }, "polygons[1]", "polygons[1] (a hole) must lie inside a solid polygon"],

@@ -72,6 +72,15 @@ describe("SectionDrawing", () => {
     expect(paths[0]![1]!.split("Z").filter(Boolean)).toHaveLength(10);
   });
 
+  test("an angle's rounded toes are cut from its legs in one even-odd path; its root fillet is drawn on its own", () => {
+    const html = renderToString(createElement(SectionDrawing, { section: { family: "angle", d: 100, b: 100, t: 10, r: 12, rt: 6 } as SectionInput }));
+    const paths = [...html.matchAll(/<path d="([^"]+)"[^>]*fill-rule="evenodd"/g)];
+    expect(paths).toHaveLength(1);
+    // two leg rectangles and two toe spandrels
+    expect(paths[0]![1]!.split("Z").filter(Boolean)).toHaveLength(4);
+    expect(html).not.toContain("<rect x=");
+  });
+
   test("an invalid section renders a message, not an exception", () => {
     const html = text(renderToString(createElement(SectionDrawing, { section: { family: "i", d: 10, b: 100, tf: 6, tw: 5 } })));
     expect(html).toContain("No drawing");

@@ -1,0 +1,320 @@
+// Section catalogues: upload a CSV of rolled or hollow sections in our own column layout (documented
+// on this page from CATALOGUE_CSV_HELP, and in the README), see every row the engine disagrees
+// with, keep the rows that pass. A malformed file keeps nothing; the upload is read under a cap.
+import { Form, Link, data } from "react-router";
+import type { Route } from "./+types/admin.catalogues";
+import { Button, Field, FormError, Notice } from "~/components/ui";
+import { requirePermission } from "~/lib/auth.server";
+import { fieldErrorsFrom, formToObject, readForm, withFieldErrors } from "~/lib/forms.server";
+import {
+  CATALOGUE_CSV_EXAMPLE,
+  CATALOGUE_CSV_HELP,
+  CATALOGUE_CSV_MAX_BYTES,
+  DIM_HEADER,
+  PRINTED_HEADER,
+  parseCatalogueCsv,
+  type CatalogueFileError,
+} from "~/lib/catalogue-csv";
+import {
+  CATALOGUE_NAME_MAX,
+  catalogueActionSchema,
+  createCatalogue,
+  deleteCatalogue,
+  getCatalogue,
+  listCatalogues,
+  replaceCatalogue,
+  type UploadReport,
+} from "~/lib/catalogues.server";
+import { idParam } from "~/lib/route-params";
+import { CATALOGUE_DIMENSIONS, PRINTED_FIELDS, PRINTED_UNITS, SHAPE_WORDS } from "~/optimizer";
+
+export function meta() {
+  return [{ title: "Catalogues · Sparwise" }];
+}
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requirePermission(request, "manageCatalogues");
+  const url = new URL(request.url);
+  const view = idParam(url.searchParams.get("view") ?? undefined);
+  const [catalogues, viewing] = await Promise.all([listCatalogues(user.teamId), Number.isNaN(view) ? null : getCatalogue(user.teamId, view)]);
+  return { teamName: user.teamName, catalogues, viewing };
+}
+
+// Room for the multipart envelope and the other fields around a file at the limit.
+const FORM_LIMIT = CATALOGUE_CSV_MAX_BYTES + 16 * 1024;
+
+type ActionResult = {
+  errors: Record<string, string> | null;
+  /** a malformed file's line-numbered problems (nothing was kept) */
+  lines?: CatalogueFileError[];
+  report?: UploadReport;
+  done?: string;
+};
+
+function fileFailure(lines: CatalogueFileError[], status: number) {
+  const text = lines.map((e) => (e.line ? `line ${e.line}: ${e.message}` : e.message)).join("; ");
+  return data<ActionResult>({ errors: { file: `File: ${text}` }, lines }, { status });
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const admin = await requirePermission(request, "manageCatalogues");
+  const upload = (request.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data");
+  let form: FormData;
+  try {
+    form = upload ? await readForm(request, FORM_LIMIT) : await readForm(request);
+  } catch (e) {
+    if (upload && e instanceof Response && e.status === 413)
+      return fileFailure([{ line: 0, message: `too large: over the ${CATALOGUE_CSV_MAX_BYTES / 1024} kB limit; nothing was kept` }], 413);
+    throw e;
+  }
+  const { file, ...fields } = formToObject(form);
+  const parsedAction = catalogueActionSchema.safeParse(fields);
+  if (!parsedAction.success) return data<ActionResult>({ errors: fieldErrorsFrom(parsedAction.error, fields) }, { status: 400 });
+  const input = parsedAction.data;
+  if (input.intent === "delete")
+    return withFieldErrors(async () => {
+      const name = await deleteCatalogue(admin.teamId, admin.id, input.id);
+      return { errors: null, done: `Deleted “${name}”. Sweeps that searched it keep their own copy of its sections.` } satisfies ActionResult;
+    });
+
+  if (!(file instanceof File) && typeof file !== "string") return fileFailure([{ line: 0, message: "choose a CSV file" }], 400);
+  if (file instanceof File && file.size === 0 && !file.name) return fileFailure([{ line: 0, message: "choose a CSV file" }], 400);
+  const text = typeof file === "string" ? file : await file.text();
+  const parsed = parseCatalogueCsv(text, typeof file === "string" ? undefined : file.size);
+  if (!parsed.ok) return fileFailure(parsed.errors, 400);
+  const report: UploadReport = { rows: parsed.rows, kept: parsed.sections.length, rejectedRows: parsed.rejectedRows, rejected: parsed.rejected };
+  if (input.intent === "check") return { errors: null, report } satisfies ActionResult;
+  if (parsed.sections.length === 0)
+    return data<ActionResult>({ errors: { file: "File: no row passed the check, so nothing was kept; fix the rows listed and upload again." }, report }, { status: 400 });
+  return withFieldErrors(async () => {
+    if (input.intent === "create") {
+      await createCatalogue({ teamId: admin.teamId, userId: admin.id, name: input.name, parsed });
+      return { errors: null, report, done: `Kept “${input.name}”: ${parsed.sections.length} sections.` } satisfies ActionResult;
+    }
+    const name = await replaceCatalogue({ teamId: admin.teamId, userId: admin.id, id: input.id, parsed });
+    return { errors: null, report, done: `Replaced the sections of “${name}”: ${parsed.sections.length} now.` } satisfies ActionResult;
+  });
+}
+
+const day = (d: string) => d.slice(0, 10);
+
+function Report({ report, kept }: { report: UploadReport; kept: boolean }) {
+  return (
+    <div className="space-y-2" data-testid="catalogue-report">
+      <p className="text-sm">
+        {report.rows} {report.rows === 1 ? "section" : "sections"} read: {report.kept} passed the check{kept ? " and were kept" : ""}
+        {report.rejectedRows ? `, ${report.rejectedRows} ${report.rejectedRows === 1 ? "row was" : "rows were"} kept out` : ""}.
+      </p>
+      {report.rejected.length ? (
+        <div className="overflow-x-auto">
+          <table className="min-w-full text-left text-sm" data-testid="rejected-rows">
+            <caption className="text-left font-semibold">Rows kept out until fixed</caption>
+            <thead className="border-b border-ink/20">
+              <tr>
+                <th scope="col" className="py-1 pr-3 text-right">Line</th>
+                <th scope="col" className="py-1 pr-3">Designation</th>
+                <th scope="col" className="py-1 pr-3">Field</th>
+                <th scope="col" className="py-1 pr-3 text-right">Printed</th>
+                <th scope="col" className="py-1 pr-3 text-right">Computed</th>
+                <th scope="col" className="py-1">Problem</th>
+              </tr>
+            </thead>
+            <tbody>
+              {report.rejected.map((r, i) => (
+                <tr key={i} className="border-b border-ink/10 align-top">
+                  <td className="py-1 pr-3 text-right tabular-nums">{r.line}</td>
+                  <td className="py-1 pr-3 font-semibold">{r.designation}</td>
+                  <td className="py-1 pr-3 font-mono text-xs">{r.field}</td>
+                  <td className="py-1 pr-3 text-right tabular-nums">{r.printed ?? "—"}</td>
+                  <td className="py-1 pr-3 text-right tabular-nums">{r.computed ?? "—"}</td>
+                  <td className="py-1">{r.message}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          {report.rejected.length < report.rejectedRows ? <p className="text-xs text-ink/70">The first {report.rejected.length} problems are listed.</p> : null}
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
+export default function AdminCatalogues({ loaderData, actionData }: Route.ComponentProps) {
+  const { teamName, catalogues, viewing } = loaderData;
+  const result = actionData as ActionResult | undefined;
+  const errors = result?.errors ?? {};
+  const topError = errors.id ?? errors.intent ?? errors.form;
+  return (
+    <div className="space-y-8">
+      <div className="flex flex-wrap items-baseline justify-between gap-4">
+        <h1 className="text-2xl font-bold">{teamName}: section catalogues</h1>
+        <nav aria-label="Team admin" className="flex gap-4 text-sm font-semibold">
+          <a href="/admin" className="text-accent-strong underline">Members</a>
+          <a href="/admin/materials" className="text-accent-strong underline">Materials</a>
+          <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
+          <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
+        </nav>
+      </div>
+      <p className="max-w-3xl text-sm text-ink/80">
+        A catalogue is your team's table of rolled and hollow sections. Every printed value in it is checked against the section properties computed from its dimensions, so a
+        typing slip in a table shows up here, with its line, before any sweep relies on it.
+      </p>
+      <Notice message={result?.done ?? null} />
+      <FormError message={topError} />
+
+      <section aria-labelledby="list-h" className="space-y-3">
+        <h2 id="list-h" className="text-xl font-bold">Your team's catalogues</h2>
+        {catalogues.length === 0 ? (
+          <p className="text-sm text-ink/70">No catalogues yet. Upload one below.</p>
+        ) : (
+          <div className="overflow-x-auto">
+            <table className="min-w-full text-left text-sm">
+              <thead className="border-b border-ink/20">
+                <tr>
+                  <th scope="col" className="py-2 pr-4">Name</th>
+                  <th scope="col" className="py-2 pr-4 text-right">Sections</th>
+                  <th scope="col" className="py-2 pr-4 text-right">Kept out at the last upload</th>
+                  <th scope="col" className="py-2 pr-4">Updated</th>
+                  <th scope="col" className="py-2"><span className="sr-only">Actions</span></th>
+                </tr>
+              </thead>
+              <tbody>
+                {catalogues.map((c) => (
+                  <tr key={c.id} className={`border-b border-ink/10 ${viewing?.id === c.id ? "bg-teal-50" : ""}`}>
+                    <th scope="row" className="py-2 pr-4 font-semibold">{c.name}</th>
+                    <td className="py-2 pr-4 text-right tabular-nums">{c.sections}</td>
+                    <td className="py-2 pr-4 text-right tabular-nums">{c.rejectedRows}</td>
+                    <td className="py-2 pr-4 whitespace-nowrap">
+                      {day(c.updatedAt)}
+                      {c.uploadedBy ? ` · ${c.uploadedBy}` : ""}
+                    </td>
+                    <td className="py-2">
+                      <div className="flex items-center gap-2">
+                        <Link to={`/admin/catalogues?view=${c.id}`} className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold hover:bg-ink/5" aria-label={`Show the sections of ${c.name}`}>
+                          Sections
+                        </Link>
+                        <Form method="post">
+                          <input type="hidden" name="intent" value="delete" />
+                          <input type="hidden" name="id" value={c.id} />
+                          <Button variant="danger" aria-label={`Delete ${c.name}`}>Delete</Button>
+                        </Form>
+                      </div>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
+
+      {viewing ? (
+        <section aria-labelledby="view-h" className="space-y-3">
+          <h2 id="view-h" className="text-xl font-bold">{viewing.name}: {viewing.sections} sections, lightest first</h2>
+          <div className="max-h-[32rem] overflow-auto rounded border border-ink/15 bg-white">
+            <table className="min-w-full text-left text-sm" data-testid="catalogue-sections">
+              <thead className="sticky top-0 border-b border-ink/20 bg-white">
+                <tr>
+                  <th scope="col" className="px-2 py-1">Designation</th>
+                  <th scope="col" className="px-2 py-1">Shape</th>
+                  <th scope="col" className="px-2 py-1">Dimensions (mm)</th>
+                  <th scope="col" className="px-2 py-1 text-right">Mass (kg/m)</th>
+                  <th scope="col" className="px-2 py-1">Printed values checked</th>
+                </tr>
+              </thead>
+              <tbody>
+                {viewing.sectionRows.map((s) => (
+                  <tr key={s.designation} className="border-b border-ink/10">
+                    <th scope="row" className="px-2 py-1 font-semibold">{s.designation}</th>
+                    <td className="px-2 py-1">{SHAPE_WORDS[s.shape]}</td>
+                    <td className="px-2 py-1 tabular-nums">
+                      {CATALOGUE_DIMENSIONS.filter((k) => s.dims[k] !== undefined)
+                        .map((k) => `${k} ${s.dims[k]}`)
+                        .join(" · ")}
+                    </td>
+                    <td className="px-2 py-1 text-right tabular-nums">{s.massPerMetre.toFixed(2)}</td>
+                    <td className="px-2 py-1 text-xs">
+                      {PRINTED_FIELDS.filter((f) => s.printed[f] !== undefined)
+                        .map((f) => `${f} ${s.printed[f]}`)
+                        .join(" · ") || "none"}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          {viewing.report && viewing.report.rejectedRows ? <Report report={viewing.report} kept /> : null}
+        </section>
+      ) : null}
+
+      <section aria-labelledby="upload-h" className="max-w-4xl space-y-3 rounded-lg border border-ink/15 bg-white p-4">
+        <h2 id="upload-h" className="text-lg font-bold">Upload a catalogue</h2>
+        <Form method="post" encType="multipart/form-data" className="space-y-3" noValidate>
+          <label className="block text-sm">
+            <span className="block font-semibold">CSV file</span>
+            <input type="file" name="file" accept=".csv,text/csv" required aria-describedby="catalogue-file-errors" />
+          </label>
+          <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
+            <Field id="catalogue-name" label="Name for a new catalogue" name="name" maxLength={CATALOGUE_NAME_MAX} error={errors.name} hint={`Up to ${CATALOGUE_NAME_MAX} characters; unique in the team.`} />
+            {catalogues.length ? (
+              <div className="space-y-1">
+                <label htmlFor="catalogue-replace" className="block text-sm font-semibold">Or replace the sections of</label>
+                <select id="catalogue-replace" name="id" className="block w-full rounded-md border border-ink/30 bg-white px-2 py-2 text-sm" defaultValue={viewing?.id}>
+                  {catalogues.map((c) => (
+                    <option key={c.id} value={c.id}>{c.name}</option>
+                  ))}
+                </select>
+              </div>
+            ) : null}
+          </div>
+          <div className="flex flex-wrap gap-2">
+            <Button variant="quiet" name="intent" value="check">Check only</Button>
+            <Button name="intent" value="create">Keep as a new catalogue</Button>
+            {catalogues.length ? (
+              <Button variant="quiet" name="intent" value="replace">Replace the chosen catalogue's sections</Button>
+            ) : null}
+          </div>
+        </Form>
+        <div id="catalogue-file-errors" aria-live="polite" className="space-y-2">
+          {result?.lines?.length ? (
+            <div role="alert" className="rounded-md border border-red-800 bg-red-50 p-3 text-sm" data-testid="catalogue-file-errors">
+              <p className="font-semibold">The file is malformed; nothing was kept:</p>
+              <ul className="list-disc pl-5">
+                {result.lines.map((e, i) => (
+                  <li key={i}>{e.line ? `line ${e.line}: ${e.message}` : e.message}</li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
+          {errors.file && !result?.lines ? <p role="alert" className="font-semibold text-red-800">{errors.file}</p> : null}
+          {result?.report ? <Report report={result.report} kept={Boolean(result.done)} /> : null}
+        </div>
+      </section>
+
+      <section aria-labelledby="layout-h" className="max-w-4xl space-y-3">
+        <h2 id="layout-h" className="text-lg font-bold">The file's layout</h2>
+        <p className="text-sm">One section per line, comma-separated, with a header line naming the columns:</p>
+        <table className="text-left text-sm">
+          <tbody>
+            {CATALOGUE_CSV_HELP.columns.map(([col, words]) => (
+              <tr key={col} className="border-b border-ink/10 align-top">
+                <th scope="row" className="py-1 pr-4 font-mono text-xs whitespace-nowrap">{col}</th>
+                <td className="py-1">{words}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        <ul className="list-disc pl-5 text-sm">
+          {CATALOGUE_CSV_HELP.notes.map((n) => (
+            <li key={n}>{n}</li>
+          ))}
+        </ul>
+        <p className="text-xs text-ink/70">
+          Headers: {[ "designation", "shape", ...Object.values(DIM_HEADER), ...Object.values(PRINTED_HEADER)].join(", ")}. Printed units:{" "}
+          {PRINTED_FIELDS.map((f) => `${f} ${PRINTED_UNITS[f]}`).join(", ")}.
+        </p>
+        <pre className="overflow-x-auto rounded bg-ink/5 p-3 text-xs">{CATALOGUE_CSV_EXAMPLE}</pre>
+      </section>
+    </div>
+  );
+}
