@@ -1,42 +1,35 @@
 // The feasibility checks of the engine contract (SearchProblem, "Feasible when every check
-// passes") and the issue's deflection check, written once: the brute-force reference, the fast
-// search and the calculation record all call evaluateCandidate, so their verdicts cannot drift.
+// passes"), written once: the brute-force reference, the fast search and the calculation
+// record all call evaluateCandidate, so their verdicts cannot drift. The brief's `basis`
+// chooses the design-basis module (basis/allowable.ts, basis/en1993.ts) that runs after the
+// checks every basis shares (the brief's slenderness limits, the section kernel).
 // Each check is demand vs capacity; utilisation = demand/capacity; a check passes when
 // demand ≤ capacity (compared directly, not through the rounded ratio).
 import * as composite from "./composite";
 import type { Family } from "./geometry";
 import * as fkm from "./family-kernel";
 import type { FamilyKernel } from "./family-kernel";
-import type { DesignBlock } from "./design-types";
 import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
+import type { DesignBlock } from "./design-types";
+import { allowableBasis } from "./basis/allowable";
+import { Scratch, finish, plateObjective, type CheckContext, type DesignBasisModule, type RecordLine } from "./basis/core";
+import { en1993Basis, makeEn1993Context } from "./basis/en1993";
+import { EngineInputError } from "./errors";
+
+export { Scratch, plateObjective, type CheckContext, type DesignBasisModule, type RecordLine };
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
-const { compositeKernel, maxShearFactor, KERNEL_OUT, K_AREA, K_CY, K_CZ, K_IY, K_IYZ, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
-const { C_COMP, C_DEFL, C_SHEAR, C_TENS, FAMILY_KERNELS, N_CHECKS } = fkm;
+const { compositeKernel, K_AREA } = composite;
+const { FAMILY_KERNELS, N_CHECKS } = fkm;
 
-export interface CheckContext {
-  /** 0 = "allowable", 1 = "en1993" (member-checks.md §2). */
-  basis: 0 | 1;
-  /** Design moments, N·mm (kN·m × 10⁶). */
-  Ms: number;
-  Mh: number;
-  /** Shear force, N (kN × 10³); 0 when no shear check. */
-  V: number;
-  hasShear: boolean;
-  aT: number;
-  aC: number;
-  aS: number;
-  /** Slenderness limit per check index; NaN when that limit is not given. */
-  slenderLimit: Float64Array;
-  hasDeflection: boolean;
-  /** 5·w·L⁴/(384·E): the deflection is this ÷ I (mm). */
-  deflNumerator: number;
-  /** L / limitRatio, mm. */
-  deflLimit: number;
-  density: number;
-  cost: boolean;
-  /** Price per kg by plate thickness (cost objective). */
-  prices: Map<number, number>;
+/** The design-basis modules, indexed by CheckContext.basis. */
+export const BASIS_MODULES: readonly DesignBasisModule[] = [allowableBasis, en1993Basis];
+const evalAllowable = allowableBasis.evaluate,
+  evalEn1993 = en1993Basis.evaluate;
+
+/** The module of a brief's basis (record lines, caution wording). */
+export function designBasis(basis: SearchProblem["basis"]): DesignBasisModule {
+  return basis === "en1993" ? en1993Basis : allowableBasis;
 }
 
 export function makeCheckContext(p: SearchProblem): CheckContext {
@@ -63,6 +56,7 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
   // of search.ts vacuous (and so sound) without touching it.
   return {
     basis: en ? 1 : 0,
+    precedence: (en ? en1993Basis : allowableBasis).precedence,
     Ms: p.moment.sagging * 1e6,
     Mh: p.moment.hogging * 1e6,
     V: hasShear ? p.shear! * 1000 : 0,
@@ -77,33 +71,8 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     density: p.density,
     cost: p.objective === "cost",
     prices: new Map((p.prices ?? []).map((q) => [q.thickness, q.pricePerKg])),
+    en: en ? makeEn1993Context(p) : null,
   };
-}
-
-/** Reusable buffers for one evaluating thread. */
-export class Scratch {
-  plates = new Float64Array(8 * PLATE_STRIDE);
-  k = new Float64Array(KERNEL_OUT);
-  demand = new Float64Array(N_CHECKS);
-  capacity = new Float64Array(N_CHECKS);
-  ratios = new Float64Array(8);
-  utilisation = 0;
-  governing = -1;
-  area = 0;
-  objective = 0;
-}
-
-/**
- * Objective of the plates in s.plates: area (mm², objective "mass") or cost per metre
- * (Σ plate area × density × 10⁻⁶ × price of the plate's thickness).
- */
-export function plateObjective(fk: FamilyKernel, v: Float64Array, plates: Float64Array, ctx: CheckContext): number {
-  let a = 0;
-  for (let i = 0; i < fk.nPlates; i++) {
-    const ar = plates[i * PLATE_STRIDE] * plates[i * PLATE_STRIDE + 1];
-    a += ctx.cost ? ar * (ctx.prices.get(v[fk.plateThickness[i]]) ?? NaN) : ar;
-  }
-  return ctx.cost ? a * ctx.density * 1e-6 : a;
 }
 
 /**
@@ -135,105 +104,12 @@ export function evaluateCandidate(fk: FamilyKernel, v: Float64Array, ctx: CheckC
       const c = kinds[i];
       if (dem[c] > cap[c]) ok = false;
     }
-    if (!ok && !all) return finish(s, false);
+    if (!ok && !all) return finish(s, false, ctx);
   }
-  const p = s.plates,
-    k = s.k;
-  fk.fill(v, p);
-  compositeKernel(p, fk.nPlates, k);
-  s.area = k[K_AREA];
-  const Iz = k[K_IZ];
-  if (ctx.basis === 1) {
-    // EN 1993 basis: its families are all symmetric about the vertical axis.
-    if (ctx.hasDeflection) {
-      dem[C_DEFL] = ctx.deflNumerator / Iz;
-      cap[C_DEFL] = ctx.deflLimit;
-      if (dem[C_DEFL] > ctx.deflLimit) ok = false;
-    }
-    return finish(s, ok, ctx, fk, v);
-  }
-  // Bending about the horizontal axis (engine contract). Sagging compresses the top fibre.
-  let comp: number, tens: number, Ibend: number;
-  if (!fk.unsymmetric) {
-    const cTop = k[K_MAXY] - k[K_CY],
-      cBot = k[K_CY] - k[K_MINY];
-    // σ = M·c / Iz (elementary flexure formula; Iyz = 0 for shapes symmetric about an axis).
-    comp = Math.max(ctx.Ms * cTop, ctx.Mh * cBot) / Iz;
-    tens = Math.max(ctx.Ms * cBot, ctx.Mh * cTop) / Iz;
-    Ibend = Iz;
-  } else {
-    // General (unsymmetric) bending with My = 0: σ = M·(Iyz·z − Iy·y)/(Iz·Iy − Iyz²), z and y
-    // centroidal, M > 0 sagging (e.g. Boresi & Schmidt, Advanced Mechanics of Materials, ch. 7;
-    // formula as written in the engine contract). Linear in (z, y), so its extremes over the
-    // section are at convex-hull vertices, all of which are plate corners.
-    const Iy = k[K_IY],
-      Iyz = k[K_IYZ],
-      cz = k[K_CZ],
-      cy = k[K_CY];
-    const den = Iz * Iy - Iyz * Iyz;
-    let vmax = -Infinity,
-      vmin = Infinity;
-    for (let i = 0; i < fk.nPlates; i++) {
-      const o = i * PLATE_STRIDE;
-      const z0 = p[o + 2] - cz,
-        y0 = p[o + 3] - cy,
-        z1 = z0 + p[o],
-        y1 = y0 + p[o + 1];
-      const a = (Iyz * z0 - Iy * y0) / den,
-        b = (Iyz * z1 - Iy * y0) / den,
-        c = (Iyz * z0 - Iy * y1) / den,
-        d = (Iyz * z1 - Iy * y1) / den;
-      vmax = Math.max(vmax, a, b, c, d);
-      vmin = Math.min(vmin, a, b, c, d);
-    }
-    // sagging: σ = Ms·v; hogging: σ = −Mh·v (tension positive)
-    comp = Math.max(-ctx.Ms * vmin, ctx.Mh * vmax, 0);
-    tens = Math.max(ctx.Ms * vmax, -ctx.Mh * vmin, 0);
-    // Vertical deflection of an unsymmetric section under a vertical load uses the
-    // curvature M·Iy/(Iz·Iy − Iyz²), i.e. an effective I = Iz − Iyz²/Iy (same general theory).
-    Ibend = den / Iy;
-  }
-  dem[C_COMP] = comp;
-  cap[C_COMP] = ctx.aC;
-  dem[C_TENS] = tens;
-  cap[C_TENS] = ctx.aT;
-  if (comp > ctx.aC || tens > ctx.aT) {
-    ok = false;
-    if (!all) return finish(s, false);
-  }
-  if (ctx.hasDeflection) {
-    dem[C_DEFL] = ctx.deflNumerator / Ibend;
-    cap[C_DEFL] = ctx.deflLimit;
-    if (dem[C_DEFL] > ctx.deflLimit) {
-      ok = false;
-      if (!all) return finish(s, false);
-    }
-  }
-  if (ctx.hasShear) {
-    // max over y of V·Q(y)/(Iz·b(y)) (engine contract, shear check), from the section kernel.
-    dem[C_SHEAR] = ctx.V * maxShearFactor(p, fk.nPlates, k[K_CY], Iz);
-    cap[C_SHEAR] = ctx.aS;
-    if (dem[C_SHEAR] > ctx.aS) ok = false;
-  }
-  return finish(s, ok, ctx, fk, v);
-}
-
-function finish(s: Scratch, ok: boolean, ctx?: CheckContext, fk?: FamilyKernel, v?: Float64Array): boolean {
-  let u = -Infinity,
-    g = -1;
-  for (let c = 0; c < N_CHECKS; c++) {
-    const d = s.demand[c];
-    if (d !== d) continue;
-    const r = d / s.capacity[c];
-    if (r > u) {
-      u = r;
-      g = c;
-    }
-  }
-  s.utilisation = u;
-  s.governing = g;
-  if (ok && ctx && fk && v) s.objective = ctx.cost ? plateObjective(fk, v, s.plates, ctx) : s.area;
-  return ok;
+  fk.fill(v, s.plates);
+  compositeKernel(s.plates, fk.nPlates, s.k);
+  s.area = s.k[K_AREA];
+  return ctx.basis === 0 ? evalAllowable(fk, v, ctx, s, all, ok) : evalEn1993(fk, v, ctx, s, all, ok);
 }
 
 export type CheckUnit = "MPa" | "mm" | "ratio" | "kN·m" | "kN";
@@ -304,13 +180,25 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
   const fk = FAMILY_KERNELS[family];
   const v = Float64Array.from(fk.dims, (n) => dims[n]);
   const s = new Scratch();
-  const feasible = evaluateCandidate(fk, v, makeCheckContext(problem), s, true);
+  const ctx = makeCheckContext(problem);
+  if (ctx.en && family === "rectangle" && !(Math.min(dims.b, dims.d) <= ctx.en.bandT[ctx.en.bandT.length - 1]))
+    throw new EngineInputError("rectangle", `rectangle: its smaller side ${Math.min(dims.b, dims.d)} mm is beyond the last fy band (steel.fy)`);
+  const feasible = evaluateCandidate(fk, v, ctx, s, true);
   const checks: CheckResult[] = [];
-  for (let c = 0; c < N_CHECKS; c++) {
+  // listed in the basis's order (member-checks.md's numbering under en1993)
+  for (const c of ctx.precedence) {
     const d = s.demand[c];
     if (d !== d) continue;
     const name = CHECK_NAMES[c];
     checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: CHECK_CLAUSES[name] });
   }
-  return { checks, utilisation: s.utilisation, governing: CHECK_NAMES[s.governing], feasible, area: s.area };
+  const out: CandidateVerdict = { checks, utilisation: s.utilisation, governing: CHECK_NAMES[s.governing], feasible, area: s.area };
+  const design = BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem);
+  if (design) out.design = design;
+  return out;
+}
+
+/** The calculation record's lines for a verdict under the brief's basis (each naming its clause). */
+export function recordLines(problem: SearchProblem, verdict: CandidateVerdict): RecordLine[] {
+  return designBasis(problem.basis).recordLines(verdict);
 }

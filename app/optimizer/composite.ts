@@ -207,6 +207,11 @@ export function packPlates(plates: readonly PlateRect[], into?: Float64Array): F
  * Z = Σ b·∫|y − p| dy per plate in closed form.
  */
 export function platePlasticModulus(plates: Float64Array, count: number, A: number, start?: number): number {
+  return plateModulusAbout(plates, count, plateNeutralAxis(plates, count, A, start));
+}
+
+/** The horizontal equal-area (plastic neutral) axis of the plates, by the walk described above. */
+export function plateNeutralAxis(plates: Float64Array, count: number, A: number, start?: number): number {
   const half = 0.5 * A;
   const m = count * PLATE_STRIDE;
   let p = start === undefined ? plateCentroidY(plates, count) : start;
@@ -251,6 +256,12 @@ export function platePlasticModulus(plates: Float64Array, count: number, A: numb
       p = eDown;
     }
   }
+  return p;
+}
+
+/** ∫|y − p| dA over the plates: the plastic modulus when p is the equal-area axis. */
+export function plateModulusAbout(plates: Float64Array, count: number, p: number): number {
+  const m = count * PLATE_STRIDE;
   let Z = 0;
   for (let i = 0; i < m; i += PLATE_STRIDE) {
     const b = plates[i],

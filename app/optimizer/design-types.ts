@@ -120,13 +120,13 @@ export interface BearingDesign {
   m2: number;
   /** effective loaded length, mm */
   ly: number;
-  /** kN */
+  /** per web, kN */
   Fcr: number;
   lambdaF: number;
   chiF: number;
   /** mm */
   Leff: number;
-  /** kN */
+  /** summed over the webs (box: two), kN */
   FRd: number;
 }
 
@@ -142,8 +142,8 @@ export interface DesignBlock {
   epsilon: number;
   sectionClass: SectionClass;
   elements: ClassifiedElement[];
-  /** the modulus every check of the section uses, mm³ */
-  W: number;
+  /** the modulus every check of the section uses, mm³; null for class 4 */
+  W: number | null;
   Wkind: "plastic" | "elastic";
   /** kN·m; null for class 4 (not checked further) */
   McRd: number | null;

@@ -99,13 +99,62 @@ export interface Prepared {
   families: PreparedFamily[];
 }
 
+/**
+ * Fabrication rules (member-checks.md §2, `fabrication`) are grid exclusions, not checks: the
+ * shapes they drop are not in the grid at all (counts.grid leaves them out), under either basis.
+ * - minThickness: stock plates thinner are dropped from the thickness axis; a solid rectangle's
+ *   sides (its plate) must reach it too.
+ * - flangeAtLeastWeb: tf ≥ tw for each flange (a rule on the row's fixed dimensions).
+ * - minBoxClear: boxes with b − 2·tw ≥ minBoxClear (a least free width).
+ * Each is folded into the family kernel's own rules (groupValid, freeMin, secondMin), which both
+ * the fast search and brute force obey, so they stay exactly equal. "≥" is taken with a 1e-12
+ * relative allowance so a grid value meant to land on a limit is not lost to rounding.
+ */
+const AT_LEAST = 1 - 1e-12;
+export function fabricationKernel(fk: FamilyKernel, fab: SearchProblem["fabrication"]): FamilyKernel {
+  if (!fab) return fk;
+  const { minThickness: mt, flangeAtLeastWeb, minBoxClear } = fab;
+  const pairs: [number, number][] = [];
+  if (flangeAtLeastWeb) {
+    // [flange thickness index, web thickness index] in FAMILY_DIMENSIONS order
+    if (fk.family === "i" || fk.family === "channel" || fk.family === "tee" || fk.family === "box") pairs.push([2, 3]);
+    else if (fk.family === "mono-i") pairs.push([2, 5], [4, 5]);
+    else if (fk.family === "channel-down") pairs.push([3, 2]);
+  }
+  const rectMin = fk.family === "rectangle" && mt !== undefined ? mt * AT_LEAST : 0;
+  const boxClear = fk.family === "box" && minBoxClear !== undefined ? minBoxClear : undefined;
+  if (pairs.length === 0 && rectMin === 0 && boxClear === undefined) return fk;
+  const { groupValid, freeMin } = fk;
+  return {
+    ...fk,
+    groupValid: (v) => {
+      if (!groupValid(v)) return false;
+      for (const [f, w] of pairs) if (!(v[f] >= v[w] * AT_LEAST)) return false;
+      // rectangle [b, d]: d is the row's fixed side
+      return !(rectMin > 0 && !(v[1] >= rectMin));
+    },
+    // the free width must be strictly above freeMin: just below the least allowed value
+    freeMin: (v) => {
+      let m = freeMin(v);
+      if (rectMin > 0 && rectMin * AT_LEAST > m) m = rectMin * AT_LEAST;
+      if (boxClear !== undefined) {
+        const need = (boxClear + 2 * v[3]) * AT_LEAST;
+        if (need > m) m = need;
+      }
+      return m;
+    },
+  };
+}
+
 export function prepare(problem: SearchProblem, depthIndexRange?: [number, number]): Prepared {
   let depths = gridValues(problem.depth);
   if (depthIndexRange) depths = depths.slice(Math.max(0, depthIndexRange[0]), Math.min(depths.length, depthIndexRange[1]));
   const widths = gridValues(problem.width);
-  const thicknesses = Float64Array.from([...new Set(problem.thicknesses)].sort((a, b) => a - b));
+  const mt = problem.fabrication?.minThickness;
+  const stock = [...new Set(problem.thicknesses)].filter((t) => mt === undefined || t >= mt * AT_LEAST);
+  const thicknesses = Float64Array.from(stock.sort((a, b) => a - b));
   const families = problem.families.map((f, fi) => {
-    const fk = FAMILY_KERNELS[f];
+    const fk = fabricationKernel(FAMILY_KERNELS[f], problem.fabrication);
     return { fi, fk, axes: fk.roles.map((r) => (r === "depth" ? depths : r === "width" ? widths : thicknesses)) };
   });
   return { problem, ctx: makeCheckContext(problem), depths, widths, thicknesses, families };

@@ -27,6 +27,8 @@ import {
 } from "./composite";
 import type { StabilityProperties } from "./design-types";
 import { EngineInputError } from "./errors";
+import { FAMILY_DIMENSIONS, type Family } from "./geometry";
+import { familyStability } from "./stability";
 import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringInside, ringIntegrals } from "./polygon";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
 import { hollowTorsion } from "./hollow";
@@ -65,7 +67,16 @@ export function sectionProperties(input: SectionInput): SectionProperties {
   const bad = findInputViolation(input);
   if (bad) throw new EngineInputError(pathText(bad.path) || "input", bad.message);
   const shape = buildShape(input);
-  return shapeProperties(shape, densityOf(input));
+  const out = shapeProperties(shape, densityOf(input));
+  out.stability = inputStability(input);
+  return out;
+}
+
+/** properties.stability of an already validated SectionInput (null for plates, polygons and the families without). */
+export function inputStability(input: SectionInput): StabilityProperties | null {
+  const fam = input as { family?: Family; flip?: boolean };
+  if (typeof fam.family !== "string") return null;
+  return familyStability(fam.family, input as unknown as Record<string, number>, FAMILY_DIMENSIONS[fam.family], fam.flip === true);
 }
 
 function densityOf(input: unknown): number {

@@ -264,7 +264,21 @@ export const searchProblemSchema = z
             ctx.addIssue({ code: "custom", path: ["thicknesses", i], message: `thicknesses: ${t} mm is beyond the last fy band (steel.fy up to ${last} mm); add a band or remove the plate` });
         });
       }
+      const lastBand = p.steel ? p.steel.fy[p.steel.fy.length - 1].maxThickness : Infinity;
       p.families.forEach((f, i) => {
+        // a rectangle takes fy from its smaller side (member-checks.md, readings pinned): the
+        // grid's largest such side must fall inside the bands too
+        if (f === "rectangle" && p.depth.max >= p.depth.min && p.width.max >= p.width.min) {
+          const nd = axisCount(p.depth) - 1,
+            nw = axisCount(p.width) - 1;
+          const side = Math.min(p.depth.min + nd * p.depth.step, p.width.min + nw * p.width.step);
+          if (side > lastBand)
+            ctx.addIssue({
+              code: "custom",
+              path: ["families", i],
+              message: `families: "rectangle" sides up to ${side} mm are beyond the last fy band (steel.fy up to ${lastBand} mm); limit depth.max or width.max to ${lastBand} mm, or add a band`,
+            });
+        }
         if (!(EN1993_FAMILIES as readonly string[]).includes(f))
           ctx.addIssue({ code: "custom", path: ["families", i], message: `families: "${f}" is ${EN1993_REFUSAL}` });
       });

@@ -5,7 +5,7 @@
 // bottom edges, so a drawing can use them directly.
 import { PLATE_STRIDE } from "./composite";
 import { EngineInputError } from "./errors";
-import { shapeProperties, type SectionProperties } from "./properties";
+import { inputStability, shapeProperties, type SectionProperties } from "./properties";
 import { DEFAULT_DENSITY, type SectionInput } from "./schema";
 import { buildShape, shapeAbove, shapeBBox, shapeBreaks, shapeWidth, type Shape } from "./shape";
 import { findInputViolation, pathText } from "./validate";
@@ -94,6 +94,7 @@ export function sectionStresses(input: SectionInput, loads: Loads, samples = 60)
   const shape = buildShape(input);
   const density = (input as { density?: number }).density ?? DEFAULT_DENSITY;
   const p = shapeProperties(shape, density);
+  p.stability = inputStability(input);
   const [minZ, , minY] = shapeBBox(shape);
   const cz = minZ + p.centroid.z,
     cy = minY + p.centroid.y;

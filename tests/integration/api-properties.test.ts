@@ -46,6 +46,23 @@ describe("POST /api/v1/properties", () => {
     expect(Math.abs((p.Zz as number) / 1e3 - 628.4)).toBeLessThan(0.05 + 0.2);
   });
 
+  test("stability properties (member-checks.md §1) with their units: the mono-i check value, null for plates", async () => {
+    const mono = { family: "mono-i", d: 440, bt: 170, tft: 10, bb: 130, tfb: 6, tw: 6 };
+    const r = await callRoute(api.action, post(JSON.stringify(mono), bearer()));
+    expect(r.status).toBe(200);
+    const { properties: p, units } = r.data as { properties: { stability: { betaX: number; Cw: number; shearCentre: { y: number } } }; units: { fields: Record<string, string> } };
+    expect(p.stability.betaX).toBeCloseTo(224.58, 2);
+    expect(p.stability.shearCentre.y).toBeCloseTo(343.61, 2);
+    expect(units.fields).toMatchObject({ "stability.h0": "mm", "stability.Cw": "mm⁶", "stability.betaX": "mm", "stability.J": "mm⁴", "stability.shearCentre.y": "mm" });
+    const us = await callRoute(api.action, post(JSON.stringify({ ...mono, units: "us", d: 440 / 25.4, bt: 170 / 25.4, tft: 10 / 25.4, bb: 130 / 25.4, tfb: 6 / 25.4, tw: 6 / 25.4 }), bearer()));
+    const u = us.data as { properties: { stability: { betaX: number; Cw: number } }; units: { fields: Record<string, string> } };
+    expect(u.units.fields["stability.Cw"]).toBe("in⁶");
+    expect(u.properties.stability.betaX).toBeCloseTo(p.stability.betaX / 25.4, 6);
+    expect(u.properties.stability.Cw).toBeCloseTo((p.stability.Cw as number) / 25.4 ** 6, 6);
+    const plates = await callRoute(api.action, post(JSON.stringify({ plates: [{ b: 10, h: 100, z: 0, y: 0 }], units: "us" }), bearer()));
+    expect((plates.data as { properties: { stability: unknown } }).properties.stability).toBeNull();
+  });
+
   test('units "us": inches in, in-based units out (a 4 in × 10 in rectangle: A = 40 in², Iz = b·d³/12, Zz = b·d²/4)', async () => {
     const r = await callRoute(api.action, post(JSON.stringify({ units: "us", family: "rectangle", b: 4, d: 10 }), bearer()));
     expect(r.status).toBe(200);

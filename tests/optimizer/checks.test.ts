@@ -2,6 +2,7 @@
 // relations, each computed here by a route independent of the plate kernel.
 import { describe, expect, it } from "vitest";
 import { candidateChecks } from "~/optimizer/checks";
+import { sectionProperties } from "~/optimizer/properties";
 import type { SearchProblem } from "~/optimizer/search-schema";
 import { searchProblemSchema } from "~/optimizer/search-schema";
 
@@ -115,3 +116,31 @@ describe("equal angle 100 × 100 × 10: unsymmetric bending", () => {
     expect(comp).toBeGreaterThan((M * (d - cy)) / Iz);
   });
 });
+
+describe("angle deflection under the allowable basis: the total, not the vertical component (issue 10)", () => {
+  it("total deflection = that of bending about each principal axis, combined (unequal angle 150 × 90 × 10)", () => {
+    const d = 150,
+      b = 90,
+      t = 10;
+    const p = sectionPropertiesOf(d, b, t);
+    // The vertical load w resolves onto the principal axes (θ from z to axis 1): each bends alone,
+    // δ1 = k·cos θ/I1, δ2 = k·sin θ/I2 with k = 5·w·L⁴/(384·E); the two are at right angles, so the
+    // total is k·√((cos θ/I1)² + (sin θ/I2)²) (Boresi & Schmidt, Advanced Mechanics of Materials,
+    // 6th ed., ch. 7, unsymmetric bending; any text's principal-axes method).
+    const L = 3000,
+      w = 2,
+      E = 210000;
+    const k = (5 * w * L ** 4) / (384 * E);
+    const th = (p.principal.angleDeg * Math.PI) / 180;
+    const total = k * Math.hypot(Math.cos(th) / p.principal.I1, Math.sin(th) / p.principal.I2);
+    const vertical = k * (p.Iy / (p.Iz * p.Iy - p.Iyz ** 2));
+    const r = candidateChecks("angle", { d, b, t }, problem({ deflection: { span: 3, serviceLoad: 2, limitRatio: 250, E } }));
+    expect(get(r, "deflection").demand).toBeCloseTo(total, 9);
+    // the sideways component makes it larger than the vertical one alone
+    expect(total).toBeGreaterThan(vertical * 1.05);
+  });
+});
+
+function sectionPropertiesOf(d: number, b: number, t: number) {
+  return sectionProperties({ family: "angle", d, b, t });
+}

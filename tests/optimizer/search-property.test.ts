@@ -230,8 +230,9 @@ describe("the best candidate re-checked by the section engine", () => {
           if (p.shear !== undefined) expect(Math.abs(s.maxShear)).toBeLessThanOrEqual(p.allowable!.shear! * tol);
           if (p.deflection) {
             const P = s.properties;
-            // vertical deflection uses Iz, or Iz − Iyz²/Iy for the unsymmetric angle
-            const I = family === "angle" ? P.Iz - P.Iyz ** 2 / P.Iy : P.Iz;
+            // deflection uses Iz; the unsymmetric angle's total (vertical and sideways) uses
+            // (Iz·Iy − Iyz²)/√(Iy² + Iyz²) (general unsymmetric bending)
+            const I = family === "angle" ? (P.Iz * P.Iy - P.Iyz ** 2) / Math.hypot(P.Iy, P.Iyz) : P.Iz;
             const L = p.deflection.span * 1000;
             const delta = (5 * p.deflection.serviceLoad * L ** 4) / (384 * p.deflection.E * I);
             expect(delta).toBeLessThanOrEqual((L / p.deflection.limitRatio) * tol);

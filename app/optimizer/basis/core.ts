@@ -1,0 +1,121 @@
+// What every design basis shares: the check context built once per problem, the reusable
+// scratch of one evaluating thread, and how a verdict is settled (utilisation, governing
+// check, objective). checks.ts holds the one evaluation that calls a basis; the basis
+// modules (allowable.ts, en1993.ts) hold their own checks.
+import * as composite from "../composite";
+import type { DesignBlock } from "../design-types";
+import type { FamilyKernel } from "../family-kernel";
+import * as fkm from "../family-kernel";
+import type { CheckName, SearchProblem } from "../search-schema";
+import type { En1993Context, En1993Scratch } from "./en1993";
+
+// Local copies of imported bindings (module transforms make each imported-name access a getter call).
+const { KERNEL_OUT, PLATE_STRIDE } = composite;
+const { N_CHECKS } = fkm;
+
+export interface CheckContext {
+  /** 0 = "allowable", 1 = "en1993" (member-checks.md §2): index into BASIS_MODULES. */
+  basis: 0 | 1;
+  /** Check indices in precedence order: ties in governing go to the earlier (member-checks.md §2's numbering). */
+  precedence: Int8Array;
+  /** Design moments, N·mm (kN·m × 10⁶). */
+  Ms: number;
+  Mh: number;
+  /** Shear force, N (kN × 10³); 0 when no shear check. */
+  V: number;
+  hasShear: boolean;
+  /** Allowable stresses, MPa; Infinity under "en1993", which keeps the stress bounds of search.ts vacuous. */
+  aT: number;
+  aC: number;
+  aS: number;
+  /** Slenderness limit per check index; NaN when that limit is not given. */
+  slenderLimit: Float64Array;
+  hasDeflection: boolean;
+  /** 5·w·L⁴/(384·E): the deflection is this ÷ I (mm). */
+  deflNumerator: number;
+  /** L / limitRatio, mm. */
+  deflLimit: number;
+  density: number;
+  cost: boolean;
+  /** Price per kg by plate thickness (cost objective). */
+  prices: Map<number, number>;
+  /** basis "en1993": steel, factors, restraint, supports. */
+  en: En1993Context | null;
+}
+
+/** Reusable buffers for one evaluating thread. */
+export class Scratch {
+  plates = new Float64Array(8 * PLATE_STRIDE);
+  k = new Float64Array(KERNEL_OUT);
+  demand = new Float64Array(N_CHECKS);
+  capacity = new Float64Array(N_CHECKS);
+  ratios = new Float64Array(8);
+  utilisation = 0;
+  governing = -1;
+  area = 0;
+  objective = 0;
+  /** basis "en1993": its intermediate results (filled by en1993.ts, read back for the design block) */
+  en: En1993Scratch | null = null;
+}
+
+/**
+ * Objective of the plates in s.plates: area (mm², objective "mass") or cost per metre
+ * (Σ plate area × density × 10⁻⁶ × price of the plate's thickness).
+ */
+export function plateObjective(fk: FamilyKernel, v: Float64Array, plates: Float64Array, ctx: CheckContext): number {
+  let a = 0;
+  for (let i = 0; i < fk.nPlates; i++) {
+    const ar = plates[i * PLATE_STRIDE] * plates[i * PLATE_STRIDE + 1];
+    a += ctx.cost ? ar * (ctx.prices.get(v[fk.plateThickness[i]]) ?? NaN) : ar;
+  }
+  return ctx.cost ? a * ctx.density * 1e-6 : a;
+}
+
+/**
+ * Settles the verdict: the largest utilisation among the checks filled in, the earliest in
+ * ctx.precedence on a tie; and, when feasible, the objective.
+ */
+export function finish(s: Scratch, ok: boolean, ctx: CheckContext, fk?: FamilyKernel, v?: Float64Array): boolean {
+  let u = -Infinity,
+    g = -1;
+  const order = ctx.precedence;
+  for (let i = 0; i < order.length; i++) {
+    const c = order[i];
+    const d = s.demand[c];
+    if (d !== d) continue;
+    const r = d / s.capacity[c];
+    if (r > u) {
+      u = r;
+      g = c;
+    }
+  }
+  s.utilisation = u;
+  s.governing = g;
+  if (ok && fk && v) s.objective = ctx.cost ? plateObjective(fk, v, s.plates, ctx) : s.area;
+  return ok;
+}
+
+/** One line of a calculation record: what was checked, under which clause, with which numbers. */
+export interface RecordLine {
+  clause: string;
+  text: string;
+}
+
+/** What a design basis module exposes (style.md: one module per basis, chosen by the brief's basis). */
+export interface DesignBasisModule {
+  id: SearchProblem["basis"];
+  /** check indices in precedence order (ties in governing go to the earlier) */
+  precedence: Int8Array;
+  /**
+   * The basis's checks for one candidate whose plates are already in s.plates and whose
+   * composite kernel is in s.k (checks.ts has run the shared slenderness checks; ok says
+   * whether they passed). all = false may stop at the first failure.
+   */
+  evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scratch, all: boolean, ok: boolean): boolean;
+  /** After evaluate(all = true): the design block for results and records (undefined under "allowable"). */
+  design(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scratch, problem: SearchProblem): DesignBlock | undefined;
+  /** The record's lines for a verdict under this basis (each naming its clause). */
+  recordLines(verdict: { checks: { name: CheckName; demand: number; capacity: number; utilisation: number }[]; design?: DesignBlock }): RecordLine[];
+  /** What the basis checks and what it does not, for the caution shown with its results. */
+  caution: { checks: string; notChecked: string };
+}
