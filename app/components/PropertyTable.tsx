@@ -1,7 +1,7 @@
 // Every SectionProperties field with its symbol, value and unit. Values arrive in SI (the
 // engine's units) and are converted for display only through units.ts.
 import type { SectionProperties } from "~/optimizer/properties";
-import { PROPERTY_QUANTITIES, fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 
 const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹", "2": "²", "3": "³", "4": "⁴", "5": "⁵", "6": "⁶", "7": "⁷", "8": "⁸", "9": "⁹" };
 
@@ -79,6 +79,16 @@ export const PROPERTY_ROWS: readonly PropertyRow[] = [
   { key: "J", symbol: "J", name: "Torsion constant" },
 ];
 
+/** properties.stability (member-checks.md §1), the constants lateral-torsional buckling uses; units from STABILITY_QUANTITIES. */
+export const STABILITY_ROWS: readonly PropertyRow[] = [
+  { key: "stability.h0", symbol: "h0", name: "Distance between the flanges' mid-thickness lines" },
+  { key: "stability.shearCentre.z", symbol: "z_sc", name: "Shear centre from the left edge" },
+  { key: "stability.shearCentre.y", symbol: "y_sc", name: "Shear centre from the bottom edge" },
+  { key: "stability.Cw", symbol: "Cw", name: "Warping constant" },
+  { key: "stability.betaX", symbol: "βx", name: "Mono-symmetry (Wagner) coefficient; > 0 when the top flange is the larger" },
+  { key: "stability.J", symbol: "J_LTB", name: "Torsion constant used for lateral-torsional buckling" },
+];
+
 const J_METHOD_WORDS: Record<SectionProperties["Jmethod"], string> = {
   "open-thin-walled": "open thin-walled, Σ b·t³/3",
   "closed-bredt": "closed cell, Bredt's formula",
@@ -86,9 +96,9 @@ const J_METHOD_WORDS: Record<SectionProperties["Jmethod"], string> = {
 };
 
 export function propertyValue(p: SectionProperties, key: string): number {
-  const [a, b] = key.split(".");
-  const v = (p as unknown as Record<string, unknown>)[a!];
-  return b === undefined ? (v as number) : (v as Record<string, number>)[b]!;
+  let v: unknown = p;
+  for (const k of key.split(".")) v = v && typeof v === "object" ? (v as Record<string, unknown>)[k] : undefined;
+  return typeof v === "number" ? v : NaN;
 }
 
 /** A symbol like "Sz,top" with its subscript set as a subscript. */
@@ -143,6 +153,30 @@ export function PropertyTable({
             </tr>
           );
         })}
+        <tr className="border-b border-ink/30">
+          <th scope="rowgroup" colSpan={3} className="pt-3 pb-1 text-left font-semibold">
+            Stability constants (lateral-torsional buckling; thin-walled midline model)
+          </th>
+        </tr>
+        {properties.stability ? (
+          STABILITY_ROWS.map((row) => (
+            <tr key={row.key} data-property={row.key} className="border-b border-ink/10 align-top">
+              <th scope="row" className="py-1 pr-2 font-semibold whitespace-nowrap">
+                <Symbol text={row.symbol} />
+              </th>
+              <td className="py-1 pr-2">{row.name}</td>
+              <td className="py-1 text-right tabular-nums whitespace-nowrap" data-value>
+                {formatQuantity(STABILITY_QUANTITIES[row.key]!, propertyValue(properties, row.key), units)}
+              </td>
+            </tr>
+          ))
+        ) : (
+          <tr data-property="stability">
+            <td colSpan={3} className="py-1 text-ink/70">
+              Not defined for this section: stability constants are given for the I (equal or unequal flanges), channel, tee, box and rectangle families only.
+            </td>
+          </tr>
+        )}
       </tbody>
     </table>
   );

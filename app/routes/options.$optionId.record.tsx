@@ -9,6 +9,8 @@ import { Caution } from "~/components/Caution";
 import { SectionDrawing } from "~/components/SectionDrawing";
 import { CheckTable } from "~/components/CheckTable";
 import { BriefSummary } from "~/components/BriefSummary";
+import { BasisNote } from "~/components/BasisAssumptions";
+import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
@@ -30,6 +32,8 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
   const units = option.units;
   const c = option.candidate;
   const rec = buildRecord(c.family, c.dimensions, option.problem);
+  // The EN 1993 part needs the engine's design block (absent under the allowable basis).
+  const en = option.problem.basis === "en1993" ? (rec.verdict.design ?? null) : null;
   const L = unitLabel("length", units),
     A2 = unitLabel("area", units),
     A3 = unitLabel("modulus", units),
@@ -70,6 +74,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         <h2 id="inputs-h" className="text-lg font-bold">
           1. Inputs{option.briefName ? ` (brief “${option.briefName}”)` : ""}
         </h2>
+        <BasisNote problem={option.problem} className="mb-1" />
         <BriefSummary problem={option.problem} units={units} />
         {option.memberLengthM && option.memberCount ? (
           <p className="mt-2 text-sm" data-testid="quantity">
@@ -195,26 +200,47 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         ))}
       </section>
 
-      <section aria-labelledby="checks-h" className="break-inside-avoid">
-        <h2 id="checks-h" className="text-lg font-bold">
-          5. Checks
-        </h2>
-        <CheckTable verdict={rec.verdict} units={units} />
-        <p className="mt-1 text-sm">
-          Utilisation = demand ÷ capacity; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {rec.verdict.governing}.
-        </p>
-      </section>
+      {en ? (
+        <>
+          <section aria-labelledby="basis-h" className="break-inside-avoid">
+            <h2 id="basis-h" className="text-lg font-bold">
+              5. Design basis and inputs
+            </h2>
+            <En1993Inputs problem={option.problem} design={en} units={units} />
+          </section>
+          <section aria-labelledby="checks-h" data-testid="record-en1993">
+            <h2 id="checks-h" className="text-lg font-bold">
+              6. EN 1993 checks worked through
+            </h2>
+            <p className="text-sm text-ink/80">Worked in SI units, the code's own{units === "us" ? "; each result also in US customary units in brackets" : ""}. Clauses in brackets.</p>
+            <En1993Checks problem={option.problem} verdict={rec.verdict} props={p} family={c.family} dims={c.dimensions} units={units} />
+          </section>
+        </>
+      ) : (
+        <section aria-labelledby="checks-h" className="break-inside-avoid">
+          <h2 id="checks-h" className="text-lg font-bold">
+            5. Checks
+          </h2>
+          <CheckTable verdict={rec.verdict} units={units} />
+          <p className="mt-1 text-sm">
+            Utilisation = demand ÷ capacity; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {rec.verdict.governing}.
+            {option.problem.basis === "en1993"
+              ? " The engine returned no EN 1993 design block for this section, so its checks cannot be worked through here."
+              : " Allowable-stress basis: stresses only, no stability checks (no lateral-torsional buckling, no shear buckling, no local buckling beyond the slenderness limits given)."}
+          </p>
+        </section>
+      )}
 
       <section aria-labelledby="props-h" className="break-inside-avoid">
         <h2 id="props-h" className="sr-only">
           Section properties
         </h2>
-        <PropertyTable properties={p} units={units} caption="6. Section properties (centroidal axes)" />
+        <PropertyTable properties={p} units={units} caption={`${en ? 7 : 6}. Section properties (centroidal axes)`} />
       </section>
 
       <section aria-labelledby="decision-h" className="break-inside-avoid">
         <h2 id="decision-h" className="text-lg font-bold">
-          7. Review
+          {en ? 8 : 7}. Review
         </h2>
         <p className="text-sm" data-testid="decision">
           {decision
