@@ -9,6 +9,7 @@ import { sendEmail } from "~/lib/email.server";
 import { notify } from "~/lib/notifications.server";
 import { notFound } from "~/lib/projects.server";
 import type { SessionUser } from "~/lib/auth.server";
+import { reviewRefusal, type ReviewTies } from "~/lib/roles";
 import { candidateChecks, type CandidateVerdict } from "~/optimizer/checks";
 import type { Family } from "~/optimizer/geometry";
 import type { SearchProblem } from "~/optimizer/search-schema";
@@ -63,6 +64,8 @@ export class WorkflowError extends Error {
   constructor(
     readonly field: string,
     message: string,
+    /** 409 for a state that does not allow it; 403 when this person may not (four-eyes). */
+    readonly status = 409,
   ) {
     super(message);
   }
@@ -173,11 +176,19 @@ async function reviewersOf(teamId: number): Promise<{ id: number; email: string;
   return reviewers.length ? reviewers : q("admin");
 }
 
-export async function requestReview(user: SessionUser, optionId: number, comment: string | undefined, link: (path: string) => string): Promise<void> {
+/** What ties `userId` to the option (saved it, asked for its review): the four-eyes rule's facts. */
+export async function reviewTies(option: Pick<OptionRecord, "id" | "createdById">, userId: number): Promise<ReviewTies> {
+  const asked = await db("reviews").where({ option_id: option.id, user_id: userId, decision: "requested" }).first("id");
+  return { saved: option.createdById === userId, requested: Boolean(asked) };
+}
+
+/** Returns how many people were asked (0: nobody else in the team may review it). */
+export async function requestReview(user: SessionUser, optionId: number, comment: string | undefined, link: (path: string) => string): Promise<number> {
   const option = await getOption(user.teamId, optionId);
   if (option.reviewState === "in_review") throw new WorkflowError("form", "this option is already waiting for review");
   if (option.reviewState === "approved") throw new WorkflowError("form", "this option is already approved");
-  const reviewers = await reviewersOf(user.teamId);
+  // Nobody tied to the option may decide it (four-eyes), so they are not asked to.
+  const reviewers = (await reviewersOf(user.teamId)).filter((r) => r.id !== user.id && r.id !== option.createdById);
   const c = option.candidate;
   const what = `${c.family} ${Object.entries(c.dimensions)
     .map(([k, v]) => `${k} ${v}`)
@@ -187,7 +198,6 @@ export async function requestReview(user: SessionUser, optionId: number, comment
     await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision: "requested", comment: comment || null });
     await logActivity({ teamId: user.teamId, projectId: option.projectId, userId: user.id, action: "review_requested", subjectType: "option", subjectId: optionId }, trx);
     for (const r of reviewers) {
-      if (r.id === user.id) continue;
       await sendEmail(
         {
           teamId: user.teamId,
@@ -200,11 +210,14 @@ export async function requestReview(user: SessionUser, optionId: number, comment
       await notify(r.id, { title: `Review requested: option ${optionId}`, body: `${user.name}: ${what}`, link: `/options/${optionId}` }, trx);
     }
   });
+  return reviewers.length;
 }
 
 export async function decideReview(user: SessionUser, optionId: number, decision: "approved" | "returned", comment: string | undefined, link: (path: string) => string): Promise<void> {
   const option = await getOption(user.teamId, optionId);
   if (option.reviewState !== "in_review") throw new WorkflowError("decision", `only an option waiting for review can be ${decision}; this one is ${option.reviewState.replace("_", " ")}`);
+  const refusal = reviewRefusal(user.role, await reviewTies(option, user.id));
+  if (refusal) throw new WorkflowError("decision", refusal, 403);
   await db.transaction(async (trx) => {
     // Conditional update: two reviewers deciding at once cannot both win.
     const n = await trx("options").where({ id: optionId, review_state: "in_review" }).update({ review_state: decision, updated_at: trx.fn.now() });

@@ -42,3 +42,25 @@ export const ROLE_LABELS: Record<Role, string> = {
   reviewer: "Reviewer",
   viewer: "Viewer",
 };
+
+/** How a person is tied to an option under review, for the four-eyes rule. */
+export interface ReviewTies {
+  /** They saved the option. */
+  saved: boolean;
+  /** They asked for a review of it (in any round). */
+  requested: boolean;
+}
+
+/**
+ * Four-eyes rule, the one place it is decided: nobody approves or returns an option they saved or
+ * whose review they asked for, admins included. Null when the person may decide, else why not (the
+ * page shows it in place of the buttons; the server refuses with it, 403).
+ * Any earlier request counts, not only the current round's: whoever once asked is an author of the
+ * decision's question (a choice; the issue is silent on later rounds).
+ */
+export function reviewRefusal(role: Role, ties: ReviewTies): string | null {
+  if (!can(role, "review")) return `Your role (${role}) may not review options.`;
+  if (ties.saved) return "You saved this option, so someone else must approve or return it (four-eyes review).";
+  if (ties.requested) return "You asked for this option's review, so someone else must approve or return it (four-eyes review).";
+  return null;
+}

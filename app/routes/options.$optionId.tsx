@@ -3,8 +3,8 @@ import type { Route } from "./+types/options.$optionId";
 import { requirePermission } from "~/lib/auth.server";
 import { readForm } from "~/lib/forms.server";
 import { appUrl } from "~/lib/email.server";
-import { decideReview, decisionSchema, getOption, listReviews, optionVerdict, requestReview, WorkflowError } from "~/lib/options.server";
-import { can } from "~/lib/roles";
+import { decideReview, decisionSchema, getOption, listReviews, optionVerdict, requestReview, reviewTies, WorkflowError } from "~/lib/options.server";
+import { can, reviewRefusal } from "~/lib/roles";
 import { z } from "zod";
 import { Caution } from "~/components/Caution";
 import { CompareCandidates } from "~/components/CompareCandidates";
@@ -22,14 +22,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
   const option = await getOption(user.teamId, idParam(params.optionId));
   const verdict = optionVerdict(option, option.problem);
+  const inReview = option.reviewState === "in_review";
+  // Said on the page only to people whose role reviews: the others never see review buttons anyway.
+  const refusal = inReview && can(user.role, "review") ? reviewRefusal(user.role, await reviewTies(option, user.id)) : null;
   return {
     option,
     feasible: verdict.feasible,
     notes: verdict.design?.notes ?? null,
     reviews: await listReviews(option.id),
+    reviewRefusal: refusal,
     may: {
       request: can(user.role, "requestReview") && (option.reviewState === "draft" || option.reviewState === "returned"),
-      review: can(user.role, "review") && option.reviewState === "in_review",
+      review: can(user.role, "review") && inReview && !refusal,
       recheck: can(user.role, "recheck") && option.sweepId !== null,
     },
   };
@@ -49,8 +53,13 @@ export async function action({ request, params }: Route.ActionArgs) {
       await requirePermission(request, "requestReview");
       const p = requestSchema.safeParse({ comment: form.get("comment") || undefined });
       if (!p.success) return data({ errors: { comment: p.error.issues[0].message } }, { status: 400 });
-      await requestReview(user, id, p.data.comment, link);
-      return { errors: null, done: "Review requested; the team's reviewers were e-mailed." };
+      const asked = await requestReview(user, id, p.data.comment, link);
+      return {
+        errors: null,
+        done: asked
+          ? "Review requested; the team's reviewers were e-mailed."
+          : "Review requested, but nobody else in the team may review it (nobody approves their own work): ask an admin to invite a reviewer.",
+      };
     }
     if (intent === "decide") {
       await requirePermission(request, "review");
@@ -60,14 +69,14 @@ export async function action({ request, params }: Route.ActionArgs) {
       return { errors: null, done: `Option ${p.data.decision}.` };
     }
   } catch (e) {
-    if (e instanceof WorkflowError) return data({ errors: { [e.field]: e.message } }, { status: 409 });
+    if (e instanceof WorkflowError) return data({ errors: { [e.field]: e.message } }, { status: e.status });
     throw e;
   }
   return data({ errors: { intent: `intent: unknown action "${intent.slice(0, 30)}"` } }, { status: 400 });
 }
 
 export default function OptionPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { option, reviews, may, feasible, notes } = loaderData;
+  const { option, reviews, may, feasible, notes, reviewRefusal: refusal } = loaderData;
   const errors = (actionData?.errors ?? null) as Record<string, string> | null;
   const c = option.candidate;
   return (
@@ -157,6 +166,7 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
             <button className="rounded-md bg-accent px-3 py-1.5 font-semibold text-white">Request review</button>
           </Form>
         ) : null}
+        {refusal ? <p className="rounded-md border border-ink/20 bg-paper p-3 text-sm">{refusal}</p> : null}
         {may.review ? (
           <Form method="post" className="space-y-2 text-sm">
             <input type="hidden" name="intent" value="decide" />

@@ -9,9 +9,9 @@
 // "{}"), and `foreign` for params that point at another team's row (every role must get 404).
 // The test fails when a route is missing here, or a row names a route that no longer exists.
 import { afterAll, describe, expect, test } from "vitest";
-import { closeDb, db } from "~/lib/db.server";
+import { closeDb, db, parseJson } from "~/lib/db.server";
 import { hashToken } from "~/lib/auth.server";
-import { can, PERMISSIONS, ROLES, type Role } from "~/lib/roles";
+import { can, PERMISSIONS, reviewRefusal, ROLES, type Role } from "~/lib/roles";
 import { foreignFixture, workflowFixture, type WorkflowFixture } from "./workflow-fixtures";
 import { callRoute, FixtureContext, fillPath, flattenRoutes, loadRouteModule, requestAs, type DemoRole } from "./fixtures";
 
@@ -197,4 +197,43 @@ describe("roles.ts grants (product.md, People and roles)", () => {
   ] as const)("%s may exactly %j", (role, allowed) => {
     expect(PERMISSIONS.filter((p) => can(role, p))).toEqual([...allowed]);
   });
+});
+
+// Four-eyes review (roles.ts reviewRefusal): role × how the person is tied to the option → may they
+// approve it? Each case posts a real decision on a fresh option waiting for review.
+describe("four-eyes review: nobody decides an option they saved or whose review they asked for", () => {
+  type Tie = "saved it" | "asked for its review" | "neither";
+  const TIES: Tie[] = ["saved it", "asked for its review", "neither"];
+  const MAY_APPROVE: Record<Role, Record<Tie, boolean>> = {
+    admin: { "saved it": false, "asked for its review": false, neither: true },
+    engineer: { "saved it": false, "asked for its review": false, neither: false },
+    reviewer: { "saved it": false, "asked for its review": false, neither: true },
+    viewer: { "saved it": false, "asked for its review": false, neither: false },
+  };
+
+  async function optionInReview(savedBy: number, requestedBy: number): Promise<number> {
+    const f = await workflowFixture(ctx);
+    const base = await db("options").where({ id: f.optionId }).first("project_id", "brief_id", "sweep_id", "candidate", "problem");
+    const [id] = await db("options").insert({ ...base, candidate: JSON.stringify(parseJson(base.candidate)), problem: JSON.stringify(parseJson(base.problem)), review_state: "in_review", created_by: savedBy });
+    await db("reviews").insert({ option_id: id, user_id: requestedBy, decision: "requested" });
+    return Number(id);
+  }
+
+  for (const role of ROLES) {
+    for (const tie of TIES) {
+      const allowed = MAY_APPROVE[role][tie];
+      test(`${role} who ${tie === "neither" ? "neither saved it nor asked" : tie} → ${allowed ? "approves" : "403"}`, async () => {
+        const me = (await ctx.user(role)).id;
+        const other = (await ctx.user(role === "engineer" ? "engineer2" : "engineer")).id;
+        const id = await optionInReview(tie === "saved it" ? me : other, tie === "asked for its review" ? me : other);
+        expect(reviewRefusal(role, { saved: tie === "saved it", requested: tie === "asked for its review" }) === null).toBe(allowed);
+        const mod = await loadRouteModule("routes/options.$optionId.tsx");
+        const body = new URLSearchParams({ intent: "decide", decision: "approved" });
+        const res = await callRoute(mod.action, await requestAs(role, `/options/${id}`, { method: "POST", body, headers: { "Content-Type": "application/x-www-form-urlencoded" } }), { optionId: String(id) });
+        if (res.error) throw res.error;
+        expect(res.status, JSON.stringify(res.data)).toBe(allowed ? 200 : 403);
+        expect((await db("options").where({ id }).first("review_state")).review_state).toBe(allowed ? "approved" : "in_review");
+      });
+    }
+  }
 });

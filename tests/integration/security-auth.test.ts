@@ -13,6 +13,10 @@ import * as forgot from "~/routes/forgot-password";
 import * as adminOutbox from "~/routes/admin.outbox";
 import * as messages from "~/routes/messages";
 import { execFileSync } from "node:child_process";
+import * as option from "~/routes/options.$optionId";
+import * as sweepPage from "~/routes/sweeps.$sweepId";
+import { recordFinishedSweep } from "~/lib/finished-sweep.server";
+import { CHANNEL_PROBLEM } from "./workflow-fixtures";
 import { appBaseUrl, DEV_APP_URL } from "~/lib/email.server";
 import { callRoute, cookieForUser, type RouteResult } from "./fixtures";
 
@@ -287,5 +291,38 @@ describe("3. the outbox is each recipient's mailbox; admins see tokens masked", 
     const out = execFileSync("npx", ["tsx", "db/outbox.ts", "--to", email], { env: { ...process.env }, encoding: "utf8" });
     expect(out).toContain(`To:      ${email}`);
     expect(out).toContain(`/reset-password/${token}`);
+  });
+});
+
+describe("5. four-eyes review", () => {
+  test("an admin cannot approve or return an option they saved and sent for review; another admin can, and the page says why", async () => {
+    // Team B has two admins and no reviewer: the admins review.
+    const other = await makeUser("second-admin-b@sallowmere.example", "second admin password", teamB, "admin");
+    const [projectId] = await db("projects").insert({ team_id: teamB, name: "Four-eyes yard", created_by: adminB });
+    const sweepId = await recordFinishedSweep(db, { teamId: teamB, ownerId: adminB, projectId: Number(projectId), problem: CHANNEL_PROBLEM });
+    const me = await cookieForUser(adminB);
+    const saved = await callRoute(sweepPage.action, await post(me, `/sweeps/${sweepId}`, { intent: "saveOption", rank: "1" }), { sweepId: String(sweepId) });
+    expect(saved.status).toBeLessThan(400);
+    const optionId = (await db("options").where({ sweep_id: sweepId }).orderBy("id", "desc").first("id")).id as number;
+    const params = { optionId: String(optionId) };
+    const requested = await callRoute(option.action, await post(me, `/options/${optionId}`, { intent: "requestReview" }), params);
+    expect(requested.status).toBe(200);
+    // Only the other admin is asked.
+    expect(await db("outbox").where({ subject: `Review requested: option ${optionId} in Four-eyes yard` }).pluck("to_address")).toEqual(["second-admin-b@sallowmere.example"]);
+
+    for (const decision of [{ decision: "approved" }, { decision: "returned", comment: "looks fine to me" }] as Record<string, string>[]) {
+      const own = await callRoute(option.action, await post(me, `/options/${optionId}`, { intent: "decide", ...decision }), params);
+      expect(own.status).toBe(403);
+      expect(JSON.stringify(own.data)).toMatch(/You saved this option, so someone else must approve or return it/);
+    }
+    expect((await db("options").where({ id: optionId }).first("review_state")).review_state).toBe("in_review");
+    const page = (await callRoute(option.loader, get(me, `/options/${optionId}`), params)).data as { may: { review: boolean }; reviewRefusal: string | null };
+    expect(page.may.review).toBe(false);
+    expect(page.reviewRefusal).toMatch(/four-eyes/);
+
+    const theirs = await cookieForUser(other);
+    const otherPage = (await callRoute(option.loader, get(theirs, `/options/${optionId}`), params)).data as { may: { review: boolean }; reviewRefusal: string | null };
+    expect(otherPage).toMatchObject({ may: { review: true }, reviewRefusal: null });
+    expect((await callRoute(option.action, await post(theirs, `/options/${optionId}`, { intent: "decide", decision: "approved" }), params)).status).toBe(200);
   });
 });
