@@ -19,6 +19,7 @@ export default [
     route("admin/outbox", "routes/admin.outbox.tsx"),
     route("admin/materials", "routes/admin.materials.tsx"),
     route("admin/catalogues", "routes/admin.catalogues.tsx"),
+    route("admin/costs", "routes/admin.costs.tsx"),
     // Section bench
     route("bench", "routes/bench.tsx"),
     // Sweep notices

@@ -19,3 +19,4 @@ export * from "./units";
 export * from "./materials";
 export { rationalise, rationaliseInputSchema, candidateThicknesses, type RationaliseInput, type RationaliseResult, type RationaliseChoice } from "./rationalise";
 export * from "./catalogue";
+export * from "./cost";

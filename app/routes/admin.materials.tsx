@@ -114,6 +114,7 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
           <a href="/admin" className="text-accent-strong underline">Members</a>
           <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
           <a href="/admin/catalogues" className="text-accent-strong underline">Catalogues</a>
+          <a href="/admin/costs" className="text-accent-strong underline">Costs</a>
           <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
         </nav>
       </div>

@@ -71,6 +71,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
         <nav aria-label="Team admin" className="flex gap-4 text-sm font-semibold">
           <a href="/admin/materials" className="text-accent-strong underline">Materials</a>
           <a href="/admin/catalogues" className="text-accent-strong underline">Catalogues</a>
+          <a href="/admin/costs" className="text-accent-strong underline">Costs</a>
           <a href="/stock-lists" className="text-accent-strong underline">Stock lists</a>
           <a href="/admin/outbox" className="text-accent-strong underline">Outbox</a>
         </nav>

@@ -69,6 +69,8 @@ export const ROWS: Record<string, BadInputRow> = {
   // density typed in t/m³ (7.85) instead of kg/m³ is refused by the material's range
   "/admin/materials": { as: "admin", field: "intent", malformed: { intent: "create", name: "Unit slip", E: "210000", fy: "355", density: "7.85" }, malformedField: "density" },
   // a catalogue whose one line has text where a dimension is due: malformed, nothing kept
+  // a weld price typed as one number per line instead of "throat, cost per metre"
+  "/admin/costs": { as: "admin", field: "intent", malformed: { intent: "save", rolledPricePerKg: "1.2", weld: "4\n5, 7.5" }, malformedField: "weld" },
   "/admin/catalogues": { as: "admin", field: "intent", malformed: { intent: "create", name: "Bad catalogue", file: "designation,shape,d_mm\nX,I,abc\n" }, malformedField: "file" },
 
   // ---- Section bench (add rows here)

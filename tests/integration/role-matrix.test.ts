@@ -87,6 +87,8 @@ export const ROWS: Record<string, MatrixRow> = {
   "/admin/materials": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
   // section catalogues: admin only; an empty post names the missing intent
   "/admin/catalogues": { get: permitted("manageCatalogues", 200), post: permitted("manageCatalogues", 400) },
+  // cost settings: admin only like materials; an empty post names the missing intent
+  "/admin/costs": { get: permitted("manageTeam", 200), post: permitted("manageTeam", 400) },
 
   // ---- Section bench (add rows here)
   // the bench is for every member; saving to a project needs editBrief (an empty post is a 400)
