@@ -55,10 +55,27 @@ export function destroySession(session: Session<SessionData, SessionFlash>): Pro
   return getSessionStorage().destroySession(session);
 }
 
-/** Only same-site paths: "/x" but never "//evil" or "https://…", so ?next= cannot redirect away. */
+const ORIGIN_PROBE = "http://sparwise.invalid";
+
+/**
+ * A same-origin path (with its query and hash) to redirect to after sign-in, else `fallback`.
+ * `to` is resolved against the app's origin exactly as a browser would resolve a Location, and
+ * only a result on that origin counts: "//evil", "/\\evil" and "/\t/evil" (browsers drop tabs and
+ * newlines, then see "//") all leave it. Control characters, whitespace and line separators are
+ * refused outright; the result is the parser's ASCII serialisation, so it is always a valid header.
+ */
 export function safeRedirect(to: unknown, fallback = "/"): string {
-  if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
-  return to;
+  if (typeof to !== "string" || to.length > 2048 || !to.startsWith("/")) return fallback;
+  if (/[\u0000-\u0020\u007f-\u00a0\u1680\u2000-\u200f\u2028-\u202f\u205f\u3000\ufeff\\]/.test(to)) return fallback;
+  let url: URL;
+  try {
+    url = new URL(to, ORIGIN_PROBE);
+  } catch {
+    return fallback;
+  }
+  if (url.origin !== ORIGIN_PROBE) return fallback;
+  const path = url.pathname + url.search + url.hash;
+  return path.startsWith("/") && !path.startsWith("//") ? path : fallback;
 }
 
 /** A fresh session for a user who just proved who they are; redirects with the cookie set. */

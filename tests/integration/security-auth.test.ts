@@ -326,3 +326,35 @@ describe("5. four-eyes review", () => {
     expect((await callRoute(option.action, await post(theirs, `/options/${optionId}`, { intent: "decide", decision: "approved" }), params)).status).toBe(200);
   });
 });
+
+describe("10. after sign-in, next= leads only to a path of this app", () => {
+  // As they arrive in the query string (percent-encoded), so the loader decodes them as a browser sent them.
+  const HOSTILE = ["/%09/evil.example", "//evil.example", "/%5Cevil.example", "/\\evil.example", "/%0a", "/%0d%0aSet-Cookie:%20x=1", "/%00", "/%E2%80%A8", "/..//evil.example", "https://evil.example/", "/%20/evil.example", "javascript:alert(1)"];
+
+  test.each(HOSTILE)("next=%s sends a signed-in user to the dashboard, never away and never a 500", async (next) => {
+    const user = (await db("users").where({ email: "viewer@tallowfield.example" }).first("id")).id;
+    const res = await callRoute(signIn.loader, get(await cookieForUser(user), `/sign-in?next=${next}`));
+    expect(res.error).toBeUndefined();
+    expect(res.status).toBe(302);
+    expect(res.location).toBe("/");
+  });
+
+  test.each(HOSTILE)("next=%s posted with the sign-in form lands on the dashboard", async (next) => {
+    const decoded = (() => {
+      try {
+        return decodeURIComponent(next);
+      } catch {
+        return next;
+      }
+    })();
+    const res = await callRoute(signIn.action, await post(null, "/sign-in", { email: "reviewer@tallowfield.example", password: "sparwise-demo", next: decoded }));
+    expect(res.error).toBeUndefined();
+    expect(res.status).toBe(302);
+    expect(res.location).toBe("/");
+  });
+
+  test("an ordinary path keeps its query and hash", async () => {
+    const res = await callRoute(signIn.action, await post(null, "/sign-in", { email: "reviewer@tallowfield.example", password: "sparwise-demo", next: "/projects?archived=1#list" }));
+    expect(res.location).toBe("/projects?archived=1#list");
+  });
+});
