@@ -76,7 +76,10 @@ export function sectionProperties(input: SectionInput): SectionProperties {
 export function inputStability(input: SectionInput): StabilityProperties | null {
   const fam = input as { family?: Family; flip?: boolean };
   if (typeof fam.family !== "string") return null;
-  return familyStability(fam.family, input as unknown as Record<string, number>, FAMILY_DIMENSIONS[fam.family], fam.flip === true);
+  // hollow sections (rhs, chs) are catalogue shapes outside member-checks.md §1's list: no stability block
+  const names = (FAMILY_DIMENSIONS as Partial<Record<string, readonly string[]>>)[fam.family];
+  if (!names) return null;
+  return familyStability(fam.family, input as unknown as Record<string, number>, names, fam.flip === true);
 }
 
 function densityOf(input: unknown): number {

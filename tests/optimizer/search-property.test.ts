@@ -8,7 +8,7 @@ import { bruteForceSearch } from "~/optimizer/brute-force";
 import { FAMILIES, type Family } from "~/optimizer/geometry";
 import type { SearchPoint, SearchResult } from "~/optimizer/grid";
 import { searchSections } from "~/optimizer/search";
-import { EN1993_FAMILIES, type SearchProblemInput } from "~/optimizer/search-schema";
+import { EN1993_FAMILIES, searchProblemSchema, type SearchProblemInput } from "~/optimizer/search-schema";
 import { sectionStresses } from "~/optimizer/stress";
 
 const STOCK = [3, 4, 5, 6, 8, 10, 12, 15, 20, 25];
@@ -80,7 +80,10 @@ const problemArb: fc.Arbitrary<SearchProblemInput> = fc
       p.prices = r.thicknesses.map((t) => ({ thickness: t, pricePerKg: 1 + ((t * 7) % 5) / 10 }));
     }
     return p;
-  });
+  })
+  // a custom fy table may stop short of the grid's plates (or a rectangle's smaller side): the
+  // schema refuses such problems by design, so they are not search problems to compare
+  .filter((p) => searchProblemSchema.safeParse(p).success);
 
 /**
  * EN 1993 briefs (member-checks.md §2): grades and custom fy bands, restraint lengths from
@@ -164,7 +167,10 @@ const en1993Arb: fc.Arbitrary<SearchProblemInput> = fc
       p.prices = r.thicknesses.map((t) => ({ thickness: t, pricePerKg: 1 + ((t * 7) % 5) / 10 }));
     }
     return p;
-  });
+  })
+  // a custom fy table may stop short of the grid's plates (or a rectangle's smaller side): the
+  // schema refuses such problems by design, so they are not search problems to compare
+  .filter((p) => searchProblemSchema.safeParse(p).success);
 
 const key = (r: SearchResult) => (r.best ? `${r.best.family} ${JSON.stringify(r.best.dimensions)}` : "none");
 const objective = (r: SearchResult) => (r.best ? (r.best.cost ?? r.best.area) : Infinity);
