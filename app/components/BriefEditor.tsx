@@ -6,8 +6,22 @@ import { useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { Form } from "react-router";
 import { getCollectionProps, getFormProps, getInputProps, useForm, type FieldMetadata, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { briefFormSchema, type BriefFormShape, type BriefParsed, displayNumber, FAMILY_LABELS, FIELD_QUANTITIES, fieldUnit, SEARCH_FAMILIES, type NumericField } from "~/lib/brief-form";
-import { fromSI, toSI, type Quantity, type UnitSystem } from "~/optimizer/units";
+import {
+  briefFormSchema,
+  type BriefFormShape,
+  type BriefParsed,
+  displayNumber,
+  FAMILY_LABELS,
+  FIELD_QUANTITIES,
+  fieldUnit,
+  readSiMemo,
+  shownValue,
+  SEARCH_FAMILIES,
+  switchShownUnits,
+  type NumericField,
+  type SiMemo,
+} from "~/lib/brief-form";
+import { fromSI, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { FAMILY_DIMENSIONS, familyRuleViolation, type Family } from "~/optimizer/geometry";
 import { axisCount, gridValues, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
 import { sectionProperties } from "~/optimizer/properties";
@@ -18,6 +32,7 @@ import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { UnitSwitch } from "~/components/UnitSwitch";
 import { BasisPanels, BasisSwitch, fillGrade, type BasisFields } from "~/components/DesignBasisPanel";
 import { EN1993_FAMILIES, EN1993_GRADES, type Basis, type En1993Grade } from "~/optimizer/search-schema";
+import { gradeFill } from "~/lib/brief-form-basis";
 
 export interface StockListChoice {
   id: number;
@@ -146,37 +161,51 @@ export function BriefEditor({
     if (formRef.current) setProblem(previewProblem(formRef.current));
   }, [basis]);
 
-  // Re-express every number in the other system, so switching units never changes the problem.
-  // Each input remembers the exact SI value behind what it shows, so SI → US → SI gives back 400,
-  // not 399.999 (the display rounds to six figures).
+  // The exact SI value behind every shown number (brief-form.ts, SiMemo); sent as the hidden
+  // siValues. Controlled: React re-applies a hidden input's defaultValue on every render.
+  const [siMemo, setSiMemo] = useState(String(defaultValue.siValues ?? ""));
+  const writeMemo = (el: HTMLFormElement, memo: SiMemo) => {
+    const text = JSON.stringify(memo);
+    setSiMemo(text);
+    // The state reaches the hidden input on the next render; the preview reads it now.
+    const hidden = el.querySelector<HTMLInputElement>("input[name=siValues]");
+    if (hidden) hidden.value = text;
+  };
+  const stockThicknessesMm = () => stockLists.flatMap((l) => l.thicknesses);
+  // A grade preset's SI values (EN 10025-2 bands, fu) stand behind the fields it filled, so a US
+  // display (355 MPa = 51.4884 ksi) does not come back as 355.000002. Only fields still showing
+  // the preset's value are remembered; a typed one is converted from what was typed.
+  function rememberGrade(el: HTMLFormElement) {
+    const grade = el.querySelector<HTMLSelectElement>("select[name='steel.grade']")?.value ?? "";
+    if (!(grade in EN1993_GRADES)) return;
+    const fill = gradeFill(grade as En1993Grade);
+    const memo = readSiMemo(el.querySelector<HTMLInputElement>("input[name=siValues]")?.value);
+    const exact: [string, Quantity, number][] = [["steel.fu", "stress", fill.fu]];
+    fill.fy.forEach((b, i) => exact.push([`steel.fy[${i}].maxThickness`, "length", b.maxThickness], [`steel.fy[${i}].fy`, "stress", b.fy]));
+    let changed = false;
+    for (const [name, q, si] of exact) {
+      const input = el.querySelector<HTMLInputElement>(`input[name="${name}"]`);
+      if (input && input.value.trim() !== "" && Number(input.value) === shownValue(q, si, units) && memo[name] !== si) {
+        memo[name] = si;
+        changed = true;
+      }
+    }
+    if (changed) writeMemo(el, memo);
+  }
+
+  // Switching units only re-expresses what is shown: every field keeps its exact SI value
+  // (switchShownUnits), so any number of switches leaves the brief byte-identical.
   function switchUnits(next: UnitSystem) {
     const el = formRef.current;
     if (el && next !== units) {
-      const convert = (input: HTMLInputElement, q: Quantity, text: string): string => {
-        const x = Number(text);
-        if (text.trim() === "" || !Number.isFinite(x)) return text;
-        const si = input.dataset.shown === input.value && input.dataset.si ? Number(input.dataset.si) : toSI(q, x, units);
-        return String(displayNumber(fromSI(q, si, next)));
-      };
-      for (const input of el.querySelectorAll<HTMLInputElement>("input[data-quantity]")) {
-        const q = input.dataset.quantity as Quantity;
-        const x = Number(input.value);
-        const si = input.value.trim() !== "" && Number.isFinite(x) ? (input.dataset.shown === input.value && input.dataset.si ? Number(input.dataset.si) : toSI(q, x, units)) : null;
-        input.value = convert(input, q, input.value);
-        if (si !== null) {
-          input.dataset.si = String(si);
-          input.dataset.shown = input.value;
-        }
-      }
-      const th = el.querySelector<HTMLInputElement>("input[name=thicknesses]");
-      if (th) {
-        const remembered = th.dataset.shown === th.value && th.dataset.si ? th.dataset.si.split(",").map(Number) : null;
-        const parts = th.value.split(/[\s,;]+/).filter(Boolean);
-        const si = parts.map((p, i) => (remembered && remembered.length === parts.length ? remembered[i] : Number.isFinite(Number(p)) ? toSI("length", Number(p), units) : NaN));
-        th.value = parts.map((p, i) => (Number.isFinite(si[i]) ? String(displayNumber(fromSI("length", si[i], next))) : p)).join(", ");
-        th.dataset.si = si.join(",");
-        th.dataset.shown = th.value;
-      }
+      const inputs = [...el.querySelectorAll<HTMLInputElement>("input[data-quantity], input[name=thicknesses]")];
+      const shown = Object.fromEntries(inputs.map((i) => [i.name, i.value]));
+      const r = switchShownUnits(shown, readSiMemo(el.querySelector<HTMLInputElement>("input[name=siValues]")?.value), units, next, stockThicknessesMm());
+      for (const i of inputs) i.value = r.shown[i.name];
+      writeMemo(el, r.memo);
+      // The radio's state reaches the DOM on the next render; the preview reads the new units now.
+      const radio = el.querySelector<HTMLInputElement>(`input[name=units][value=${next}]`);
+      if (radio) radio.checked = true;
       setProblem(previewProblem(el));
     }
     setUnits(next);
@@ -190,33 +219,38 @@ export function BriefEditor({
     const own = id.startsWith(TEAM_PRESET_PREFIX) ? teamMaterials.find((m) => `${TEAM_PRESET_PREFIX}${m.id}` === id) : undefined;
     if (id.startsWith(TEAM_PRESET_PREFIX) && !own) return;
     const fill = own ? materialFill(own) : presetFill(id);
+    const memo = readSiMemo(el.querySelector<HTMLInputElement>("input[name=siValues]")?.value);
     const set = (name: string, q: Quantity | null, v: number) => {
       const input = el.querySelector<HTMLInputElement>(`input[name="${name}"]`);
       if (input) input.value = String(displayNumber(q ? fromSI(q, v, units) : v));
+      // The preset's own SI value stands behind what is shown (213 MPa, not 30.8927 ksi × 6.894757).
+      if (q) memo[name] = v;
     };
     set("density", "density", fill.density);
     set("allowable.tension", "stress", fill.allowable.tension);
     set("allowable.compression", "stress", fill.allowable.compression);
     set("allowable.shear", "stress", fill.allowable.shear);
     for (const k of ["outstand", "internal", "web", "stem"] as const) set(`slenderness.${k}`, null, fill.slenderness[k]);
-    const E = el.querySelector<HTMLInputElement>('input[name="deflection.E"]');
-    // E only matters with a deflection limit: fill it when the span is already given.
-    const span = el.querySelector<HTMLInputElement>('input[name="deflection.span"]');
-    if (E && span && span.value.trim() !== "") set("deflection.E", "stress", fill.E);
+    // E belongs to the material: filled always, so a deflection limit added later has it (E alone asks for no check).
+    set("deflection.E", "stress", fill.E);
+    writeMemo(el, memo);
     // A built-in EN grade (s355) also fills the EN 1993 steel: bands, fu, βw.
     const en = id.toUpperCase();
-    if (en in EN1993_GRADES) fillGrade(el, en as En1993Grade, units);
+    if (en in EN1993_GRADES) {
+      fillGrade(el, en as En1993Grade, units);
+      rememberGrade(el);
+    }
     setProblem(previewProblem(el));
   }
 
   function useStockList(id: string) {
     const list = stockLists.find((s) => String(s.id) === id);
     const th = formRef.current?.querySelector<HTMLInputElement>("input[name=thicknesses]");
-    if (list && th) {
+    const el0 = formRef.current;
+    if (list && th && el0) {
       th.value = list.thicknesses.map((t) => String(displayNumber(fromSI("length", t, units)))).join(", ");
       // The list's exact mm values stand behind what is shown (see switchUnits).
-      th.dataset.si = list.thicknesses.join(",");
-      th.dataset.shown = th.value;
+      writeMemo(el0, { ...readSiMemo(el0.querySelector<HTMLInputElement>("input[name=siValues]")?.value), thicknesses: [...list.thicknesses] });
     }
     const next = list && list.prices.length ? JSON.stringify(list.prices) : "";
     setPrices(next);
@@ -260,7 +294,7 @@ export function BriefEditor({
         onInput={(e) => setProblem(previewProblem(e.currentTarget))}
       >
         {intro}
-        <input type="hidden" name={fields.siValues.name} defaultValue={String(defaultValue.siValues ?? "")} />
+        <input type="hidden" name={fields.siValues.name} value={siMemo} />
         {form.errors ? (
           <p role="alert" id={form.errorId} className="rounded-md border border-red-800 bg-red-50 px-3 py-2 text-sm font-semibold text-red-900">
             {form.errors.join("; ")}
@@ -337,7 +371,11 @@ export function BriefEditor({
           units={units}
           basis={basis}
           defaultValue={defaultValue}
-          onChange={() => formRef.current && setProblem(previewProblem(formRef.current))}
+          onChange={() => {
+            if (!formRef.current) return;
+            rememberGrade(formRef.current);
+            setProblem(previewProblem(formRef.current));
+          }}
         />
 
         <Group title="Depth and width limits" note="The grid takes every min + k·step up to max.">

@@ -1,39 +1,12 @@
 // Every SectionProperties field with its symbol, value and unit. Values arrive in SI (the
 // engine's units) and are converted for display only through units.ts.
 import type { SectionProperties } from "~/optimizer/properties";
-import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 
-const SUPERSCRIPT: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹", "2": "²", "3": "³", "4": "⁴", "5": "⁵", "6": "⁶", "7": "⁷", "8": "⁸", "9": "⁹" };
-
-/**
- * Four significant figures (an engineer's table precision), a true minus sign, and powers of
- * ten written out past 10⁷ so Iz of a girder stays readable. Never prints NaN: "—" instead.
- */
-export function formatNumber(x: number, significant = 4): string {
-  if (!Number.isFinite(x)) return "—";
-  if (x === 0) return "0";
-  const sign = x < 0 ? "−" : "";
-  const a = Math.abs(x);
-  if (a >= 1e7 || a < 1e-3) {
-    let e = Math.floor(Math.log10(a));
-    let m = Number((a / 10 ** e).toPrecision(significant));
-    if (m >= 10) {
-      m /= 10;
-      e += 1;
-    }
-    const exp = String(e).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
-    return `${sign}${m.toFixed(significant - 1)} × 10${exp}`;
-  }
-  const rounded = Number(a.toPrecision(significant));
-  return sign + rounded.toLocaleString("en-US", { maximumFractionDigits: 6 });
-}
-
-/** A value of a quantity given in SI, shown in `units` with its unit: "1.234 × 10⁸ mm⁴". */
-export function formatQuantity(q: Quantity, valueSI: number, units: UnitSystem, significant = 4): string {
-  const unit = unitLabel(q, units);
-  const sep = unit === "°" ? "" : " ";
-  return `${formatNumber(fromSI(q, valueSI, units), significant)}${sep}${unit}`;
-}
+// The one number formatter lives in lib/format.ts (lib/ may not import components); re-exported
+// here, where the pages have always found it.
+export { formatNumber, formatQuantity } from "~/lib/format";
+import { formatQuantity } from "~/lib/format";
 
 /** A signed stress with its sense: "+123.4 MPa (tension)", "−98.7 MPa (compression)". */
 export function formatStress(sigmaSI: number, units: UnitSystem): string {

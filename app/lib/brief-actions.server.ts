@@ -38,7 +38,14 @@ export async function submitBrief(request: Request, user: SessionUser, target: {
   const briefId = await saveBrief(user.teamId, user.id, target, meta, problem);
   if (intent === "save") throw redirect(`/briefs/${briefId}?saved=1`);
   try {
-    const { id } = await enqueueSweep({ teamId: user.teamId, ownerId: user.id, projectId: target.projectId, briefId, problem });
+    const { id } = await enqueueSweep({
+      teamId: user.teamId,
+      ownerId: user.id,
+      projectId: target.projectId,
+      briefId,
+      problem,
+      member: { lengthM: meta.memberLengthM, count: meta.memberCount },
+    });
     await logActivity({ teamId: user.teamId, projectId: target.projectId, userId: user.id, action: "sweep_started", subjectType: "sweep", subjectId: id, detail: { briefId } });
     throw redirect(`/sweeps/${id}`);
   } catch (e) {

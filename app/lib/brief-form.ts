@@ -110,28 +110,112 @@ export interface BriefMeta {
   /** SI (m), as the briefs table stores it */
   memberLengthM?: number;
   memberCount?: number;
+  /** the material's elastic modulus, MPa, kept with the brief even when no deflection is checked */
+  elasticModulus?: number;
 }
 
-/** Form values (in the chosen units) → a SearchProblem input in SI, not yet validated. */
-function readSiValues(text: string | undefined): Record<string, unknown> {
+/**
+ * The exact SI value behind each shown number: a NumericField → number, "thicknesses" → the
+ * list in mm. The form sends it as the hidden `siValues` (JSON). Why: a US customary display
+ * rounds to six figures (300 mm shows as 11.811 in), so a value converted back from what is
+ * shown drifts (299.999 mm), which can move a limit off its grid. A shown number that still
+ * reads what its SI value displays as takes that SI value; only an edited field is converted
+ * from what was typed. Unit switches (switchShownUnits) keep the memo, so any number of them
+ * leaves the problem byte-identical.
+ */
+export type SiMemo = Record<string, number | number[]>;
+
+export function readSiMemo(text: string | undefined): SiMemo {
   if (!text) return {};
   try {
     const v = JSON.parse(text) as unknown;
-    return v && typeof v === "object" && !Array.isArray(v) ? (v as Record<string, unknown>) : {};
+    if (!v || typeof v !== "object" || Array.isArray(v)) return {};
+    const out: SiMemo = {};
+    for (const [k, x] of Object.entries(v as Record<string, unknown>)) {
+      if (typeof x === "number" && Number.isFinite(x)) out[k] = x;
+      else if (Array.isArray(x) && x.every((t) => typeof t === "number" && Number.isFinite(t))) out[k] = x as number[];
+    }
+    return out;
   } catch {
     return {};
   }
 }
 
+/** What an SI value shows as in `units` (the display the memo is compared with). */
+export function shownValue(q: Quantity, si: number, units: UnitSystem): number {
+  return displayNumber(fromSI(q, si, units));
+}
+
+/** The SI value of a shown number: the remembered one while the display still matches it, else converted. */
+export function siOfShown(q: Quantity, shown: number, remembered: number | undefined, units: UnitSystem): number {
+  return remembered !== undefined && Number.isFinite(remembered) && shownValue(q, remembered, units) === shown ? remembered : toSI(q, shown, units);
+}
+
+/** The SI thicknesses (mm) of a shown list: each entry takes an exact value it displays as (the memo's, then the stock list's), else is converted. */
+export function thicknessesOfShown(shown: number[], known: number[], units: UnitSystem): number[] {
+  return shown.map((t) => known.find((k) => shownValue("length", k, units) === t) ?? toSI("length", t, units));
+}
+
+/** Parses a plain number the way the form does (blank or text → null). */
+function shownNumber(text: string | undefined): number | null {
+  if (text === undefined || text.trim() === "") return null;
+  const x = Number(text.trim());
+  return Number.isFinite(x) ? x : null;
+}
+
+/**
+ * Re-expresses the shown numeric fields (NumericField → text, and "thicknesses") in `to` units.
+ * Pure, so the editor and the property test run the same code. A blank or non-numeric field is
+ * left as typed (its error still shows) and forgets its SI value.
+ */
+export function switchShownUnits(
+  shown: Record<string, string>,
+  memo: SiMemo,
+  from: UnitSystem,
+  to: UnitSystem,
+  extraThicknesses: number[] = [],
+): { shown: Record<string, string>; memo: SiMemo } {
+  const out: Record<string, string> = { ...shown };
+  const next: SiMemo = { ...memo };
+  if (from === to) return { shown: out, memo: next };
+  for (const [field, text] of Object.entries(shown)) {
+    if (field === "thicknesses") continue;
+    const q = pathQuantity(field);
+    if (!q) continue;
+    const x = shownNumber(text);
+    if (x === null) {
+      delete next[field];
+      continue;
+    }
+    const m = memo[field];
+    const si = siOfShown(q, x, typeof m === "number" ? m : undefined, from);
+    next[field] = si;
+    out[field] = String(shownValue(q, si, to));
+  }
+  if (shown.thicknesses !== undefined) {
+    const t = parseThicknessList(shown.thicknesses);
+    if (t.error) delete next.thicknesses;
+    else {
+      const m = memo.thicknesses;
+      const si = thicknessesOfShown(t.values, [...(Array.isArray(m) ? m : []), ...extraThicknesses], from);
+      next.thicknesses = si;
+      out.thicknesses = si.map((v) => String(shownValue("length", v, to))).join(", ");
+    }
+  }
+  return { shown: out, memo: next };
+}
+
+/** Form values (in the chosen units) → a SearchProblem input in SI, not yet validated. */
+function fieldToSI(known: SiMemo, units: UnitSystem, field: NumericField, v: number | undefined): number | undefined {
+  if (v === undefined) return undefined;
+  const m = known[field];
+  return siOfShown(FIELD_QUANTITIES[field], v, typeof m === "number" ? m : undefined, units);
+}
+
 export function formToProblemInput(f: BriefFormValues): Record<string, unknown> {
   const u = f.units;
-  const known = readSiValues(f.siValues);
-  // The exact SI value the form opened with, when the shown number is still what it displayed.
-  const exact = (key: string, q: Quantity, v: number): number => {
-    const k = known[key];
-    return typeof k === "number" && Number.isFinite(k) && displayNumber(fromSI(q, k, u)) === v ? k : toSI(q, v, u);
-  };
-  const si = (field: NumericField, v: number | undefined) => (v === undefined ? undefined : exact(field, FIELD_QUANTITIES[field], v));
+  const known = readSiMemo(f.siValues);
+  const si = (field: NumericField, v: number | undefined) => fieldToSI(known, u, field, v);
   // Exact mm values a shown thickness may stand for: the opened problem's and the stock list's (prices).
   let priced: unknown[] = [];
   try {
@@ -140,11 +224,13 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
   } catch {
     priced = [];
   }
-  const knownThick = [...(Array.isArray(known.thicknesses) ? (known.thicknesses as unknown[]) : []), ...priced].filter((x): x is number => typeof x === "number" && Number.isFinite(x));
-  const thick = parseThicknessList(f.thicknesses).values.map((t) => knownThick.find((k) => displayNumber(fromSI("length", k, u)) === t) ?? toSI("length", t, u));
+  const knownThick = [...(Array.isArray(known.thicknesses) ? known.thicknesses : []), ...priced].filter((x): x is number => typeof x === "number" && Number.isFinite(x));
+  const thick = thicknessesOfShown(parseThicknessList(f.thicknesses).values, knownThick, u);
   const slenderness = Object.fromEntries(SLENDERNESS_KEYS.filter((k) => f.slenderness[k] !== undefined).map((k) => [k, f.slenderness[k]]));
   const d = f.deflection;
-  const anyDeflection = d.span !== undefined || d.serviceLoad !== undefined || d.limitRatio !== undefined || d.E !== undefined;
+  // E is the material's (a preset fills it); on its own it asks for no deflection check. Any of
+  // the other three does, and a partly filled block then names its missing field.
+  const anyDeflection = d.span !== undefined || d.serviceLoad !== undefined || d.limitRatio !== undefined;
   const out: Record<string, unknown> = {
     moment: { sagging: si("moment.sagging", f.moment.sagging) ?? 0, hogging: si("moment.hogging", f.moment.hogging) ?? 0 },
     // The EN 1993 basis uses no allowable stresses: a brief on it stores none.
@@ -181,7 +267,14 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
       E: si("deflection.E", d.E),
     };
   if (out.allowable === undefined) delete out.allowable;
-  Object.assign(out, basisToProblemInput(f, (key, q, v) => (v === undefined ? undefined : exact(key, q, v))).fields);
+  Object.assign(
+    out,
+    basisToProblemInput(f, (key, q, v) => {
+      if (v === undefined) return undefined;
+      const m = known[key];
+      return siOfShown(q, v, typeof m === "number" ? m : undefined, u);
+    }).fields,
+  );
   return out;
 }
 
@@ -218,10 +311,17 @@ export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta;
       ctx.addIssue({ code: "custom", path: ["memberLength"], message: "memberLength must be > 0" });
       return z.NEVER;
     }
-    const k = readSiValues(f.siValues).memberLength;
-    meta.memberLengthM = typeof k === "number" && displayNumber(fromSI("span", k, f.units)) === f.memberLength ? k : toSI("span", f.memberLength, f.units);
+    meta.memberLengthM = fieldToSI(readSiMemo(f.siValues), f.units, "memberLength", f.memberLength);
   }
   if (f.memberCount !== undefined) meta.memberCount = f.memberCount;
+  const E = r.data.deflection?.E ?? fieldToSI(readSiMemo(f.siValues), f.units, "deflection.E", f.deflection.E);
+  if (E !== undefined) {
+    if (!(E > 0) || !Number.isFinite(E)) {
+      ctx.addIssue({ code: "custom", path: ["deflection", "E"], message: "deflection.E must be > 0" });
+      return z.NEVER;
+    }
+    meta.elasticModulus = E;
+  }
   return { meta, problem: r.data };
 });
 
@@ -257,7 +357,7 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
     density: problem.density,
     "deflection.span": d?.span,
     "deflection.serviceLoad": d?.serviceLoad,
-    "deflection.E": d?.E,
+    "deflection.E": d?.E ?? meta.elasticModulus,
     memberLength: meta.memberLengthM,
     thicknesses: problem.thicknesses,
   };
@@ -286,7 +386,9 @@ export function problemToFormDefaults(problem: SearchProblem, meta: Partial<Brie
     density: v("density", problem.density),
     deflection: d
       ? { span: v("deflection.span", d.span), serviceLoad: v("deflection.serviceLoad", d.serviceLoad), limitRatio: d.limitRatio, E: v("deflection.E", d.E) }
-      : {},
+      : meta.elasticModulus !== undefined
+        ? { E: v("deflection.E", meta.elasticModulus) }
+        : {},
     ...basis.values,
   };
 }

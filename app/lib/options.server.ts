@@ -35,6 +35,8 @@ export interface OptionRecord {
   briefId: number | null;
   briefName: string | null;
   sweepId: number | null;
+  /** the sweep that sweep rechecked, when the option was saved from a recheck */
+  recheckOf: number | null;
   candidate: SavedCandidate;
   problem: SearchProblem;
   note: string | null;
@@ -109,8 +111,21 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
         .join("projects as p", "p.id", "o.project_id")
         .leftJoin("briefs as b", "b.id", "o.brief_id")
         .leftJoin("users as u", "u.id", "o.created_by")
+        .leftJoin("sweeps as s", "s.id", "o.sweep_id")
         .where({ "o.id": id, "p.team_id": teamId })
-        .first("o.*", "p.team_id", "p.name as project_name", "b.name as brief_name", "b.units as brief_units", "b.member_length_m", "b.member_count", "u.name as author")
+        .first(
+          "o.*",
+          "p.team_id",
+          "p.name as project_name",
+          "b.name as brief_name",
+          "b.units as brief_units",
+          "b.member_length_m",
+          "b.member_count",
+          "s.recheck_of as sweep_recheck_of",
+          "s.member_length_m as sweep_member_length_m",
+          "s.member_count as sweep_member_count",
+          "u.name as author",
+        )
     : undefined;
   if (!row) throw notFound("No such option in your team.");
   return {
@@ -121,6 +136,7 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     briefId: row.brief_id,
     briefName: row.brief_name,
     sweepId: row.sweep_id,
+    recheckOf: row.sweep_recheck_of ?? null,
     candidate: parseJson(row.candidate),
     problem: parseJson(row.problem),
     note: row.note,
@@ -129,8 +145,9 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     createdById: row.created_by,
     createdAt: new Date(row.created_at).toISOString(),
     units: row.brief_units ?? "si",
-    memberLengthM: row.member_length_m ?? null,
-    memberCount: row.member_count ?? null,
+    // The member the sweep ran for (a recheck may alter it); sweeps older than that column: the brief's.
+    memberLengthM: row.sweep_member_length_m ?? row.member_length_m ?? null,
+    memberCount: row.sweep_member_count ?? row.member_count ?? null,
   };
 }
 

@@ -164,7 +164,13 @@ export interface BriefRecord {
   units: UnitSystem;
   memberLengthM: number | null;
   memberCount: number | null;
+  /** the preset chosen in the editor ("s355", "team:7"), or null */
+  material: string | null;
+  /** MPa, or null */
+  elasticModulus: number | null;
   updatedAt: string;
+  /** when the problem last changed (ISO), or null for briefs saved before this was kept */
+  problemChangedAt: string | null;
 }
 
 export async function getBrief(teamId: number, id: number): Promise<BriefRecord> {
@@ -181,7 +187,10 @@ export async function getBrief(teamId: number, id: number): Promise<BriefRecord>
     units: row.units,
     memberLengthM: row.member_length_m,
     memberCount: row.member_count,
+    material: row.material ?? null,
+    elasticModulus: row.elastic_modulus_mpa ?? null,
     updatedAt: String(row.updated_at),
+    problemChangedAt: row.problem_changed_at ? new Date(row.problem_changed_at).toISOString() : null,
   };
 }
 
@@ -226,13 +235,20 @@ export async function saveBrief(
     units: meta.units,
     member_length_m: meta.memberLengthM ?? null,
     member_count: meta.memberCount ?? null,
+    material: meta.material ?? null,
+    elastic_modulus_mpa: meta.elasticModulus ?? null,
   };
   return db.transaction(async (trx) => {
     let id = target.briefId;
     if (id) {
-      await trx("briefs").where({ id, project_id: target.projectId }).update({ ...row, updated_at: trx.fn.now() });
+      const prior = await trx("briefs").where({ id, project_id: target.projectId }).forUpdate().first("problem");
+      // Only a changed problem moves problem_changed_at (approvals given before it go stale).
+      const changed = !prior || JSON.stringify(parseJson(prior.problem)) !== row.problem;
+      await trx("briefs")
+        .where({ id, project_id: target.projectId })
+        .update({ ...row, updated_at: trx.fn.now(), ...(changed ? { problem_changed_at: trx.raw("NOW(3)") } : {}) });
     } else {
-      const [newId] = await trx("briefs").insert({ ...row, project_id: target.projectId, created_by: userId });
+      const [newId] = await trx("briefs").insert({ ...row, project_id: target.projectId, created_by: userId, problem_changed_at: trx.raw("NOW(3)") });
       id = Number(newId);
     }
     await trx("projects").where({ id: target.projectId }).update({ updated_at: trx.fn.now() });

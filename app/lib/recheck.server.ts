@@ -1,16 +1,18 @@
 // Rechecks: a sweep's problem rerun with altered limits, linked by recheck_of, and the comparison
 // a reviewer reads: which limits changed, the two bests, the mass difference, and whether each
-// option saved from the original still passes the engine's checks under the new problem.
+// option saved from the original still fits the new problem: on its grid (families, ranges,
+// steps, thicknesses) and through every check (the engine's sectionLimits).
 import { db, parseJson } from "~/lib/db.server";
 import { logActivity } from "~/lib/activity.server";
 import { changedLimits } from "~/lib/brief-form";
 import { notFound } from "~/lib/projects.server";
-import { optionVerdict, type SavedCandidate } from "~/lib/options.server";
+import type { SavedCandidate } from "~/lib/options.server";
+import { sectionLimits, type LimitBreach } from "~/optimizer";
 import type { SessionUser } from "~/lib/auth.server";
 import { enqueueSweep, getTeamSweep, type SweepView } from "~/workers/queue.server";
 import type { SearchProblem } from "~/optimizer/search-schema";
 
-export async function startRecheck(user: SessionUser, originalId: number, problem: SearchProblem): Promise<number> {
+export async function startRecheck(user: SessionUser, originalId: number, problem: SearchProblem, member: { lengthM?: number; count?: number } = {}): Promise<number> {
   const original = await getTeamSweep(originalId, user);
   if (!original) throw notFound("No such sweep in your team.");
   const { id } = await enqueueSweep({
@@ -20,6 +22,7 @@ export async function startRecheck(user: SessionUser, originalId: number, proble
     briefId: original.briefId,
     recheckOf: original.id,
     problem,
+    member,
   });
   await logActivity({ teamId: user.teamId, projectId: original.projectId, userId: user.id, action: "recheck_started", subjectType: "sweep", subjectId: id, detail: { recheckOf: original.id } });
   return id;
@@ -35,9 +38,13 @@ export interface RecheckComparison {
     id: number;
     candidate: SavedCandidate;
     reviewState: string;
+    /** on the new grid and passing every check */
     feasible: boolean;
-    utilisation: number;
-    governing: string;
+    /** every limit of the new brief the option breaks (engine's sectionLimits) */
+    breaches: LimitBreach[];
+    /** under the new brief's checks; null when its geometry cannot be checked */
+    utilisation: number | null;
+    governing: string | null;
     utilisationBefore: number;
   }[];
 }
@@ -51,14 +58,16 @@ export async function compareRecheck(teamId: number, recheckId: number): Promise
   const rows = await db("options").where({ sweep_id: original.id }).select("id", "candidate", "review_state");
   const options = rows.map((r: Record<string, unknown>) => {
     const candidate = parseJson<SavedCandidate>(r.candidate);
-    const after = optionVerdict({ candidate }, recheck.problem);
+    // Every limit, not only the checks: a recheck that only cut depth.max must fail a deeper option.
+    const after = sectionLimits(candidate.family, candidate.dimensions, recheck.problem);
     return {
       id: r.id as number,
       candidate,
       reviewState: r.review_state as string,
-      feasible: after.feasible,
-      utilisation: after.utilisation,
-      governing: after.governing,
+      feasible: after.breaches.length === 0,
+      breaches: after.breaches,
+      utilisation: after.verdict?.utilisation ?? null,
+      governing: after.verdict?.governing ?? null,
       utilisationBefore: candidate.utilisation,
     };
   });

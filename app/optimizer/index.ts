@@ -20,3 +20,4 @@ export * from "./materials";
 export { rationalise, rationaliseInputSchema, candidateThicknesses, type RationaliseInput, type RationaliseResult, type RationaliseChoice } from "./rationalise";
 export * from "./catalogue";
 export * from "./cost";
+export { sectionLimits, CHECK_LIMIT, type LimitBreach, type SectionLimits } from "./limits";

@@ -9,6 +9,7 @@ import { Caution } from "~/components/Caution";
 import { SectionDrawing } from "~/components/SectionDrawing";
 import { CheckTable } from "~/components/CheckTable";
 import { BriefSummary } from "~/components/BriefSummary";
+import { OptionProvenance } from "~/components/OptionProvenance";
 import { BasisNote } from "~/components/BasisAssumptions";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
@@ -72,8 +73,9 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
 
       <section aria-labelledby="inputs-h" className="break-inside-avoid">
         <h2 id="inputs-h" className="text-lg font-bold">
-          1. Inputs{option.briefName ? ` (brief “${option.briefName}”)` : ""}
+          1. Inputs
         </h2>
+        <OptionProvenance option={option} linked={false} />
         <BasisNote problem={option.problem} className="mb-1" />
         <BriefSummary problem={option.problem} units={units} />
         {option.memberLengthM && option.memberCount ? (

@@ -10,6 +10,7 @@ import { Caution } from "~/components/Caution";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { BriefSummary } from "~/components/BriefSummary";
+import { OptionProvenance } from "~/components/OptionProvenance";
 import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import { idParam } from "~/lib/route-params";
 
@@ -133,8 +134,9 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
         </section>
         <section aria-labelledby="brief-h" className="space-y-2">
           <h2 id="brief-h" className="text-lg font-bold">
-            Brief{option.briefName ? `: ${option.briefName}` : ""}
+            The problem it was checked against
           </h2>
+          <OptionProvenance option={option} />
           <BasisNote problem={option.problem} />
           <BriefSummary problem={option.problem} units={option.units} />
           <Assumptions problem={option.problem} units={option.units} notes={notes ?? undefined} />

@@ -13,6 +13,7 @@ import { describeDimensions, type ChartCandidate } from "~/components/TradeoffCh
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
+import { describeBreach, familyLabel, fieldLabel } from "~/lib/labels";
 
 export function meta() {
   return [{ title: "Recheck comparison · Sparwise" }];
@@ -81,7 +82,7 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
             <tbody>
               {changes.map((c) => (
                 <tr key={c.path} className="border-b border-ink/10">
-                  <td className="p-2 font-semibold">{c.path}</td>
+                  <td className="p-2 font-semibold">{fieldLabel(c.path)}</td>
                   <td className="p-2 tabular-nums">{valueText(c.path, c.before, units)}</td>
                   <td className="p-2 tabular-nums">{valueText(c.path, c.after, units)}</td>
                 </tr>
@@ -145,11 +146,24 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
                     <ReviewBadge state={o.reviewState} />
                   </td>
                   <td className="p-2">
-                    {o.candidate.family} {describeDimensions(o.candidate.dimensions, units)}
+                    {familyLabel(o.candidate.family)} {describeDimensions(o.candidate.dimensions, units)}
                   </td>
                   <td className="p-2 text-right tabular-nums">{o.utilisationBefore.toFixed(3)}</td>
-                  <td className="p-2 text-right tabular-nums">{o.utilisation.toFixed(3)}</td>
-                  <td className={`p-2 font-semibold ${o.feasible ? "text-accent-strong" : "text-red-800"}`}>{o.feasible ? "still passes" : `fails (${o.governing})`}</td>
+                  <td className="p-2 text-right tabular-nums">{o.utilisation === null ? "—" : o.utilisation.toFixed(3)}</td>
+                  <td className={`p-2 ${o.feasible ? "font-semibold text-accent-strong" : "text-red-800"}`} data-testid={`verdict-${o.id}`}>
+                    {o.feasible ? (
+                      "still fits: on the new grid and passes every check"
+                    ) : (
+                      <>
+                        <span className="font-semibold">now breaks {o.breaches.length === 1 ? "one limit" : `${o.breaches.length} limits`}:</span>
+                        <ul className="list-disc pl-5">
+                          {o.breaches.map((b, i) => (
+                            <li key={i}>{describeBreach(b, units)}</li>
+                          ))}
+                        </ul>
+                      </>
+                    )}
+                  </td>
                 </tr>
               ))}
             </tbody>

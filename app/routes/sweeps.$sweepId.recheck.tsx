@@ -27,10 +27,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sweep = await getTeamSweep(idParam(params.sweepId), user);
   if (!sweep) throw notFound("No such sweep in your team.");
   await requirePermission(request, "recheck");
-  const brief = sweep.briefId ? await db("briefs").where({ id: sweep.briefId }).first("name", "units") : null;
+  const brief = sweep.briefId ? await db("briefs").where({ id: sweep.briefId }).first("name", "units", "member_length_m", "member_count", "material", "elastic_modulus_mpa") : null;
   const units: UnitSystem = brief?.units === "us" ? "us" : "si";
   const name = `Recheck of sweep ${sweep.id}${brief ? ` (${brief.name})` : ""}`.slice(0, 160);
-  const defaults = problemToFormDefaults(sweep.problem, { units, name });
+  // The member and material as the original sweep ran (older sweeps kept no member: the brief's).
+  const defaults = problemToFormDefaults(sweep.problem, {
+    units,
+    name,
+    memberLengthM: sweep.member.lengthM ?? brief?.member_length_m ?? undefined,
+    memberCount: sweep.member.count ?? brief?.member_count ?? undefined,
+    material: brief?.material ?? undefined,
+    elasticModulus: brief?.elastic_modulus_mpa ?? undefined,
+  });
   return { sweepId: sweep.id, defaults, original: defaults, stockLists: await listStockLists(user.teamId), teamMaterials: await listMaterials(user.teamId) };
 }
 
@@ -39,7 +47,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const submission = parseWithZod(await readForm(request), { schema: briefFormSchema });
   if (submission.status !== "success") return formFailure(submission);
   try {
-    const id = await startRecheck(user, idParam(params.sweepId), submission.value.problem);
+    const { meta } = submission.value;
+    const id = await startRecheck(user, idParam(params.sweepId), submission.value.problem, { lengthM: meta.memberLengthM, count: meta.memberCount });
     throw redirect(`/sweeps/${id}`);
   } catch (e) {
     const msg = await queueErrorMessage(e);

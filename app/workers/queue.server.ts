@@ -66,6 +66,8 @@ export interface EnqueueInput {
   recheckOf?: number | null;
   problem: unknown;
   idempotencyKey?: string | null;
+  /** the member the sweep is run for (quantities of options saved from it); m and count */
+  member?: { lengthM?: number | null; count?: number | null };
 }
 
 export const idempotencyKeySchema = z
@@ -124,6 +126,8 @@ export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; c
       status: "queued",
       max_attempts: maxAttempts,
       idempotency_key: key,
+      member_length_m: input.member?.lengthM ?? null,
+      member_count: input.member?.count ?? null,
     });
     return { id: Number(id), created: true };
   });
@@ -496,6 +500,8 @@ export interface SweepView {
   /** rough ms left from the progress fraction so far; null when unknown */
   etaMs: number | null;
   problem: SearchProblem;
+  /** the member the sweep was run for (m, count); null where not given */
+  member: { lengthM: number | null; count: number | null };
 }
 
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d ? new Date(String(d)).toISOString() : null);
@@ -534,6 +540,7 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     elapsedMs,
     etaMs,
     problem: parseJson(row.problem),
+    member: { lengthM: row.member_length_m ?? null, count: row.member_count ?? null },
   };
 }
 

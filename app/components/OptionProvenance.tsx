@@ -1,0 +1,36 @@
+// Where an option came from and which problem it was checked against: the sweep it was saved
+// from (and, for a recheck, the sweep that one rechecked), the brief, and the fact that the limits
+// shown are that sweep's own snapshot, not the brief's current values (issue 11, item 3).
+import { Link } from "react-router";
+
+export interface ProvenanceFacts {
+  sweepId: number | null;
+  recheckOf: number | null;
+  briefId: number | null;
+  briefName: string | null;
+}
+
+export function OptionProvenance({ option, linked = true }: { option: ProvenanceFacts; linked?: boolean }) {
+  const sweep = (id: number) =>
+    linked ? (
+      <Link to={`/sweeps/${id}`} className="text-accent underline">
+        sweep {id}
+      </Link>
+    ) : (
+      <>sweep {id}</>
+    );
+  return (
+    <p className="text-sm" data-testid="provenance">
+      {option.sweepId ? (
+        <>
+          Saved from {sweep(option.sweepId)}
+          {option.recheckOf ? <>, a recheck of {sweep(option.recheckOf)}</> : null}
+        </>
+      ) : (
+        <>Saved from a sweep that no longer exists</>
+      )}
+      {option.briefName ? <> · brief “{option.briefName}”</> : null}. Checked against the limits {option.recheckOf ? "the recheck" : "that sweep"} ran with, listed here
+      {option.recheckOf ? "; they differ from the brief's own" : ""} (a later edit of the brief does not change them).
+    </p>
+  );
+}

@@ -1,0 +1,179 @@
+// The one table of human labels (issue 11, item 5): every form error, summary, comparison, chart
+// and table names a field, a family or a check through here, so no page shows the engine's
+// field paths ("allowable.tension", "plates[3]") and every page calls a family by the same name.
+import type { Family } from "~/optimizer/geometry";
+import type { CheckName } from "~/optimizer/search-schema";
+import type { LimitBreach } from "~/optimizer/limits";
+import { unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { formatNumber, formatQuantity } from "~/lib/format";
+
+/** Problem and brief fields by their dotted path. */
+export const FIELD_LABELS: Record<string, string> = {
+  name: "Brief name",
+  units: "Units",
+  material: "Material preset",
+  stockListId: "Stock list",
+  memberLength: "Member length",
+  memberCount: "Member count",
+  moment: "Design moment",
+  "moment.sagging": "Sagging moment",
+  "moment.hogging": "Hogging moment",
+  shear: "Shear force",
+  allowable: "Allowable stresses",
+  "allowable.tension": "Allowable tension",
+  "allowable.compression": "Allowable compression",
+  "allowable.shear": "Allowable shear",
+  depth: "Depth",
+  "depth.min": "Depth, min",
+  "depth.max": "Depth, max",
+  "depth.step": "Depth, step",
+  width: "Width",
+  "width.min": "Width, min",
+  "width.max": "Width, max",
+  "width.step": "Width, step",
+  thicknesses: "Plate thicknesses",
+  families: "Shape families",
+  slenderness: "Slenderness limits",
+  "slenderness.outstand": "Flange outstand limit",
+  "slenderness.internal": "Internal plate limit",
+  "slenderness.web": "Web slenderness limit",
+  "slenderness.stem": "Stem slenderness limit",
+  density: "Density",
+  deflection: "Deflection",
+  "deflection.span": "Span",
+  "deflection.serviceLoad": "Service load",
+  "deflection.limitRatio": "Deflection limit ratio (span ÷ …)",
+  "deflection.E": "Elastic modulus E",
+  objective: "Objective",
+  prices: "Plate prices",
+  "prices[].thickness": "Priced thickness",
+  "prices[].pricePerKg": "Price per kg",
+  "thicknesses[]": "Plate thickness",
+  grid: "Grid size",
+  geometry: "Geometry",
+  rank: "Candidate",
+  note: "Note",
+  comment: "Comment",
+  decision: "Decision",
+};
+
+export function fieldLabel(path: string): string {
+  return FIELD_LABELS[path] ?? FIELD_LABELS[path.replace(/\[\d+\]/g, "[]")] ?? path;
+}
+
+/** Family names, the same on the bench, the brief, the sweep, the comparison and the record. */
+export const FAMILY_LABELS: Record<Family, string> = {
+  rectangle: "Rectangle (solid bar)",
+  i: "I (equal flanges)",
+  "mono-i": "Mono-symmetric I",
+  channel: "Channel",
+  "channel-down": "Channel, web on top",
+  tee: "Tee",
+  box: "Box",
+  angle: "Angle",
+};
+
+export function familyLabel(f: string): string {
+  return FAMILY_LABELS[f as Family] ?? f;
+}
+
+/** The objective as the editor's choice reads. */
+export const OBJECTIVE_LABELS: Record<"mass" | "cost", string> = { mass: "lightest", cost: "cheapest" };
+
+/** Each check by what it compares. */
+export const CHECK_LABELS: Record<CheckName, string> = {
+  "bending-compression": "bending, compressive fibre stress",
+  "bending-tension": "bending, tensile fibre stress",
+  shear: "shear stress",
+  "slenderness-outstand": "flange outstand slenderness",
+  "slenderness-internal": "internal plate slenderness",
+  "slenderness-web": "web slenderness",
+  "slenderness-stem": "stem slenderness",
+  deflection: "deflection",
+};
+
+export function checkLabel(name: string): string {
+  return CHECK_LABELS[name as CheckName] ?? name;
+}
+
+/** Family dimensions in words. */
+export const DIMENSION_LABELS: Record<string, string> = {
+  d: "depth",
+  b: "width",
+  tf: "flange thickness",
+  tw: "web thickness",
+  bt: "top flange width",
+  tft: "top flange thickness",
+  bb: "bottom flange width",
+  tfb: "bottom flange thickness",
+  t: "leg thickness",
+  r: "root radius",
+};
+
+function length(x: number, units: UnitSystem): string {
+  return formatQuantity("length", x, units, 6);
+}
+
+/** What a check's demand and capacity are measured in. */
+function checkQuantity(name: CheckName): Quantity | null {
+  if (name.startsWith("slenderness")) return null;
+  return name === "deflection" ? "length" : "stress";
+}
+
+/** One broken limit (engine's sectionLimits) in words: what is wrong and against which limit. */
+export function describeBreach(b: LimitBreach, units: UnitSystem): string {
+  switch (b.kind) {
+    case "family":
+      return `the ${familyLabel(b.family)} family is no longer among the shape families`;
+    case "below":
+      return `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is below ${fieldLabel(b.limit).toLowerCase()} ${length(b.bound, units)}`;
+    case "above":
+      return `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is above ${fieldLabel(b.limit).toLowerCase()} ${length(b.bound, units)}`;
+    case "off-grid":
+      return `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is not on the new ${b.limit.split(".")[0]} grid (nearest ${length(b.below, units)} and ${length(b.above, units)})`;
+    case "thickness":
+      return `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is not among the plate thicknesses`;
+    case "geometry":
+      return `invalid geometry: ${b.rule}`;
+    case "check": {
+      const q = checkQuantity(b.check);
+      const v = (x: number) => (q ? formatQuantity(q, x, units) : formatNumber(x));
+      return `${checkLabel(b.check)} ${v(b.demand)} exceeds ${fieldLabel(b.limit).toLowerCase()} ${v(b.capacity)} (utilisation ${b.utilisation.toFixed(3)})`;
+    }
+  }
+}
+
+/**
+ * An engine or form message with every field path replaced by its label and zero-based list
+ * indices read as the row numbers a person sees ("plates[3] overlaps plates[2]" → "plate 4
+ * overlaps plate 3"). Longest paths first, so "depth.max" is not read as "depth" + ".max".
+ */
+const PATHS = Object.keys(FIELD_LABELS).sort((a, b) => b.length - a.length);
+// (used by plainMessage below)
+const ROW_NOUNS: Record<string, string> = { plates: "plate", polygons: "polygon", points: "point", thicknesses: "thickness", families: "family", prices: "price", rows: "row" };
+
+/** A label inside a sentence: lower case, except a leading symbol ("I (equal flanges)", "E"). */
+function midSentence(label: string): string {
+  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
+}
+
+export function plainMessage(message: string): string {
+  let out = message;
+  // Dotted and list paths anywhere ("allowable.tension", "thicknesses[]", "prices[].pricePerKg").
+  for (const p of PATHS) {
+    if (!p.includes(".") && !p.includes("[")) continue;
+    const re = new RegExp(`(^|[^\\w.\\[])${p.replace(/[.[\]]/g, (c) => `\\${c}`)}(?![\\w\\[])`, "g");
+    out = out.replace(re, (_, pre: string) => `${pre}${pre === "" ? FIELD_LABELS[p] : midSentence(FIELD_LABELS[p])}`);
+  }
+  out = out.replace(/\b(plates|polygons|points|thicknesses|families|prices|rows)\[(\d+)\]/g, (_, list: string, i: string) => `${ROW_NOUNS[list]} ${Number(i) + 1}`);
+  out = out.replace(/objective is "(mass|cost)"/g, (_, o: "mass" | "cost") => `the objective is ${OBJECTIVE_LABELS[o]}`);
+  out = out.replace(/(use )?objective "(mass|cost)"/g, (_, use: string | undefined, o: "mass" | "cost") => `${use ?? ""}the ${OBJECTIVE_LABELS[o]} objective`);
+  // A one-word field opening the message ("shear must be ≥ 0", "grid: …").
+  out = out.replace(/^([a-zA-Z]+)(?=[: ])/, (w: string) => FIELD_LABELS[w] ?? w);
+  return out.charAt(0).toUpperCase() + out.slice(1);
+}
+
+/** "(mm)", "(in)": the unit a field is typed in. */
+export function unitSuffix(q: Quantity, units: UnitSystem): string {
+  return `(${unitLabel(q, units)})`;
+}
