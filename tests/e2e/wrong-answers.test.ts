@@ -1,0 +1,128 @@
+// Issue 11, items 1–4 as a person meets them in the browser: a brief typed in SI, switched to US
+// customary and back and saved in US keeps its exact values (300 mm, not 299.999); the S355
+// preset fills E and the brief remembers the grade; the recheck form keeps member length and
+// count; a recheck that only cuts the depth limit says the saved option now breaks depth max;
+// an option saved from a recheck names the recheck and the sweep it rechecked.
+import { afterAll, beforeAll, expect, inject, test } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { launchBrowser, screenshot } from "./browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signIn(email: string, next = "/"): Promise<Page> {
+  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const page = await ctx.newPage();
+  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
+  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill("sparwise-demo");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((u) => u.pathname === next);
+  return page;
+}
+
+const US = "US customary (in, kip·ft, ksi)";
+const SI = "SI (mm, kN·m, MPa)";
+const value = (page: Page, label: RegExp) => page.getByLabel(label).inputValue();
+
+test("unit switches leave the brief exact; recheck names the limit an option breaks; provenance", async () => {
+  const eng = await signIn("engineer@tallowfield.example", "/projects");
+  await eng.getByRole("link", { name: "New project" }).click();
+  await eng.getByLabel("Project name").fill("Loading bay canopy (units test)");
+  await eng.getByRole("button", { name: "Create project" }).click();
+  await eng.getByRole("heading", { level: 1, name: /Loading bay canopy/ }).waitFor();
+  await eng.getByRole("link", { name: "New brief" }).click();
+  await eng.getByLabel("Brief name").fill("Canopy edge beam");
+  await eng.getByTestId("grid-size").waitFor();
+
+  // Item 4: the preset fills E too (EN 1993-1-1 §3.2.6: 210 000 MPa), not only the allowables.
+  await eng.getByLabel("Material preset").selectOption("s355");
+  await expect(value(eng, /^Elastic modulus E/)).resolves.toBe("210000");
+  await expect(value(eng, /^Tension/)).resolves.toBe("213");
+
+  // Item 1: typed in SI, switched to US and back and to US again, then saved in US.
+  await eng.getByLabel(/^Sagging moment/).fill("60");
+  await eng.getByLabel(/Depth, max/).fill("300");
+  await eng.getByLabel(/Width, min/).fill("50");
+  await eng.getByLabel(/^Plate thicknesses/).fill("6, 8");
+  await eng.getByLabel(/^Member length/).fill("5.4");
+  await eng.getByLabel(/^Member count/).fill("4");
+  await eng.getByText(US).first().click();
+  await expect(value(eng, /Depth, max/)).resolves.toBe("11.811");
+  await expect(value(eng, /^Plate thicknesses/)).resolves.toBe("0.23622, 0.314961");
+  await eng.getByText(SI).first().click();
+  await expect(value(eng, /Depth, max/)).resolves.toBe("300");
+  await eng.getByText(US).first().click();
+  await eng.getByRole("button", { name: "Save brief" }).click();
+  await eng.waitForURL(/\/briefs\/\d+\?saved=1$/);
+  const briefUrl = eng.url().replace(/\?saved=1$/, "");
+
+  // Reopened (in US, as saved) and shown in SI: the exact values came back, and the grade is remembered.
+  await expect(eng.getByLabel("Material preset").inputValue()).resolves.toBe("s355");
+  await expect(value(eng, /Depth, max/)).resolves.toBe("11.811");
+  await eng.getByText(SI).first().click();
+  await expect(value(eng, /Depth, max/)).resolves.toBe("300");
+  await expect(value(eng, /Width, min/)).resolves.toBe("50");
+  await expect(value(eng, /^Plate thicknesses/)).resolves.toBe("6, 8");
+  await expect(value(eng, /^Density/)).resolves.toBe("7850");
+  await expect(value(eng, /^Tension/)).resolves.toBe("213");
+  await expect(value(eng, /^Elastic modulus E/)).resolves.toBe("210000");
+  await screenshot(eng, "units-brief-reopened");
+
+  // Run it (no edits) and save the best as an option.
+  await eng.getByRole("button", { name: "Save and run" }).click();
+  await eng.waitForURL(/\/sweeps\/\d+$/);
+  const sweepUrl = eng.url();
+  const sweepId = sweepUrl.split("/").pop()!;
+  await eng.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await eng.getByText(SI).first().click();
+  const best = (await eng.getByTestId("best").textContent()) ?? "";
+  const depth = Number(/\bd (\d+(?:\.\d+)?)/.exec(best)?.[1]);
+  expect(depth).toBeGreaterThan(100);
+  expect(depth).toBeLessThanOrEqual(300);
+  await eng.getByTestId("candidate-table").locator("tbody tr").first().click();
+  await eng.getByRole("button", { name: "Save as option" }).click();
+  await eng.waitForURL(/\/options\/\d+$/);
+  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(new RegExp(`Saved from sweep ${sweepId}\\b`));
+
+  // The reviewer rechecks: member length and count are there; only depth max is cut below the option's depth.
+  const rev = await signIn("reviewer@tallowfield.example", "/");
+  await rev.goto(`${sweepUrl}/recheck`);
+  // The brief was last saved (by "Save and run") in SI, so the recheck opens in SI.
+  await expect(value(rev, /^Member length/)).resolves.toBe("5.4");
+  await expect(value(rev, /^Member count/)).resolves.toBe("4");
+  // 5.4 m ÷ 0.3048 m/ft = 17.7165 ft at six figures (NIST SP 811 App. B).
+  await rev.getByText(US).first().click();
+  await expect(value(rev, /^Member length/)).resolves.toBe("17.7165");
+  await rev.getByText(SI).first().click();
+  await rev.getByLabel(/Depth, max/).fill(String(depth - 10));
+  await rev.getByRole("button", { name: "Run recheck" }).click();
+  await rev.waitForURL((u) => /^\/sweeps\/\d+$/.test(u.pathname) && !u.href.endsWith(`/${sweepId}`));
+  const recheckUrl = rev.url();
+  const recheckId = recheckUrl.split("/").pop()!;
+  await rev.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await rev.getByRole("link", { name: "compare with the original" }).click();
+  await rev.getByRole("heading", { name: "Recheck comparison" }).waitFor();
+  await expect(rev.getByTestId("changes").textContent()).resolves.toContain("Depth, max");
+  const verdicts = (await rev.getByTestId("option-verdicts").textContent()) ?? "";
+  expect(verdicts).toContain("now breaks one limit");
+  expect(verdicts).toContain(`depth ${depth} mm is above depth, max ${depth - 10} mm`);
+  await screenshot(rev, "units-recheck-breaks-depth");
+
+  // An option saved from the recheck names it, and the sweep it rechecked.
+  await eng.goto(recheckUrl);
+  await eng.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await eng.getByTestId("candidate-table").locator("tbody tr").first().click();
+  await eng.getByRole("button", { name: "Save as option" }).click();
+  await eng.waitForURL(/\/options\/\d+$/);
+  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(new RegExp(`Saved from sweep ${recheckId}, a recheck of sweep ${sweepId}\\b`));
+  await eng.goto(`${eng.url()}/record`);
+  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(new RegExp(`sweep ${recheckId}, a recheck of sweep ${sweepId}`));
+  void briefUrl;
+});
