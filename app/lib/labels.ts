@@ -4,6 +4,7 @@
 import type { Family } from "~/optimizer/geometry";
 import type { CheckName } from "~/optimizer/search-schema";
 import type { LimitBreach } from "~/optimizer/limits";
+import type { CheckUnit } from "~/optimizer/checks";
 import { unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/lib/format";
 
@@ -50,6 +51,33 @@ export const FIELD_LABELS: Record<string, string> = {
   "prices[].pricePerKg": "Price per kg",
   "thicknesses[]": "Plate thickness",
   grid: "Grid size",
+  basis: "Design basis",
+  steel: "Steel",
+  "steel.grade": "Steel grade",
+  "steel.fy": "Yield strength bands",
+  "steel.fy[].maxThickness": "Band up to thickness",
+  "steel.fy[].fy": "Yield strength fy",
+  "steel.fu": "Ultimate strength fu",
+  "steel.E": "Elastic modulus E",
+  "steel.G": "Shear modulus G",
+  "steel.gammaM0": "Partial factor γM0",
+  "steel.gammaM1": "Partial factor γM1",
+  "steel.gammaM2": "Partial factor γM2",
+  "steel.eta": "Shear factor η",
+  "steel.betaW": "Weld factor βw",
+  restraint: "Lateral restraint",
+  "restraint.length": "Restraint spacing",
+  "restraint.C1": "Moment factor C1",
+  "restraint.C2": "Moment factor C2",
+  "restraint.C3": "Moment factor C3",
+  "restraint.loadAt": "Load position",
+  supports: "Supports",
+  "supports.stiffened": "Stiffened supports",
+  "supports.bearingLength": "Stiff bearing length",
+  fabrication: "Fabrication rules",
+  "fabrication.minThickness": "Thinnest plate allowed",
+  "fabrication.flangeAtLeastWeb": "Flanges at least as thick as the web",
+  "fabrication.minBoxClear": "Least clear width inside a box",
   geometry: "Geometry",
   rank: "Candidate",
   note: "Note",
@@ -90,6 +118,14 @@ export const CHECK_LABELS: Record<CheckName, string> = {
   "slenderness-web": "web slenderness",
   "slenderness-stem": "stem slenderness",
   deflection: "deflection",
+  "class-4": "class 4 cross-section (outside this version)",
+  "bending-resistance": "bending resistance",
+  ltb: "lateral-torsional buckling resistance",
+  "shear-resistance": "shear resistance",
+  "shear-buckling": "shear buckling resistance",
+  "bending-shear": "bending resistance reduced for shear",
+  weld: "web-to-flange weld throat",
+  bearing: "web bearing (patch loading) resistance",
 };
 
 export function checkLabel(name: string): string {
@@ -114,11 +150,8 @@ function length(x: number, units: UnitSystem): string {
   return formatQuantity("length", x, units, 6);
 }
 
-/** What a check's demand and capacity are measured in. */
-function checkQuantity(name: CheckName): Quantity | null {
-  if (name.startsWith("slenderness")) return null;
-  return name === "deflection" ? "length" : "stress";
-}
+/** The quantity a check's demand and capacity are measured in (checks.ts CHECK_UNITS). */
+const UNIT_QUANTITY: Record<CheckUnit, Quantity | null> = { MPa: "stress", mm: "length", "kN·m": "moment", kN: "force", ratio: null };
 
 /** One broken limit (engine's sectionLimits) in words: what is wrong and against which limit. */
 export function describeBreach(b: LimitBreach, units: UnitSystem): string {
@@ -135,8 +168,14 @@ export function describeBreach(b: LimitBreach, units: UnitSystem): string {
       return `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is not among the plate thicknesses`;
     case "geometry":
       return `invalid geometry: ${b.rule}`;
+    case "fabrication":
+      return b.limit === "fabrication.flangeAtLeastWeb"
+        ? `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is thinner than the web ${length(b.bound, units)} (flanges at least as thick as the web)`
+        : b.limit === "fabrication.minBoxClear"
+          ? `the clear width inside the box ${length(b.value, units)} is below the least allowed ${length(b.bound, units)}`
+          : `${DIMENSION_LABELS[b.dim] ?? b.dim} ${length(b.value, units)} is thinner than the thinnest plate allowed ${length(b.bound, units)}`;
     case "check": {
-      const q = checkQuantity(b.check);
+      const q = UNIT_QUANTITY[b.unit];
       const v = (x: number) => (q ? formatQuantity(q, x, units) : formatNumber(x));
       return `${checkLabel(b.check)} ${v(b.demand)} exceeds ${fieldLabel(b.limit).toLowerCase()} ${v(b.capacity)} (utilisation ${b.utilisation.toFixed(3)})`;
     }

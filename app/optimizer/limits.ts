@@ -8,7 +8,7 @@
 // Grid membership follows the contract's grid ("every depth min + k·step, k = 0, 1, 2, … that
 // does not exceed max"): a value is on the axis when some whole k ≥ 0 gives it, within a relative
 // 1e-9 of the step (the same tolerance gridValues uses for max), so 0.1 + 2·0.1 counts as 0.3.
-import { candidateChecks, type CandidateVerdict } from "./checks";
+import { candidateChecks, type CandidateVerdict, type CheckUnit } from "./checks";
 import { FAMILIES, FAMILY_DIMENSIONS, familyRuleViolation, type Family } from "./geometry";
 import { axisCount, dimRole, type CheckName, type GridAxis, type SearchProblem } from "./search-schema";
 
@@ -22,6 +22,15 @@ export const CHECK_LIMIT: Record<CheckName, string> = {
   "slenderness-web": "slenderness.web",
   "slenderness-stem": "slenderness.stem",
   deflection: "deflection.limitRatio",
+  // EN 1993 basis: the resistances follow from the steel (fy bands, partial factors).
+  "class-4": "steel",
+  "bending-resistance": "steel",
+  ltb: "restraint.length",
+  "shear-resistance": "steel",
+  "shear-buckling": "steel",
+  "bending-shear": "steel",
+  weld: "steel",
+  bearing: "supports.bearingLength",
 };
 
 export type LimitBreach =
@@ -32,7 +41,9 @@ export type LimitBreach =
   | { kind: "off-grid"; limit: "depth.step" | "width.step"; dim: string; value: number; below: number; above: number }
   | { kind: "thickness"; limit: "thicknesses"; dim: string; value: number }
   | { kind: "geometry"; limit: "geometry"; dim: string; rule: string }
-  | { kind: "check"; limit: string; check: CheckName; demand: number; capacity: number; utilisation: number };
+  /** fabrication rules (member-checks.md, `fabrication`): the section is off the problem's grid */
+  | { kind: "fabrication"; limit: "fabrication.minThickness" | "fabrication.flangeAtLeastWeb" | "fabrication.minBoxClear"; dim: string; value: number; bound: number }
+  | { kind: "check"; limit: string; check: CheckName; demand: number; capacity: number; utilisation: number; unit: CheckUnit };
 
 export interface SectionLimits {
   /** every limit broken, grid first, then checks (empty: the section is on the grid and feasible) */
@@ -54,6 +65,30 @@ function axisBreaches(axis: GridAxis, name: "depth" | "width", dim: string, x: n
   return [{ kind: "off-grid", limit: `${name}.step`, dim, value: x, below: axis.min + lo * axis.step, above: axis.min + Math.min(n - 1, lo + 1) * axis.step }];
 }
 
+/**
+ * The fabrication rules as member-checks.md states them: plates thinner than minThickness are off
+ * the grid; flangeAtLeastWeb keeps only tf ≥ tw (each flange); minBoxClear keeps only boxes with
+ * b − 2·tw ≥ it. Which dimensions are flanges and webs: the family table (engine contract).
+ */
+function fabricationBreaches(f: Family, dims: Record<string, number>, problem: SearchProblem): LimitBreach[] {
+  const rules = problem.fabrication;
+  if (!rules) return [];
+  const out: LimitBreach[] = [];
+  const names = FAMILY_DIMENSIONS[f] as readonly string[];
+  if (rules.minThickness !== undefined)
+    for (const dim of names)
+      if (dimRole(f, dim) === "thickness" && dims[dim] < rules.minThickness * (1 - REL))
+        out.push({ kind: "fabrication", limit: "fabrication.minThickness", dim, value: dims[dim], bound: rules.minThickness });
+  if (rules.flangeAtLeastWeb && "tw" in dims)
+    for (const flange of ["tf", "tft", "tfb"])
+      if (names.includes(flange) && dims[flange] < dims.tw) out.push({ kind: "fabrication", limit: "fabrication.flangeAtLeastWeb", dim: flange, value: dims[flange], bound: dims.tw });
+  if (rules.minBoxClear !== undefined && f === "box") {
+    const clear = dims.b - 2 * dims.tw;
+    if (clear < rules.minBoxClear * (1 - REL)) out.push({ kind: "fabrication", limit: "fabrication.minBoxClear", dim: "b", value: clear, bound: rules.minBoxClear });
+  }
+  return out;
+}
+
 /** Every limit of `problem` the section breaks (see the header). */
 export function sectionLimits(family: string, dims: Record<string, number>, problem: SearchProblem): SectionLimits {
   const breaches: LimitBreach[] = [];
@@ -69,11 +104,13 @@ export function sectionLimits(family: string, dims: Record<string, number>, prob
       if (!problem.thicknesses.some((t) => Math.abs(t - x) <= REL * Math.max(t, x))) breaches.push({ kind: "thickness", limit: "thicknesses", dim, value: x });
     } else breaches.push(...axisBreaches(role === "depth" ? problem.depth : problem.width, role, dim, x));
   }
+  breaches.push(...fabricationBreaches(f, dims, problem));
   const rule = familyRuleViolation(f, dims);
   if (rule) return { breaches: [...breaches, { kind: "geometry", limit: "geometry", dim: rule.field, rule: rule.message }], verdict: null };
   const verdict = candidateChecks(f, dims, problem);
   // A check fails when demand > capacity (checks.ts compares them directly, not the rounded ratio).
   for (const c of verdict.checks)
-    if (c.demand > c.capacity) breaches.push({ kind: "check", limit: CHECK_LIMIT[c.name], check: c.name, demand: c.demand, capacity: c.capacity, utilisation: c.utilisation });
+    if (c.demand > c.capacity)
+      breaches.push({ kind: "check", limit: CHECK_LIMIT[c.name], check: c.name, demand: c.demand, capacity: c.capacity, utilisation: c.utilisation, unit: c.unit });
   return { breaches, verdict };
 }

@@ -76,9 +76,9 @@ describe("provenance (item 3)", () => {
     expect(o.sweepId).toBe(f.recheckId);
     expect(o.recheckOf).toBe(f.sweepId);
     // The recheck's limits (140 MPa), not the brief's (165 MPa).
-    expect(o.problem.allowable.tension).toBe(140);
+    expect(o.problem.allowable?.tension).toBe(140);
     const brief = await getBrief(await ctx.teamId(), f.briefId);
-    expect(brief.problem.allowable.tension).toBe(165);
+    expect(brief.problem.allowable?.tension).toBe(165);
   });
 });
 

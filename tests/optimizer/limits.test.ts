@@ -54,7 +54,18 @@ describe("sectionLimits", () => {
   });
   it("names a slenderness limit: web (d − 2tf)/tw = 280/8 = 35 against 30 (engine contract, slenderness)", () => {
     const r = sectionLimits("i", I300, with_({ slenderness: { web: 30 } }));
-    expect(r.breaches).toEqual([{ kind: "check", limit: "slenderness.web", check: "slenderness-web", demand: 35, capacity: 30, utilisation: 35 / 30 }]);
+    expect(r.breaches).toEqual([{ kind: "check", limit: "slenderness.web", check: "slenderness-web", demand: 35, capacity: 30, utilisation: 35 / 30, unit: "ratio" }]);
+  });
+  it("names the fabrication rules as member-checks.md states them (min thickness, tf ≥ tw, box clear width)", () => {
+    const p = with_({ fabrication: { minThickness: 10, flangeAtLeastWeb: true, minBoxClear: 140 }, families: ["i", "box"] });
+    expect(sectionLimits("i", { d: 300, b: 150, tf: 8, tw: 10 }, p).breaches.filter((b) => b.kind === "fabrication")).toEqual([
+      { kind: "fabrication", limit: "fabrication.minThickness", dim: "tf", value: 8, bound: 10 },
+      { kind: "fabrication", limit: "fabrication.flangeAtLeastWeb", dim: "tf", value: 8, bound: 10 },
+    ]);
+    // b − 2·tw = 150 − 24 = 126 < 140
+    expect(sectionLimits("box", { d: 300, b: 150, tf: 12, tw: 12 }, p).breaches.filter((b) => b.kind === "fabrication")).toEqual([
+      { kind: "fabrication", limit: "fabrication.minBoxClear", dim: "b", value: 126, bound: 140 },
+    ]);
   });
   it("reports invalid geometry and unknown families without throwing", () => {
     expect(sectionLimits("i", { d: 20, b: 150, tf: 10, tw: 8 }, base).breaches.at(-1)).toMatchObject({ kind: "geometry" });
