@@ -5,7 +5,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { briefFormSchema, DEFAULT_PROBLEM, FIELD_QUANTITIES, problemToFormDefaults, readSiMemo, switchShownUnits, type BriefParsed } from "~/lib/brief-form";
+import { briefFormSchema, DEFAULT_PROBLEM, FIELD_QUANTITIES, pathQuantity, problemToFormDefaults, readSiMemo, switchShownUnits, type BriefParsed } from "~/lib/brief-form";
+import { formFields } from "./form-data";
 import { searchProblemSchema, type SearchProblem } from "~/optimizer/search-schema";
 import type { UnitSystem } from "~/optimizer/units";
 
@@ -36,6 +37,20 @@ const arbProblem: fc.Arbitrary<SearchProblem> = fc
     families: fc.subarray(["i", "channel", "tee", "box", "channel-down", "mono-i", "angle"] as const, { minLength: 1 }),
     density: typed(2000, 9000),
     deflection: fc.option(fc.record({ span: typed(0.5, 30), serviceLoad: typed(0.1, 80), limitRatio: typed(100, 800), E: typed(50000, 220000) }), { nil: undefined }),
+    // EN 1993 briefs too: their steel bands, fu, E, restraint and fabrication are numbers with units.
+    en: fc.option(
+      fc.record({
+        band1: typed(8, 20),
+        band2: typed(21, 80),
+        fy1: typed(200, 460),
+        fy2: typed(180, 440),
+        fu: typed(300, 600),
+        restraint: fc.option(typed(0.5, 12), { nil: undefined }),
+        minThickness: fc.option(typed(2, 8), { nil: undefined }),
+        minBoxClear: fc.option(typed(50, 150), { nil: undefined }),
+      }),
+      { nil: undefined },
+    ),
   })
   .map((r) => ({
     moment: { sagging: r.sagging, hogging: r.hogging },
@@ -48,6 +63,20 @@ const arbProblem: fc.Arbitrary<SearchProblem> = fc
     slenderness: { outstand: 15, web: 120 },
     density: r.density,
     ...(r.deflection ? { deflection: r.deflection } : {}),
+    ...(r.en
+      ? {
+          basis: "en1993" as const,
+          allowable: undefined,
+          slenderness: undefined,
+          families: r.families.filter((f) => f !== "angle" && f !== "channel-down"),
+          thicknesses: r.thicknesses.filter((t) => t > 0 && t <= r.en!.band2),
+          steel: { fy: [{ maxThickness: r.en.band1, fy: r.en.fy1 }, { maxThickness: r.en.band2, fy: r.en.fy2 }], fu: r.en.fu },
+          ...(r.en.restraint !== undefined ? { restraint: { length: r.en.restraint } } : {}),
+          ...(r.en.minThickness !== undefined || r.en.minBoxClear !== undefined
+            ? { fabrication: { ...(r.en.minThickness !== undefined ? { minThickness: r.en.minThickness } : {}), ...(r.en.minBoxClear !== undefined ? { minBoxClear: r.en.minBoxClear } : {}) } }
+            : {}),
+        }
+      : {}),
   }))
   .map((p) => searchProblemSchema.safeParse(p))
   .filter((r) => r.success)
@@ -55,30 +84,23 @@ const arbProblem: fc.Arbitrary<SearchProblem> = fc
 
 const arbSwitches = fc.array(fc.constantFrom<UnitSystem>("si", "us"), { maxLength: 7 });
 
-/** The form as posted: every default flattened to its dotted name, the shown numbers replaced. */
+/** The form as posted: every default by its posted name, the shown numbers replaced. */
 function post(defaults: Record<string, unknown>, shown: Record<string, string>, memo: string, units: UnitSystem): FormData {
-  const fd = new FormData();
-  const walk = (o: unknown, p: string) => {
-    if (Array.isArray(o)) for (const x of o) fd.append(p, String(x));
-    else if (o && typeof o === "object") for (const [k, v] of Object.entries(o)) walk(v, p ? `${p}.${k}` : k);
-    else if (o !== undefined && o !== null) fd.append(p, String(o));
-  };
-  walk({ ...defaults, units, siValues: memo }, "");
+  const fields = formFields({ ...defaults, units, siValues: memo });
   for (const [k, v] of Object.entries(shown)) {
-    fd.delete(k);
-    if (v !== "") fd.append(k, v);
+    delete fields[k];
+    if (v !== "") fields[k] = v;
   }
+  const fd = new FormData();
+  for (const [k, v] of Object.entries(fields)) for (const one of Array.isArray(v) ? v : [v]) fd.append(k, one);
   return fd;
 }
 
-/** The shown numbers of a form's defaults (what the inputs display). */
+/** The shown numbers of a form's defaults: every field with a quantity (the editor's data-quantity inputs) and the thickness list. */
 function shownOf(defaults: Record<string, unknown>): Record<string, string> {
-  const get = (path: string) => path.split(".").reduce<unknown>((o, k) => (o && typeof o === "object" ? (o as Record<string, unknown>)[k] : undefined), defaults);
   const out: Record<string, string> = {};
-  for (const f of NUMERIC) {
-    const v = get(f);
-    out[f] = v === undefined || v === null ? "" : String(v);
-  }
+  for (const [k, v] of Object.entries(formFields(defaults))) if (pathQuantity(k)) out[k] = String(v);
+  for (const f of NUMERIC) out[f] ??= "";
   out.thicknesses = String(defaults.thicknesses);
   return out;
 }
@@ -115,7 +137,7 @@ describe("unit switches never change the brief (property)", () => {
       }),
       { numRuns: 300 },
     );
-  });
+  }, 60_000);
 
   it("a brief typed in one system (no remembered values) saves the same problem after any number of switches", () => {
     fc.assert(
@@ -130,7 +152,7 @@ describe("unit switches never change the brief (property)", () => {
       }),
       { numRuns: 300 },
     );
-  });
+  }, 60_000);
 
   it("an edited field takes what was typed; the others keep their exact SI values", () => {
     const defaults = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "E" });
