@@ -10,6 +10,8 @@
 // 1e-9 of the step (the same tolerance gridValues uses for max), so 0.1 + 2·0.1 counts as 0.3.
 import { candidateChecks, type CandidateVerdict, type CheckUnit } from "./checks";
 import { FAMILIES, FAMILY_DIMENSIONS, familyRuleViolation, type Family } from "./geometry";
+import { FAMILY_KERNELS } from "./family-kernel";
+import { fabricationKernel } from "./grid";
 import { axisCount, dimRole, type CheckName, type GridAxis, type SearchProblem } from "./search-schema";
 
 /** The problem field each check compares against. */
@@ -66,26 +68,40 @@ function axisBreaches(axis: GridAxis, name: "depth" | "width", dim: string, x: n
 }
 
 /**
- * The fabrication rules as member-checks.md states them: plates thinner than minThickness are off
- * the grid; flangeAtLeastWeb keeps only tf ≥ tw (each flange); minBoxClear keeps only boxes with
- * b − 2·tw ≥ it. Which dimensions are flanges and webs: the family table (engine contract).
+ * The fabrication rules (member-checks.md, `fabrication`), decided by the engine's own grid
+ * exclusions (grid.ts: the stock filter for minThickness, fabricationKernel for the rest), one
+ * rule at a time so the words can name it: plates thinner than minThickness are off the grid;
+ * flangeAtLeastWeb keeps only tf ≥ tw (each flange); minBoxClear keeps only boxes with
+ * b − 2·tw ≥ it.
  */
+const AT_LEAST = 1 - 1e-12;
 function fabricationBreaches(f: Family, dims: Record<string, number>, problem: SearchProblem): LimitBreach[] {
   const rules = problem.fabrication;
   if (!rules) return [];
   const out: LimitBreach[] = [];
-  const names = FAMILY_DIMENSIONS[f] as readonly string[];
-  if (rules.minThickness !== undefined)
+  const base = FAMILY_KERNELS[f];
+  const v = Float64Array.from(base.dims, (n) => dims[n]);
+  const baseOk = base.groupValid(v) && v[base.free] > base.freeMin(v);
+  // Off the grid under this one rule (and on it without): the engine's kernel decides.
+  const excludes = (rule: NonNullable<SearchProblem["fabrication"]>) => {
+    const k = fabricationKernel(base, rule);
+    return baseOk && !(k.groupValid(v) && v[k.free] > k.freeMin(v));
+  };
+  const names = base.dims;
+  const mt = rules.minThickness;
+  if (mt !== undefined) {
     for (const dim of names)
-      if (dimRole(f, dim) === "thickness" && dims[dim] < rules.minThickness * (1 - REL))
-        out.push({ kind: "fabrication", limit: "fabrication.minThickness", dim, value: dims[dim], bound: rules.minThickness });
-  if (rules.flangeAtLeastWeb && "tw" in dims)
-    for (const flange of ["tf", "tft", "tfb"])
-      if (names.includes(flange) && dims[flange] < dims.tw) out.push({ kind: "fabrication", limit: "fabrication.flangeAtLeastWeb", dim: flange, value: dims[flange], bound: dims.tw });
-  if (rules.minBoxClear !== undefined && f === "box") {
-    const clear = dims.b - 2 * dims.tw;
-    if (clear < rules.minBoxClear * (1 - REL)) out.push({ kind: "fabrication", limit: "fabrication.minBoxClear", dim: "b", value: clear, bound: rules.minBoxClear });
+      if (dimRole(f, dim) === "thickness" && !(dims[dim] >= mt * AT_LEAST)) out.push({ kind: "fabrication", limit: "fabrication.minThickness", dim, value: dims[dim], bound: mt });
+    // the solid rectangle: its sides are its plate
+    if (f === "rectangle" && excludes({ minThickness: mt })) out.push({ kind: "fabrication", limit: "fabrication.minThickness", dim: "b", value: Math.min(dims.b, dims.d), bound: mt });
   }
+  if (rules.flangeAtLeastWeb && excludes({ flangeAtLeastWeb: true })) {
+    // Every family names its web plate tw (channel-down: the top plate; its legs are tf).
+    for (const flange of ["tf", "tft", "tfb"])
+      if (names.includes(flange) && !(dims[flange] >= dims.tw * AT_LEAST)) out.push({ kind: "fabrication", limit: "fabrication.flangeAtLeastWeb", dim: flange, value: dims[flange], bound: dims.tw });
+  }
+  if (rules.minBoxClear !== undefined && excludes({ minBoxClear: rules.minBoxClear }))
+    out.push({ kind: "fabrication", limit: "fabrication.minBoxClear", dim: "b", value: dims.b - 2 * dims.tw, bound: rules.minBoxClear });
   return out;
 }
 
@@ -104,8 +120,8 @@ export function sectionLimits(family: string, dims: Record<string, number>, prob
       if (!problem.thicknesses.some((t) => Math.abs(t - x) <= REL * Math.max(t, x))) breaches.push({ kind: "thickness", limit: "thicknesses", dim, value: x });
     } else breaches.push(...axisBreaches(role === "depth" ? problem.depth : problem.width, role, dim, x));
   }
-  breaches.push(...fabricationBreaches(f, dims, problem));
   const rule = familyRuleViolation(f, dims);
+  if (!rule) breaches.push(...fabricationBreaches(f, dims, problem));
   if (rule) return { breaches: [...breaches, { kind: "geometry", limit: "geometry", dim: rule.field, rule: rule.message }], verdict: null };
   const verdict = candidateChecks(f, dims, problem);
   // A check fails when demand > capacity (checks.ts compares them directly, not the rounded ratio).
