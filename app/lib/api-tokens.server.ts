@@ -1,4 +1,3 @@
-import { z } from "zod";
 import { db } from "~/lib/db.server";
 import { hashToken, newToken, type SessionUser } from "~/lib/auth.server";
 import { FieldError } from "~/lib/forms.server";
@@ -7,16 +6,6 @@ import { logActivity } from "~/lib/activity.server";
 // Personal API tokens: shown once at creation, stored as sha256 only, used as "Authorization: Bearer".
 export const TOKEN_PREFIX = "spw_";
 export const MAX_ACTIVE_TOKENS = 20;
-
-export const accountActionSchema = z.discriminatedUnion(
-  "intent",
-  [
-    z.object({ intent: z.literal("createToken"), name: z.string({ error: "Token name is required." }).trim().min(1, "Token name is required.").max(80, "Token name must be at most 80 characters.") }),
-    z.object({ intent: z.literal("revokeToken"), tokenId: z.coerce.number({ error: "Token is required." }).int("Token must be a whole number.").positive("Token must be positive.") }),
-    z.object({ intent: z.literal("switchTeam"), teamId: z.coerce.number({ error: "Team is required." }).int("Team must be a whole number.").positive("Team must be positive.") }),
-  ],
-  { error: "Intent must be createToken, revokeToken or switchTeam." },
-);
 
 export async function listApiTokens(user: SessionUser) {
   return db("api_tokens")

@@ -1,3 +1,4 @@
+import type { Knex } from "knex";
 import { z } from "zod";
 import { db } from "~/lib/db.server";
 import { hashPassword, hashToken, MIN_PASSWORD_LENGTH, newToken, normaliseEmail } from "~/lib/auth.server";
@@ -93,7 +94,19 @@ export const TOKEN_MESSAGES: Record<Exclude<TokenState, "valid">, string> = {
   expired: "This link has expired. Ask for a new one.",
 };
 
-/** Sets the new password once per token; every earlier session and unused reset link of the user dies. */
+/**
+ * Ends every session (bumps session_version) and revokes every API token of the user: after a
+ * password reset or change, nothing made with the old password keeps working. Returns the new
+ * session_version.
+ */
+export async function revokeCredentials(trx: Knex.Transaction, userId: number): Promise<number> {
+  await trx("users").where({ id: userId }).increment("session_version", 1);
+  await trx("api_tokens").where({ user_id: userId }).whereNull("revoked_at").update({ revoked_at: trx.fn.now() });
+  const row = await trx("users").where({ id: userId }).first("session_version");
+  return row.session_version as number;
+}
+
+/** Sets the new password once per token; every earlier session, API token and unused reset link of the user dies. */
 export async function resetPassword(token: string, password: string): Promise<{ userId: number }> {
   const passwordHash = await hashPassword(password);
   return db.transaction(async (trx) => {
@@ -102,9 +115,8 @@ export async function resetPassword(token: string, password: string): Promise<{ 
     const state = stateOf(row);
     if (state !== "valid") throw new FieldError("token", TOKEN_MESSAGES[state], 400);
     await trx("password_resets").where({ user_id: row!.user_id }).whereNull("used_at").update({ used_at: trx.fn.now() });
-    await trx("users")
-      .where({ id: row!.user_id })
-      .update({ password_hash: passwordHash, session_version: trx.raw("session_version + 1"), updated_at: trx.fn.now() });
+    await trx("users").where({ id: row!.user_id }).update({ password_hash: passwordHash, updated_at: trx.fn.now() });
+    await revokeCredentials(trx, row!.user_id);
     const team = await trx("memberships").where({ user_id: row!.user_id }).orderBy("id").first("team_id");
     if (team) {
       await logActivity({ teamId: team.team_id, userId: row!.user_id, action: "password_reset", subjectType: "user", subjectId: row!.user_id }, trx);

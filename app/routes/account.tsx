@@ -1,8 +1,10 @@
-import { Form, redirect } from "react-router";
+import { data, Form, redirect } from "react-router";
 import type { Route } from "./+types/account";
-import { Button, Field, FormError } from "~/components/ui";
-import { accountActionSchema, createApiToken, listApiTokens, revokeApiToken } from "~/lib/api-tokens.server";
-import { chooseTeam, requireUser } from "~/lib/auth.server";
+import { Button, Field, FormError, Notice } from "~/components/ui";
+import { createApiToken, listApiTokens, revokeApiToken } from "~/lib/api-tokens.server";
+import { accountActionSchema, changePassword } from "~/lib/account.server";
+import { chooseTeam, MIN_PASSWORD_LENGTH, requireUser, signOut } from "~/lib/auth.server";
+import { commitSession, getSession } from "~/lib/session.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
 import { ROLE_LABELS } from "~/lib/roles";
 
@@ -26,6 +28,17 @@ export async function action({ request }: Route.ActionArgs) {
       const { setCookie } = await chooseTeam(request, input.teamId);
       return redirect("/", { headers: { "Set-Cookie": setCookie } });
     }
+    if (input.intent === "signOutEverywhere") return signOut(request);
+    if (input.intent === "changePassword") {
+      const sv = await changePassword(request, user, input.current, input.password);
+      // This browser stays signed in: its cookie is re-issued with the new session_version.
+      const session = await getSession(request);
+      session.set("sv", sv);
+      return data(
+        { changed: "Password changed. Every other session and all your API tokens have been ended; create new tokens for your scripts." },
+        { headers: { "Set-Cookie": await commitSession(session) } },
+      );
+    }
     if (input.intent === "createToken") {
       const created = await createApiToken(user, input.name);
       return { created: { name: input.name, token: created.token } };
@@ -41,6 +54,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
   const { user, tokens } = loaderData;
   const errors: Record<string, string> = (actionData && "errors" in actionData ? actionData.errors : undefined) ?? {};
   const created = actionData && "created" in actionData ? actionData.created : null;
+  const changed = actionData && "changed" in actionData ? actionData.changed : null;
   return (
     <div className="space-y-8">
       <section>
@@ -58,9 +72,35 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         <p className="mt-3 text-sm">
           E-mails Sparwise sent you (invitations, password resets, reviews) are under <a className="text-accent-strong underline" href="/messages">My messages</a>.
         </p>
-        <p className="mt-3 text-sm">
-          To change your password, use <a className="text-accent-strong underline" href="/forgot-password">the reset link by e-mail</a>.
+      </section>
+
+      <section aria-labelledby="password-h" className="max-w-xl space-y-3">
+        <h2 id="password-h" className="text-xl font-bold">Change your password</h2>
+        <p className="text-sm text-ink/80">Changing it ends every other session and revokes all your API tokens.</p>
+        {changed && <Notice message={changed} />}
+        <Form method="post" className="space-y-3" noValidate>
+          <input type="hidden" name="intent" value="changePassword" />
+          <FormError message={errors.form} />
+          <Field label="Current password" name="current" type="password" autoComplete="current-password" required error={errors.current} />
+          <Field label="New password" name="password" type="password" autoComplete="new-password" required hint={`At least ${MIN_PASSWORD_LENGTH} characters.`} error={errors.password} />
+          <Field label="Repeat the new password" name="confirm" type="password" autoComplete="new-password" required error={errors.confirm} />
+          <Button>Change password</Button>
+        </Form>
+        <p className="text-sm">
+          Forgot it? Use <a className="text-accent-strong underline" href="/forgot-password">the reset link by e-mail</a>.
         </p>
+      </section>
+
+      <section aria-labelledby="sessions-h" className="max-w-xl space-y-3">
+        <h2 id="sessions-h" className="text-xl font-bold">Sessions</h2>
+        <p className="text-sm text-ink/80">
+          Signed in on a computer you no longer use? Sign out everywhere ends every session of yours, this one included. API tokens are not
+          affected: revoke them below.
+        </p>
+        <Form method="post">
+          <input type="hidden" name="intent" value="signOutEverywhere" />
+          <Button variant="danger">Sign out everywhere</Button>
+        </Form>
       </section>
 
       <section aria-labelledby="tokens-h" className="space-y-4">

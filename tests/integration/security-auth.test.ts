@@ -10,6 +10,8 @@ import * as invite from "~/routes/invite.$token";
 import * as project from "~/routes/projects.$projectId";
 import * as signIn from "~/routes/sign-in";
 import * as forgot from "~/routes/forgot-password";
+import * as reset from "~/routes/reset-password.$token";
+import { requireApiUser } from "~/lib/auth.server";
 import * as adminOutbox from "~/routes/admin.outbox";
 import * as messages from "~/routes/messages";
 import { execFileSync } from "node:child_process";
@@ -356,5 +358,76 @@ describe("10. after sign-in, next= leads only to a path of this app", () => {
   test("an ordinary path keeps its query and hash", async () => {
     const res = await callRoute(signIn.action, await post(null, "/sign-in", { email: "reviewer@tallowfield.example", password: "sparwise-demo", next: "/projects?archived=1#list" }));
     expect(res.location).toBe("/projects?archived=1#list");
+  });
+});
+
+describe("12. a password reset or change ends every session and API token", () => {
+  const bearer = (token: string) => new Request(`${BASE}/api/v1/sweeps`, { headers: { Authorization: `Bearer ${token}` } });
+  async function tokenFor(cookie: string, name: string): Promise<string> {
+    const made = await callRoute(account.action, await post(cookie, "/account", { intent: "createToken", name }));
+    return (made.data as { created: { token: string } }).created.token;
+  }
+  async function signedIn(email: string, password: string): Promise<string> {
+    const res = await callRoute(signIn.action, await post(null, "/sign-in", { email, password }));
+    expect(res.status).toBe(302);
+    return cookieFrom(res);
+  }
+
+  test("after a reset, API tokens made before it are revoked and old sessions are dead", async () => {
+    const email = "reset-revokes@tallowfield.example";
+    await makeUser(email, "password before reset", teamA, "engineer");
+    const cookie = await signedIn(email, "password before reset");
+    const token = await tokenFor(cookie, "laptop script");
+    expect((await requireApiUser(bearer(token))).email).toBe(email);
+
+    await callRoute(forgot.action, await post(null, "/forgot-password", { email }));
+    const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
+    const resetToken = /\/reset-password\/([A-Za-z0-9_-]+)/.exec(mail.text_body)![1]!;
+    const done = await callRoute(reset.action, await post(null, `/reset-password/${resetToken}`, { password: "password after reset", confirm: "password after reset" }), { token: resetToken });
+    expect(done.status).toBe(302);
+
+    await expect(requireApiUser(bearer(token))).rejects.toMatchObject({ status: 401 });
+    expect(await getUser(get(cookie, "/"))).toBeNull();
+  });
+
+  test("changing the password needs the current one and the reset's rule; it ends other sessions and tokens and keeps this one", async () => {
+    const email = "changer@tallowfield.example";
+    await makeUser(email, "my current password", teamA, "engineer");
+    const here = await signedIn(email, "my current password");
+    const elsewhere = await signedIn(email, "my current password");
+    const token = await tokenFor(here, "ci script");
+    const change = (fields: Record<string, string>) => post(here, "/account", { intent: "changePassword", ...fields });
+
+    const wrong = await callRoute(account.action, await change({ current: "not my password", password: "a new long password", confirm: "a new long password" }));
+    expect(wrong.status).toBe(400);
+    expect(JSON.stringify(wrong.data)).toMatch(/"current":"Your current password is wrong/);
+    const short = await callRoute(account.action, await change({ current: "my current password", password: "short", confirm: "short" }));
+    expect(short.status).toBe(400);
+    expect(JSON.stringify(short.data)).toMatch(/"password":.*at least 10 characters/);
+    const mismatch = await callRoute(account.action, await change({ current: "my current password", password: "a new long password", confirm: "a different one" }));
+    expect(mismatch.status).toBe(400);
+    expect(JSON.stringify(mismatch.data)).toMatch(/"confirm"/);
+    expect((await requireApiUser(bearer(token))).email).toBe(email); // refusals changed nothing
+
+    const ok = await callRoute(account.action, await change({ current: "my current password", password: "a new long password", confirm: "a new long password" }));
+    expect(ok.status).toBe(200);
+    expect(await getUser(get(cookieFrom(ok), "/"))).toMatchObject({ email });
+    expect(await getUser(get(elsewhere, "/"))).toBeNull();
+    expect(await getUser(get(here, "/"))).toBeNull(); // the cookie as it was before the change
+    await expect(requireApiUser(bearer(token))).rejects.toMatchObject({ status: 401 });
+    expect((await callRoute(signIn.action, await post(null, "/sign-in", { email, password: "my current password" }))).status).toBe(401);
+    await signedIn(email, "a new long password");
+  });
+
+  test("sign out everywhere ends every session of the user, this one included", async () => {
+    const email = "everywhere@tallowfield.example";
+    await makeUser(email, "everywhere password", teamA, "viewer");
+    const a = await signedIn(email, "everywhere password");
+    const b = await signedIn(email, "everywhere password");
+    const res = await callRoute(account.action, await post(a, "/account", { intent: "signOutEverywhere" }));
+    expect(res.status).toBe(302);
+    expect(res.location).toBe("/sign-in");
+    expect(await getUser(get(a, "/"))).toBeNull();
+    expect(await getUser(get(b, "/"))).toBeNull();
   });
 });
