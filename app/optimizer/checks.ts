@@ -47,7 +47,7 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     deflLimit = Infinity;
   if (p.deflection) {
     // Simply supported, uniform load: δ = 5·w·L⁴ / (384·E·I) (any beam table, e.g. the
-    // AISC Manual's beam diagrams, case 1). w kN/m = N/mm; L m → mm.
+    // AISC Steel Construction Manual's beam diagrams, case 1; mem.). w kN/m = N/mm; L m → mm.
     const L = p.deflection.span * 1000;
     deflNumerator = (5 * p.deflection.serviceLoad * L ** 4) / (384 * p.deflection.E);
     deflLimit = L / p.deflection.limitRatio;

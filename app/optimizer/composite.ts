@@ -23,7 +23,7 @@ export const K_AREA = 0,
  * because the one-pass form loses digits when the section sits far from the origin
  * (translation invariance is a property test).
  * Rectangle about its own centroid: b·h³/12, h·b³/12, product 0 (any statics text,
- * e.g. Gere & Goodno, Mechanics of Materials, Appendix D).
+ * e.g. Gere & Goodno, Mechanics of Materials, 7th ed. (2009), Appendix D).
  */
 export function compositeKernel(plates: Float64Array, count: number, out: Float64Array): void {
   let area = 0,

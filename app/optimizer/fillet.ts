@@ -4,7 +4,7 @@
 // Local axes u, v run from the re-entrant corner into the fillet. Derived as square minus
 // quarter disc (quarter disc centroid 4r/(3π) from its centre, Iₓ about a diameter πr⁴/16,
 // product about the centre axes r⁴/8: standard tables, e.g. Gere & Goodno, Mechanics of
-// Materials, Appendix D, cases 1 and 10), then moved with the parallel-axis theorem:
+// Materials, 7th ed. (2009), Appendix D, cases 1 and 10), then moved with the parallel-axis theorem:
 //   A      = r²(1 − π/4)
 //   ∫u dA  = ∫v dA  = r³(5/6 − π/4)        (centroid r(10 − 3π)/(12 − 3π) ≈ 0.2234 r from each face)
 //   ∫u² dA = ∫v² dA = r⁴(1 − 5π/16)

@@ -121,7 +121,7 @@ export function hollowPieces(family: HollowFamily, dims: Record<string, number>)
 /**
  * Torsion constant of a closed hollow section, mm⁴.
  * chs: the exact 2·I = π·(d⁴ − (d − 2t)⁴)/32 of a circular tube (any mechanics of materials
- * text, e.g. Gere & Goodno, Mechanics of Materials, torsion of circular tubes); it equals
+ * text, e.g. Gere & Goodno, Mechanics of Materials, 7th ed. (2009), torsion of circular tubes); it equals
  * Bredt's 2π·rm³·t plus a wall term π·rm·t³/2.
  * rhs: Bredt's formula on the midline cell plus the walls' own open-section share, as the
  * standards' annexes write it (mem., EN 10210-2 / EN 10219-2 Annex, "It"):

@@ -332,7 +332,7 @@ function plasticModulus(s: Shape, A: number, cbar: number): number {
 function torsionConstant(s: Shape): [number, Jmethod] {
   if (s.torsion === "box" && s.box) {
     // Bredt's formula for one closed cell on the wall midlines: J = 4·Am² / ∮ds/t
-    // (Timoshenko & Goodier, Theory of Elasticity, thin-walled tubes).
+    // (Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), thin-walled tubes).
     const { d, b, tf, tw } = s.box;
     const Am = (b - tw) * (d - tf);
     return [(4 * Am * Am) / ((2 * (b - tw)) / tf + (2 * (d - tf)) / tw), "closed-bredt"];
@@ -356,7 +356,7 @@ function torsionConstant(s: Shape): [number, Jmethod] {
  * with exactly one hole, Bredt on a mean wall (Am = mean of the two areas, wall t = net
  * area ÷ mean perimeter); otherwise Saint-Venant's approximation J ≈ A⁴/(4π²·Ip) about the
  * part's own centroid (exact for a circle and an ellipse; Saint-Venant 1855, quoted in
- * Roark's Formulas for Stress and Strain, torsion chapter).
+ * Roark's Formulas for Stress and Strain, 7th ed. (2002), torsion chapter).
  */
 function polygonTorsion(rings: Ring[]): number {
   let J = 0;

@@ -9,7 +9,7 @@ import { MAX_DENSITY, familyViolation, findInputViolation, platesOverlap, polygo
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` }).refine(Number.isFinite, `${what} must be a finite number`);
 const positive = (what: string) => finite(what).refine((x) => x > 0, `${what} must be positive`);
 
-/** kg/m³; steel 7850 by default (EN 1993-1-1 §3.2.6 gives 7850 kg/m³ for structural steel). */
+/** kg/m³; steel 7850 by default: the unit weight 78.5 kN/m³ of EN 1991-1-1 Annex A, Table A.4 (a loads standard), from memory. */
 export const DEFAULT_DENSITY = 7850;
 const density = positive("density")
   .refine((x) => x <= MAX_DENSITY, `density must be at most ${MAX_DENSITY} kg/m³`)

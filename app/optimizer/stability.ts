@@ -144,7 +144,7 @@ export function stabilityKernel(family: Family, v: ArrayLike<number>, out: Float
         b = v[1],
         tf = v[2],
         tw = v[3];
-      // Bredt on the midline cell, as properties.ts (Timoshenko & Goodier, thin-walled tubes)
+      // Bredt on the midline cell, as properties.ts (Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), thin-walled tubes)
       const Am = (b - tw) * (d - tf);
       out[ST_H0] = d - tf;
       out[ST_SCZ] = b / 2;
@@ -158,7 +158,7 @@ export function stabilityKernel(family: Family, v: ArrayLike<number>, out: Float
       const b = v[0],
         d = v[1];
       // Solid rectangle, s the smaller side and l the larger: J = l·s³·(1/3 − 0.21·(s/l)·(1 − s⁴/(12·l⁴)))
-      // (the usual approximation, e.g. Roark's Formulas for Stress and Strain, torsion table) (mem.)
+      // (the usual approximation, e.g. Roark's Formulas for Stress and Strain, 7th ed. (2002), torsion table) (mem.)
       const s = Math.min(b, d),
         l = Math.max(b, d);
       const r = s / l;
@@ -178,8 +178,9 @@ export function stabilityKernel(family: Family, v: ArrayLike<number>, out: Float
 const buf = new Float64Array(ST_OUT);
 
 /** properties.stability of a family section (null where member-checks.md §1 defines none). */
-export function familyStability(family: Family, dims: Record<string, number>, dimNames: readonly string[], flip: boolean): StabilityProperties | null {
-  const v = dimNames.map((n) => dims[n]);
+export function familyStability(family: Family, dims: Record<string, number>, dimNames: readonly string[] | undefined, flip: boolean): StabilityProperties | null {
+  if (!STABILITY_FAMILIES.includes(family)) return null;
+  const v = (dimNames ?? []).map((n) => dims[n]);
   if (!stabilityKernel(family, v, buf)) return null;
   const d = dims.d;
   // flip mirrors the section about its mid-depth: the shear centre moves to d − y, betaX changes sign

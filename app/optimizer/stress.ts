@@ -30,7 +30,7 @@ export interface Loads {
  * From −∫σ·y dA = Mz and −∫σ·z dA = My with Δ = Iz·Iy − Iyz²:
  *   σ = [Mz·(Iyz·z − Iy·y) + My·(Iyz·y − Iz·z)] / Δ
  * which for My = 0 is the contract's σ = M·(Iyz·z − Iy·y)/(Iz·Iy − Iyz²)
- * (Boresi & Schmidt, Advanced Mechanics of Materials, ch. 7, unsymmetrical bending).
+ * (Boresi & Schmidt, Advanced Mechanics of Materials, 6th ed. (2003), ch. 7, unsymmetrical bending).
  */
 export function bendingField(p: Pick<SectionProperties, "Iz" | "Iy" | "Iyz">, Mz: number, My = 0): { az: number; ay: number } {
   const D = p.Iz * p.Iy - p.Iyz * p.Iyz;
@@ -147,7 +147,7 @@ function outlineCorners(s: Shape): [number, number][] {
 }
 
 /**
- * τ(y) = V·Q(y)/(Iz·b(y)) (Gere & Goodno §5.8, the elementary shear formula, applied as the
+ * τ(y) = V·Q(y)/(Iz·b(y)) (Gere & Goodno, 7th ed. §5.8, the elementary shear formula, applied as the
  * contract says to every shape). Sampled evenly, at the neutral axis, and on both sides of
  * every edge (the smaller width, as widthAtNeutralAxis does) so the jumps are drawn.
  */

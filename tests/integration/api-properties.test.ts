@@ -29,7 +29,7 @@ beforeAll(async () => {
 const bearer = () => ({ Authorization: `Bearer ${token}` });
 
 // IPE 300 (h 300, b 150, tw 7.1, tf 10.7, r 15): A = 53.8 cm², Iy = 8356 cm⁴, Wel,y = 557.1 cm³,
-// Wpl,y = 628.4 cm³ — EN 10365 section table as printed in producers' catalogues, FROM MEMORY
+// Wpl,y = 628.4 cm³ — EN 10365:2017 section table, FROM MEMORY
 // (the same values tests/optimizer/rolled-sections.test.ts checks the engine against).
 const IPE300 = { family: "i", d: 300, b: 150, tf: 10.7, tw: 7.1, r: 15 };
 

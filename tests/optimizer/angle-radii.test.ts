@@ -2,7 +2,7 @@
 // (family angle with r, rt). Checked against the same outline as a fine polygon (Green's theorem,
 // no fillet code) and against the closed-form area: legs d·t + (b − t)·t, plus the root spandrel
 // r²(1 − π/4), less two toe spandrels rt²(1 − π/4) (square minus quarter disc, Gere & Goodno,
-// Mechanics of Materials, Appendix D). Printed values (mem., EN 10056-1 table for L 100 × 100 × 10,
+// Mechanics of Materials, 7th ed. (2009), Appendix D). Printed values (mem., EN 10056-1 table for L 100 × 100 × 10,
 // r1 = 12, r2 = 6): A 19.2 cm², I 177 cm⁴ about either leg-parallel axis, 15.0 kg/m.
 import { describe, expect, it } from "vitest";
 import { sectionInputSchema, sectionProperties, type SectionInput } from "~/optimizer/index";

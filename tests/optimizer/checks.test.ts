@@ -21,7 +21,7 @@ const get = (v: ReturnType<typeof candidateChecks>, name: string) => v.checks.fi
 describe("doubly symmetric I (d 400, b 200, tf 10, tw 8)", () => {
   const dims = { d: 400, b: 200, tf: 10, tw: 8 };
   // Iz by subtracting the two clear rectangles beside the web: (b·d³ − (b − tw)·hw³)/12
-  // (Gere & Goodno, Mechanics of Materials, §5.8 doubly symmetric beams)
+  // (Gere & Goodno, Mechanics of Materials, 7th ed. (2009), §12.5, parallel-axis theorem)
   const hw = 380;
   const Iz = (200 * 400 ** 3 - 192 * hw ** 3) / 12;
 
@@ -33,7 +33,7 @@ describe("doubly symmetric I (d 400, b 200, tf 10, tw 8)", () => {
     expect(v.governing).toBe("bending-compression"); // equal demands: the first check in the contract's order
   });
 
-  it("shear: τ_max = V/(8·Iz·tw)·[b(d² − hw²) + tw·hw²] (Gere & Goodno §5.10, webs of beams with flanges)", () => {
+  it("shear: τ_max = V/(8·Iz·tw)·[b(d² − hw²) + tw·hw²] (Gere & Goodno, 7th ed. §5.10, webs of beams with flanges)", () => {
     const v = candidateChecks("i", dims, problem({ shear: 200 }));
     const tau = (200e3 / (8 * Iz * 8)) * (200 * (400 ** 2 - hw ** 2) + 8 * hw ** 2);
     expect(get(v, "shear").demand).toBeCloseTo(tau, 9);
@@ -48,7 +48,7 @@ describe("doubly symmetric I (d 400, b 200, tf 10, tw 8)", () => {
     expect(v.governing).toBe("slenderness-outstand");
   });
 
-  it("deflection 5·w·L⁴/(384·E·I) against L/ratio (simply supported, uniform load; AISC Manual beam diagrams case 1)", () => {
+  it("deflection 5·w·L⁴/(384·E·I) against L/ratio (simply supported, uniform load; AISC Steel Construction Manual beam diagrams case 1; mem.)", () => {
     const v = candidateChecks("i", dims, problem({ deflection: { span: 6, serviceLoad: 10, limitRatio: 360, E: 200000 } }));
     const delta = (5 * 10 * 6000 ** 4) / (384 * 200000 * Iz);
     expect(get(v, "deflection").demand).toBeCloseTo(delta, 9);
@@ -125,7 +125,7 @@ describe("angle deflection under the allowable basis: the total, not the vertica
     const p = sectionPropertiesOf(d, b, t);
     // The vertical load w resolves onto the principal axes (θ from z to axis 1): each bends alone,
     // δ1 = k·cos θ/I1, δ2 = k·sin θ/I2 with k = 5·w·L⁴/(384·E); the two are at right angles, so the
-    // total is k·√((cos θ/I1)² + (sin θ/I2)²) (Boresi & Schmidt, Advanced Mechanics of Materials,
+    // total is k·√((cos θ/I1)² + (sin θ/I2)²) (Boresi & Schmidt, Advanced Mechanics of Materials, 6th ed. (2003),
     // 6th ed., ch. 7, unsymmetric bending; any text's principal-axes method).
     const L = 3000,
       w = 2,

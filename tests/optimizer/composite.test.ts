@@ -23,7 +23,7 @@ const run = (plates: { b: number; h: number; z: number; y: number }[]) => {
 };
 
 describe("compositeKernel", () => {
-  it("rectangle: A = b·h, Iz = b·h³/12, Iy = h·b³/12, Iyz = 0 (Gere & Goodno, Mechanics of Materials, App. D case 1)", () => {
+  it("rectangle: A = b·h, Iz = b·h³/12, Iy = h·b³/12, Iyz = 0 (Gere & Goodno, Mechanics of Materials, 7th ed. (2009), App. D case 1)", () => {
     const o = run([{ b: 40, h: 100, z: 5, y: 7 }]);
     expect(o[K_AREA]).toBe(4000);
     expect(o[K_CZ]).toBeCloseTo(25, 12);
@@ -35,7 +35,7 @@ describe("compositeKernel", () => {
     expect(o[K_MAXY]).toBe(107);
   });
 
-  it("doubly symmetric I: Iz = [b·d³ − (b − tw)(d − 2tf)³]/12 (difference of rectangles, Gere & Goodno §5.8)", () => {
+  it("doubly symmetric I: Iz = [b·d³ − (b − tw)(d − 2tf)³]/12 (difference of rectangles, Gere & Goodno, 7th ed. §12.5, parallel-axis theorem)", () => {
     const d = 300, b = 150, tf = 10.7, tw = 7.1;
     const o = run(familyPlates("i", { d, b, tf, tw }));
     expect(o[K_IZ]).toBeCloseTo((b * d ** 3 - (b - tw) * (d - 2 * tf) ** 3) / 12, 4);
@@ -56,14 +56,14 @@ describe("compositeKernel", () => {
 });
 
 describe("maxShearFactor", () => {
-  it("rectangle: τmax = 1.5·V/A (Gere & Goodno §5.8, shear in rectangular beams)", () => {
+  it("rectangle: τmax = 1.5·V/A (Gere & Goodno, 7th ed. §5.8, shear in rectangular beams)", () => {
     const p = packPlates([{ b: 20, h: 200, z: 0, y: 0 }]);
     const o = new Float64Array(KERNEL_OUT);
     compositeKernel(p, 1, o);
     expect(maxShearFactor(p, 1, o[K_CY], o[K_IZ])).toBeCloseTo(1.5 / 4000, 12);
   });
 
-  it("I section: τmax at the neutral axis = V·Q/(Iz·tw), Q = b·tf·(d − tf)/2 + tw·(d/2 − tf)²/2 (Gere & Goodno §5.10)", () => {
+  it("I section: τmax at the neutral axis = V·Q/(Iz·tw), Q = b·tf·(d − tf)/2 + tw·(d/2 − tf)²/2 (Gere & Goodno, 7th ed. §5.10)", () => {
     const d = 400, b = 180, tf = 13.5, tw = 8.6;
     const p = packPlates(familyPlates("i", { d, b, tf, tw }));
     const o = new Float64Array(KERNEL_OUT);

@@ -90,7 +90,7 @@ describe("SectionProperties fields and conventions", () => {
       expect(p).toHaveProperty(path);
   });
 
-  // I section 200 × 100, tf = tw = 10, closed forms (Gere & Goodno, Mechanics of Materials,
+  // I section 200 × 100, tf = tw = 10, closed forms (Gere & Goodno, Mechanics of Materials, 7th ed. (2009),
   // wide-flange beams): Iz = (b·d³ − (b − tw)(d − 2tf)³)/12, Z = b·tf·(d − tf) + tw·(d − 2tf)²/4,
   // Qz = b·tf·(d − tf)/2 + tw·(d/2 − tf)²/2, J = Σ b·t³/3 (open thin-walled).
   test("I section: Iz, Iy, Sz, Zz, Qz, J, r against closed forms", () => {
@@ -115,7 +115,7 @@ describe("SectionProperties fields and conventions", () => {
   });
 
   // "J ... closed cells by Bredt's formula; say which in Jmethod": box J = 4·Am²/∮ds/t on the
-  // wall midlines (Timoshenko & Goodier, thin-walled tubes). Box 200 × 100, tf = 10, tw = 8.
+  // wall midlines (Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), thin-walled tubes). Box 200 × 100, tf = 10, tw = 8.
   test("box: Bredt's J on the midline, Jmethod closed-bredt", () => {
     const p = sectionProperties({ family: "box", d: 200, b: 100, tf: 10, tw: 8 });
     const Am = (100 - 8) * (200 - 10);
@@ -143,7 +143,7 @@ describe("SectionProperties fields and conventions", () => {
   });
 
   // "simple polygons in either winding; holes are subtracted": a clockwise 10 × 10 square with a
-  // 4 × 4 hole: A = 84, Iz = (10⁴ − 4⁴)/12 = 812 (Gere & Goodno, Appendix D, by subtraction).
+  // 4 × 4 hole: A = 84, Iz = (10⁴ − 4⁴)/12 = 812 (Gere & Goodno, 7th ed., Appendix D, by subtraction).
   test("polygons: clockwise winding, hole subtracted", () => {
     const p = sectionProperties({
       polygons: [
@@ -174,13 +174,13 @@ describe("SectionProperties fields and conventions", () => {
     expect(sectionProperties({ family: "rectangle", b: 100, d: 100 }).principal.angleDeg).toBe(0);
     const flat = sectionProperties({ family: "rectangle", b: 200, d: 10 });
     expect(flat.principal.angleDeg).toBe(90);
-    // I1 = b³·d/12 about the vertical axis (Gere & Goodno, Appendix D)
+    // I1 = b³·d/12 about the vertical axis (Gere & Goodno, 7th ed., Appendix D)
     rel(flat.principal.I1, (200 ** 3 * 10) / 12);
     rel(flat.principal.I2, (200 * 10 ** 3) / 12);
     expect(sectionProperties({ family: "rectangle", b: 10, d: 200 }).principal.angleDeg).toBe(0);
   });
 
-  // Equal angle 100 × 100 × 10 by the parallel-axis theorem (Gere & Goodno, §12.8 principal
+  // Equal angle 100 × 100 × 10 by the parallel-axis theorem (Gere & Goodno, 7th ed., §12.9 principal
   // axes): I1,2 = (Iz + Iy)/2 ± √(((Iz − Iy)/2)² + Iyz²); Iyz = ∫ y·z dA < 0 with the legs
   // along +z and +y, so the major axis runs at +45° (through the heel, away from both toes).
   test("angle: Iyz = ∫ y·z dA, principal moments and +45° major axis", () => {
@@ -348,7 +348,7 @@ describe("bad input", () => {
 describe("bending signs", () => {
   // "A positive (sagging) moment compresses the top fibre. Stresses: tension positive,
   // compression negative." Tee 50 × 160 × 10 × 10: ȳ = 40, Iz = 160·10³/12 + 1600·5² +
-  // 10·40³/12 + 400·20² = 800000/3 (parallel axes, Gere & Goodno). M = 1 kN·m = 1e6 N·mm.
+  // 10·40³/12 + 400·20² = 800000/3 (parallel axes, Gere & Goodno, 7th ed.). M = 1 kN·m = 1e6 N·mm.
   test("sagging: top fibre −M·10/Iz (compression), bottom +M·40/Iz (tension)", () => {
     const p = sectionProperties({ family: "tee", d: 50, b: 160, tf: 10, tw: 10 });
     const Iz = 800000 / 3;
@@ -399,7 +399,7 @@ describe("bending signs", () => {
 
 describe("search checks", () => {
   // "shear ... the largest V·Q(y)/(Iz·b(y))": for an I section at the neutral axis
-  // τ = V·Q/(Iz·tw) (Gere & Goodno, shear stresses in the webs of beams with flanges).
+  // τ = V·Q/(Iz·tw) (Gere & Goodno, 7th ed., shear stresses in the webs of beams with flanges).
   test("shear demand on an I section", () => {
     const Iz = (100 * 200 ** 3 - 90 * 180 ** 3) / 12;
     const Q = 100 * 10 * 95 + 10 * 90 * 45;
@@ -409,7 +409,7 @@ describe("search checks", () => {
 
   // "for piecewise-constant widths the maximum lies at the neutral axis or just beside a plate
   // edge": tee 60 × 200, tf = 30, tw = 5 has its centroidal axis inside the thick flange, so
-  // the stem's top (width 5) beats the axis (width 200). By hand (parallel axes, Gere & Goodno):
+  // the stem's top (width 5) beats the axis (width 200). By hand (parallel axes, Gere & Goodno, 7th ed.):
   // ȳ = (6000·45 + 150·15)/6150; Q at the stem top = 150·(ȳ − 15); at the axis 200·(60 − ȳ)²/2.
   test("shear: maximum just beside a plate edge, not at the axis", () => {
     const A = 6150, cy = (6000 * 45 + 150 * 15) / A;
@@ -443,7 +443,7 @@ describe("search checks", () => {
   });
 
   // "Every check passes when demand ≤ limit". Rectangle 60 × 100: σ = 6M/(b·d²) = 6·16e6/600000
-  // = 160 MPa exactly (Gere & Goodno, flexure formula), against an allowable of exactly 160.
+  // = 160 MPa exactly (Gere & Goodno, 7th ed., flexure formula), against an allowable of exactly 160.
   test("demand exactly on the limit passes; a hair over fails", async () => {
     const pr: SearchProblemInput = { ...base, moment: { sagging: 16, hogging: 0 }, allowable: { tension: 160, compression: 160 }, width: { min: 60, max: 60, step: 10 } };
     const r = await searchSections(pr);

@@ -3,12 +3,12 @@
 //
 // Sources:
 // - circular tube: A = π(D² − Di²)/4, I = π(D⁴ − Di⁴)/64, J = 2I (Gere & Goodno, Mechanics of
-//   Materials, 7th ed., Appendix D case 9 (circle) by subtraction, and §3.8 for thin and thick
+//   Materials, 7th ed. (2009), Appendix D case 9 (circle) by subtraction, and the thin-walled tube section (number from memory) for thin and thick
 //   circular tubes in torsion); plastic modulus (D³ − Di³)/6 = 2 × the first moment of a half
 //   annulus, 2·(2/3)(Ro³ − Ri³) (semicircle centroid 4r/3π, Appendix D case 10).
 // - rounded rectangle: a cross of two rectangles plus four quarter discs (quarter disc: area
 //   πr²/4, centroid 4r/3π from each straight edge, I about its centroidal axis parallel to an
-//   edge (π/16 − 4/9π)·r⁴: Gere & Goodno Appendix D case 11), moved by the parallel-axis theorem;
+//   edge (π/16 − 4/9π)·r⁴: Gere & Goodno, 7th ed. Appendix D case 11), moved by the parallel-axis theorem;
 //   the tube is the outer rounded rectangle minus the inner one. This sums quarter DISCS, the
 //   engine sums rectangles and SPANDRELS, so the two routes share no formula.
 // - area of a hollow section with radii ro, ri: A = 2t(b + d − 2t) − (4 − π)(ro² − ri²)
@@ -137,7 +137,7 @@ describe("rectangular hollow section (rhs) with corner radii against quarter-dis
     expect(rel(rhs.Iz, chs.Iz)).toBeLessThan(1e-12);
     expect(rel(rhs.Zz, chs.Zz)).toBeLessThan(1e-9);
     // midline radius rm: Bredt + open wall gives 2π·rm³·t + 2π·rm·t³/3, the exact tube
-    // 2π·rm³·t + π·rm·t³/2 (Gere & Goodno §3.8 with Ro, Ri = rm ± t/2)
+    // 2π·rm³·t + π·rm·t³/2 (Gere & Goodno, 7th ed. thin-walled tubes (section from memory), with Ro, Ri = rm ± t/2)
     const rm = (D - t) / 2;
     expect(rel(rhs.J, 2 * Math.PI * rm ** 3 * t + (2 * Math.PI * rm * t ** 3) / 3)).toBeLessThan(1e-12);
     expect(rel(chs.J, 2 * Math.PI * rm ** 3 * t + (Math.PI * rm * t ** 3) / 2)).toBeLessThan(1e-12);

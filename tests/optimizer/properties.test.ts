@@ -6,7 +6,7 @@ import { I_A, I_Y, I_YY, I_Z, I_ZY, I_ZZ, INTEGRALS, ringAbove, ringIntegrals } 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
 const close = (a: number, b: number, tol = 1e-12) => expect(rel(a, b)).toBeLessThanOrEqual(tol);
 
-describe("rectangle (Gere & Goodno, Mechanics of Materials, App. D; plastic: Z = b·h²/4)", () => {
+describe("rectangle (Gere & Goodno, Mechanics of Materials, 7th ed. (2009), App. D; plastic: Z = b·h²/4)", () => {
   const b = 40, h = 120;
   const p = sectionProperties({ family: "rectangle", b, d: h });
   it("area, centroid, second moments", () => {
@@ -42,7 +42,7 @@ describe("rectangle (Gere & Goodno, Mechanics of Materials, App. D; plastic: Z =
   });
 });
 
-describe("hollow rectangle B×D with wall t (Gere & Goodno App. D by difference of rectangles)", () => {
+describe("hollow rectangle B×D with wall t (Gere & Goodno, 7th ed. App. D by difference of rectangles)", () => {
   const B = 100, D = 200, tf = 10, tw = 6;
   const bi = B - 2 * tw, di = D - 2 * tf;
   const boxP = sectionProperties({ family: "box", d: D, b: B, tf, tw });
@@ -63,7 +63,7 @@ describe("hollow rectangle B×D with wall t (Gere & Goodno App. D by difference 
       close(p.widthAtNeutralAxis, 2 * tw, 1e-12);
     }
   });
-  it("box J by Bredt on the midline: 4·Am²/∮ds/t (Timoshenko & Goodier, thin-walled tubes)", () => {
+  it("box J by Bredt on the midline: 4·Am²/∮ds/t (Timoshenko & Goodier, Theory of Elasticity, 3rd ed. (1970), thin-walled tubes)", () => {
     const Am = (B - tw) * (D - tf);
     close(boxP.J, (4 * Am * Am) / ((2 * (B - tw)) / tf + (2 * (D - tf)) / tw));
     expect(boxP.Jmethod).toBe("closed-bredt");
@@ -74,7 +74,7 @@ describe("hollow rectangle B×D with wall t (Gere & Goodno App. D by difference 
   });
 });
 
-describe("doubly symmetric I (Gere & Goodno §5.8; plastic modulus: Neal, Plastic Methods of Structural Analysis)", () => {
+describe("doubly symmetric I (Gere & Goodno, 7th ed. §12.5; plastic modulus: Neal, The Plastic Methods of Structural Analysis, 3rd ed. (1977))", () => {
   const d = 400, b = 180, tf = 13.5, tw = 8.6, hw = d - 2 * tf;
   const p = sectionProperties({ family: "i", d, b, tf, tw });
   it("Iz, Iy, Sz, Zz, Zy, Qz", () => {
@@ -89,7 +89,7 @@ describe("doubly symmetric I (Gere & Goodno §5.8; plastic modulus: Neal, Plasti
   });
 });
 
-describe("tee (Gere & Goodno §5.8 composite-area method, worked by hand)", () => {
+describe("tee (Gere & Goodno, 7th ed. §12.3, §12.5 composite-area method, worked by hand)", () => {
   const d = 300, b = 150, tf = 12, tw = 8;
   const Af = b * tf, As = tw * (d - tf), A = Af + As;
   const yb = (Af * (d - tf / 2) + (As * (d - tf)) / 2) / A;
@@ -116,7 +116,7 @@ describe("tee (Gere & Goodno §5.8 composite-area method, worked by hand)", () =
   });
 });
 
-describe("triangle (Gere & Goodno App. D case 5: Iz = b·h³/36 about the centroid, ȳ = h/3)", () => {
+describe("triangle (Gere & Goodno, 7th ed. App. D case 5: Iz = b·h³/36 about the centroid, ȳ = h/3)", () => {
   const b = 90, h = 60;
   const p = sectionProperties({ polygons: [{ points: [[0, 0], [b, 0], [b / 2, h]] }] });
   it("area, centroid, Iz, Iy (isosceles: h·b³/48)", () => {
@@ -126,18 +126,18 @@ describe("triangle (Gere & Goodno App. D case 5: Iz = b·h³/36 about the centro
     close(p.Iy, (h * b ** 3) / 48, 1e-13);
     expect(p.Iyz).toBe(0);
   });
-  it("Zz from the equal-area axis at h(1 − 1/√2): shape factor 2.34 (Neal, Plastic Methods, table of shape factors)", () => {
+  it("Zz from the equal-area axis at h(1 − 1/√2): shape factor 2.34 (Neal, The Plastic Methods of Structural Analysis, 3rd ed. (1977), table of shape factors)", () => {
     const Z = ((b * h) / 2) * h * (1 - 2 / (3 * Math.SQRT2) - 1 / 3);
     close(p.Zz, Z, 1e-12);
     expect(p.Zz / p.Sz.top).toBeCloseTo(2.343, 3);
   });
-  it("right triangle product Iyz = −b²h²/72 (Gere & Goodno App. D case 6, legs on the axes)", () => {
+  it("right triangle product Iyz = −b²h²/72 (Gere & Goodno, 7th ed. App. D case 6, legs on the axes)", () => {
     const r = sectionProperties({ polygons: [{ points: [[0, 0], [b, 0], [0, h]] }] });
     close(r.Iyz, (-b * b * h * h) / 72, 1e-13);
   });
 });
 
-describe("circle as a regular 720-gon (π·r⁴/4, Gere & Goodno App. D case 9)", () => {
+describe("circle as a regular 720-gon (π·r⁴/4, Gere & Goodno, 7th ed. App. D case 9)", () => {
   const R = 50, n = 720, al = (2 * Math.PI) / n;
   const pts = Array.from({ length: n }, (_, k) => [R * Math.cos(k * al), R * Math.sin(k * al)] as [number, number]);
   const p = sectionProperties({ polygons: [{ points: pts }] });
@@ -156,7 +156,7 @@ describe("circle as a regular 720-gon (π·r⁴/4, Gere & Goodno App. D case 9)"
   });
 });
 
-describe("equal-leg angle (principal axes at ±45°: Gere & Goodno §12.9)", () => {
+describe("equal-leg angle (principal axes at ±45°: Gere & Goodno, 7th ed. §12.9)", () => {
   const p = sectionProperties({ family: "angle", d: 100, b: 100, t: 10 });
   it("Iz = Iy, Iyz < 0, major axis at +45°, I1 = Iz + |Iyz|", () => {
     close(p.Iz, p.Iy, 1e-13);

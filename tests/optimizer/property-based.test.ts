@@ -1,5 +1,5 @@
 // Invariants any correct section calculator must satisfy (statics: parallel-axis theorem,
-// Mohr's circle for second moments, e.g. Gere & Goodno, Mechanics of Materials, ch. 12),
+// Mohr's circle for second moments, e.g. Gere & Goodno, Mechanics of Materials, 7th ed. (2009), ch. 12),
 // checked over random shapes with fast-check.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";

@@ -1,16 +1,16 @@
 // Rolled European I sections against their published section tables.
 //
-// Source: the standard European tables of IPE (EN 10365 / formerly DIN 1025-5) and HE A / HE B
-// (EN 10365 / formerly DIN 1025-3 and -2) sections as printed in producers' catalogues
-// (e.g. ArcelorMittal "Sales programme: sections and merchant bars"). Values are FROM MEMORY
-// of those tables: h, b, tw, tf, r in mm; A in cm²; Iy, Iz in cm⁴; Wel, Wpl in cm³.
+// Source: EN 10365:2017, Hot rolled steel channels, I and H sections — dimensions and masses,
+// the IPE and HE A / HE B tables (formerly DIN 1025-5, -3 and -2): dimensions h, b, tw, tf, r in
+// mm and the tabulated section constants, A in cm², Iy, Iz in cm⁴, Wel, Wpl in cm³. Values are
+// FROM MEMORY of those tables.
 //
 // Axis naming: the tables' y–y is the strong axis (about the horizontal), which is our z
 // (contract: Iz about the horizontal axis). So table Iy ↔ our Iz, table Iz ↔ our Iy.
 //
 // Tolerance: each value must agree within half a unit of its last printed digit (the table's
 // rounding) plus 0.03% of the value, because the tables derive moduli from unrounded
-// properties and some producers round the root-fillet contribution; a geometry error (say a
+// properties and some printings round the root-fillet contribution; a geometry error (say a
 // missing fillet, ~0.5–2% of A) is far larger than this allowance and would fail.
 import { describe, expect, it } from "vitest";
 import { sectionProperties } from "~/optimizer/index";

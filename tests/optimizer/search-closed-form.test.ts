@@ -6,7 +6,7 @@ import { searchSections } from "~/optimizer/search";
 import { searchProblemSchema, type SearchProblemInput } from "~/optimizer/search-schema";
 
 describe("solid rectangle of fixed width: d = √(6M/(b·σ))", () => {
-  // S = b·d²/6 for a rectangle (Gere & Goodno, Mechanics of Materials, §5.5); σ = M/S
+  // S = b·d²/6 for a rectangle (Gere & Goodno, Mechanics of Materials, 7th ed. (2009), §5.5); σ = M/S
   for (const [M, b, sigma] of [
     [50, 100, 165],
     [12.5, 40, 140],

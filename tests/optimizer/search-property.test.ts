@@ -146,7 +146,12 @@ const en1993Arb: fc.Arbitrary<SearchProblemInput> = fc
   })
   .filter((r) => r.sagging > 0 || r.hogging > 0)
   .map((r) => {
-    const families = r.cost ? r.families.filter((f) => f !== "rectangle") : r.families;
+    // a rectangle takes fy from its smaller side, which must fall inside the bands (member-checks.md;
+    // the schema refuses the brief otherwise), and has no stock-plate price
+    const bands = (r.steel as unknown as { fy?: readonly { maxThickness: number }[] }).fy;
+    const lastBand = bands ? bands[bands.length - 1].maxThickness : 63; // the grade presets end at 63 mm
+    const rectangleFits = Math.min(r.depth.max, r.width.max) <= lastBand;
+    const families = r.cost || !rectangleFits ? r.families.filter((f) => f !== "rectangle") : r.families;
     const p: SearchProblemInput = {
       basis: "en1993",
       moment: { sagging: r.sagging, hogging: r.hogging },

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { bendingField, normalStress, sectionProperties, sectionStresses, EngineInputError } from "~/optimizer/index";
 
-describe("normal stress, symmetric sections (flexure formula σ = −M·y/I, Gere & Goodno §5.5)", () => {
+describe("normal stress, symmetric sections (flexure formula σ = −M·y/I, Gere & Goodno, 7th ed. §5.5)", () => {
   it("rectangle 100×200 under 10 kN·m sagging: ∓15 MPa at top/bottom (S = b·h²/6)", () => {
     const r = sectionStresses({ family: "rectangle", b: 100, d: 200 }, { Mz: 10 });
     expect(r.fibre.top).toBeCloseTo(-15, 10);
@@ -32,7 +32,7 @@ describe("normal stress, symmetric sections (flexure formula σ = −M·y/I, Ger
 describe("unsymmetric bending of an angle under Mz only", () => {
   const input = { family: "angle" as const, d: 150, b: 90, t: 10 };
   const p = sectionProperties(input);
-  it("general formula equals the principal-axes method σ = −Mu·v/Iu + Mv·u/Iv (Boresi & Schmidt, Advanced Mechanics of Materials, ch. 7)", () => {
+  it("general formula equals the principal-axes method σ = −Mu·v/Iu + Mv·u/Iv (Boresi & Schmidt, Advanced Mechanics of Materials, 6th ed. (2003), ch. 7)", () => {
     const th = (p.principal.angleDeg * Math.PI) / 180;
     const M = 12e6; // N·mm
     const Mu = M * Math.cos(th),
@@ -63,7 +63,7 @@ describe("unsymmetric bending of an angle under Mz only", () => {
   });
 });
 
-describe("shear stress distribution τ = V·Q/(Iz·b) (Gere & Goodno §5.8–5.10)", () => {
+describe("shear stress distribution τ = V·Q/(Iz·b) (Gere & Goodno, 7th ed. §5.8–5.10)", () => {
   it("rectangle: parabola with τmax = 1.5·V/A at mid-depth", () => {
     const b = 100, h = 200, V = 50;
     const r = sectionStresses({ family: "rectangle", b, d: h }, { V }, 40);

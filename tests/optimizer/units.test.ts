@@ -36,7 +36,7 @@ describe("conversion factors (NIST SP 811 Appendix B)", () => {
 });
 
 describe("section input and properties at the edge", () => {
-  it("a 10 in × 2 in plate: Iz = 2·10³/12 = 166.67 in⁴, A = 20 in², Sz = 33.33 in³ (closed form, Gere & Goodno App. D)", () => {
+  it("a 10 in × 2 in plate: Iz = 2·10³/12 = 166.67 in⁴, A = 20 in², Sz = 33.33 in³ (closed form, Gere & Goodno, 7th ed. App. D)", () => {
     const si = sectionInputToSI({ plates: [{ b: 2, h: 10, z: 0, y: 0 }] }, "us");
     const p = propertiesIn(sectionProperties(si), "us");
     expect(p.area).toBeCloseTo(20, 10);

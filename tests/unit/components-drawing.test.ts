@@ -9,7 +9,7 @@ import { PROPERTY_ROWS, PropertyTable, formatNumber, formatStress } from "~/comp
 import { PROPERTY_QUANTITIES, sectionProperties, sectionStresses, type SectionInput } from "~/optimizer";
 
 const I400: SectionInput = { family: "i", d: 400, b: 200, tf: 16, tw: 10 };
-// Doubly symmetric I, closed form Iz = [b·d³ − (b − tw)(d − 2tf)³]/12 (Gere & Goodno, Mechanics
+// Doubly symmetric I, closed form Iz = [b·d³ − (b − tw)(d − 2tf)³]/12 (Gere & Goodno, 7th ed., Mechanics
 // of Materials, composite areas); fibre stress σ = M·c/I with c = d/2 (the flexure formula).
 const IZ_I400 = (200 * 400 ** 3 - 190 * 368 ** 3) / 12;
 

@@ -20,12 +20,12 @@ describe("materialFill", () => {
     expect(f.slenderness.web).toBe(100.9); // 124ε = 100.89
   });
 
-  it("a team's own material takes AISC 360-16 Table B4.1b in √(E/Fy): aluminium E 69 000, fy 240 → flange λr 1.0·√287.5 = 17.0, web 5.70·√287.5 = 96.6 (from memory)", () => {
+  it("a team's own material takes AISC 360-16 Table B4.1b in √(E/Fy): aluminium E 69 000, fy 240 → built-up flange λr 0.95·√(0.35/0.7)·√287.5 = 11.4 (case 11), web 5.70·√287.5 = 96.6 (from memory)", () => {
     expect(OWN_MATERIAL_RULES).toBe("aisc-360");
     // 6061-T6 handbook figures (E ≈ 69 GPa, fy ≈ 240 MPa, ρ ≈ 2700 kg/m³; from memory).
     const f = materialFill({ E: 69000, fy: 240, density: 2700 });
     const r = Math.sqrt(69000 / 240); // 16.956
-    expect(f.slenderness).toEqual({ outstand: 17, internal: 23.7, web: 96.6, stem: 25.8 });
+    expect(f.slenderness).toEqual({ outstand: 11.4, internal: 23.7, web: 96.6, stem: 25.8 });
     expect(f.slenderness.web).toBeCloseTo(5.7 * r, 1);
     expect(f.allowable).toEqual({ tension: 144, compression: 144, shear: 96 });
     expect(f.density).toBe(2700);
@@ -35,7 +35,7 @@ describe("materialFill", () => {
   it("the √(E/Fy) form follows E: half the stiffness at the same yield gives limits √2 smaller", () => {
     const steel = materialFill({ E: 200000, fy: 345, density: 7850 });
     const soft = materialFill({ E: 100000, fy: 345, density: 7850 });
-    expect(steel.slenderness.outstand).toBe(24.1); // 50 ksi flange λr = 24.1 (AISC 360-16 Table B4.1b case 10; from memory)
+    expect(steel.slenderness.outstand).toBe(16.2); // 50 ksi built-up flange λr = 0.95·√(0.35/0.7)·24.08 = 16.2 (AISC 360-16 Table B4.1b case 11, kc = 0.35; from memory)
     expect(soft.slenderness.outstand / steel.slenderness.outstand).toBeCloseTo(1 / Math.SQRT2, 2);
   });
 

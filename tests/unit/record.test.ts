@@ -1,5 +1,5 @@
 // The calculation record's numbers for a welded tee, checked against a hand calculation by the
-// parallel-axis theorem (the tabular method of e.g. Gere & Goodno, Mechanics of Materials,
+// parallel-axis theorem (the tabular method of e.g. Gere & Goodno, Mechanics of Materials, 7th ed. (2009),
 // §12.5 and Appendix D): flange 150 × 20 on a 10 × 180 stem, d = 200 mm.
 //   flange: A = 3000 mm², y = 190 mm, I0 = 150·20³/12 = 100 000 mm⁴
 //   stem:   A = 1800 mm², y = 90 mm,  I0 = 10·180³/12 = 4 860 000 mm⁴
