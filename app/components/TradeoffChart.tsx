@@ -78,7 +78,7 @@ export function TradeoffChart({
           <YAxis type="number" dataKey="y" name="Utilisation" domain={[(min: number) => Math.max(0, Math.floor((min - 0.05) * 10) / 10), (max: number) => Math.max(1.05, Math.ceil(max * 20) / 20)]} label={{ value: "Utilisation", angle: -90, position: "insideLeft" }} tickFormatter={(v: number) => v.toFixed(2)} />
           <Tooltip content={<Tip units={units} />} />
           <Legend verticalAlign="top" />
-          <ReferenceLine y={1} stroke="#8a4b00" strokeDasharray="6 4" label={{ value: "allowable limit (utilisation 1)", position: "insideTopRight", fill: "#8a4b00", fontSize: 12 }} />
+          <ReferenceLine y={1} stroke="#8a4b00" strokeDasharray="6 4" label={{ value: "utilisation 1 (the limit)", position: "insideTopRight", fill: "#8a4b00", fontSize: 12 }} />
           <Scatter name="Front" data={front} line={{ stroke: "#1d2733", strokeWidth: 1.5 }} shape={() => <g />} legendType="line" isAnimationActive={false} />
           {families.map((f) => (
             <Scatter

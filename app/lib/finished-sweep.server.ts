@@ -4,7 +4,8 @@
 import type { Knex } from "knex";
 import { searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
 import { candidatesToStore } from "~/workers/queue.server";
-import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
+import { SWEEP_SEARCH_OPTIONS, sweepRestraintStudy } from "~/workers/sweep-search.server";
+import { studyApplies } from "~/lib/restraint-study";
 
 export interface FinishedSweepInput {
   teamId: number;
@@ -20,6 +21,8 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
   const t0 = Date.now();
   // The queue's search options, so fixtures store the same candidates (front included) a real sweep does.
   const result = await searchSections(problem, SWEEP_SEARCH_OPTIONS);
+  // and the restraint study a queued EN 1993 sweep stores with its results
+  const study = studyApplies(problem) ? await sweepRestraintStudy(problem) : null;
   const ms = Date.now() - t0;
   const rows = candidatesToStore(result, problem.objective);
   return knex.transaction(async (trx) => {
@@ -36,6 +39,7 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
       counts: JSON.stringify(result.counts),
       best: result.best ? JSON.stringify(result.best) : null,
       reason: result.reason ?? null,
+      restraint_study: study ? JSON.stringify(study) : null,
       attempts: 1,
       started_at: trx.raw("NOW(3) - INTERVAL ? MICROSECOND", [ms * 1000]),
       finished_at: trx.raw("NOW(3)"),

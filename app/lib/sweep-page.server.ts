@@ -90,6 +90,7 @@ function publicSweep(s: SweepView) {
           notes: s.best.design?.notes ?? null,
         }
       : null,
+    restraintStudy: s.restraintStudy,
     reason: s.reason,
     error: s.error,
     queuedAt: s.queuedAt,

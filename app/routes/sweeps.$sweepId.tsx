@@ -18,6 +18,7 @@ import { UnitSwitch } from "~/components/UnitSwitch";
 import { ReviewBadge } from "~/components/ReviewBadge";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
+import { RestraintStudyChart } from "~/components/RestraintStudyChart";
 import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 
@@ -290,6 +291,14 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                     </Form>
                   ) : null}
                   {errors?.rank || errors?.note ? <p className="w-full font-semibold text-red-800">{errors.rank ?? errors.note}</p> : null}
+                </section>
+              ) : null}
+              {sweep.restraintStudy ? (
+                <section aria-labelledby="study-h" className="space-y-2">
+                  <h2 id="study-h" className="text-lg font-bold">
+                    Restraint study: bracing against steel
+                  </h2>
+                  <RestraintStudyChart study={sweep.restraintStudy} units={units} />
                 </section>
               ) : null}
               <section aria-labelledby="table-h" className="space-y-2">

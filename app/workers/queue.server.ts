@@ -23,6 +23,7 @@ import { fieldErrorsFrom } from "~/lib/forms.server";
 import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
 import { notify } from "~/lib/notifications.server";
+import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
 
 export type SweepStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled";
 export const TERMINAL: ReadonlySet<SweepStatus> = new Set(["succeeded", "failed", "cancelled"]);
@@ -349,7 +350,7 @@ export function candidatesToStore(result: SearchResult, objective: "mass" | "cos
 const FINAL_WRITE = { isolationLevel: "read committed" } as const;
 
 /** Writes results and "succeeded" in one transaction if the claim still holds the lease; false if lost. */
-export async function finishSweep(claim: Claim, result: SearchResult): Promise<boolean> {
+export async function finishSweep(claim: Claim, result: SweepResult): Promise<boolean> {
   const rows = candidatesToStore(result, claim.problem.objective);
   const notice = await db.transaction(async (trx) => {
     const held = await lockHeld(trx, claim);
@@ -370,6 +371,7 @@ export async function finishSweep(claim: Claim, result: SearchResult): Promise<b
           counts: JSON.stringify(result.counts),
           best: result.best ? JSON.stringify(result.best) : null,
           reason: result.reason ?? null,
+          restraint_study: result.restraintStudy ? JSON.stringify(result.restraintStudy) : null,
           progress_done: trx.raw("GREATEST(progress_total, 1)"),
           progress_total: trx.raw("GREATEST(progress_total, 1)"),
           finished_by: claim.workerId.slice(0, 100),
@@ -488,6 +490,8 @@ export interface SweepView {
   progress: { done: number; total: number; fraction: number };
   counts: SearchResult["counts"] | null;
   best: SearchCandidate | null;
+  /** EN 1993 sweeps with a restraint length: the lightest section at L … L/6 */
+  restraintStudy: RestraintStudy | null;
   reason: string | null;
   error: string | null;
   attempts: number;
@@ -530,6 +534,7 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     progress: { done, total, fraction },
     counts: row.counts ? parseJson(row.counts) : null,
     best: row.best ? parseJson(row.best) : null,
+    restraintStudy: row.restraint_study ? parseJson(row.restraint_study) : null,
     reason: row.reason,
     error: row.error,
     attempts: row.attempts,

@@ -13,8 +13,10 @@
 // Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
 // so a runner at full concurrency does not oversubscribe the machine.
 import os from "node:os";
-import { rawGridSize, searchSections, type SearchProblem, type SearchResult } from "~/optimizer";
+import { rawGridSize, searchSections, type SearchProblem } from "~/optimizer";
 import { searchInThreads } from "./search-threads";
+import { runRestraintStudy } from "./study-thread";
+import { studyApplies, type SweepResult } from "~/lib/restraint-study";
 
 export const IN_THREAD_MAX_GRID = 1e6;
 
@@ -26,11 +28,30 @@ export const SWEEP_SEARCH_OPTIONS = { explore: 0.25 } as const;
 export async function runSweepSearch(
   problem: SearchProblem,
   opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
-): Promise<SearchResult> {
+): Promise<SweepResult> {
   // Let pending timers (a cancel that arrived while the sweep waited for a slot) run first.
   await new Promise((r) => setImmediate(r));
   opts.signal.throwIfAborted();
-  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) return searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress: opts.onProgress });
-  const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
-  return searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, onProgress: opts.onProgress });
+  let result: SweepResult;
+  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) result = searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress: opts.onProgress });
+  else {
+    const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
+    result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, onProgress: opts.onProgress });
+  }
+  if (studyApplies(problem)) result.restraintStudy = await sweepRestraintStudy(problem, opts.signal);
+  return result;
+}
+
+/**
+ * The restraint study for a sweep (study-thread.ts: why it runs here, on a thread). A study that
+ * fails is stored as its error and the sweep still succeeds: its own results do not depend on it.
+ * A cancel aborts it like the search.
+ */
+export async function sweepRestraintStudy(problem: SearchProblem, signal?: AbortSignal): Promise<SweepResult["restraintStudy"]> {
+  try {
+    return await runRestraintStudy(problem, { signal });
+  } catch (e) {
+    if (signal?.aborted) throw e;
+    return { lengthM: problem.restraint?.length ?? 0, points: [], elapsedMs: 0, error: e instanceof Error ? e.message : String(e) };
+  }
 }

@@ -1,0 +1,67 @@
+// The restraint study on the sweep page (member-checks.md §3): the lightest section at the
+// restraint spacings L, L/2 … L/6, charted as mass per length against the number of
+// intermediate lateral restraints, with the same figures as a table (the chart's text form).
+import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
+import { formatNumber, formatQuantity } from "~/components/PropertyTable";
+import { describeDimensions } from "~/components/TradeoffChart";
+import type { RestraintStudy } from "~/lib/restraint-study";
+
+export function RestraintStudyChart({ study, units, height = 280 }: { study: RestraintStudy; units: UnitSystem; height?: number }) {
+  if (study.error) return <p className="rounded-md border border-ink/30 bg-white p-3 text-sm">The restraint study could not run: {study.error}. The sweep's own results above are unaffected.</p>;
+  const massUnit = unitLabel("massPerLength", units);
+  const data = study.points.map((p) => ({ x: p.restraints, y: p.best ? fromSI("massPerLength", p.best.massPerMetre, units) : null, p }));
+  const span = (m: number) => formatQuantity("span", m, units);
+  return (
+    <div className="space-y-2" data-testid="restraint-study">
+      <figure className="rounded-lg border border-ink/15 bg-white p-3" aria-label="Restraint study: lightest mass per length against the number of intermediate restraints">
+        <ResponsiveContainer width="100%" height={height}>
+          <LineChart data={data} margin={{ top: 10, right: 20, bottom: 30, left: 24 }}>
+            <CartesianGrid stroke="#1d273322" />
+            <XAxis type="number" dataKey="x" domain={[0, 5]} ticks={[0, 1, 2, 3, 4, 5]} allowDecimals={false} label={{ value: "Intermediate lateral restraints", position: "bottom", offset: 10 }} />
+            <YAxis type="number" domain={["auto", "auto"]} tickFormatter={(v: number) => formatNumber(v, 3)} label={{ value: `Lightest mass (${massUnit})`, angle: -90, position: "insideLeft" }} />
+            <Tooltip
+              formatter={(v: unknown) => [`${formatNumber(Number(v))} ${massUnit}`, "lightest"]}
+              labelFormatter={(x: unknown) => {
+                const p = study.points.find((q) => q.restraints === Number(x));
+                return p ? `${p.restraints} restraint${p.restraints === 1 ? "" : "s"}, spacing ${span(p.lengthM)}` : "";
+              }}
+            />
+            <Line type="linear" dataKey="y" stroke="#0f6b66" strokeWidth={2} dot={{ r: 4 }} connectNulls={false} isAnimationActive={false} />
+          </LineChart>
+        </ResponsiveContainer>
+        <figcaption className="mt-1 text-xs text-ink/70">
+          The same brief searched with the compression flange braced at L = {span(study.lengthM)} and at L/2 … L/6 (0 to 5 intermediate restraints); each point is the exact lightest section at that spacing.
+          Computed with the sweep ({formatNumber(study.elapsedMs / 1000, 2)} s).
+        </figcaption>
+      </figure>
+      <table className="w-full border-collapse bg-white text-sm" data-testid="restraint-study-table">
+        <thead>
+          <tr className="border-b border-ink/30 text-left">
+            <th className="p-2 text-right">Intermediate restraints</th>
+            <th className="p-2 text-right">Spacing</th>
+            <th className="p-2">Lightest section</th>
+            <th className="p-2 text-right">Mass ({massUnit})</th>
+            <th className="p-2 text-right">Saving against none</th>
+            <th className="p-2">Governing check</th>
+          </tr>
+        </thead>
+        <tbody>
+          {study.points.map((p) => {
+            const none = study.points[0]?.best?.massPerMetre;
+            return (
+              <tr key={p.restraints} className="border-b border-ink/10">
+                <td className="p-2 text-right tabular-nums">{p.restraints}</td>
+                <td className="p-2 text-right tabular-nums">{span(p.lengthM)}</td>
+                <td className="p-2">{p.best ? `${p.best.family} ${describeDimensions(p.best.dimensions, units)}` : `none passes${p.reason ? `: ${p.reason}` : ""}`}</td>
+                <td className="p-2 text-right tabular-nums">{p.best ? formatNumber(fromSI("massPerLength", p.best.massPerMetre, units)) : "—"}</td>
+                <td className="p-2 text-right tabular-nums">{p.best && none ? `${formatNumber((100 * (none - p.best.massPerMetre)) / none, 3)} %` : "—"}</td>
+                <td className="p-2">{p.best ? `${p.best.governing} (utilisation ${p.best.utilisation.toFixed(3)})` : "—"}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}

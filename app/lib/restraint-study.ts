@@ -1,0 +1,37 @@
+// The restraint study (member-checks.md §3): the same brief searched with the compression flange
+// restrained at L, L/2 … L/6, so the engineer can weigh bracing against steel. What a sweep
+// stores (sweeps.restraint_study, written with its results) and the sweep page charts.
+import type { SearchProblem } from "~/optimizer/search-schema";
+import type { SearchResult } from "~/optimizer/grid";
+
+/** Segments between restraints: 1 (restrained at the ends only) to 6 (five intermediate restraints). */
+export const STUDY_SEGMENTS = [1, 2, 3, 4, 5, 6] as const;
+
+export interface StudyPoint {
+  /** intermediate lateral restraints (segments − 1) */
+  restraints: number;
+  /** restraint spacing, m */
+  lengthM: number;
+  /** the lightest (or cheapest, objective "cost") section at that spacing; null when none passes */
+  best: { family: string; dimensions: Record<string, number>; massPerMetre: number; utilisation: number; governing: string; cost?: number } | null;
+  /** why nothing passed, in the engine's words */
+  reason?: string;
+}
+
+export interface RestraintStudy {
+  /** the brief's restraint length L, m */
+  lengthM: number;
+  points: StudyPoint[];
+  /** wall-clock time of the six searches, ms */
+  elapsedMs: number;
+  /** set when the study could not run (the sweep's own results still stand) */
+  error?: string;
+}
+
+/** A study is run for EN 1993 briefs with a restraint length (an allowable brief checks no buckling; "restrained throughout" has no length to divide). */
+export function studyApplies(problem: Pick<SearchProblem, "basis" | "restraint">): boolean {
+  return problem.basis === "en1993" && problem.restraint !== undefined;
+}
+
+/** A sweep's run: the search's result and, for EN 1993 briefs with a restraint length, the study. */
+export type SweepResult = SearchResult & { restraintStudy?: RestraintStudy };
