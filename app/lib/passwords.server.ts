@@ -28,12 +28,52 @@ export const forgotSchema = z.object({
   email: z.string({ error: "Enter your e-mail address." }).trim().max(254, "E-mail address is too long.").pipe(z.email("Enter a valid e-mail address.")),
 });
 
+// Reset e-mails are prepared off the request path: /forgot-password answers before the address
+// is even looked up, so neither its timing nor its answer tells a member's address from an unknown
+// one (issue 9, item 13), and a slow mail server cannot hold the request either. Every request,
+// known address or not, queues the same job; jobs run one at a time in this process. Past
+// MAX_PENDING_RESET_JOBS a flood is dropped (logged): the answer is the same, and per-address limits
+// would refuse most of it anyway. A job still queued when the server stops is lost; the person asks again.
+export const MAX_PENDING_RESET_JOBS = 500;
+let resetChain: Promise<void> = Promise.resolve();
+let resetPending = 0;
+let resetQueued = 0;
+
+/** Queues the reset e-mail for this address; returns at once, for every address alike. */
+export function requestPasswordReset(request: Request, rawEmail: string): void {
+  const email = normaliseEmail(rawEmail);
+  const ip = clientAddress(request);
+  if (resetPending >= MAX_PENDING_RESET_JOBS) {
+    console.error(`requestPasswordReset: ${resetPending} reset e-mails already queued; dropping one`);
+    return;
+  }
+  resetPending++;
+  resetQueued++;
+  resetChain = resetChain
+    // setImmediate: the job starts only after the answer has been handed back.
+    .then(() => new Promise<void>((resolve) => setImmediate(resolve)))
+    .then(() => sendResetMail(email, ip))
+    .catch((error) => console.error("requestPasswordReset: the reset e-mail failed", error))
+    .finally(() => {
+      resetPending--;
+    });
+}
+
+/** The reset-mail queue's figures: jobs queued since start, and still waiting or running. */
+export function resetMailQueue(): { queued: number; pending: number } {
+  return { queued: resetQueued, pending: resetPending };
+}
+
+/** Resolves once every reset e-mail queued so far has been handled (tests; an orderly stop). */
+export function resetMailSettled(): Promise<void> {
+  return resetChain;
+}
+
 /**
  * Sends a reset link when the address belongs to an active member; silently does nothing
- * otherwise, so the answer never tells whether an account exists.
+ * otherwise. Runs off the request path (requestPasswordReset).
  */
-export async function requestPasswordReset(request: Request, rawEmail: string): Promise<void> {
-  const email = normaliseEmail(rawEmail);
+async function sendResetMail(email: string, ip: string): Promise<void> {
   const user = await db("users")
     .leftJoin("memberships", "memberships.user_id", "users.id")
     .where("users.email", email)
@@ -41,8 +81,8 @@ export async function requestPasswordReset(request: Request, rawEmail: string): 
     .orderBy("memberships.id")
     .first("users.id", "users.name", "memberships.team_id");
   if (!user || !user.team_id) return;
-  // Over the hourly allowance the answer stays the same; only the e-mail is not sent.
-  if (!(await resetMailAllowed(email, clientAddress(request)))) return;
+  // Over the hourly allowance nothing is sent; the answer was the same anyway.
+  if (!(await resetMailAllowed(email, ip))) return;
   const token = newToken();
   await db.transaction(async (trx) => {
     await trx("password_resets").insert({

@@ -19,7 +19,7 @@ export async function action({ request }: Route.ActionArgs) {
   const parsed = parseForm(await readForm(request), forgotSchema);
   if (!parsed.ok) return badRequest(parsed.errors);
   // The same answer whether or not the address is known, so the form cannot reveal who has an account.
-  await requestPasswordReset(request, parsed.data.email);
+  requestPasswordReset(request, parsed.data.email);
   return { sent: SENT_MESSAGE };
 }
 

@@ -10,6 +10,7 @@ import * as invite from "~/routes/invite.$token";
 import * as project from "~/routes/projects.$projectId";
 import * as signIn from "~/routes/sign-in";
 import * as forgot from "~/routes/forgot-password";
+import { resetMailQueue, resetMailSettled } from "~/lib/passwords.server";
 import * as reset from "~/routes/reset-password.$token";
 import { requireApiUser } from "~/lib/auth.server";
 import * as adminOutbox from "~/routes/admin.outbox";
@@ -216,6 +217,7 @@ describe("2. links in e-mail come from APP_URL only", () => {
     await makeUser(email, "host poison password", teamA, "viewer");
     await withEnv({ APP_URL: "https://sparwise.example.org/" }, async () => {
       const res = await callRoute(forgot.action, await hostilePost(null, "/forgot-password", { email }));
+      await resetMailSettled(); // the reset e-mail is written off the request path
       expect(res.status).toBe(200);
     });
     const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
@@ -252,6 +254,7 @@ describe("3. the outbox is each recipient's mailbox; admins see tokens masked", 
     const user = await makeUser(email, "outbox reader password", teamA, "reviewer");
     const bystander = await makeUser(other, "outbox bystander password", teamA, "viewer");
     await callRoute(forgot.action, await post(null, "/forgot-password", { email }));
+    await resetMailSettled(); // the reset e-mail is written off the request path
     const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
     const token = /\/reset-password\/([A-Za-z0-9_-]+)/.exec(mail.text_body)![1]!;
 
@@ -288,6 +291,7 @@ describe("3. the outbox is each recipient's mailbox; admins see tokens masked", 
     const email = "terminal-reader@tallowfield.example";
     await makeUser(email, "terminal reader password", teamA, "viewer");
     await callRoute(forgot.action, await post(null, "/forgot-password", { email }));
+    await resetMailSettled(); // the reset e-mail is written off the request path
     const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
     const token = /\/reset-password\/([A-Za-z0-9_-]+)/.exec(mail.text_body)![1]!;
     const out = execFileSync("npx", ["tsx", "db/outbox.ts", "--to", email], { env: { ...process.env }, encoding: "utf8" });
@@ -381,6 +385,7 @@ describe("12. a password reset or change ends every session and API token", () =
     expect((await requireApiUser(bearer(token))).email).toBe(email);
 
     await callRoute(forgot.action, await post(null, "/forgot-password", { email }));
+    await resetMailSettled(); // the reset e-mail is written off the request path
     const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
     const resetToken = /\/reset-password\/([A-Za-z0-9_-]+)/.exec(mail.text_body)![1]!;
     const done = await callRoute(reset.action, await post(null, `/reset-password/${resetToken}`, { password: "password after reset", confirm: "password after reset" }), { token: resetToken });
@@ -429,5 +434,31 @@ describe("12. a password reset or change ends every session and API token", () =
     expect(res.location).toBe("/sign-in");
     expect(await getUser(get(a, "/"))).toBeNull();
     expect(await getUser(get(b, "/"))).toBeNull();
+  });
+});
+
+describe("13. /forgot-password does the same work for a member's address and an unknown one", () => {
+  // Not a timing assertion: the answer is handed back before any lookup, for every address, and
+  // each request queues exactly one job of the same kind; the lookup and the mail happen after.
+  test("each address, known or not, queues one reset job and gets its answer while the job is still waiting", async () => {
+    const email = "timing-member@tallowfield.example";
+    await makeUser(email, "timing member password", teamA, "viewer");
+    await resetMailSettled();
+    const answers = [];
+    for (const address of [email, "timing-stranger@nowhere.example"]) {
+      const before = resetMailQueue();
+      const res = await callRoute(forgot.action, await post(null, "/forgot-password", { email: address }));
+      const after = resetMailQueue();
+      expect(res.status).toBe(200);
+      expect(after.queued - before.queued).toBe(1);
+      // Answered before the job ran: it has not even looked the address up yet.
+      expect(after.pending).toBe(1);
+      answers.push(res.data);
+      await resetMailSettled();
+      expect(resetMailQueue().pending).toBe(0);
+    }
+    expect(answers[0]).toEqual(answers[1]);
+    expect(await db("outbox").where({ to_address: email }).count({ n: "*" }).first()).toEqual({ n: 1 });
+    expect(await db("outbox").where({ to_address: "timing-stranger@nowhere.example" }).first()).toBeUndefined();
   });
 });
