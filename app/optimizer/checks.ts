@@ -19,7 +19,7 @@ import { EngineInputError } from "./errors";
 export { Scratch, plateObjective, type CheckContext, type DesignBasisModule, type RecordLine };
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
-const { compositeKernel, K_AREA } = composite;
+const { compositeKernel, K_AREA, K_IY, K_IYZ, K_IZ } = composite;
 const { FAMILY_KERNELS, N_CHECKS } = fkm;
 
 /** The design-basis modules, indexed by CheckContext.basis. */
@@ -133,6 +133,11 @@ export interface CandidateVerdict {
   area: number;
   /** basis "en1993" only: what the limit-state checks worked out */
   design?: DesignBlock;
+  /**
+   * With a deflection check: the service deflection's components, mm. An unsymmetric section
+   * (the angle) bends about an inclined axis and moves sideways too; the check is on the total.
+   */
+  deflection?: { vertical: number; sideways: number; total: number };
 }
 
 /** Unit of each check's demand and capacity. */
@@ -193,6 +198,17 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
     checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: CHECK_CLAUSES[name] });
   }
   const out: CandidateVerdict = { checks, utilisation: s.utilisation, governing: CHECK_NAMES[s.governing], feasible, area: s.area };
+  if (ctx.hasDeflection) {
+    // curvatures of the general (unsymmetric) theory, M·Iy/den vertical and M·Iyz/den sideways
+    // (basis/allowable.ts); Iyz = 0 for every family symmetric about an axis
+    const Iz = s.k[K_IZ],
+      Iy = s.k[K_IY],
+      Iyz = fk.unsymmetric ? s.k[K_IYZ] : 0;
+    const den = Iz * Iy - Iyz * Iyz;
+    const vertical = (ctx.deflNumerator * Iy) / den,
+      sideways = (ctx.deflNumerator * Math.abs(Iyz)) / den;
+    out.deflection = { vertical, sideways, total: fk.unsymmetric ? Math.hypot(vertical, sideways) : vertical };
+  }
   const design = BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem);
   if (design) out.design = design;
   return out;

@@ -61,6 +61,8 @@ export interface SearchCandidate extends SearchPoint {
   properties: SectionProperties;
   /** basis "en1993" only: class, resistances, Mcr, χLT, weld throat … (design-types.ts) */
   design?: DesignBlock;
+  /** with a deflection check: vertical, sideways and total service deflection, mm (checks.ts) */
+  deflection?: { vertical: number; sideways: number; total: number };
 }
 
 export interface SearchResult {
@@ -216,6 +218,7 @@ function toOutput(p: Prepared, c: RawCandidate): SearchCandidate {
     properties,
   };
   if (verdict.design) out.design = verdict.design;
+  if (verdict.deflection) out.deflection = verdict.deflection;
   if (p.ctx.cost) out.cost = c.objective;
   return out;
 }

@@ -136,6 +136,9 @@ describe("angle deflection under the allowable basis: the total, not the vertica
     const vertical = k * (p.Iy / (p.Iz * p.Iy - p.Iyz ** 2));
     const r = candidateChecks("angle", { d, b, t }, problem({ deflection: { span: 3, serviceLoad: 2, limitRatio: 250, E } }));
     expect(get(r, "deflection").demand).toBeCloseTo(total, 9);
+    expect(r.deflection!.total).toBeCloseTo(total, 9);
+    expect(r.deflection!.vertical).toBeCloseTo(vertical, 9);
+    expect(Math.hypot(r.deflection!.vertical, r.deflection!.sideways)).toBeCloseTo(total, 9);
     // the sideways component makes it larger than the vertical one alone
     expect(total).toBeGreaterThan(vertical * 1.05);
   });
