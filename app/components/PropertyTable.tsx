@@ -58,7 +58,7 @@ export const STABILITY_ROWS: readonly PropertyRow[] = [
   { key: "stability.shearCentre.z", symbol: "z_sc", name: "Shear centre from the left edge" },
   { key: "stability.shearCentre.y", symbol: "y_sc", name: "Shear centre from the bottom edge" },
   { key: "stability.Cw", symbol: "Cw", name: "Warping constant" },
-  { key: "stability.betaX", symbol: "βx", name: "Mono-symmetry (Wagner) coefficient; > 0 when the top flange is the larger" },
+  { key: "stability.betaX", symbol: "βx", name: "Wagner coefficient for unequal flanges; > 0 when the top flange is the larger" },
   { key: "stability.J", symbol: "J_LTB", name: "Torsion constant used for lateral-torsional buckling" },
 ];
 
