@@ -14,7 +14,7 @@ export function meta() {
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  return { user, tokens: await listApiTokens(user) };
+  return { user, tokens: await listApiTokens(user), minPasswordLength: MIN_PASSWORD_LENGTH };
 }
 
 export async function action({ request }: Route.ActionArgs) {
@@ -82,7 +82,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           <input type="hidden" name="intent" value="changePassword" />
           <FormError message={errors.form} />
           <Field label="Current password" name="current" type="password" autoComplete="current-password" required error={errors.current} />
-          <Field label="New password" name="password" type="password" autoComplete="new-password" required hint={`At least ${MIN_PASSWORD_LENGTH} characters.`} error={errors.password} />
+          <Field label="New password" name="password" type="password" autoComplete="new-password" required hint={`At least ${loaderData.minPasswordLength} characters.`} error={errors.password} />
           <Field label="Repeat the new password" name="confirm" type="password" autoComplete="new-password" required error={errors.confirm} />
           <Button>Change password</Button>
         </Form>
