@@ -92,6 +92,7 @@ function publicSweep(s: SweepView) {
       : null,
     restraintStudy: s.restraintStudy,
     reason: s.reason,
+    advice: s.advice,
     error: s.error,
     queuedAt: s.queuedAt,
     finishedAt: s.finishedAt,

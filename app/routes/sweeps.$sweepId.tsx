@@ -10,6 +10,7 @@ import { can } from "~/lib/roles";
 import { cancelSweep } from "~/workers/queue.server";
 import { queueErrorMessage } from "~/lib/brief-actions.server";
 import { Caution } from "~/components/Caution";
+import { WhatItWouldTake } from "~/components/WhatItWouldTake";
 import { ProgressBar } from "~/components/ProgressBar";
 import { TradeoffChart, describeDimensions } from "~/components/TradeoffChart";
 import { CandidateTable } from "~/components/CandidateTable";
@@ -206,9 +207,12 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                 ) : null}
               </p>
             ) : (
-              <p>
-                <strong>No feasible section.</strong> {sweep.reason}
-              </p>
+              <div className="space-y-3" data-testid="no-feasible">
+                <p>
+                  <strong>No feasible section.</strong> {sweep.reason}
+                </p>
+                <WhatItWouldTake advice={sweep.advice} units={units} problem={sweep.problem} />
+              </div>
             )}
             <BasisNote problem={sweep.problem} className="mt-1" />
             {sweep.counts ? (
@@ -218,9 +222,12 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               </p>
             ) : null}
             <p className="mt-1">
-              <a href={`/sweeps/${sweep.id}/candidates.csv`} className="text-accent underline" download>
-                Download candidates (CSV, SI units)
-              </a>
+              {/* Nothing feasible was stored: no empty file to download. */}
+              {sweep.best ? (
+                <a href={`/sweeps/${sweep.id}/candidates.csv`} className="text-accent underline" download>
+                  Download candidates (CSV, SI units)
+                </a>
+              ) : null}
               {rechecks.length ? (
                 <>
                   {" · Rechecks: "}

@@ -20,7 +20,7 @@ import { z } from "zod";
 import { db, parseJson } from "~/lib/db.server";
 import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
-import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint } from "~/optimizer";
+import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
 import { notify } from "~/lib/notifications.server";
 import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
@@ -350,7 +350,7 @@ export function candidatesToStore(result: SearchResult, objective: "mass" | "cos
 const FINAL_WRITE = { isolationLevel: "read committed" } as const;
 
 /** Writes results and "succeeded" in one transaction if the claim still holds the lease; false if lost. */
-export async function finishSweep(claim: Claim, result: SweepResult): Promise<boolean> {
+export async function finishSweep(claim: Claim, result: SweepResult & { advice?: WhatItWouldTake | null }): Promise<boolean> {
   const rows = candidatesToStore(result, claim.problem.objective);
   const notice = await db.transaction(async (trx) => {
     const held = await lockHeld(trx, claim);
@@ -372,6 +372,7 @@ export async function finishSweep(claim: Claim, result: SweepResult): Promise<bo
           best: result.best ? JSON.stringify(result.best) : null,
           reason: result.reason ?? null,
           restraint_study: result.restraintStudy ? JSON.stringify(result.restraintStudy) : null,
+          advice: result.advice ? JSON.stringify(result.advice) : null,
           progress_done: trx.raw("GREATEST(progress_total, 1)"),
           progress_total: trx.raw("GREATEST(progress_total, 1)"),
           finished_by: claim.workerId.slice(0, 100),
@@ -506,6 +507,8 @@ export interface SweepView {
   problem: SearchProblem;
   /** the member the sweep was run for (m, count); null where not given */
   member: { lengthM: number | null; count: number | null };
+  /** no feasible section: nearest misses and relaxations (engine's whatItWouldTake); null otherwise or not worked out */
+  advice: WhatItWouldTake | null;
 }
 
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d ? new Date(String(d)).toISOString() : null);
@@ -546,6 +549,7 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     etaMs,
     problem: parseJson(row.problem),
     member: { lengthM: row.member_length_m ?? null, count: row.member_count ?? null },
+    advice: row.advice ? parseJson(row.advice) : null,
   };
 }
 

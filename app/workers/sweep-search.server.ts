@@ -13,7 +13,7 @@
 // Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
 // so a runner at full concurrency does not oversubscribe the machine.
 import os from "node:os";
-import { rawGridSize, searchSections, type SearchProblem } from "~/optimizer";
+import { rawGridSize, searchSections, whatItWouldTakeSteps, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
 import { searchInThreads } from "./search-threads";
 import { runRestraintStudy } from "./study-thread";
 import { studyApplies, type SweepResult } from "~/lib/restraint-study";
@@ -28,7 +28,7 @@ export const SWEEP_SEARCH_OPTIONS = { explore: 0.25 } as const;
 export async function runSweepSearch(
   problem: SearchProblem,
   opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
-): Promise<SweepResult> {
+): Promise<AdvisedResult> {
   // Let pending timers (a cancel that arrived while the sweep waited for a slot) run first.
   await new Promise((r) => setImmediate(r));
   opts.signal.throwIfAborted();
@@ -39,7 +39,7 @@ export async function runSweepSearch(
     result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, onProgress: opts.onProgress });
   }
   if (studyApplies(problem)) result.restraintStudy = await sweepRestraintStudy(problem, opts.signal);
-  return result;
+  return withAdvice(problem, result, opts.signal);
 }
 
 /**
@@ -53,5 +53,30 @@ export async function sweepRestraintStudy(problem: SearchProblem, signal?: Abort
   } catch (e) {
     if (signal?.aborted) throw e;
     return { lengthM: problem.restraint?.length ?? 0, points: [], elapsedMs: 0, error: e instanceof Error ? e.message : String(e) };
+  }
+}
+
+/** A sweep's run, with what it would take when nothing was feasible (finishSweep stores it). */
+export type AdvisedResult<R extends SearchResult = SweepResult> = R & { advice?: WhatItWouldTake | null };
+
+/**
+ * Grids larger than this get no advice: each of its up to DEFAULT_SEARCHES searches would take
+ * as long as the sweep itself. The page says so instead.
+ */
+export const ADVICE_MAX_GRID = IN_THREAD_MAX_GRID;
+
+/**
+ * No feasible section: the engine's whatItWouldTake, driven one search at a time with the event
+ * loop let through in between, so the runner's heartbeats and cancel polls keep running.
+ */
+export async function withAdvice<R extends SearchResult>(problem: SearchProblem, result: R, signal?: AbortSignal): Promise<AdvisedResult<R>> {
+  if (result.best) return result;
+  if (rawGridSize(problem) > ADVICE_MAX_GRID) return { ...result, advice: null };
+  const steps = whatItWouldTakeSteps(problem, { signal });
+  for (;;) {
+    await new Promise((r) => setImmediate(r));
+    signal?.throwIfAborted();
+    const n = steps.next();
+    if (n.done) return { ...result, advice: n.value };
   }
 }

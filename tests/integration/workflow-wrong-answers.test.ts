@@ -138,3 +138,32 @@ describe("lost fields (item 4)", () => {
     expect((await getBrief(await ctx.teamId(), briefId)).problemChangedAt! > first!).toBe(true);
   });
 });
+
+describe("no feasible section (item 7)", () => {
+  test("the sweep keeps the engine's nearest misses and relaxations, and the page reads them", async () => {
+    const f = await workflowFixture(ctx);
+    const team = await ctx.teamId();
+    const engineer = await ctx.user("engineer");
+    // 120 kN·m at 165 MPa needs a deeper section than 100–160 mm with these plates.
+    const id = await recordFinishedSweep(db, {
+      teamId: team,
+      ownerId: engineer.id,
+      projectId: f.projectId,
+      briefId: f.briefId,
+      problem: { ...CHANNEL_PROBLEM, depth: { min: 100, max: 160, step: 20 }, thicknesses: [6, 8] },
+    });
+    const mod = await loadRouteModule("routes/sweeps.$sweepId.tsx");
+    const page = await callRoute(mod.loader, await requestAs("viewer", `/sweeps/${id}`), { sweepId: String(id) });
+    const sweep = (page.data as { sweep: { best: unknown; advice: any } }).sweep;
+    expect(sweep.best).toBeNull();
+    expect(sweep.advice.nearestMisses.map((m: { family: string }) => m.family).sort()).toEqual(["channel", "i"]);
+    for (const m of sweep.advice.nearestMisses) expect(m.utilisation).toBeGreaterThan(1);
+    const depth = sweep.advice.relaxations.find((r: { limit: string }) => r.limit === "depth.max");
+    expect(depth.from).toBe(160);
+    expect(depth.to).toBeGreaterThan(160);
+    // the relaxed problem's best is feasible there (the engine's own search agrees)
+    const { searchSections, searchProblemSchema } = await import("~/optimizer");
+    const eased = searchProblemSchema.parse({ ...CHANNEL_PROBLEM, depth: { min: 100, max: depth.to, step: 20 }, thicknesses: [6, 8] });
+    expect(searchSections(eased, { front: "evaluated" }).best?.massPerMetre).toBeCloseTo(depth.best.massPerMetre, 9);
+  });
+});
