@@ -104,7 +104,7 @@ function TeamSwitcher({ user }: { user: HeaderUser }) {
     <Form method="post" action="/account" className="flex items-center gap-1 text-sm">
       <input type="hidden" name="intent" value="switchTeam" />
       <label htmlFor="acting-team" className="sr-only">Team you act in</label>
-      <select id="acting-team" name="teamId" defaultValue={user.teamId} className="rounded-md border border-ink/30 bg-white px-2 py-1 text-sm">
+      <select id="acting-team" name="teamId" defaultValue={user.teamId} className="max-w-48 truncate rounded-md border border-ink/30 bg-white px-2 py-1 text-sm">
         {user.teams.map((t) => (
           <option key={t.id} value={t.id}>
             {t.name} ({ROLE_LABELS[t.role]})
