@@ -15,11 +15,12 @@ import { allowableBasis } from "./basis/allowable";
 import { Scratch, finish, plateObjective, type CheckContext, type DesignBasisModule, type RecordLine } from "./basis/core";
 import { en1993Basis, makeEn1993Context } from "./basis/en1993";
 import { EngineInputError } from "./errors";
+import { MIN_WELD_THROAT, weldCostPerMetre } from "./cost";
 
 export { Scratch, plateObjective, type CheckContext, type DesignBasisModule, type RecordLine };
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
-const { compositeKernel, K_AREA, K_IY, K_IYZ, K_IZ } = composite;
+const { compositeKernel, K_AREA, K_CY, K_CZ, K_IY, K_IYZ, K_IZ } = composite;
 const { FAMILY_KERNELS, N_CHECKS } = fkm;
 
 /** The design-basis modules, indexed by CheckContext.basis. */
@@ -71,6 +72,7 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     density: p.density,
     cost: p.objective === "cost",
     prices: new Map((p.prices ?? []).map((q) => [q.thickness, q.pricePerKg])),
+    weldPerMetre: p.objective === "cost" ? weldCostPerMetre(MIN_WELD_THROAT, p.costs?.weld) : 0,
     en: en ? makeEn1993Context(p) : null,
   };
 }
@@ -108,6 +110,17 @@ export function evaluateCandidate(fk: FamilyKernel, v: Float64Array, ctx: CheckC
   }
   fk.fill(v, s.plates);
   compositeKernel(s.plates, fk.nPlates, s.k);
+  const r = s.rolled;
+  if (r !== null) {
+    // a catalogue section: its exact properties in place of the plate kernel's (same frame)
+    const k = s.k;
+    k[K_AREA] = r.A;
+    k[K_IZ] = r.Iz;
+    k[K_IY] = r.Iy;
+    k[K_IYZ] = r.Iyz;
+    k[K_CZ] = r.cz;
+    k[K_CY] = r.cy;
+  }
   s.area = s.k[K_AREA];
   return ctx.basis === 0 ? evalAllowable(fk, v, ctx, s, all, ok) : evalEn1993(fk, v, ctx, s, all, ok);
 }

@@ -55,7 +55,7 @@ export interface LtbDesign {
   /** elastic critical moment, kN·m */
   Mcr: number;
   lambdaLT: number;
-  curve: "c" | "d";
+  curve: "b" | "c" | "d";
   alphaLT: number;
   phiLT: number;
   chiLT: number;

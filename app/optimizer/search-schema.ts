@@ -6,6 +6,12 @@ import { z } from "zod";
 import { FAMILIES, FAMILY_DIMENSIONS, type Family } from "./geometry";
 import { DEFAULT_DENSITY } from "./schema";
 import { MAX_DENSITY } from "./validate";
+import { CATALOGUE_SHAPES, catalogueSectionSchema } from "./catalogue";
+import { costsSchema } from "./cost";
+
+/** A brief may search this many catalogues and this many catalogue sections in all. */
+export const MAX_CATALOGUES = 10;
+export const MAX_CATALOGUE_SECTIONS = 4000;
 
 /**
  * Largest grid one request may define, counted as the plain product of the axes per family
@@ -246,8 +252,33 @@ export const searchProblemSchema = z
     prices: z
       .array(z.object({ thickness: positive("prices[].thickness"), pricePerKg: positive("prices[].pricePerKg") }))
       .optional(),
+    /** Cost objective: price per kg of rolled sections and the cost per metre of weld by throat (cost.ts). */
+    costs: costsSchema.optional(),
+    /**
+     * Team catalogues searched beside the plate families (catalogue-search.ts): each with its
+     * sections copied in, so a sweep's snapshot keeps what it searched whatever later happens to
+     * the catalogue; `shapes` (optional) keeps only those shapes.
+     */
+    catalogues: z
+      .array(
+        z.object({
+          name: z.string({ error: "catalogues[].name must be text" }).trim().min(1, "catalogues[].name is required").max(120, "catalogues[].name: at most 120 characters"),
+          shapes: z.array(z.enum(CATALOGUE_SHAPES, { error: `catalogues[].shapes: one of ${CATALOGUE_SHAPES.join(", ")}` })).optional(),
+          sections: z.array(catalogueSectionSchema).min(1, "catalogues[].sections: at least one section").max(MAX_CATALOGUE_SECTIONS, `catalogues[].sections: at most ${MAX_CATALOGUE_SECTIONS}`),
+        }),
+        { error: "catalogues must be a list of { name, sections }" },
+      )
+      .max(MAX_CATALOGUES, `catalogues: at most ${MAX_CATALOGUES}`)
+      .optional(),
   })
   .superRefine((p, ctx) => {
+    if (p.catalogues) {
+      const total = p.catalogues.reduce((n, c) => n + c.sections.length, 0);
+      if (total > MAX_CATALOGUE_SECTIONS)
+        ctx.addIssue({ code: "custom", path: ["catalogues"], message: `catalogues: ${total} sections in all; at most ${MAX_CATALOGUE_SECTIONS} per brief` });
+      if (p.objective === "cost" && p.catalogues.length && p.costs?.rolledPricePerKg === undefined)
+        ctx.addIssue({ code: "custom", path: ["costs", "rolledPricePerKg"], message: 'costs.rolledPricePerKg is required when objective is "cost" and catalogues are searched' });
+    }
     if (!(p.moment.sagging > 0 || p.moment.hogging > 0))
       ctx.addIssue({ code: "custom", path: ["moment"], message: "moment: sagging or hogging must be > 0" });
     if (p.basis === "allowable") {

@@ -79,7 +79,8 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   }
   if (ctx.hasShear) {
     // max over y of V·Q(y)/(Iz·b(y)) (engine contract, shear check), from the section kernel.
-    dem[C_SHEAR] = ctx.V * maxShearFactor(p, fk.nPlates, k[K_CY], Iz);
+    // a catalogue section brings the same maximum worked out on its exact outline
+    dem[C_SHEAR] = ctx.V * (s.rolled !== null ? s.rolled.shearFactor : maxShearFactor(p, fk.nPlates, k[K_CY], Iz));
     cap[C_SHEAR] = ctx.aS;
     if (dem[C_SHEAR] > ctx.aS) ok = false;
   }

@@ -8,6 +8,7 @@ import type { FamilyKernel } from "../family-kernel";
 import * as fkm from "../family-kernel";
 import type { CheckName, SearchProblem } from "../search-schema";
 import type { En1993Context, En1993Scratch } from "./en1993";
+import { WELD_RUNS } from "../cost";
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
 const { KERNEL_OUT, PLATE_STRIDE } = composite;
@@ -39,8 +40,38 @@ export interface CheckContext {
   cost: boolean;
   /** Price per kg by plate thickness (cost objective). */
   prices: Map<number, number>;
+  /**
+   * Cost objective: fabrication cost of one metre of fillet weld at the throat welds are priced
+   * at (cost.ts, MIN_WELD_THROAT), 0 when the brief prices no welds. Per family it adds a
+   * constant (× WELD_RUNS), so every bound search.ts draws from plateObjective stays sound.
+   */
+  weldPerMetre: number;
   /** basis "en1993": steel, factors, restraint, supports. */
   en: En1993Context | null;
+}
+
+/**
+ * A rolled or hollow catalogue section evaluated through a plate family's kernel
+ * (catalogue-search.ts): its exact properties (root fillets, rounded corners) replace the plate
+ * kernel's, and each basis applies the rules where EN 1993 treats rolled sections differently
+ * from welded ones. null for every plate-search candidate.
+ */
+export interface RolledSection {
+  /** the catalogue shape: "I" and "channel" have rolled rules under EN 1993 */
+  shape: string;
+  /** root radius, mm (0 when none) */
+  r: number;
+  A: number;
+  Iz: number;
+  Iy: number;
+  Iyz: number;
+  /** centroid in the plate frame (bounding box's bottom-left corner at 0, 0), mm */
+  cz: number;
+  cy: number;
+  /** plastic modulus about the horizontal equal-area axis, mm³ */
+  Zz: number;
+  /** the largest Q(y)/(Iz·b(y)) over the depth, 1/mm² (× V in N gives MPa) */
+  shearFactor: number;
 }
 
 /** Reusable buffers for one evaluating thread. */
@@ -56,11 +87,14 @@ export class Scratch {
   objective = 0;
   /** basis "en1993": its intermediate results (filled by en1993.ts, read back for the design block) */
   en: En1993Scratch | null = null;
+  /** set by catalogue-search.ts for a catalogue section; null for plate candidates */
+  rolled: RolledSection | null = null;
 }
 
 /**
  * Objective of the plates in s.plates: area (mm², objective "mass") or cost per metre
- * (Σ plate area × density × 10⁻⁶ × price of the plate's thickness).
+ * (Σ plate area × density × 10⁻⁶ × price of the plate's thickness, plus the family's weld runs ×
+ * the cost of a metre of weld at the priced throat).
  */
 export function plateObjective(fk: FamilyKernel, v: Float64Array, plates: Float64Array, ctx: CheckContext): number {
   let a = 0;
@@ -68,7 +102,7 @@ export function plateObjective(fk: FamilyKernel, v: Float64Array, plates: Float6
     const ar = plates[i * PLATE_STRIDE] * plates[i * PLATE_STRIDE + 1];
     a += ctx.cost ? ar * (ctx.prices.get(v[fk.plateThickness[i]]) ?? NaN) : ar;
   }
-  return ctx.cost ? a * ctx.density * 1e-6 : a;
+  return ctx.cost ? a * ctx.density * 1e-6 + (ctx.weldPerMetre > 0 ? ctx.weldPerMetre * WELD_RUNS[fk.family] : 0) : a;
 }
 
 /**

@@ -161,6 +161,12 @@ export class En1993Scratch {
   chiLT = new Float64Array(2);
   MbRd = new Float64Array(2);
   curveC = false;
+  /** rolled I with d/b ≤ 2: curve b */
+  curveB = false;
+  /** root radius taken off the classified widths (rolled sections, Table 5.2), mm */
+  rootR = 0;
+  /** a rolled catalogue section (no flange-to-web weld, rolled shear area and LTB curve) */
+  rolled = false;
   shearOn = false;
   Av = 0;
   Vpl = 0;
@@ -282,7 +288,8 @@ function addWeb(x: En1993Scratch, under: number, alpha: number, psi: number, com
   if (!compressed) l3 = Infinity;
   else if (psi > -1) l3 = (42 * e) / (0.67 + 0.33 * psi);
   else l3 = 62 * e * (1 - psi) * Math.sqrt(-psi);
-  addElement(x, EL_WEB, PART_WEB, under, x.hw, x.tw, l1, l2, l3, alpha, psi);
+  // rolled sections: c = d − 2·tf − 2·r (Table 5.2, sheet 1)
+  addElement(x, EL_WEB, PART_WEB, under, x.hw - 2 * x.rootR, x.tw, l1, l2, l3, alpha, psi);
 }
 
 /** 1. Classification, EN 1993-1-1 Table 5.2 (bending only); member-checks.md §2 item 1. */
@@ -299,8 +306,11 @@ function classify(family: string, x: En1993Scratch, sag: boolean, hog: boolean, 
     if (sag) addElement(x, EL_TOP, PART_INTERNAL, 1, c, x.tft, 33 * e, 38 * e, 42 * e, NaN, NaN);
     if (hog) addElement(x, EL_BOTTOM, PART_INTERNAL, 2, c, x.tfb, 33 * e, 38 * e, 42 * e, NaN, NaN);
   } else {
-    const cTop = family === "channel" ? x.bt - x.tw : (x.bt - x.tw) / 2;
-    const cBot = family === "channel" ? x.bb - x.tw : (x.bb - x.tw) / 2;
+    // rolled sections measure the outstand from the root fillet's end (Table 5.2, sheet 2):
+    // I c = (b − tw − 2r)/2, channel c = b − tw − r
+    const r = x.rootR;
+    const cTop = family === "channel" ? x.bt - x.tw - r : (x.bt - x.tw - 2 * r) / 2;
+    const cBot = family === "channel" ? x.bb - x.tw - r : (x.bb - x.tw - 2 * r) / 2;
     if (sag) addElement(x, EL_TOP, PART_OUTSTAND, 1, cTop, x.tft, 9 * e, 10 * e, 14 * e, NaN, NaN);
     // the tee has no bottom flange: its flange is classified only when compressed (sagging)
     if (hog && family !== "tee") addElement(x, EL_BOTTOM, PART_OUTSTAND, 2, cBot, x.tfb, 9 * e, 10 * e, 14 * e, NaN, NaN);
@@ -352,6 +362,9 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     p = s.plates;
   const family = fk.family;
   geometry(family, v, x);
+  const rolled = s.rolled;
+  x.rolled = rolled !== null;
+  x.rootR = rolled !== null ? rolled.r : 0;
   const fy = fyFor(e, x.tMax);
   x.fy = fy;
   x.eps = Math.sqrt(235 / fy);
@@ -382,7 +395,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
 
   // 2. Bending resistance, EN 1993-1-1 §6.2.5 (6.13, 6.14): Mc,Rd = W·fy/γM0, W = Wpl (classes
   // 1, 2) or Wel,min (class 3); one W for every check of the section (readings pinned).
-  x.Zz = plateModulusAbout(p, fk.nPlates, yp);
+  x.Zz = rolled !== null ? rolled.Zz : plateModulusAbout(p, fk.nPlates, yp);
   x.W = x.cls <= 2 ? x.Zz : Math.min(Iz / (d - cy), Iz / cy);
   const W = x.W;
   x.McRd = (W * fy) / e.gM0;
@@ -411,8 +424,12 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     const zg = e.loadAt === 0 ? d - ysc : e.loadAt === 2 ? -ysc : 0;
     // curve (member-checks.md): welded I and mono-I: c (αLT = 0.49) when d/b ≤ 2, b the narrower flange; otherwise d (0.76)
     const bNarrow = x.bt < x.bb ? x.bt : x.bb;
-    x.curveC = (family === "i" || family === "mono-i") && d / bNarrow <= 2;
-    const aLT = x.curveC ? 0.49 : 0.76;
+    // rolled I (catalogue sections): curve b when d/b ≤ 2, c otherwise, the rolled rows of EN 1993-1-1
+    // Table 6.5 (mem.), used in the general case's expression above: one curve more cautious than
+    // Table 6.4's a/b for rolled I, a stated choice; a rolled channel stays on curve d
+    x.curveB = rolled !== null && family === "i" && d / bNarrow <= 2;
+    x.curveC = rolled !== null ? family === "i" && !x.curveB : (family === "i" || family === "mono-i") && d / bNarrow <= 2;
+    const aLT = x.curveB ? 0.34 : x.curveC ? 0.49 : 0.76;
     const WfY = W * fy;
     let worst = -1,
       wr = -Infinity;
@@ -467,6 +484,10 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
       tw = x.tw;
     if (family === "rectangle") x.Av = x.bt * d;
     else if (family === "tee") x.Av = tw * (d - x.tft / 2);
+    // rolled I and H, load parallel to the web: Av = A − 2·b·tf + (tw + 2r)·tf, not less than
+    // η·hw·tw (EN 1993-1-1 §6.2.6(3)(a)); rolled channel: A − 2·b·tf + (tw + r)·tf (§6.2.6(3)(b))
+    else if (rolled !== null && family === "i") x.Av = Math.max(A - 2 * x.bt * x.tft + (tw + 2 * rolled.r) * x.tft, eta * hw * tw);
+    else if (rolled !== null && family === "channel") x.Av = A - 2 * x.bt * x.tft + (tw + rolled.r) * x.tft;
     else x.Av = eta * x.nw * hw * tw;
     x.Vpl = (x.Av * fy) / (SQRT3 * e.gM0);
     x.vLimit = x.nw > 0 ? (72 * x.eps) / eta : NaN;
@@ -512,7 +533,8 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   // the elastic neutral axis; two fillet welds share it (box: the whole flange's q on its two
   // welds, one per web), so a = q/(2·fvw,d), rounded up to a whole mm, at least 3 mm; it fails
   // above 0.7 × the thinner joined plate (member-checks.md §2 item 6).
-  if (family !== "rectangle") {
+  // a rolled section has no flange-to-web weld
+  if (family !== "rectangle" && rolled === null) {
     x.weldOn = true;
     const bT = family === "channel" ? x.bt - x.tw : x.bt;
     const bB = family === "channel" ? x.bb - x.tw : x.bb;
@@ -636,7 +658,7 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
   if (!e.restraint) notes.push("No restraint length given: the compression flange is taken as restrained throughout its length, so lateral-torsional buckling is not checked.");
   else
     notes.push(
-      `Lateral-torsional buckling over ${e.L / 1000} m between restraints, C1 = ${e.C1}, C2 = ${e.C2}, C3 = ${e.C3}, load ${LOAD_WORDS[e.loadAt]}; general case of §6.3.2.2, curve ${x.curveC ? "c" : "d"}.`,
+      `Lateral-torsional buckling over ${e.L / 1000} m between restraints, C1 = ${e.C1}, C2 = ${e.C2}, C3 = ${e.C3}, load ${LOAD_WORDS[e.loadAt]}; general case of §6.3.2.2, curve ${x.curveB ? "b" : x.curveC ? "c" : "d"}${x.rolled ? " (rolled section)" : ""}.`,
     );
   if (e.stiffened) notes.push("Bearing stiffeners are required at the supports (assumed present, not designed here); web crippling is therefore not checked.");
   else if (x.nw > 0) notes.push(`No bearing stiffeners: patch loading checked at an end support (EN 1993-1-5 §6, type (c), bearing at the member end, ss = ${e.ss} mm, reaction = design shear).`);
@@ -644,6 +666,10 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
   if (x.shearOn && x.buckling) notes.push("Shear buckling: non-rigid end posts; the flanges' contribution to the resistance ignored.");
   if (x.mvOn && x.nw > 0 && (x.cls === 3 || family === "mono-i"))
     notes.push("Bending and shear: the §6.2.8(5) expression for I-sections is used for this class 3 or mono-symmetric section, a stated simplification.");
+  if (x.rolled)
+    notes.push(
+      `Rolled section: properties include the root fillets (r = ${x.rootR} mm); classification widths measured from the fillets (Table 5.2); rolled shear area (§6.2.6(3)); no flange-to-web weld; torsion and warping constants from the plates without the fillets (slightly conservative).`,
+    );
   if (x.weldOn) notes.push("Flange-to-web welds: two fillet welds per junction (box: one per web per flange), simplified method, throat rounded up to a whole mm and at least 3 mm.");
   const ltb: LtbDesign[] = [];
   for (let sgn = 0; sgn < 2; sgn++)
@@ -655,8 +681,8 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
         zj: x.zj[sgn],
         Mcr: x.Mcr[sgn] * 1e-6,
         lambdaLT: x.lamLT[sgn],
-        curve: x.curveC ? "c" : "d",
-        alphaLT: x.curveC ? 0.49 : 0.76,
+        curve: x.curveB ? "b" : x.curveC ? "c" : "d",
+        alphaLT: x.curveB ? 0.34 : x.curveC ? 0.49 : 0.76,
         phiLT: x.phiLT[sgn],
         chiLT: x.chiLT[sgn],
         MbRd: x.MbRd[sgn] * 1e-6,

@@ -1,0 +1,301 @@
+// Catalogue sections searched beside the plate families (issue 13): every section of the brief's
+// catalogues is checked under the brief's basis by the engine's own evaluation (checks.ts), through
+// the kernel of the plate family it is shaped like, with its exact properties (root fillets,
+// rounded corners) in place of the plates' and, under EN 1993, the rolled rules where they differ
+// from welded ones (basis/en1993.ts: classification widths from the fillets, rolled shear area,
+// LTB curve b/c, no flange-to-web weld). A catalogue is a short list, so it is simply enumerated;
+// the plate search (search.ts) is untouched and the two results are put side by side here.
+import { BASIS_MODULES, CHECK_CLAUSES, CHECK_UNITS, Scratch, evaluateCandidate, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
+import type { RolledSection } from "./basis/core";
+import { SHAPE_FAMILY, catalogueSectionInput, type CatalogueSection, type CatalogueShape } from "./catalogue";
+import { MIN_WELD_THROAT, WELD_RUNS, weldCostPerMetre, type CostParts } from "./cost";
+import type { DesignBlock } from "./design-types";
+import { EngineInputError } from "./errors";
+import { FAMILY_KERNELS } from "./family-kernel";
+import type { Family } from "./geometry";
+import type { SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "./grid";
+import type { SectionFamily } from "./hollow";
+import { sectionProperties, type SectionProperties } from "./properties";
+import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
+import { sectionStresses } from "./stress";
+
+/**
+ * The plate family whose kernel (geometry frame, slenderness elements, stress path) each shape is
+ * evaluated through, and its dimension vector: an rhs as a box with both walls t, a chs as the
+ * square it fills (its own properties replace the square's; the square contributes only the
+ * frame and the extreme fibres, d/2 from the centroid either way).
+ */
+const KERNEL: Record<CatalogueShape, { family: Family; dims: (d: CatalogueSection["dims"]) => Record<string, number> }> = {
+  I: { family: "i", dims: (d) => ({ d: d.d!, b: d.b!, tf: d.tf!, tw: d.tw! }) },
+  channel: { family: "channel", dims: (d) => ({ d: d.d!, b: d.b!, tf: d.tf!, tw: d.tw! }) },
+  tee: { family: "tee", dims: (d) => ({ d: d.d!, b: d.b!, tf: d.tf!, tw: d.tw! }) },
+  angle: { family: "angle", dims: (d) => ({ d: d.d!, b: d.b!, t: d.t! }) },
+  rhs: { family: "box", dims: (d) => ({ d: d.d!, b: d.b!, tf: d.t!, tw: d.t! }) },
+  chs: { family: "rectangle", dims: (d) => ({ b: d.d!, d: d.d! }) },
+};
+
+/**
+ * Shapes the EN 1993 basis checks as catalogue sections in this version: the rolled I and H and
+ * the rolled channel, whose rolled rules member-checks.md and EN 1993-1-1 §6.2.6(3), Table 5.2 and
+ * Table 6.5 give. Rolled tees, angles and hollow sections under EN 1993 are left out with a reason
+ * (their classification and shear-area rules are not written here); the allowable-stress basis
+ * checks every shape.
+ */
+export const EN1993_CATALOGUE_SHAPES: readonly CatalogueShape[] = ["I", "channel"];
+
+export interface RolledCandidate {
+  source: "rolled";
+  catalogue: string;
+  designation: string;
+  shape: CatalogueShape;
+  /** the engine family it is drawn and computed as */
+  family: SectionFamily;
+  /** that family's dimensions (with r, rt, ro, ri as given), mm */
+  dimensions: Record<string, number>;
+  area: number;
+  massPerMetre: number;
+  /** objective "cost": per metre, material only (a rolled section has no welds) */
+  cost?: number;
+  costParts?: CostParts;
+  utilisation: number;
+  governing: CheckName;
+  checks: CheckResult[];
+  properties: SectionProperties;
+  design?: DesignBlock;
+}
+
+export interface SkippedSection {
+  catalogue: string;
+  designation: string;
+  reason: string;
+}
+
+export interface CatalogueResult {
+  /** by the problem's objective (least area, or least cost) */
+  best: RolledCandidate | null;
+  lightest: RolledCandidate | null;
+  /** objective "cost" only */
+  cheapest: RolledCandidate | null;
+  /** every feasible section, by objective, then area, then utilisation, then catalogue order */
+  feasible: RolledCandidate[];
+  counts: { sections: number; evaluated: number; feasible: number };
+  /** sections the basis does not cover, or whose shape the catalogue entry filtered out, with why (at most MAX_SKIPPED listed) */
+  skipped: SkippedSection[];
+}
+
+const MAX_SKIPPED = 50;
+
+/** The engine input of a catalogue section at the problem's density. */
+export function rolledSectionInput(section: Pick<CatalogueSection, "shape" | "dims">, density: number) {
+  return catalogueSectionInput(section.shape, section.dims, density);
+}
+
+interface Prepared {
+  fkFamily: Family;
+  v: Float64Array;
+  rolled: RolledSection;
+  properties: SectionProperties;
+  dimensions: Record<string, number>;
+}
+
+function prepare(section: CatalogueSection, density: number): Prepared {
+  const k = KERNEL[section.shape];
+  const fk = FAMILY_KERNELS[k.family];
+  const kd = k.dims(section.dims);
+  const input = rolledSectionInput(section, density);
+  const properties = sectionProperties(input);
+  // τ = V·Q(y)/(Iz·b(y)) at its largest over the depth. Shapes symmetric about the horizontal
+  // axis whose cut width never narrows away from it (I, channel, tubes) have it at the neutral
+  // axis, Q there the largest and b the web or walls; tees and angles are sampled on the exact
+  // outline (stress.ts: the neutral axis, every break in the outline and 60 heights between).
+  const atAxis = section.shape === "I" || section.shape === "channel" || section.shape === "rhs" || section.shape === "chs";
+  const tau = atAxis ? (1e3 * properties.Qz) / (properties.Iz * properties.widthAtNeutralAxis) : sectionStresses(input, { V: 1 }).maxShear;
+  const rolled: RolledSection = {
+    shape: section.shape,
+    r: section.dims.r ?? 0,
+    A: properties.area,
+    Iz: properties.Iz,
+    Iy: properties.Iy,
+    Iyz: properties.Iyz,
+    cz: properties.centroid.z,
+    cy: properties.centroid.y,
+    Zz: properties.Zz,
+    shearFactor: Math.abs(tau) / 1e3,
+  };
+  const { family: _f, density: _d, ...dimensions } = input as unknown as Record<string, number>;
+  void _f;
+  void _d;
+  return { fkFamily: k.family, v: Float64Array.from(fk.dims, (n) => kd[n]!), rolled, properties, dimensions };
+}
+
+/** Why the problem's basis does not check this shape, or null when it does. */
+export function catalogueShapeRefusal(shape: CatalogueShape, problem: Pick<SearchProblem, "basis">): string | null {
+  if (problem.basis === "en1993" && !EN1993_CATALOGUE_SHAPES.includes(shape))
+    return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the EN 1993 basis in this version (rolled I, H and channel sections are); use the allowable-stress basis`;
+  return null;
+}
+
+/** Every applicable check of one catalogue section under the problem (results, records, tests). Throws on a shape the basis refuses. */
+export function catalogueCandidateChecks(section: CatalogueSection, problem: SearchProblem): CandidateVerdict & { properties: SectionProperties; dimensions: Record<string, number> } {
+  const refusal = catalogueShapeRefusal(section.shape, problem);
+  if (refusal) throw new EngineInputError("catalogues", refusal);
+  const ctx = makeCheckContext(problem);
+  const pr = prepare(section, problem.density);
+  const fk = FAMILY_KERNELS[pr.fkFamily];
+  const s = new Scratch();
+  s.rolled = pr.rolled;
+  const feasible = evaluateCandidate(fk, pr.v, ctx, s, true);
+  const checks: CheckResult[] = [];
+  for (const c of ctx.precedence) {
+    const d = s.demand[c];
+    if (d !== d) continue;
+    const name = CHECK_NAMES[c];
+    checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: CHECK_CLAUSES[name] });
+  }
+  const out: CandidateVerdict & { properties: SectionProperties; dimensions: Record<string, number> } = {
+    checks,
+    utilisation: s.utilisation,
+    governing: CHECK_NAMES[s.governing],
+    feasible,
+    area: pr.rolled.A,
+    properties: pr.properties,
+    dimensions: pr.dimensions,
+  };
+  const design = BASIS_MODULES[ctx.basis].design(fk, pr.v, ctx, s, problem);
+  if (design) out.design = design;
+  return out;
+}
+
+const compareRolled = (objective: (c: RolledCandidate) => number) => (a: RolledCandidate, b: RolledCandidate) =>
+  objective(a) - objective(b) || a.area - b.area || a.utilisation - b.utilisation;
+
+/** Enumerates the problem's catalogue sections. Throws the signal's reason when aborted. */
+export function searchCatalogues(problem: SearchProblem, options: Pick<SearchOptions, "signal"> = {}): CatalogueResult {
+  const cost = problem.objective === "cost";
+  const price = problem.costs?.rolledPricePerKg;
+  const ctx = makeCheckContext(problem);
+  const s = new Scratch();
+  const feasible: RolledCandidate[] = [];
+  const skipped: SkippedSection[] = [];
+  let sections = 0,
+    evaluated = 0;
+  for (const cat of problem.catalogues ?? []) {
+    for (const section of cat.sections) {
+      sections++;
+      if (sections % 256 === 0) options.signal?.throwIfAborted();
+      const skip = (reason: string) => {
+        if (skipped.length < MAX_SKIPPED) skipped.push({ catalogue: cat.name, designation: section.designation, reason });
+      };
+      if (cat.shapes && !cat.shapes.includes(section.shape)) {
+        skip(`${section.shape}: not among the shapes this brief takes from the catalogue`);
+        continue;
+      }
+      const refusal = catalogueShapeRefusal(section.shape, problem);
+      if (refusal) {
+        skip(refusal);
+        continue;
+      }
+      const pr = prepare(section, problem.density);
+      const fk = FAMILY_KERNELS[pr.fkFamily];
+      s.rolled = pr.rolled;
+      evaluated++;
+      const ok = evaluateCandidate(fk, pr.v, ctx, s, false);
+      if (!ok) continue;
+      const massPerMetre = pr.rolled.A * problem.density * 1e-6;
+      const c: RolledCandidate = {
+        source: "rolled",
+        catalogue: cat.name,
+        designation: section.designation,
+        shape: section.shape,
+        family: SHAPE_FAMILY[section.shape],
+        dimensions: pr.dimensions,
+        area: pr.rolled.A,
+        massPerMetre,
+        utilisation: s.utilisation,
+        governing: CHECK_NAMES[s.governing],
+        checks: [],
+        properties: pr.properties,
+      };
+      if (cost && price !== undefined) {
+        c.cost = massPerMetre * price;
+        c.costParts = { material: c.cost, fabrication: 0, total: c.cost };
+      }
+      feasible.push(c);
+    }
+  }
+  s.rolled = null;
+  const byArea = compareRolled((c) => c.area);
+  const byCost = compareRolled((c) => c.cost ?? Infinity);
+  feasible.sort(cost ? byCost : byArea);
+  // the full check table and design block only for the ones a page shows first
+  const detail = (c: RolledCandidate | null) => {
+    if (!c || c.checks.length) return c;
+    const section = problem.catalogues!.find((k) => k.name === c.catalogue)!.sections.find((x) => x.designation === c.designation)!;
+    const v = catalogueCandidateChecks(section, problem);
+    c.checks = v.checks;
+    if (v.design) c.design = v.design;
+    return c;
+  };
+  const lightest = feasible.length ? feasible.reduce((m, c) => (byArea(c, m) < 0 ? c : m)) : null;
+  const cheapest = cost && feasible.length ? feasible.reduce((m, c) => (byCost(c, m) < 0 ? c : m)) : null;
+  detail(lightest);
+  detail(cheapest);
+  return {
+    best: feasible[0] ?? null,
+    lightest,
+    cheapest,
+    feasible,
+    counts: { sections, evaluated, feasible: feasible.length },
+    skipped,
+  };
+}
+
+/** Material and fabrication parts of a plate candidate's cost (cost objective): welds priced as the objective prices them. */
+export function weldedCostParts(c: Pick<SearchPoint, "family" | "cost">, problem: SearchProblem): CostParts | undefined {
+  if (c.cost === undefined) return undefined;
+  const runs = WELD_RUNS[c.family];
+  const fabrication = runs * weldCostPerMetre(MIN_WELD_THROAT, problem.costs?.weld);
+  const out: CostParts = { material: c.cost - fabrication, fabrication, total: c.cost };
+  if (runs > 0 && fabrication > 0) {
+    out.weldRuns = runs;
+    out.weldThroat = MIN_WELD_THROAT;
+  }
+  return out;
+}
+
+export interface SideBySide {
+  welded: { lightest: SearchCandidate | null; cheapest: SearchCandidate | null };
+  rolled: { lightest: RolledCandidate | null; cheapest: RolledCandidate | null };
+  /** the problem's objective over both: which side wins (a tie goes to welded, listed first) */
+  winner: "welded" | "rolled" | null;
+}
+
+/**
+ * Puts the plate search's result and the catalogue's side by side. `plateByMass` is the plate
+ * search's result under objective "mass" when the problem's objective is "cost" (the lightest
+ * welded section then needs its own search); otherwise the plate result itself.
+ */
+export function sideBySide(problem: SearchProblem, plate: SearchResult, rolled: CatalogueResult, plateByMass: SearchResult = plate): SideBySide {
+  const cost = problem.objective === "cost";
+  const welded = { lightest: plateByMass.best, cheapest: cost ? plate.best : null };
+  const objective = (c: { area: number; cost?: number } | null) => (c === null ? Infinity : cost ? (c.cost ?? Infinity) : c.area);
+  const w = objective(plate.best),
+    r = objective(rolled.best);
+  const winner = w === Infinity && r === Infinity ? null : w <= r ? "welded" : "rolled";
+  return { welded, rolled: { lightest: rolled.lightest, cheapest: rolled.cheapest }, winner };
+}
+
+/** A sweep's result: the plate search's, and with catalogues the catalogue's beside it. */
+export type SweepResult = SearchResult & { catalogue?: CatalogueResult; sideBySide?: SideBySide };
+
+/**
+ * Adds the catalogue search to a finished plate search (the queue, the seed's finished sweeps and
+ * the bench all go through here). With the cost objective the lightest welded section needs the
+ * plate search again under objective "mass" (its best only); `searchPlates` runs it.
+ */
+export function withCatalogues(problem: SearchProblem, plate: SearchResult, searchPlates: (p: SearchProblem) => SearchResult, options: Pick<SearchOptions, "signal"> = {}): SweepResult {
+  if (!problem.catalogues?.length) return plate;
+  const catalogue = searchCatalogues(problem, options);
+  const byMass = problem.objective === "cost" ? searchPlates({ ...problem, objective: "mass" }) : plate;
+  return { ...plate, catalogue, sideBySide: sideBySide(problem, plate, catalogue, byMass) };
+}
