@@ -162,7 +162,8 @@ const steelSchema = z
   })
   .transform((s, ctx) => {
     // A named preset grade fills what the brief leaves out; the brief's own values win.
-    const preset = s.grade !== undefined && s.grade in EN1993_GRADES ? EN1993_GRADES[s.grade as En1993Grade] : undefined;
+    const key = s.grade?.trim().toUpperCase();
+    const preset = key !== undefined && Object.hasOwn(EN1993_GRADES, key) ? EN1993_GRADES[key as En1993Grade] : undefined;
     const fy = s.fy ?? preset?.fy.map((b) => ({ ...b }));
     const fu = s.fu ?? preset?.fu;
     if (!fy) ctx.addIssue({ code: "custom", path: ["fy"], message: "steel.fy is required (bands of { maxThickness, fy }) unless steel.grade names a preset (S235, S275, S355)" });

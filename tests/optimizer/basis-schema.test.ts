@@ -49,6 +49,9 @@ describe("basis", () => {
       eta: 1.2,
       betaW: 0.9,
     });
+    // the preset ids of materials.ts are lower case; "toString" is no grade
+    expect(searchProblemSchema.parse({ ...en, steel: { grade: "s355" } }).steel).toMatchObject({ fu: 470, betaW: 0.9 });
+    expect(issues({ ...en, steel: { grade: "toString" } })).toContainEqual({ path: "steel.fu", message: expect.stringMatching(/^steel\.fu is required/) });
     expect(searchProblemSchema.parse({ ...en, steel: { grade: "S235" } }).steel).toMatchObject({ fu: 360, betaW: 0.8, fy: [{ fy: 235 }, { fy: 225 }, { fy: 215 }] });
     expect(searchProblemSchema.parse({ ...en, steel: { grade: "S275" } }).steel).toMatchObject({ fu: 410, betaW: 0.85, fy: [{ fy: 275 }, { fy: 265 }, { fy: 255 }] });
   });
