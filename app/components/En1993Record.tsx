@@ -19,6 +19,11 @@ import { CheckTable } from "~/components/CheckTable";
 import { matchMomentDiagram, MOMENT_DIAGRAM_SOURCE } from "~/lib/moment-diagrams";
 
 const n = (x: number, sig = 4) => formatNumber(x, sig);
+/** A factor inside a written-out product: powers of ten in brackets, so "÷ (2.028 × 10⁷)" reads unambiguously. */
+const f = (x: number, sig = 4) => {
+  const t = formatNumber(x, sig);
+  return t.includes("×") ? `(${t})` : t;
+};
 
 function Also({ q, x, units }: { q: Quantity; x: number; units: UnitSystem }) {
   return units === "us" ? (
@@ -141,7 +146,7 @@ function LtbWorked({ l, design, problem, props, family, dims, units }: { l: LtbD
         Mcr = C1·(π²·E·Iz/L²)·[√(Iw/Iz + L²·G·It/(π²·E·Iz) + (C2·zg − C3·zj)²) − (C2·zg − C3·zj)] with Iz (minor axis) = {n(props.Iy)} mm⁴, Iw = Cw = {s ? n(s.Cw) : "—"} mm⁶, It = J ={" "}
         {s ? n(s.J) : "—"} mm⁴, L = {n(Lmm)} mm, C2·zg − C3·zj = {r.C2}·{n(l.zg)} − {r.C3}·{n(l.zj)} = {n(a)} mm:
         <br />
-        Mcr = {r.C1} × π² × {n(st.E)} × {n(props.Iy)} ÷ {n(Lmm)}² × [√({s ? n(s.Cw) : "—"}/{n(props.Iy)} + {n(Lmm)}² × {n(st.G)} × {s ? n(s.J) : "—"}/(π² × {n(st.E)} × {n(props.Iy)}) + ({n(a)})²) − ({n(a)})] ={" "}
+        Mcr = {r.C1} × π² × {f(st.E)} × {f(props.Iy)} ÷ {f(Lmm)}² × [√({s ? f(s.Cw) : "—"}/{f(props.Iy)} + {f(Lmm)}² × {f(st.G)} × {s ? f(s.J) : "—"}/(π² × {f(st.E)} × {f(props.Iy)}) + ({n(a)})²) − ({n(a)})] ={" "}
         <strong>{n(l.Mcr)} kN·m</strong>
         <Also q="moment" x={l.Mcr} units={units} />
         <Clause>EN 1993-1-1 §6.3.2.2; three-factor formula (ENV 1993-1-1 Annex F)</Clause>
@@ -311,7 +316,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
             6.6 Flange-to-web welds<Clause>EN 1993-1-8 §4.5.3.3, simplified method</Clause>
           </h3>
           <Step>
-            q = VEd·Qf/Iz = {n(V)} × 10³ N × {n(d.weld.Qf)} mm³ ÷ {n(props.Iz)} mm⁴ = <strong>{n(d.weld.q)} N/mm</strong> per junction (Qf: first moment of the flange about the elastic neutral axis)
+            q = VEd·Qf/Iz = {n(V)} × 10³ N × {f(d.weld.Qf)} mm³ ÷ {f(props.Iz)} mm⁴ = <strong>{n(d.weld.q)} N/mm</strong> per junction (Qf: first moment of the flange about the elastic neutral axis)
           </Step>
           <Step>
             fvw,d = fu/(√3·βw·γM2) = {n(st.fu)}/(√3 × {st.betaW} × {st.gammaM2}) = <strong>{n(d.weld.fvwd)} MPa</strong>

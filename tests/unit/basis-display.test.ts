@@ -7,6 +7,7 @@ import { renderToString } from "react-dom/server";
 import { PropertyTable, STABILITY_ROWS, formatNumber } from "~/components/PropertyTable";
 import { CheckTable } from "~/components/CheckTable";
 import { Caution } from "~/components/Caution";
+import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { cautionText } from "~/lib/caution";
 import { STABILITY_QUANTITIES, candidateChecks, searchProblemSchema, sectionProperties, CONTRACT_EXAMPLE_PROBLEM, type SectionProperties } from "~/optimizer";
 
@@ -67,5 +68,53 @@ describe("caution and check table follow the basis", () => {
     const html = text(renderToString(createElement(CheckTable, { verdict: v, units: "si" })));
     expect(html).toContain("stresses only: no stability checks");
     expect(html).toContain(v.checks[0].clause);
+  });
+});
+
+describe("the record's EN 1993 part sets out the engine's own numbers", () => {
+  // The floor beam of issue 10 and the I the EN 1993 search picks for it on a 10 mm grid (360 × 230 × 10/6).
+  const { allowable: _a, ...rest } = CONTRACT_EXAMPLE_PROBLEM;
+  const problem = searchProblemSchema.parse({
+    ...rest,
+    moment: { sagging: 120, hogging: 0 },
+    shear: 150,
+    families: ["i"],
+    basis: "en1993",
+    steel: { grade: "S355" },
+    restraint: { length: 6, C1: 1.132, C2: 0.459, C3: 0.525, loadAt: "top" },
+  });
+  const dims = { d: 360, b: 230, tf: 10, tw: 6 };
+  const verdict = candidateChecks("i", dims, problem);
+  const d = verdict.design!;
+  const props = sectionProperties({ family: "i", ...dims });
+  // Tags dropped without spaces (the record's numbers sit in <strong> inside sentences); entities decoded.
+  const flat = (h: string) => h.replace(/<br\/?>/g, " ").replace(/<[^>]+>/g, "").replace(/&#x27;/g, "'").replace(/&gt;/g, ">").replace(/&amp;/g, "&").replace(/\s+/g, " ");
+  const html = flat(
+    renderToString(createElement("div", null, createElement(En1993Inputs, { problem, design: d, units: "si" }), createElement(En1993Checks, { problem, verdict, props, family: "i", dims, units: "si" }))),
+  );
+
+  test("fy from the band holding the thickest plate, ε, and the class per element with c/t", () => {
+    expect(d.fyPlate).toBe(10);
+    expect(html).toContain("the section's thickest plate is t = 10 mm, which the band t ≤ 16 mm holds, so fy = 355 MPa");
+    expect(html).toContain(`ε = √(235/fy) = √(235/355) = ${formatNumber(d.epsilon, 4)}`);
+    for (const e of d.elements) expect(html).toContain(`${formatNumber(e.c)}${formatNumber(e.t)}${formatNumber(e.ratio)}`); // c, t, c/t in adjacent cells
+    expect(html).toContain(`class ${d.sectionClass}`);
+  });
+
+  test("each resistance is the design block's value, with its symbols and clause", () => {
+    const l = d.ltb![0];
+    expect(html).toContain(`Mc,Rd = W·fy/γM0 = ${formatNumber(d.W!)} mm³ × 355 MPa ÷ 1 = ${formatNumber(d.McRd!)} kN·m`);
+    expect(html).toContain(`Mcr = 1.132 × π² × 210,000 × (${formatNumber(props.Iy)}) ÷ 6,000² × [√((${formatNumber(props.stability!.Cw)})/(${formatNumber(props.Iy)}) + 6,000² × 81,000 × 177,800/(π² × 210,000 × (${formatNumber(props.Iy)})) + (82.62)²) − (82.62)] = ${formatNumber(l.Mcr)} kN·m`);
+    expect(html).toContain(`χLT = min(1, 1/(ΦLT + √(ΦLT² − λLT²))) = 1/(${formatNumber(l.phiLT, 4)} + √(${formatNumber(l.phiLT, 4)}² − ${formatNumber(l.lambdaLT, 4)}²)) = ${formatNumber(l.chiLT, 4)}`);
+    expect(html).toContain(`Mb,Rd = χLT·W·fy/γM1 = ${formatNumber(l.chiLT, 4)} × ${formatNumber(d.W!)} mm³ × 355 MPa ÷ 1 = ${formatNumber(l.MbRd)} kN·m`);
+    expect(html).toContain(`VRd = ${formatNumber(d.shear!.VRd)} kN`);
+    expect(html).toContain(`a = ${d.weld!.a} mm`);
+    expect(html).toContain("EN 1993-1-8 §4.5.3.3");
+    expect(html).toContain("EN 1993-1-1 §6.3.2.2");
+    // the restraint and the supports in words; the engine's stated simplifications listed
+    expect(html).toContain("compression flange restrained at most L = 6 m apart");
+    expect(html).toContain("“Simply supported, uniform load”");
+    expect(html).toContain("bearing stiffeners are required at both supports");
+    for (const n of d.notes) expect(html).toContain(n);
   });
 });
