@@ -10,7 +10,8 @@ import { FieldError } from "~/lib/forms.server";
 import type { CatalogueCsvSection, RejectedRow } from "~/lib/catalogue-csv";
 import { catalogueSectionSchema, type CatalogueSection, type CatalogueShape, type PrintedField } from "~/optimizer";
 
-export const CATALOGUE_NAME_MAX = 120;
+import { CATALOGUE_NAME_MAX } from "~/lib/catalogue-limits";
+export { CATALOGUE_NAME_MAX };
 /** A team may keep this many catalogues (each up to CATALOGUE_CSV_MAX_ROWS sections). */
 export const MAX_CATALOGUES_PER_TEAM = 50;
 

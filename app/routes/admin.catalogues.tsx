@@ -16,7 +16,6 @@ import {
   type CatalogueFileError,
 } from "~/lib/catalogue-csv";
 import {
-  CATALOGUE_NAME_MAX,
   catalogueActionSchema,
   createCatalogue,
   deleteCatalogue,
@@ -25,6 +24,7 @@ import {
   replaceCatalogue,
   type UploadReport,
 } from "~/lib/catalogues.server";
+import { CATALOGUE_NAME_MAX } from "~/lib/catalogue-limits";
 import { idParam } from "~/lib/route-params";
 import { CATALOGUE_DIMENSIONS, PRINTED_FIELDS, PRINTED_UNITS, SHAPE_WORDS } from "~/optimizer";
 
