@@ -1,6 +1,8 @@
-// The sweep's candidates as a table, sortable by any column and filterable by family and
-// front, linked to the chart through the selected rank; up to four ticked for comparison.
-import { useMemo, useState } from "react";
+// The sweep's candidates as a table, paged, sorted and filtered by the server (GET
+// /api/v1/sweeps/:id/candidates): the page brings the first page, and every other page, sort and
+// filter is fetched, so the page stays small however many candidates a sweep stored (issue 9).
+// Linked to the chart through the selected rank; up to four ticked for comparison.
+import { useEffect, useRef, useState } from "react";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
@@ -32,77 +34,131 @@ function DesignCells({ d, units }: { d: DesignRow | null; units: UnitSystem }) {
   );
 }
 
-type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing" | "cost" | "sectionClass" | "Mcr" | "chiLT" | "MRd" | "VRd" | "weldThroat";
+/**
+ * The columns the server sorts by (stored with each candidate). The EN 1993 figures are worked
+ * out per page shown, not stored, so their columns do not sort: sorting them would mean working
+ * every stored candidate through the checks for each click.
+ */
+type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing" | "cost";
 export const MAX_COMPARE = 4;
 
+/** The API's sort name for each column. */
+const API_SORT: Record<SortKey, string> = { rank: "rank", family: "family", massPerMetre: "mass", utilisation: "utilisation", governing: "governing", cost: "cost" };
+
+export interface CandidatePage {
+  items: ChartCandidate[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+interface Query {
+  page: number;
+  key: SortKey;
+  dir: 1 | -1;
+  family: string;
+  frontOnly: boolean;
+}
+
 export function CandidateTable({
-  candidates,
+  sweepId,
+  initial,
+  families,
+  withCost,
+  withDesign,
   units,
   selected,
   onSelect,
   compare,
   onCompare,
+  onRows,
 }: {
-  candidates: ChartCandidate[];
+  sweepId: number;
+  /** page 1 by rank, unfiltered (from the page's loader) */
+  initial: CandidatePage;
+  /** the families present in the sweep (the filter's choices) */
+  families: string[];
+  withCost: boolean;
+  /** EN 1993 basis: the rows carry the engine's design figures; allowable: the table says it checks stresses only */
+  withDesign: boolean;
   units: UnitSystem;
   selected: number | null;
   onSelect: (rank: number) => void;
   compare: number[];
   onCompare: (ranks: number[]) => void;
+  /** told each page of rows shown, so the page can select and compare them */
+  onRows?: (rows: ChartCandidate[]) => void;
 }) {
-  const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: "rank", dir: 1 });
-  const [family, setFamily] = useState("");
-  const [frontOnly, setFrontOnly] = useState(false);
-  const families = [...new Set(candidates.map((c) => c.family))];
-  const withCost = candidates.some((c) => c.cost != null);
-  // EN 1993 results carry the engine's design figures; allowable ones say they check no stability.
-  const withDesign = candidates.some((c) => c.design);
-  const rows = useMemo(() => {
-    const list = candidates.filter((c) => (!family || c.family === family) && (!frontOnly || c.onFront));
-    const key = (c: ChartCandidate) => {
-      const d = c.design;
-      switch (sort.key) {
-        case "sectionClass":
-          return d?.sectionClass;
-        case "Mcr":
-          return d?.Mcr;
-        case "chiLT":
-          return d?.chiLT;
-        case "MRd":
-          return d ? (d.MbRd ?? d.McRd) : null;
-        case "VRd":
-          return d?.VRd;
-        case "weldThroat":
-          return d?.weldThroat;
-        default:
-          return c[sort.key];
-      }
-    };
-    return list.sort((a, b) => {
-      const x = key(a) ?? 0,
-        y = key(b) ?? 0;
-      const d = typeof x === "number" && typeof y === "number" ? x - y : String(x).localeCompare(String(y));
-      return d * sort.dir || a.rank - b.rank;
-    });
-  }, [candidates, family, frontOnly, sort]);
+  const [query, setQuery] = useState<Query>({ page: 1, key: "rank", dir: 1, family: "", frontOnly: false });
+  const [data, setData] = useState<CandidatePage>(initial);
+  const [status, setStatus] = useState<"idle" | "loading" | "error">("idle");
+  const first = useRef(true);
+  useEffect(() => {
+    if (first.current) {
+      first.current = false;
+      return;
+    }
+    const ac = new AbortController();
+    const params = new URLSearchParams({ page: String(query.page), pageSize: String(initial.pageSize), sort: `${query.dir < 0 ? "-" : ""}${API_SORT[query.key]}` });
+    if (query.family) params.set("family", query.family);
+    if (query.frontOnly) params.set("frontOnly", "true");
+    setStatus("loading");
+    fetch(`/api/v1/sweeps/${sweepId}/candidates?${params}`, { headers: { Accept: "application/json" }, signal: ac.signal })
+      .then(async (res) => {
+        if (!res.ok) throw new Error(String(res.status));
+        const body = (await res.json()) as { items: (ChartCandidate & { area: number; familyBest: boolean })[]; total: number; page: number; pageSize: number };
+        const items = body.items.map(({ rank, family, dimensions, massPerMetre, utilisation, governing, onFront, cost, design }) => ({
+          rank,
+          family,
+          dimensions,
+          massPerMetre,
+          utilisation,
+          governing,
+          onFront,
+          cost,
+          design: design ?? null,
+        }));
+        setData({ items, total: body.total, page: body.page, pageSize: body.pageSize });
+        onRows?.(items);
+        setStatus("idle");
+      })
+      .catch(() => {
+        if (!ac.signal.aborted) setStatus("error");
+      });
+    return () => ac.abort();
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [query, sweepId, initial.pageSize]);
+
+  const pages = Math.max(1, Math.ceil(data.total / data.pageSize));
   const head = (key: SortKey, label: string, right = false) => (
-    <th scope="col" className={`p-2 ${right ? "text-right" : ""}`} aria-sort={sort.key === key ? (sort.dir === 1 ? "ascending" : "descending") : "none"}>
-      <button type="button" className="font-semibold underline decoration-dotted" onClick={() => setSort((s) => ({ key, dir: s.key === key ? ((-s.dir) as 1 | -1) : 1 }))}>
+    <th scope="col" className={`p-2 ${right ? "text-right" : ""}`} aria-sort={query.key === key ? (query.dir === 1 ? "ascending" : "descending") : "none"}>
+      <button
+        type="button"
+        className="font-semibold underline decoration-dotted"
+        onClick={() => setQuery((q) => ({ ...q, page: 1, key, dir: q.key === key ? ((-q.dir) as 1 | -1) : 1 }))}
+      >
         {label}
-        {sort.key === key ? (sort.dir === 1 ? " ▲" : " ▼") : ""}
+        {query.key === key ? (query.dir === 1 ? " ▲" : " ▼") : ""}
       </button>
+    </th>
+  );
+  const plain = (label: string) => (
+    <th scope="col" className="p-2 text-right">
+      {label}
     </th>
   );
   const toggle = (rank: number) => {
     if (compare.includes(rank)) onCompare(compare.filter((r) => r !== rank));
     else if (compare.length < MAX_COMPARE) onCompare([...compare, rank]);
   };
+  const from = data.total === 0 ? 0 : (data.page - 1) * data.pageSize + 1;
+  const to = Math.min(data.total, data.page * data.pageSize);
   return (
     <div className="space-y-2">
       <div className="flex flex-wrap items-center gap-4 text-sm">
         <label className="flex items-center gap-2">
           Family
-          <select value={family} onChange={(e) => setFamily(e.target.value)} className="rounded-md border border-ink/30 bg-white px-2 py-1">
+          <select value={query.family} onChange={(e) => setQuery((q) => ({ ...q, page: 1, family: e.target.value }))} className="rounded-md border border-ink/30 bg-white px-2 py-1">
             <option value="">all</option>
             {families.map((f) => (
               <option key={f}>{f}</option>
@@ -110,15 +166,16 @@ export function CandidateTable({
           </select>
         </label>
         <label className="flex items-center gap-2">
-          <input type="checkbox" checked={frontOnly} onChange={(e) => setFrontOnly(e.target.checked)} /> front only
+          <input type="checkbox" checked={query.frontOnly} onChange={(e) => setQuery((q) => ({ ...q, page: 1, frontOnly: e.target.checked }))} /> front only
         </label>
         {withDesign ? null : (
           <span className="font-semibold text-caution" data-testid="stresses-only">
             Allowable stresses: {STRESSES_ONLY}
           </span>
         )}
-        <span className="text-ink/70">
-          {rows.length} of {candidates.length} shown · tick up to {MAX_COMPARE} to compare ({compare.length} ticked)
+        <span className="text-ink/70" aria-live="polite">
+          {status === "loading" ? "Loading… " : status === "error" ? "Could not load that page; try again. " : ""}
+          rows {from}–{to} of {data.total.toLocaleString("en")} · tick up to {MAX_COMPARE} to compare ({compare.length} ticked)
         </span>
       </div>
       <div className="max-h-[28rem] overflow-auto rounded-lg border border-ink/15 bg-white">
@@ -138,12 +195,12 @@ export function CandidateTable({
               {head("utilisation", "Utilisation", true)}
               {withDesign ? (
                 <>
-                  {head("sectionClass", "Class", true)}
-                  {head("Mcr", `Mcr (${unitLabel("moment", units)})`, true)}
-                  {head("chiLT", "χLT", true)}
-                  {head("MRd", `Mb,Rd or Mc,Rd (${unitLabel("moment", units)})`, true)}
-                  {head("VRd", `VRd (${unitLabel("force", units)})`, true)}
-                  {head("weldThroat", `Weld a (${unitLabel("length", units)})`, true)}
+                  {plain("Class")}
+                  {plain(`Mcr (${unitLabel("moment", units)})`)}
+                  {plain("χLT")}
+                  {plain(`Mb,Rd or Mc,Rd (${unitLabel("moment", units)})`)}
+                  {plain(`VRd (${unitLabel("force", units)})`)}
+                  {plain(`Weld a (${unitLabel("length", units)})`)}
                 </>
               ) : null}
               {head("governing", "Governing check")}
@@ -153,7 +210,7 @@ export function CandidateTable({
             </tr>
           </thead>
           <tbody>
-            {rows.map((c) => (
+            {data.items.map((c) => (
               <tr
                 key={c.rank}
                 data-rank={c.rank}
@@ -193,6 +250,19 @@ export function CandidateTable({
           </tbody>
         </table>
       </div>
+      {pages > 1 ? (
+        <nav className="flex items-center gap-3 text-sm" aria-label="Candidate pages">
+          <button type="button" className="rounded-md border border-ink/30 bg-white px-3 py-1 disabled:opacity-50" disabled={data.page <= 1 || status === "loading"} onClick={() => setQuery((q) => ({ ...q, page: q.page - 1 }))}>
+            Previous
+          </button>
+          <span className="tabular-nums">
+            page {data.page} of {pages}
+          </span>
+          <button type="button" className="rounded-md border border-ink/30 bg-white px-3 py-1 disabled:opacity-50" disabled={data.page >= pages || status === "loading"} onClick={() => setQuery((q) => ({ ...q, page: q.page + 1 }))}>
+            Next
+          </button>
+        </nav>
+      ) : null}
       {withDesign ? (
         <p className="text-xs text-ink/70">
           Moment resistance: Mb,Rd where lateral-torsional buckling is checked; “(c)” marks Mc,Rd where the compression flange is restrained throughout. Figures from the engine's EN 1993 checks.

@@ -1,5 +1,5 @@
-// A sweep's progress: done / total, elapsed and a rough estimate of what is left, as a native
-// <progress> (announced by screen readers) with the numbers written beside it.
+// A sweep's progress: done / total and what they count, elapsed and a rough estimate of what is
+// left, as a native <progress> (announced by screen readers) with the numbers written beside it.
 export function formatDuration(ms: number | null): string {
   if (ms === null || !Number.isFinite(ms)) return "—";
   const s = Math.round(ms / 1000);
@@ -8,7 +8,22 @@ export function formatDuration(ms: number | null): string {
   return m < 60 ? `${m} min ${s % 60} s` : `${Math.floor(m / 60)} h ${m % 60} min`;
 }
 
-export function ProgressBar({ done, total, elapsedMs, etaMs, status }: { done: number; total: number; elapsedMs: number | null; etaMs: number | null; status: string }) {
+export function ProgressBar({
+  done,
+  total,
+  counts = null,
+  elapsedMs,
+  etaMs,
+  status,
+}: {
+  done: number;
+  total: number;
+  /** what done and total count, in words ("shapes settled …"); null before the search reports */
+  counts?: string | null;
+  elapsedMs: number | null;
+  etaMs: number | null;
+  status: string;
+}) {
   const fraction = total > 0 ? Math.min(1, done / total) : 0;
   return (
     <div className="space-y-1">
@@ -16,7 +31,7 @@ export function ProgressBar({ done, total, elapsedMs, etaMs, status }: { done: n
         {Math.round(fraction * 100)}%
       </progress>
       <p className="text-sm tabular-nums" aria-live="polite">
-        {status === "queued" ? "Waiting in the queue…" : `${done.toLocaleString("en")} of ${total > 0 ? total.toLocaleString("en") : "?"} (${Math.round(fraction * 100)}%)`} · elapsed{" "}
+        {status === "queued" ? "Waiting in the queue…" : `${done.toLocaleString("en")} of ${total > 0 ? total.toLocaleString("en") : "?"} ${counts ?? "steps"} (${Math.round(fraction * 100)}%)`} · elapsed{" "}
         {formatDuration(elapsedMs)} · about {formatDuration(etaMs)} left
       </p>
     </div>

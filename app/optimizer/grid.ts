@@ -42,6 +42,12 @@ export interface SearchOptions {
   explore?: number;
   /** Search only depth-grid indices in [from, to) (used to split a search across threads). */
   depthIndexRange?: [number, number];
+  /**
+   * Fast search only: asked every few thousand heap steps and before each family; once it answers
+   * true the search stops and returns what it has, marked `stoppedEarly` (the caller decides when:
+   * a time budget passes a clock check here, so the engine itself reads no clock).
+   */
+  stopWhen?: () => boolean;
 }
 
 /** A candidate as the front and the context points carry it (no check table, no properties). */
@@ -82,6 +88,13 @@ export interface SearchResult {
    */
   context?: SearchPoint[];
   counts: { grid: number; evaluated: number; feasible: number };
+  /**
+   * Present (true) when `stopWhen` ended the search before it finished: `best` and
+   * `bestByFamily` are then the lightest found so far, NOT proven lightest, families not reached
+   * are null, `front` is over what was evaluated (frontScope "evaluated", no context), and
+   * `counts.grid` covers only the part of the grid the search reached.
+   */
+  stoppedEarly?: true;
 }
 
 export interface PreparedFamily {
@@ -179,13 +192,21 @@ export class Tally {
   ctxBest: (RawCandidate | null)[];
   /** their objectives (Infinity while none), read in the search's hot loop */
   ctxObj: Float64Array;
+  /** set once stopWhen answered true */
+  stopped = false;
   constructor(
     nFamilies: number,
     readonly nDepths = 0,
+    readonly stopWhen?: () => boolean,
   ) {
     this.bestByFamily = new Array(nFamilies).fill(null);
     this.ctxBest = new Array(nFamilies * nDepths).fill(null);
     this.ctxObj = new Float64Array(nFamilies * nDepths).fill(Infinity);
+  }
+  /** Asks stopWhen (once it said stop, the answer stays stop). */
+  shouldStop(): boolean {
+    if (!this.stopped && this.stopWhen?.()) this.stopped = true;
+    return this.stopped;
   }
 }
 
@@ -273,7 +294,9 @@ function reasonText(p: Prepared, t: Tally): string {
 }
 
 /** frontScope: "grid" when every grid candidate was evaluated or proven not on the front (then with context). */
-export function buildResult(p: Prepared, t: Tally, frontScope: "grid" | "evaluated"): SearchResult {
+export function buildResult(p: Prepared, t: Tally, scope: "grid" | "evaluated"): SearchResult {
+  // a stopped search evaluated only part of the grid: its front is over what it evaluated
+  const frontScope = t.stopped ? "evaluated" : scope;
   let best: RawCandidate | null = null;
   for (const c of t.bestByFamily) if (c && (!best || compareAcross(c, best) < 0)) best = c;
   const bestByFamily: Partial<Record<Family, SearchCandidate | null>> = {};
@@ -292,7 +315,11 @@ export function buildResult(p: Prepared, t: Tally, frontScope: "grid" | "evaluat
     counts: { grid: t.grid, evaluated: t.evaluated, feasible: t.feasible },
   };
   if (frontScope === "grid") res.context = t.ctxBest.filter((c): c is RawCandidate => c !== null).map((c) => toPoint(p, c));
-  if (!best) res.reason = reasonText(p, t);
+  if (t.stopped) res.stoppedEarly = true;
+  if (!best)
+    res.reason = t.stopped
+      ? "The search was stopped before it found a candidate that passes every check; it did not search the whole grid."
+      : reasonText(p, t);
   return res;
 }
 

@@ -77,7 +77,10 @@
 // (known once every family is seeded), done = shapes evaluated or proven unable to change the
 // answer; each heap entry carries how many shapes it stands for, so done moves with the work.
 // Abort: the signal is checked every 4096 heap steps; an aborted search throws the signal's
-// reason (an AbortError DOMException unless the caller gave one).
+// reason (an AbortError DOMException unless the caller gave one). Stop: `stopWhen` is asked at
+// the same points and before each family; once it answers true the search returns what it has
+// so far, marked `stoppedEarly` (a sweep's time budget: the queue keeps the best found so far,
+// never presented as proven lightest).
 import { Scratch, evaluateCandidate, plateObjective, type CheckContext } from "./checks";
 import * as composite from "./composite";
 import { bruteForceSearch } from "./brute-force";
@@ -628,6 +631,7 @@ class FamilySearch {
           if (key > lo && key <= hi) move(i);
         }
         this.loop(signal, report);
+        if (this.t.stopped) break;
         lo = hi;
         if (hi === Infinity || this.incumbent() <= lo) break;
         if (this.incumbent() < Infinity) {
@@ -642,10 +646,11 @@ class FamilySearch {
         }
       }
     }
-    // Everything left (in the heap or never pushed) is pruned by the incumbent.
+    // Everything left (in the heap or never pushed) is pruned by the incumbent (unless the search
+    // was stopped: then it is unsettled, and progress keeps counting it as left).
     h.size = 0;
     this.seeds = new Heap();
-    this.pending = 0;
+    if (!this.t.stopped) this.pending = 0;
   }
 
   private loop(signal: AbortSignal | undefined, report: () => void): void {
@@ -655,6 +660,7 @@ class FamilySearch {
       if (++steps % ABORT_EVERY === 0) {
         checkAbort(signal);
         report();
+        if (this.t.shouldStop()) return;
       }
       if (h.key[0] > this.incumbent()) break;
       h.pop();
@@ -1083,7 +1089,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
   const p = prepare(problem, options.depthIndexRange);
   const explore = Math.max(0, options.explore ?? 0);
   const gridMode = (options.front ?? (explore > 0 ? "evaluated" : "grid")) === "grid";
-  const t = new Tally(p.families.length, gridMode ? p.depths.length : 0);
+  const t = new Tally(p.families.length, gridMode ? p.depths.length : 0, options.stopWhen);
   const shared = gridMode ? new Heap() : null;
   const fams = p.families.map((pf) => new FamilySearch(pf, p.ctx, t, shared ?? new Heap(), gridMode, gridMode ? 0 : explore));
   checkAbort(options.signal);
@@ -1098,6 +1104,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
   if (!gridMode) {
     for (const fs of fams) {
       checkAbort(options.signal);
+      if (t.shouldStop()) break;
       fs.run(options.signal, report);
       report();
     }
@@ -1116,6 +1123,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
     if (++steps % ABORT_EVERY === 0) {
       checkAbort(options.signal);
       report();
+      if (t.shouldStop()) break;
     }
     h.pop();
     const fs = fams[h.outFam];

@@ -1,10 +1,12 @@
 import { requireApiUser } from "~/lib/auth.server";
 import { fieldErrorsFrom } from "~/lib/forms.server";
-import { candidatesQuerySchema, listCandidates } from "~/workers/queue.server";
+import { candidatesQuerySchema } from "~/workers/queue.server";
+import { candidatesPage } from "~/lib/sweep-page.server";
 import { requireTeamSweep, sweepIdParam } from "~/workers/sweep-api.server";
 
 // GET /api/v1/sweeps/:id/candidates?page=&pageSize=&sort=&family=&frontOnly= : the stored
-// candidates (front, family bests, best; see candidatesToStore), paged.
+// candidates (front, family bests, best; see candidatesToStore), paged, sorted and filtered here (the
+// sweep page's table reads its pages from this); under the EN 1993 basis each with its design figures.
 export async function loader({ request, params }: { request: Request; params: { id?: string } }) {
   const user = await requireApiUser(request, "read");
   const sweep = await requireTeamSweep(sweepIdParam(params.id), user);
@@ -14,6 +16,6 @@ export async function loader({ request, params }: { request: Request; params: { 
     const errors = fieldErrorsFrom(parsed.error);
     return Response.json({ error: Object.values(errors)[0], errors }, { status: 400 });
   }
-  const page = await listCandidates(sweep.id, parsed.data);
-  return Response.json({ sweepId: sweep.id, status: sweep.status, ...page });
+  const page = await candidatesPage(sweep, parsed.data);
+  return Response.json({ sweepId: sweep.id, status: sweep.status, provenLightest: sweep.provenLightest, ...page });
 }

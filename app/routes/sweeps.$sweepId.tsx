@@ -12,7 +12,7 @@ import { queueErrorMessage } from "~/lib/brief-actions.server";
 import { Caution } from "~/components/Caution";
 import { WhatItWouldTake } from "~/components/WhatItWouldTake";
 import { ProgressBar } from "~/components/ProgressBar";
-import { TradeoffChart, describeDimensions } from "~/components/TradeoffChart";
+import { TradeoffChart, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { CandidateTable } from "~/components/CandidateTable";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { UnitSwitch } from "~/components/UnitSwitch";
@@ -72,19 +72,27 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function SweepPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweep, candidates, brief, project, rechecks, options, may } = loaderData;
+  const { sweep, chart, table, families, brief, project, rechecks, options, may } = loaderData;
   const [units, setUnits] = useState<UnitSystem>(loaderData.units);
-  const [selected, setSelected] = useState<number | null>(candidates[0]?.rank ?? null);
+  const [selected, setSelected] = useState<number | null>(chart.points[0]?.rank ?? null);
+  // Candidates the page has seen (the chart's sample, each table page fetched), by rank: what can be selected and compared.
+  const [known, setKnown] = useState(() => new Map<number, ChartCandidate>([...chart.points, ...table.items].map((c) => [c.rank, c])));
+  const learn = (rows: ChartCandidate[]) => setKnown((m) => new Map([...m, ...rows.map((c) => [c.rank, c] as const)]));
   const [compare, setCompare] = useState<number[]>([]);
   const [live, setLive] = useState(sweep);
   const revalidator = useRevalidator();
   const running = sweep.status === "queued" || sweep.status === "running";
+  // timed_out: stopped at the time budget with the best found so far (results shown, never called the lightest)
+  const timedOut = sweep.status === "timed_out";
+  const hasResults = sweep.status === "succeeded" || timedOut;
 
   useEffect(() => setLive(sweep), [sweep]);
   // Results arrive in place when a running sweep ends: select its best then.
   useEffect(() => {
-    if (selected === null && candidates.length) setSelected(candidates[0].rank);
-  }, [candidates, selected]);
+    learn([...chart.points, ...table.items]);
+    if (selected === null && chart.points.length) setSelected(chart.points[0].rank);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [chart, table]);
   // Poll the API while the sweep runs; once it ends, reload this route's data (results) in place.
   useEffect(() => {
     if (!running) return;
@@ -118,9 +126,10 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
     setSelected(rank);
     document.querySelector(`tr[data-rank="${rank}"]`)?.scrollIntoView({ block: "nearest" });
   };
-  const sel = candidates.find((c) => c.rank === selected) ?? null;
-  const bestDesign = candidates[0]?.design ?? null;
-  const compared = compare.map((r) => candidates.find((c) => c.rank === r)).filter((c): c is (typeof candidates)[number] => Boolean(c));
+  const sel = selected === null ? null : (known.get(selected) ?? null);
+  const bestDesign = loaderData.bestDesign;
+  const compared = compare.map((r) => known.get(r)).filter((c): c is ChartCandidate => Boolean(c));
+  const withCost = chart.points.some((c) => c.cost != null);
   const errors = actionData?.errors as Record<string, string> | null | undefined;
 
   return (
@@ -175,7 +184,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
 
       {running ? (
         <section className="space-y-2 rounded-lg border border-ink/15 bg-white p-4" aria-label="Progress">
-          <ProgressBar done={live.progress.done} total={live.progress.total} elapsedMs={live.elapsedMs} etaMs={live.etaMs} status={live.status} />
+          <ProgressBar done={live.progress.done} total={live.progress.total} counts={live.progress.counts} elapsedMs={live.elapsedMs} etaMs={live.etaMs} status={live.status} />
           {may.cancel ? (
             <Form method="post">
               <input type="hidden" name="intent" value="cancel" />
@@ -189,12 +198,18 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
       {sweep.status === "failed" ? <p className="rounded-md border border-red-800 bg-red-50 p-3 text-sm">The sweep failed: {sweep.error}</p> : null}
       {sweep.status === "cancelled" ? <p className="rounded-md border border-ink/30 bg-white p-3 text-sm">The sweep was cancelled. {sweep.reason}</p> : null}
 
-      {sweep.status === "succeeded" ? (
+      {timedOut ? (
+        <p role="status" data-testid="not-proven" className="rounded-md border border-amber-800 bg-amber-50 p-3 text-sm">
+          <strong>Not proven lightest.</strong> {sweep.reason}
+        </p>
+      ) : null}
+
+      {hasResults ? (
         <>
           <section aria-label="Summary" className="rounded-lg border border-ink/15 bg-white p-4 text-sm">
             {sweep.best ? (
               <p data-testid="best">
-                <strong>{sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
+                <strong>{timedOut ? "Best found so far (not proven lightest):" : sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
                 {sweep.best.utilisation.toFixed(3)} ({sweep.best.governing}){sweep.best.cost != null ? `, cost ${sweep.best.cost.toFixed(2)} per m (the cheapest: objective "cost")` : ""}.
                 {bestDesign ? (
                   <span data-testid="best-design">
@@ -209,15 +224,15 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
             ) : (
               <div className="space-y-3" data-testid="no-feasible">
                 <p>
-                  <strong>No feasible section.</strong> {sweep.reason}
+                  <strong>No feasible section{timedOut ? " found before the time budget" : ""}.</strong> {timedOut ? null : sweep.reason}
                 </p>
-                <WhatItWouldTake advice={sweep.advice} units={units} problem={sweep.problem} />
+                {timedOut ? null : <WhatItWouldTake advice={sweep.advice} units={units} problem={sweep.problem} />}
               </div>
             )}
             <BasisNote problem={sweep.problem} className="mt-1" />
             {sweep.counts ? (
               <p className="mt-1 text-ink/80 tabular-nums">
-                Grid {sweep.counts.grid.toLocaleString("en")} shapes · evaluated {sweep.counts.evaluated.toLocaleString("en")} · feasible among them {sweep.counts.feasible.toLocaleString("en")} · stored {candidates.length} · time{" "}
+                Grid {sweep.counts.grid.toLocaleString("en")} shapes · evaluated {sweep.counts.evaluated.toLocaleString("en")} · feasible among them {sweep.counts.feasible.toLocaleString("en")} · stored {chart.stored.toLocaleString("en")} · time{" "}
                 {sweep.elapsedMs !== null ? `${(sweep.elapsedMs / 1000).toFixed(1)} s` : "—"}
               </p>
             ) : null}
@@ -230,7 +245,9 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               ) : null}
               {rechecks.length ? (
                 <>
-                  {" · Rechecks: "}
+                  {" · Rechecks"}
+                  {loaderData.rechecksTotal > rechecks.length ? ` (the latest ${rechecks.length} of ${loaderData.rechecksTotal})` : ""}
+                  {": "}
                   {rechecks.map((r, i) => (
                     <span key={r.id}>
                       {i ? ", " : ""}
@@ -244,7 +261,9 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               ) : null}
               {options.length ? (
                 <>
-                  {" · Options saved: "}
+                  {" · Options saved"}
+                  {loaderData.optionsTotal > options.length ? ` (the first ${options.length} of ${loaderData.optionsTotal})` : ""}
+                  {": "}
                   {options.map((o, i) => (
                     <span key={o.id}>
                       {i ? ", " : ""}
@@ -265,13 +284,18 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               <Assumptions problem={sweep.problem} units={units} notes={sweep.best?.notes ?? undefined} heading="What this sweep assumed" />
             </div>
           </details>
-          {candidates.length ? (
+          {chart.stored ? (
             <>
               <section aria-labelledby="chart-h" className="space-y-2">
                 <h2 id="chart-h" className="text-lg font-bold">
                   Weight against stress
                 </h2>
-                <TradeoffChart candidates={candidates} units={units} selected={selected} onSelect={select} />
+                <TradeoffChart candidates={chart.points} units={units} selected={selected} onSelect={select} />
+                {chart.points.length < chart.stored ? (
+                  <p className="text-xs text-ink/70" data-testid="chart-sample">
+                    The chart draws {chart.points.length.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly, with both ends and every family's best. The table below pages through all of them.
+                  </p>
+                ) : null}
               </section>
               {sel ? (
                 <section aria-label="Selected candidate" className="flex flex-wrap items-end gap-3 rounded-lg border border-accent bg-white p-3 text-sm" data-testid="selected">
@@ -312,7 +336,19 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                 <h2 id="table-h" className="text-lg font-bold">
                   Candidates
                 </h2>
-                <CandidateTable candidates={candidates} units={units} selected={selected} onSelect={select} compare={compare} onCompare={setCompare} />
+                <CandidateTable
+                  sweepId={sweep.id}
+                  initial={table}
+                  families={families}
+                  withCost={withCost}
+                  withDesign={sweep.problem.basis === "en1993"}
+                  units={units}
+                  selected={selected}
+                  onSelect={select}
+                  compare={compare}
+                  onCompare={setCompare}
+                  onRows={learn}
+                />
               </section>
               <section aria-labelledby="compare-h" className="space-y-2">
                 <h2 id="compare-h" className="text-lg font-bold">

@@ -1,4 +1,5 @@
-// Engine calls a request may trigger that can take longer than ~50 ms run here, on one worker
+// Engine calls a request may trigger that can take longer than ~50 ms (a section's properties, the
+// EN 1993 figures of a page of candidates) run here, on one worker
 // thread, so the event loop that serves every other request (and /healthz) never waits on them
 // (issue 9: one 185 kB POST /api/v1/properties held the server for 8.9 s). The vertex caps
 // (validate.ts) keep the worst accepted section to tens of milliseconds, but a contrived outline
@@ -16,6 +17,10 @@ import { isEngineInputError } from "../optimizer/errors";
 import { sectionProperties, type SectionProperties } from "../optimizer/properties";
 import { propertiesIn, type UnitSystem } from "../optimizer/units";
 import { parseSectionInput, type FieldError } from "../lib/bench-state";
+import { candidateChecks } from "../optimizer/checks";
+import type { Family } from "../optimizer/geometry";
+import type { SearchProblem } from "../optimizer/search-schema";
+import { designRow, type DesignRow } from "../lib/design-summary";
 import { nodeEndpoint, spawnThread } from "./thread-spawn";
 
 const KIND = "sparwise-engine-thread";
@@ -37,7 +42,23 @@ export function sectionPropertiesJob(input: unknown, units: UnitSystem): Propert
   }
 }
 
-const jobs = { sectionProperties: sectionPropertiesJob };
+/**
+ * The EN 1993 figures of stored candidates (the rows keep only the summary columns): the engine's
+ * one evaluation, candidateChecks, per row, a few hundredths of a millisecond each warm and more
+ * cold, so a page of them stays off the event loop. Runs on the thread; exported for tests.
+ */
+export function designRowsJob(problem: SearchProblem, rows: { family: string; dimensions: Record<string, number> }[]): (DesignRow | null)[] {
+  return rows.map((r) => {
+    try {
+      return designRow(candidateChecks(r.family as Family, r.dimensions, problem));
+    } catch {
+      // a row the current engine cannot evaluate (stored by an older version) shows no figures rather than failing the page
+      return null;
+    }
+  });
+}
+
+const jobs = { sectionProperties: sectionPropertiesJob, designRows: designRowsJob };
 type Jobs = typeof jobs;
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === KIND) {

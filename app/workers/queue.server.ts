@@ -22,11 +22,15 @@ import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
 import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
+import { gridCostProblem, timedOutReason } from "./sweep-budget";
+import type { ProgressUnit } from "./sweep-search.server";
 import { notify } from "~/lib/notifications.server";
 import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
 
-export type SweepStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled";
-export const TERMINAL: ReadonlySet<SweepStatus> = new Set(["succeeded", "failed", "cancelled"]);
+export type SweepStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled" | "timed_out";
+export const TERMINAL: ReadonlySet<SweepStatus> = new Set(["succeeded", "failed", "cancelled", "timed_out"]);
+/** Ended with results to show: all of the grid searched (succeeded), or the best found within the time budget (timed_out). */
+export const WITH_RESULTS: ReadonlySet<SweepStatus> = new Set(["succeeded", "timed_out"]);
 
 function intEnv(name: string, fallback: number, min = 0): number {
   const raw = process.env[name];
@@ -90,6 +94,9 @@ export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; c
     const errors = Object.fromEntries(Object.entries(fieldErrorsFrom(parsed.error)).map(([k, v]) => [`problem.${k}`, v]));
     throw jsonError(400, `problem is invalid: ${Object.values(errors)[0] ?? "see errors"}`, { errors });
   }
+  // The brief's cost, estimated before it takes a place in the queue (sweep-budget.ts).
+  const tooBig = gridCostProblem(parsed.data);
+  if (tooBig) throw jsonError(400, `problem is too large to run: ${tooBig}`, { errors: { "problem.grid": tooBig } });
   const key = input.idempotencyKey ?? null;
   if (key !== null) {
     const k = idempotencyKeySchema.safeParse(key);
@@ -158,9 +165,10 @@ interface EndedNotice {
 
 /**
  * Claims up to `limit` sweeps for `workerId`: first running ones whose lease expired (their worker
- * died or stalled), then queued ones, oldest first. One short READ COMMITTED transaction with
- * FOR UPDATE SKIP LOCKED, so competing workers never wait on or take each other's rows. A claim
- * over max_attempts fails the sweep; a sweep whose cancel was requested is cancelled, not run.
+ * died or stalled), then queued ones in fair order (fairQueued). One short READ COMMITTED
+ * transaction with FOR UPDATE SKIP LOCKED, so competing workers never wait on or take each other's
+ * rows. A claim over max_attempts fails the sweep; a sweep whose cancel was requested is
+ * cancelled, not run. Every claim stamps claimed_at, which the fair order reads.
  */
 export async function claimNextSweeps(workerId: string, limit: number): Promise<Claim[]> {
   if (limit <= 0) return [];
@@ -174,11 +182,7 @@ export async function claimNextSweeps(workerId: string, limit: number): Promise<
          WHERE status = 'running' AND lease_expires_at < NOW(3) ORDER BY lease_expires_at LIMIT ? FOR UPDATE SKIP LOCKED`,
         limit,
       );
-      const queued = await pick(
-        `SELECT id, team_id, owner_id, attempts, max_attempts, cancel_requested, lease_owner, problem FROM sweeps
-         WHERE status = 'queued' ORDER BY id LIMIT ? FOR UPDATE SKIP LOCKED`,
-        limit - expired.length,
-      );
+      const queued = await fairQueued(trx, limit - expired.length);
       const out: Claim[] = [];
       for (const row of [...expired, ...queued]) {
         const id = Number(row.id);
@@ -211,7 +215,7 @@ export async function claimNextSweeps(workerId: string, limit: number): Promise<
         const token = randomBytes(16).toString("hex");
         await trx.raw(
           `UPDATE sweeps SET status = 'running', lease_token = ?, lease_owner = ?, lease_expires_at = NOW(3) + INTERVAL ? MICROSECOND,
-             heartbeat_at = NOW(3), attempts = attempts + 1, started_at = COALESCE(started_at, NOW(3)), updated_at = NOW()
+             heartbeat_at = NOW(3), attempts = attempts + 1, started_at = COALESCE(started_at, NOW(3)), claimed_at = NOW(3), updated_at = NOW()
            WHERE id = ?`,
           [token, workerId.slice(0, 100), leaseMs * 1000, id],
         );
@@ -231,6 +235,94 @@ export async function claimNextSweeps(workerId: string, limit: number): Promise<
   );
   ended.forEach(emitEnded);
   return claims;
+}
+
+const CLAIM_COLUMNS = "id, team_id, owner_id, attempts, max_attempts, cancel_requested, lease_owner, problem";
+
+/**
+ * Up to n queued sweeps, locked, in fair order: round-robin over the teams with work waiting,
+ * the team served least recently first (never served before all others); inside a team, the
+ * owner served least recently; for that owner, their oldest sweep. "Served" is the latest
+ * claimed_at of the team's (owner's) sweeps, so a team that just had a sweep claimed goes to the
+ * back of the line, whatever it queued and whenever.
+ *
+ * Two steps so the locks stay on the rows claimed: a plain read of each team/owner's oldest
+ * queued sweeps with their served times, the order worked out here, then FOR UPDATE SKIP LOCKED
+ * on those ids only, as many as still needed at a time (a filesort under FOR UPDATE would lock
+ * every queued row and make competing workers skip them all). A row another worker holds is
+ * skipped; the next in order follows.
+ */
+async function fairQueued(trx: Knex.Transaction, n: number): Promise<ClaimRow[]> {
+  if (n <= 0) return [];
+  const [rows] = (await trx.raw(
+    `SELECT q.id, q.team_id, q.owner_id,
+            (SELECT MAX(t.claimed_at) FROM sweeps t WHERE t.team_id = q.team_id) AS team_served,
+            (SELECT MAX(o.claimed_at) FROM sweeps o WHERE o.owner_id = q.owner_id) AS owner_served
+       FROM (SELECT id, team_id, owner_id, ROW_NUMBER() OVER (PARTITION BY team_id, owner_id ORDER BY id) AS k
+               FROM sweeps WHERE status = 'queued') q
+      WHERE q.k <= ?`,
+    [2 * n],
+  )) as [{ id: number; team_id: number; owner_id: number; team_served: Date | null; owner_served: Date | null }[]];
+  if (rows.length === 0) return [];
+  const order = fairOrder(
+    rows.map((r) => ({ id: Number(r.id), team: r.team_id, owner: r.owner_id, teamServed: r.team_served ? new Date(r.team_served).getTime() : -Infinity, ownerServed: r.owner_served ? new Date(r.owner_served).getTime() : -Infinity })),
+    2 * n,
+  );
+  // Lock no more than still needed at each step: a locked row this claim does not take would stay
+  // locked until the commit, and a competing worker would skip it for nothing.
+  const out: ClaimRow[] = [];
+  for (let at = 0; out.length < n && at < order.length; ) {
+    const ids = order.slice(at, at + (n - out.length));
+    at += ids.length;
+    const [locked] = (await trx.raw(`SELECT ${CLAIM_COLUMNS} FROM sweeps WHERE id IN (${ids.map(() => "?").join(",")}) AND status = 'queued' FOR UPDATE SKIP LOCKED`, ids)) as [ClaimRow[]];
+    const byId = new Map(locked.map((r) => [Number(r.id), r]));
+    for (const id of ids) if (byId.has(id)) out.push(byId.get(id)!);
+  }
+  return out;
+}
+
+export interface FairCandidate {
+  id: number;
+  team: number;
+  owner: number;
+  /** when the team / owner was last served (ms; −Infinity: never) */
+  teamServed: number;
+  ownerServed: number;
+}
+
+/** The round-robin order of fairQueued, worked out on plain values (exported for its unit test). */
+export function fairOrder(list: FairCandidate[], n: number): number[] {
+  const teamServed = new Map<number, number>(),
+    ownerServed = new Map<number, number>();
+  const waiting = new Map<number, Map<number, number[]>>(); // team → owner → ids, oldest first
+  for (const c of [...list].sort((a, b) => a.id - b.id)) {
+    teamServed.set(c.team, c.teamServed);
+    ownerServed.set(c.owner, c.ownerServed);
+    const owners = waiting.get(c.team) ?? new Map<number, number[]>();
+    waiting.set(c.team, owners);
+    owners.set(c.owner, [...(owners.get(c.owner) ?? []), c.id]);
+  }
+  const out: number[] = [];
+  // a logical clock past every real time: each pick serves its team and owner "now"
+  let now = Math.max(0, ...[...teamServed.values(), ...ownerServed.values()].filter(Number.isFinite)) + 1;
+  const oldest = (owners: Map<number, number[]>) => Math.min(...[...owners.values()].map((ids) => ids[0]));
+  while (out.length < n && waiting.size > 0) {
+    let team = -1;
+    for (const [t, owners] of waiting)
+      if (team < 0 || teamServed.get(t)! < teamServed.get(team)! || (teamServed.get(t) === teamServed.get(team) && oldest(owners) < oldest(waiting.get(team)!))) team = t;
+    const owners = waiting.get(team)!;
+    let owner = -1;
+    for (const [o, ids] of owners)
+      if (owner < 0 || ownerServed.get(o)! < ownerServed.get(owner)! || (ownerServed.get(o) === ownerServed.get(owner) && ids[0] < owners.get(owner)![0])) owner = o;
+    const ids = owners.get(owner)!;
+    out.push(ids.shift()!);
+    if (ids.length === 0) owners.delete(owner);
+    if (owners.size === 0) waiting.delete(team);
+    teamServed.set(team, now);
+    ownerServed.set(owner, now);
+    now++;
+  }
+  return out;
 }
 
 interface ClaimRow {
@@ -258,11 +350,11 @@ function endColumns(trx: Knex | Knex.Transaction, status: SweepStatus, extra: Re
 // ───────────────────────────── while running ─────────────────────────────
 
 /** Extends the lease and records progress; false when the lease is no longer this claim's. */
-export async function heartbeat(claim: Pick<Claim, "id" | "token">, progress?: { done: number; total: number }): Promise<boolean> {
+export async function heartbeat(claim: Pick<Claim, "id" | "token">, progress?: { done: number; total: number; unit?: ProgressUnit }): Promise<boolean> {
   const { leaseMs } = queueSettings();
-  const sets = progress ? ", progress_done = ?, progress_total = ?" : "";
-  const params: (string | number)[] = [leaseMs * 1000];
-  if (progress) params.push(Math.max(0, Math.round(progress.done)), Math.max(0, Math.round(progress.total)));
+  const sets = progress ? ", progress_done = ?, progress_total = ?, progress_unit = ?" : "";
+  const params: (string | number | null)[] = [leaseMs * 1000];
+  if (progress) params.push(Math.max(0, Math.round(progress.done)), Math.max(0, Math.round(progress.total)), progress.unit ?? null);
   params.push(claim.id, claim.token);
   const [res] = await db.raw(
     `UPDATE sweeps SET lease_expires_at = NOW(3) + INTERVAL ? MICROSECOND, heartbeat_at = NOW(3)${sets}
@@ -349,9 +441,21 @@ export function candidatesToStore(result: SearchResult, objective: "mass" | "cos
  */
 const FINAL_WRITE = { isolationLevel: "read committed" } as const;
 
-/** Writes results and "succeeded" in one transaction if the claim still holds the lease; false if lost. */
-export async function finishSweep(claim: Claim, result: SweepResult & { advice?: WhatItWouldTake | null }): Promise<boolean> {
+/**
+ * Writes results and the final status in one transaction if the claim still holds the lease;
+ * false if lost. The status is "succeeded", or "timed_out" when the search stopped at the time
+ * budget (result.stoppedEarly; budgetMs says how long that was): its best is kept but never
+ * called the lightest, and its reason carries advice that narrows the grid.
+ */
+export async function finishSweep(
+  claim: Claim,
+  result: SweepResult & { advice?: WhatItWouldTake | null },
+  budgetMs = 0,
+  progress?: { done: number; total: number; unit?: ProgressUnit },
+): Promise<boolean> {
   const rows = candidatesToStore(result, claim.problem.objective);
+  const timedOut = result.stoppedEarly === true;
+  const reason = timedOut ? timedOutReason(claim.problem, result.best, budgetMs) : (result.reason ?? null);
   const notice = await db.transaction(async (trx) => {
     const held = await lockHeld(trx, claim);
     if (!held) return null;
@@ -359,28 +463,38 @@ export async function finishSweep(claim: Claim, result: SweepResult & { advice?:
     for (let i = 0; i < rows.length; i += 500)
       await trx("candidates").insert(rows.slice(i, i + 500).map((r) => ({ ...r, sweep_id: claim.id, attempt: claim.attempt })));
     const b = result.best;
-    const summary = b
-      ? `Best: ${b.family} ${Object.entries(b.dimensions)
+    const words = b
+      ? `${b.family} ${Object.entries(b.dimensions)
           .map(([k, v]) => `${k} ${v}`)
           .join(", ")} mm, ${b.massPerMetre.toFixed(1)} kg/m, utilisation ${b.utilisation.toFixed(3)} (${b.governing}).`
-      : `No feasible section: ${result.reason ?? "every candidate failed a check"}`;
+      : null;
+    const summary = timedOut
+      ? `${words ? `Best found so far (not proven lightest): ${words} ` : ""}${reason}`
+      : words
+        ? `Best: ${words}`
+        : `No feasible section: ${result.reason ?? "every candidate failed a check"}`;
     await trx("sweeps")
       .where({ id: claim.id })
       .update(
-        endColumns(trx, "succeeded", {
+        endColumns(trx, timedOut ? "timed_out" : "succeeded", {
           counts: JSON.stringify(result.counts),
           best: result.best ? JSON.stringify(result.best) : null,
-          reason: result.reason ?? null,
+          reason,
           restraint_study: result.restraintStudy ? JSON.stringify(result.restraintStudy) : null,
           advice: result.advice ? JSON.stringify(result.advice) : null,
-          progress_done: trx.raw("GREATEST(progress_total, 1)"),
-          progress_total: trx.raw("GREATEST(progress_total, 1)"),
+          // the search's last report (a short sweep ends before any heartbeat wrote one); a stopped
+          // search did not finish its families, so its progress stays where it stopped
+          ...(progress
+            ? { progress_done: timedOut ? progress.done : progress.total, progress_total: progress.total, progress_unit: progress.unit ?? null }
+            : timedOut
+              ? {}
+              : { progress_done: trx.raw("GREATEST(progress_total, 1)"), progress_total: trx.raw("GREATEST(progress_total, 1)") }),
           finished_by: claim.workerId.slice(0, 100),
           finished_attempt: claim.attempt,
           error: null,
         }),
       );
-    const n: EndedNotice = { id: claim.id, teamId: held.team_id, ownerId: held.owner_id, status: "succeeded", summary };
+    const n: EndedNotice = { id: claim.id, teamId: held.team_id, ownerId: held.owner_id, status: timedOut ? "timed_out" : "succeeded", summary };
     await announceEnd(n, trx);
     return n;
   }, FINAL_WRITE);
@@ -440,6 +554,7 @@ const STATUS_WORDS: Record<SweepStatus, string> = {
   succeeded: "finished",
   failed: "failed",
   cancelled: "was cancelled",
+  timed_out: "stopped at its time budget",
 };
 
 function sweepLink(id: number): string {
@@ -488,7 +603,13 @@ export interface SweepView {
   ownerId: number;
   status: SweepStatus;
   cancelRequested: boolean;
-  progress: { done: number; total: number; fraction: number };
+  /** done of total, and what they count, in words ("shapes settled …"); null before the search reports */
+  progress: { done: number; total: number; fraction: number; counts: string | null };
+  /**
+   * false when the sweep stopped at its time budget (timed_out): `best` is then the lightest
+   * found so far, not proven lightest; true when the whole grid was searched; null before it ends.
+   */
+  provenLightest: boolean | null;
   counts: SearchResult["counts"] | null;
   best: SearchCandidate | null;
   /** EN 1993 sweeps with a restraint length: the lightest section at L … L/6 */
@@ -511,6 +632,10 @@ export interface SweepView {
   advice: WhatItWouldTake | null;
 }
 
+const PROGRESS_WORDS: Record<ProgressUnit, string> = {
+  shapes: "shapes settled (evaluated, or proven unable to change the answer)",
+};
+
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d ? new Date(String(d)).toISOString() : null);
 
 /** The sweep as the API and pages show it, or null when it does not exist. */
@@ -522,7 +647,7 @@ export async function getSweep(id: number): Promise<SweepView | null> {
   if (!row) return null;
   const done = Number(row.progress_done),
     total = Number(row.progress_total);
-  const fraction = row.status === "succeeded" ? 1 : total > 0 ? Math.min(1, done / total) : 0;
+  const fraction = WITH_RESULTS.has(row.status) ? 1 : total > 0 ? Math.min(1, done / total) : 0;
   const elapsedMs = row.elapsed_ms === null || row.elapsed_ms === undefined ? null : Number(row.elapsed_ms);
   const etaMs = row.status === "running" && elapsedMs !== null && fraction > 0 && fraction < 1 ? Math.round((elapsedMs * (1 - fraction)) / fraction) : null;
   return {
@@ -534,7 +659,8 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     ownerId: row.owner_id,
     status: row.status,
     cancelRequested: !!row.cancel_requested,
-    progress: { done, total, fraction },
+    progress: { done, total, fraction, counts: PROGRESS_WORDS[row.progress_unit as ProgressUnit] ?? null },
+    provenLightest: row.status === "succeeded" ? true : row.status === "timed_out" ? false : null,
     counts: row.counts ? parseJson(row.counts) : null,
     best: row.best ? parseJson(row.best) : null,
     restraintStudy: row.restraint_study ? parseJson(row.restraint_study) : null,
@@ -559,7 +685,22 @@ export async function getTeamSweep(id: number, actor: Pick<SweepActor, "teamId">
   return s && s.teamId === actor.teamId ? s : null;
 }
 
-export const CANDIDATE_SORTS = ["rank", "area", "-area", "mass", "-mass", "utilisation", "-utilisation", "cost", "-cost"] as const;
+export const CANDIDATE_SORTS = [
+  "rank",
+  "-rank",
+  "area",
+  "-area",
+  "mass",
+  "-mass",
+  "utilisation",
+  "-utilisation",
+  "cost",
+  "-cost",
+  "family",
+  "-family",
+  "governing",
+  "-governing",
+] as const;
 export const candidatesQuerySchema = z
   .object({
     page: z.coerce.number({ error: "page must be a whole number ≥ 1" }).int({ message: "page must be a whole number ≥ 1" }).min(1, { message: "page must be a whole number ≥ 1" }).max(100_000).default(1),
@@ -599,7 +740,7 @@ export async function listCandidates(
   if (q.frontOnly) base.andWhere({ on_front: true });
   const [{ n }] = await base.clone().count({ n: "*" });
   const desc = sort.startsWith("-");
-  const col = { rank: "rank", area: "area", mass: "mass_per_metre", utilisation: "utilisation", cost: "cost" }[sort.replace(/^-/, "") as "rank"];
+  const col = { rank: "rank", area: "area", mass: "mass_per_metre", utilisation: "utilisation", cost: "cost", family: "family", governing: "governing" }[sort.replace(/^-/, "") as "rank"];
   const rows = await base
     .clone()
     .orderBy([
@@ -687,7 +828,7 @@ export interface QueueHealth {
  * the whole server's queue length and oldest wait told one team how busy the others were).
  */
 export async function queueHealth(teamId: number): Promise<QueueHealth> {
-  const byStatus: Record<SweepStatus, number> = { queued: 0, running: 0, succeeded: 0, failed: 0, cancelled: 0 };
+  const byStatus: Record<SweepStatus, number> = { queued: 0, running: 0, succeeded: 0, failed: 0, cancelled: 0, timed_out: 0 };
   for (const r of await db("sweeps").where({ team_id: teamId }).groupBy("status").select("status", db.raw("COUNT(*) AS n"))) byStatus[r.status as SweepStatus] = Number(r.n);
   const [[q]] = await db.raw(`SELECT TIMESTAMPDIFF(MICROSECOND, MIN(queued_at), NOW(3)) DIV 1000 AS oldest FROM sweeps WHERE status = 'queued' AND team_id = ?`, [teamId]);
   const [[w]] = await db.raw(

@@ -30,12 +30,10 @@ import {
   releaseSweep,
   type Claim,
 } from "./queue.server";
-import { runSweepSearch } from "./sweep-search.server";
+import { runSweepSearch, type ProgressUnit, type SweepSearchOptions } from "./sweep-search.server";
+import { sweepTimeBudgetMs } from "./sweep-budget";
 
-export type SearchFn = (
-  problem: SearchProblem,
-  opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
-) => Promise<SearchResult>;
+export type SearchFn = (problem: SearchProblem, opts: SweepSearchOptions) => Promise<SearchResult>;
 
 export interface RunnerOptions {
   workerId?: string;
@@ -55,12 +53,12 @@ const PROGRESS_WRITE_MS = 1_000;
 interface Running {
   claim: Claim;
   ac: AbortController;
-  progress: { done: number; total: number } | undefined;
+  progress: { done: number; total: number; unit?: ProgressUnit } | undefined;
   lastBeat: number;
   /** local time of the last heartbeat the database confirmed */
   lastHeld: number;
   /** the progress last sent to the database */
-  written?: { done: number; total: number };
+  written?: { done: number; total: number; unit?: ProgressUnit };
   done: Promise<void>;
 }
 
@@ -108,7 +106,7 @@ export class SweepRunner {
   private readonly onEnqueued = () => this.wake?.();
   private readonly onCancel = (id: number) => this.running.get(id)?.ac.abort("cancel" satisfies StopReason);
   /** sweeps this runner finished, by outcome (for tests, benchmarks and logs) */
-  readonly stats = { claimed: 0, succeeded: 0, failed: 0, cancelled: 0, lost: 0, released: 0 };
+  readonly stats = { claimed: 0, succeeded: 0, timedOut: 0, failed: 0, cancelled: 0, lost: 0, released: 0 };
 
   constructor(opts: RunnerOptions = {}) {
     this.workerId = (opts.workerId ?? `${os.hostname()}:${process.pid}:${Math.random().toString(36).slice(2, 8)}`).slice(0, 100);
@@ -216,9 +214,16 @@ export class SweepRunner {
     const { claim, ac } = r;
     const signal = ac.signal;
     let result: SearchResult;
+    // The time budget runs from the start of the search (SWEEP_TIME_BUDGET_S, read per sweep).
+    const budgetMs = sweepTimeBudgetMs();
     try {
       if (this.testDelayMs > 0) await sleep(this.testDelayMs, signal);
-      result = await this.search(claim.problem, { signal, concurrency: this.concurrency, onProgress: (done, total) => (r.progress = { done, total }) });
+      result = await this.search(claim.problem, {
+        signal,
+        concurrency: this.concurrency,
+        deadline: Date.now() + budgetMs,
+        onProgress: (done, total, unit) => (r.progress = { done, total, unit }),
+      });
       signal.throwIfAborted();
     } catch (e) {
       if (signal.aborted) return this.stopped(r, signal.reason as StopReason);
@@ -228,8 +233,9 @@ export class SweepRunner {
       if (ok) this.stats.failed++;
       return;
     }
-    const ok = await this.persist(r, () => finishSweep(claim, result));
-    if (ok) this.stats.succeeded++;
+    const ok = await this.persist(r, () => finishSweep(claim, result, budgetMs, r.progress));
+    if (ok && result.stoppedEarly) this.stats.timedOut++;
+    else if (ok) this.stats.succeeded++;
     else if (ok === false) this.stats.lost++;
   }
 
@@ -297,7 +303,7 @@ export class SweepRunner {
         }
         // Beat when due, and sooner (at most once a second) when the progress moved, so the sweep
         // page's bar follows the search without a write on every control tick.
-        const moved = r.progress !== undefined && (r.progress.done !== r.written?.done || r.progress.total !== r.written?.total);
+        const moved = r.progress !== undefined && (r.progress.done !== r.written?.done || r.progress.total !== r.written?.total || r.progress.unit !== r.written?.unit);
         if (now - r.lastBeat >= heartbeatMs || (moved && now - r.lastBeat >= PROGRESS_WRITE_MS)) {
           r.lastBeat = now;
           r.written = r.progress;

@@ -8,7 +8,8 @@
 // - best: the least of those, ties to the family listed first;
 // - counts: summed (grid is exact; evaluated and feasible are what the threads did);
 // - front: the front of the union of the parts' fronts;
-// - reason (nothing feasible anywhere): the reason of the part with the largest grid.
+// - reason (nothing feasible anywhere): the reason of the part with the largest grid;
+// - stoppedEarly: if any part was stopped (a deadline), the whole is not proven.
 // Abort: the threads are terminated at once (a synchronous search cannot read messages while
 // it runs, so terminating is the prompt way) and the promise rejects with the signal's reason.
 import { availableParallelism } from "node:os";
@@ -23,13 +24,25 @@ import { nodeEndpoint, spawnThread } from "./thread-spawn";
 const WORKER_FLAG = "sparwise-search-thread";
 
 interface ThreadApi {
-  run(problem: SearchProblemInput, range: [number, number], options: Pick<SearchOptions, "exhaustive" | "explore" | "front">, onProgress?: (done: number, total: number) => void): SearchResult;
+  run(
+    problem: SearchProblemInput,
+    range: [number, number],
+    options: Pick<SearchOptions, "exhaustive" | "explore" | "front">,
+    onProgress?: (done: number, total: number) => void,
+    deadline?: number,
+  ): SearchResult;
 }
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
   const api: ThreadApi = {
-    run: (problem, range, options, onProgress) =>
-      searchSections(problem, { ...options, depthIndexRange: range, onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined }),
+    run: (problem, range, options, onProgress, deadline) =>
+      searchSections(problem, {
+        ...options,
+        depthIndexRange: range,
+        onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined,
+        // threads share the process's wall clock, so one deadline serves them all
+        stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline,
+      }),
   };
   Comlink.expose(api, nodeEndpoint(parentPort));
 }
@@ -46,6 +59,8 @@ export interface ThreadSearchOptions {
   front?: SearchOptions["front"];
   /** shapes settled and the grid, summed over the threads (SearchOptions.onProgress) */
   onProgress?: (done: number, total: number) => void;
+  /** Date.now() after which every thread stops and returns what it has (SearchResult.stoppedEarly) */
+  deadline?: number;
 }
 
 const spawn = () => spawnThread(import.meta.url, WORKER_FLAG);
@@ -97,7 +112,10 @@ export function combineResults(problemFamilies: string[], parts: SearchResult[])
     // parts hold disjoint, ascending depth ranges: per family, their context points in part order
     res.context = problemFamilies.flatMap((f) => parts.flatMap((p) => (p.context ?? []).filter((c) => c.family === f)));
   }
-  if (!best) {
+  const stopped = parts.some((p) => p.stoppedEarly);
+  if (stopped) res.stoppedEarly = true;
+  if (!best && stopped) res.reason = parts.find((p) => p.stoppedEarly && p.reason)?.reason ?? "The search was stopped before it found a candidate that passes every check.";
+  else if (!best) {
     const withReason = parts.filter((p) => p.reason).sort((a, b) => b.counts.grid - a.counts.grid);
     res.reason = withReason[0]?.reason ?? "No candidate passes every check.";
     if (counts.grid > 0) res.reason = res.reason.replace(/Of the [\d,]+ shapes in the grid/, `Of the ${counts.grid.toLocaleString("en")} shapes in the grid`);
@@ -140,7 +158,7 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
             report();
           })
         : undefined;
-      return api.run(input, [cuts[i], cuts[i + 1]], { exhaustive: options.exhaustive, explore: options.explore, front: options.front }, cb) as Promise<SearchResult>;
+      return api.run(input, [cuts[i], cuts[i + 1]], { exhaustive: options.exhaustive, explore: options.explore, front: options.front }, cb, options.deadline) as Promise<SearchResult>;
     });
     const parts = await Promise.race([Promise.all(runs), aborted]);
     return combineResults(problem.families, parts);

@@ -13,7 +13,7 @@
 // Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
 // so a runner at full concurrency does not oversubscribe the machine.
 import os from "node:os";
-import { rawGridSize, searchSections, whatItWouldTakeSteps, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
+import { PROGRESS_UNIT, rawGridSize, searchSections, whatItWouldTakeSteps, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
 import { searchInThreads } from "./search-threads";
 import { runRestraintStudy } from "./study-thread";
 import { studyApplies, type SweepResult } from "~/lib/restraint-study";
@@ -25,21 +25,38 @@ export const IN_THREAD_MAX_GRID = 1e6;
 // exact (the engine's contract); only the front and the stored candidates grow.
 export const SWEEP_SEARCH_OPTIONS = { explore: 0.25 } as const;
 
-export async function runSweepSearch(
-  problem: SearchProblem,
-  opts: { signal: AbortSignal; onProgress: (done: number, total: number) => void; concurrency?: number },
-): Promise<AdvisedResult> {
+export interface SweepSearchOptions {
+  signal: AbortSignal;
+  onProgress: (done: number, total: number, unit?: ProgressUnit) => void;
+  concurrency?: number;
+  /** Date.now() at which the search stops and returns its best so far (SearchResult.stoppedEarly) */
+  deadline?: number;
+}
+
+/** What a sweep's progress counts (the engine's PROGRESS_UNIT; the page and the API say it in words). */
+export type ProgressUnit = typeof PROGRESS_UNIT;
+
+export async function runSweepSearch(problem: SearchProblem, opts: SweepSearchOptions): Promise<AdvisedResult> {
   // Let pending timers (a cancel that arrived while the sweep waited for a slot) run first.
   await new Promise((r) => setImmediate(r));
   opts.signal.throwIfAborted();
+  const deadline = opts.deadline;
+  // the threads' shapes add up to the grid's, so the unit is the same either way
+  const onProgress = (d: number, t: number) => opts.onProgress(d, t, PROGRESS_UNIT);
   let result: SweepResult;
-  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) result = searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress: opts.onProgress });
+  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID)
+    result = searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress, stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline });
   else {
     const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
-    result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, onProgress: opts.onProgress });
+    result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, deadline, onProgress });
   }
-  if (studyApplies(problem)) result.restraintStudy = await sweepRestraintStudy(problem, opts.signal);
-  return withAdvice(problem, result, opts.signal);
+  if (studyApplies(problem))
+    // the study belongs to the sweep's time budget too: none once the search used it up
+    result.restraintStudy = result.stoppedEarly
+      ? { lengthM: problem.restraint?.length ?? 0, points: [], elapsedMs: 0, error: "not run: the sweep stopped at its time budget" }
+      : await sweepRestraintStudy(problem, opts.signal, deadline);
+  // a sweep stopped at its budget gets the advice that narrows the grid (sweep-budget.ts), not more searches
+  return result.stoppedEarly ? result : withAdvice(problem, result, opts.signal, deadline);
 }
 
 /**
@@ -47,12 +64,16 @@ export async function runSweepSearch(
  * fails is stored as its error and the sweep still succeeds: its own results do not depend on it.
  * A cancel aborts it like the search.
  */
-export async function sweepRestraintStudy(problem: SearchProblem, signal?: AbortSignal): Promise<SweepResult["restraintStudy"]> {
+export async function sweepRestraintStudy(problem: SearchProblem, signal?: AbortSignal, deadline?: number): Promise<SweepResult["restraintStudy"]> {
+  // past the sweep's deadline the study stops like a cancel, but is stored as its error, not thrown
+  const budget = deadline === undefined ? undefined : AbortSignal.timeout(Math.max(1, deadline - Date.now()));
+  const both = budget && signal ? AbortSignal.any([signal, budget]) : (budget ?? signal);
   try {
-    return await runRestraintStudy(problem, { signal });
+    return await runRestraintStudy(problem, { signal: both });
   } catch (e) {
     if (signal?.aborted) throw e;
-    return { lengthM: problem.restraint?.length ?? 0, points: [], elapsedMs: 0, error: e instanceof Error ? e.message : String(e) };
+    const error = budget?.aborted ? "stopped at the sweep's time budget" : e instanceof Error ? e.message : String(e);
+    return { lengthM: problem.restraint?.length ?? 0, points: [], elapsedMs: 0, error };
   }
 }
 
@@ -69,13 +90,15 @@ export const ADVICE_MAX_GRID = IN_THREAD_MAX_GRID;
  * No feasible section: the engine's whatItWouldTake, driven one search at a time with the event
  * loop let through in between, so the runner's heartbeats and cancel polls keep running.
  */
-export async function withAdvice<R extends SearchResult>(problem: SearchProblem, result: R, signal?: AbortSignal): Promise<AdvisedResult<R>> {
+export async function withAdvice<R extends SearchResult>(problem: SearchProblem, result: R, signal?: AbortSignal, deadline?: number): Promise<AdvisedResult<R>> {
   if (result.best) return result;
   if (rawGridSize(problem) > ADVICE_MAX_GRID) return { ...result, advice: null };
   const steps = whatItWouldTakeSteps(problem, { signal });
   for (;;) {
     await new Promise((r) => setImmediate(r));
     signal?.throwIfAborted();
+    // the advice's searches count against the sweep's time budget too: past it, no advice
+    if (deadline !== undefined && Date.now() >= deadline) return { ...result, advice: null };
     const n = steps.next();
     if (n.done) return { ...result, advice: n.value };
   }

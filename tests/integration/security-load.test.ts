@@ -7,9 +7,16 @@ import { getUser } from "~/lib/auth.server";
 import { createApiToken } from "~/lib/api-tokens.server";
 import * as propertiesApi from "~/routes/api.v1.properties";
 import * as sweepsApi from "~/routes/api.v1.sweeps";
-import { enqueueSweep } from "~/workers/queue.server";
-import { BASE, FixtureContext, callRoute, loadRouteModule, requestAs, tableCounts } from "./fixtures";
-import { tinyProblem } from "./queue-helpers";
+import { TERMINAL, claimNextSweeps, enqueueSweep, getSweep, listCandidates } from "~/workers/queue.server";
+import { SweepRunner } from "~/workers/runner.server";
+import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
+import { searchSections } from "~/optimizer";
+import * as sweepApi from "~/routes/api.v1.sweeps.$id";
+import { BASE, FixtureContext, callRoute, demoUser, loadRouteModule, requestAs, tableCounts } from "./fixtures";
+import { insertBigSweep } from "./big-sweep";
+import { CHART_FRONT_MAX, CHART_OTHERS_MAX, TABLE_PAGE_SIZE } from "~/lib/sweep-page.server";
+import * as candidatesApi from "~/routes/api.v1.sweeps.$id.candidates";
+import { teamAndUser, tinyProblem, waitFor } from "./queue-helpers";
 
 afterAll(() => closeDb());
 
@@ -135,5 +142,170 @@ describe("item 16 (part): the stock-list CSV takes decimal numbers only, and no 
   test("decimals with a point or an exponent are still read", async () => {
     const r = await upload("thickness_mm,price_per_kg\n6,1.10\n.5,1e0\n");
     expect(r.status).toBe(200);
+  });
+});
+
+describe("item 6: one sweep cannot hold every worker", () => {
+  // Each test starts from an empty queue (other files' sweeps are theirs; these are only this file's).
+  beforeEach(async () => {
+    await db("sweeps").whereIn("status", ["queued", "running"]).delete();
+  });
+  afterEach(() => {
+    delete process.env.SWEEP_TIME_BUDGET_S;
+  });
+
+  const FINE = { ...tinyProblem(3), depth: { min: 100, max: 700, step: 1 }, width: { min: 50, max: 400, step: 1 } };
+
+  test("a sweep past its time budget ends timed_out, keeping the best found so far, marked not proven lightest with advice that narrows the grid (was: ran to its end)", async () => {
+    process.env.SWEEP_TIME_BUDGET_S = "30";
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: FINE });
+    let deadline = 0;
+    let familiesDone = 0;
+    const t0 = Date.now();
+    // The engine's own stop, asked after the first family instead of on the clock, so the stop
+    // lands at the same place every time; the runner's deadline is checked separately below.
+    const runner = new SweepRunner({
+      workerId: "budget-runner",
+      concurrency: 1,
+      log: () => {},
+      search: async (problem, opts) => {
+        deadline = opts.deadline ?? 0;
+        return searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, onProgress: (d) => (familiesDone = d), stopWhen: () => familiesDone >= 1 });
+      },
+    }).start();
+    try {
+      await waitFor("the sweep to end", async () => TERMINAL.has((await getSweep(id))!.status));
+    } finally {
+      await runner.stop();
+    }
+    expect(deadline - t0).toBeGreaterThanOrEqual(30_000 - 50);
+    expect(deadline - Date.now()).toBeLessThanOrEqual(30_000);
+    const s = (await getSweep(id))!;
+    expect(s.status).toBe("timed_out");
+    expect(s.provenLightest).toBe(false);
+    expect(s.best).not.toBeNull();
+    expect(s.reason).toMatch(/^Stopped at the time budget \(30 s\) before the search finished: the best candidate shown is the lightest found so far, NOT proven lightest\. Narrow the grid: /);
+    expect((await listCandidates(id)).items[0]!.dimensions).toEqual(s.best!.dimensions);
+    // the API and the page say it too
+    const api = await callRoute(sweepApi.loader, new Request(new URL(`/api/v1/sweeps/${id}`, BASE), { headers: bearer(engineerToken) }), { id: String(id) });
+    expect(api.data).toMatchObject({ status: "timed_out", provenLightest: false, reason: s.reason });
+    const page = await callRoute((await loadRouteModule("routes/sweeps.$sweepId.tsx")).loader, await requestAs("engineer", `/sweeps/${id}`), { sweepId: String(id) });
+    const pageData = page.data as { sweep: { status: string; provenLightest: boolean | null }; chart: { points: unknown[] } };
+    expect(pageData.sweep).toMatchObject({ status: "timed_out", provenLightest: false });
+    expect(pageData.chart.points.length).toBeGreaterThan(0);
+    expect(await db("outbox").where("subject", `Sweep ${id} stopped at its time budget`).count({ n: "*" }).first()).toEqual({ n: 1 });
+  });
+
+  test("the budget reaches the real search: a budget of a millisecond ends the sweep timed_out", async () => {
+    process.env.SWEEP_TIME_BUDGET_S = "0.001";
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: FINE });
+    const runner = new SweepRunner({ workerId: "budget-runner-real", concurrency: 1, log: () => {} }).start();
+    try {
+      await waitFor("the sweep to end", async () => TERMINAL.has((await getSweep(id))!.status));
+    } finally {
+      await runner.stop();
+    }
+    const s = (await getSweep(id))!;
+    expect(s.status).toBe("timed_out");
+    expect(s.reason).toMatch(/^Stopped at the time budget \(0\.001 s\)/);
+  });
+
+  test("claims go round-robin by team, then owner: another team's sweep does not wait behind one team's four (was: first come, first served across the server)", async () => {
+    const a = await teamAndUser("engineer@tallowfield.example");
+    const a2 = await teamAndUser("engineer2@tallowfield.example");
+    const { teamId: otherTeam, adminId } = await ctx.otherTeam();
+    // Team A (and its engineer) served just now; the other team and engineer2 longer ago or never.
+    const warm = (await enqueueSweep({ ...a, problem: tinyProblem(9) })).id;
+    expect((await claimNextSweeps("fair-worker", 1))[0]!.id).toBe(warm);
+    await db("sweeps").where({ id: warm }).delete();
+    await new Promise((r) => setTimeout(r, 5)); // claimed_at has millisecond resolution
+    const ids: Record<string, number> = {};
+    for (let i = 0; i < 4; i++) ids[`a${i}`] = (await enqueueSweep({ ...a, problem: tinyProblem(10 + i) })).id;
+    ids.b = (await enqueueSweep({ teamId: otherTeam, ownerId: adminId, problem: tinyProblem(20) })).id;
+    ids.c = (await enqueueSweep({ ...a2, problem: tinyProblem(21) })).id;
+    const order: number[] = [];
+    for (let i = 0; i < 6; i++) {
+      const [claim] = await claimNextSweeps("fair-worker", 1);
+      order.push(claim!.id);
+      await new Promise((r) => setTimeout(r, 5)); // claimed_at has millisecond resolution
+    }
+    // the other team first (served least recently), then team A's engineer2 (the owner served least
+    // recently), then engineer's four oldest first; first come, first served gave a0, a1, a2, a3, b, c
+    expect(order).toEqual([ids.b, ids.c, ids.a0, ids.a1, ids.a2, ids.a3]);
+    await db("sweeps").whereIn("id", Object.values(ids)).delete();
+  });
+
+  test("a brief whose grid is over the server's limit is refused before it is queued, with the numbers and what to change (was: queued; then it held a worker)", async () => {
+    // mono-i at 1 mm steps with eight thicknesses: 9.4e10 candidates, inside the engine's 1e11 cap
+    const problem = { ...tinyProblem(0), families: ["mono-i"], depth: { min: 100, max: 1000, step: 1 }, width: { min: 50, max: 500, step: 1 }, thicknesses: [6, 8, 10, 12, 15, 20, 25, 30] };
+    const before = await tableCounts();
+    const r = await callRoute(
+      sweepsApi.action,
+      new Request(new URL("/api/v1/sweeps", BASE), { method: "POST", body: JSON.stringify({ problem }), headers: { "Content-Type": "application/json", ...bearer(engineerToken) } }),
+    );
+    expect(r.status).toBe(400);
+    const body = r.data as { error: string; errors: Record<string, string> };
+    expect(body.error).toMatch(/^problem is too large to run: grid: 9\.38e10 candidates, over the 5\.00e10 this server runs in one sweep/);
+    expect(body.errors["problem.grid"]).toMatch(/Narrow the grid: /);
+    expect(await tableCounts()).toEqual(before);
+  });
+
+  test("progress says what it counts (was: bare numbers)", async () => {
+    const u = await teamAndUser();
+    const { id } = await enqueueSweep({ ...u, problem: tinyProblem(5) });
+    const runner = new SweepRunner({ workerId: "progress-words", concurrency: 1, log: () => {} }).start();
+    try {
+      await waitFor("the sweep to end", async () => TERMINAL.has((await getSweep(id))!.status));
+    } finally {
+      await runner.stop();
+    }
+    const s = (await getSweep(id))!;
+    expect(s.status).toBe("succeeded");
+    expect(s.provenLightest).toBe(true);
+    expect(s.progress.counts).toBe("shapes settled (evaluated, or proven unable to change the answer)");
+    expect(s.progress.done).toBe(s.progress.total);
+    expect(s.progress.total).toBe(s.counts!.grid);
+  });
+});
+
+describe("item 8: the sweep page stays small whatever the sweep", () => {
+  test("a 2,000-candidate sweep: the page brings a bounded chart sample and one table page, not every candidate (was: all 2,000, a 1.5 MB page)", async () => {
+    const engineer = await demoUser("engineer");
+    const id = await insertBigSweep(db, { teamId: engineer.teamId, ownerId: engineer.id, candidates: 2_000 });
+    const mod = await loadRouteModule("routes/sweeps.$sweepId.tsx");
+    const page = await callRoute(mod.loader, await requestAs("engineer", `/sweeps/${id}`), { sweepId: String(id) });
+    expect(page.status).toBe(200);
+    const data = page.data as { chart: { points: { rank: number; onFront: boolean }[]; stored: number; front: number }; table: { items: unknown[]; total: number }; families: string[] };
+    // what the document carries besides its markup; the bench measures the whole document (< 200 kB)
+    expect(JSON.stringify(data).length).toBeLessThan(100_000);
+    expect(data.chart.stored).toBe(2_000);
+    expect(data.chart.front).toBe(1_992);
+    expect(data.chart.points.length).toBeLessThanOrEqual(CHART_FRONT_MAX + CHART_OTHERS_MAX);
+    const ranks = data.chart.points.map((p) => p.rank);
+    expect(ranks[0]).toBe(1);
+    expect(ranks).toContain(1_992); // the front's heaviest end
+    expect(ranks).toContain(2_000); // family bests off the front
+    expect(data.table.items).toHaveLength(TABLE_PAGE_SIZE);
+    expect(data.table.total).toBe(2_000);
+    expect(data.families).toEqual(["box", "channel", "i", "tee"].filter((f) => data.families.includes(f)));
+  });
+
+  test("the table's pages, sorts and filters come from the API, sorted on the server by any column (was: family and governing could not be sorted there)", async () => {
+    const engineer = await demoUser("engineer");
+    const id = await insertBigSweep(db, { teamId: engineer.teamId, ownerId: engineer.id, candidates: 300 });
+    const get = async (q: string) =>
+      callRoute(candidatesApi.loader, await requestAs("engineer", `/api/v1/sweeps/${id}/candidates?${q}`), { id: String(id) });
+    const byFamily = await get("sort=-family&pageSize=500");
+    expect(byFamily.status).toBe(200);
+    const fams = (byFamily.data as { items: { family: string }[] }).items.map((c) => c.family);
+    expect(fams).toEqual([...fams].sort().reverse());
+    const page3 = await get("page=3&pageSize=50&sort=-mass&frontOnly=true");
+    const p3 = page3.data as { total: number; items: { rank: number; onFront: boolean }[] };
+    expect(p3.total).toBe(292);
+    expect(p3.items.every((c) => c.onFront)).toBe(true);
+    // heaviest first: page 3 holds ranks 192 down to 143
+    expect(p3.items.map((c) => c.rank)).toEqual(Array.from({ length: 50 }, (_, i) => 192 - i));
   });
 });

@@ -1,0 +1,39 @@
+// stopWhen (issue 9, item 6: a sweep's time budget): the search stops where asked and returns the
+// best found so far, marked stoppedEarly; asked never, it is the ordinary exact search.
+import { describe, expect, it } from "vitest";
+import { CONTRACT_EXAMPLE_PROBLEM, searchSections, type SearchProblemInput } from "~/optimizer";
+
+// Fine steps so each family takes many thousand heap steps (the stop is asked every 4096).
+const FINE: SearchProblemInput = { ...CONTRACT_EXAMPLE_PROBLEM, depth: { min: 100, max: 600, step: 1 }, width: { min: 50, max: 400, step: 1 } };
+
+describe("searchSections with stopWhen", () => {
+  it("never asked to stop: the same answer as without it, not marked", () => {
+    const plain = searchSections(CONTRACT_EXAMPLE_PROBLEM);
+    const r = searchSections(CONTRACT_EXAMPLE_PROBLEM, { stopWhen: () => false });
+    expect(r).toEqual(plain);
+    expect(r.stoppedEarly).toBeUndefined();
+  });
+
+  it("stopped at once: nothing searched, marked, and a reason that says the grid was not searched", () => {
+    const r = searchSections(FINE, { stopWhen: () => true });
+    expect(r.stoppedEarly).toBe(true);
+    expect(r.best).toBeNull();
+    expect(r.counts.evaluated).toBe(0);
+    expect(r.reason).toMatch(/stopped before it found/);
+  });
+
+  it("stopped part way: the best so far is a feasible candidate no lighter than the proven best, and families not reached are null", () => {
+    const exact = searchSections(FINE);
+    let asked = 0;
+    // the first family runs to its end (asked before it, then on its heap steps); the stop comes inside the second
+    const r = searchSections(FINE, { stopWhen: () => ++asked > 3 });
+    expect(r.stoppedEarly).toBe(true);
+    expect(asked).toBeGreaterThan(3);
+    const fam = FINE.families;
+    expect(r.bestByFamily[fam[fam.length - 1]!]).toBeNull();
+    expect(r.best).not.toBeNull();
+    expect(r.best!.utilisation).toBeLessThanOrEqual(1);
+    expect(r.best!.area).toBeGreaterThanOrEqual(exact.best!.area * (1 - 1e-12));
+    expect(r.counts.evaluated).toBeLessThan(exact.counts.evaluated);
+  });
+});
