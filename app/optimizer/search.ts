@@ -1119,7 +1119,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
     fs.seeds = new Heap();
   }
   let steps = 0;
-  while (h.size > 0) {
+  while (h.size > 0 && !(steps === 0 && t.shouldStop())) {
     if (++steps % ABORT_EVERY === 0) {
       checkAbort(options.signal);
       report();

@@ -4,6 +4,8 @@ import { describe, expect, it } from "vitest";
 import { CONTRACT_EXAMPLE_PROBLEM, searchSections, type SearchProblemInput } from "~/optimizer";
 
 // Fine steps so each family takes many thousand heap steps (the stop is asked every 4096).
+// the options sweeps run with (sweep-search.server.ts): family by family, front over what was evaluated
+const SWEEP = { explore: 0.25 };
 const FINE: SearchProblemInput = { ...CONTRACT_EXAMPLE_PROBLEM, depth: { min: 100, max: 600, step: 1 }, width: { min: 50, max: 400, step: 1 } };
 
 describe("searchSections with stopWhen", () => {
@@ -14,21 +16,25 @@ describe("searchSections with stopWhen", () => {
     expect(r.stoppedEarly).toBeUndefined();
   });
 
-  it("stopped at once: nothing searched, marked, and a reason that says the grid was not searched", () => {
-    const r = searchSections(FINE, { stopWhen: () => true });
-    expect(r.stoppedEarly).toBe(true);
-    expect(r.best).toBeNull();
-    expect(r.counts.evaluated).toBe(0);
-    expect(r.reason).toMatch(/stopped before it found/);
-  });
+  for (const mode of [{}, SWEEP]) {
+    it(`stopped at once (${mode === SWEEP ? "the sweeps' evaluated front" : "the grid front"}): nothing evaluated, marked, no grid front claimed, and a reason that says the grid was not searched`, () => {
+      const r = searchSections(FINE, { ...mode, stopWhen: () => true });
+      expect(r.stoppedEarly).toBe(true);
+      expect(r.best).toBeNull();
+      expect(r.counts.evaluated).toBe(0);
+      expect(r.frontScope).toBe("evaluated");
+      expect(r.context).toBeUndefined();
+      expect(r.reason).toMatch(/stopped before it found/);
+    });
+  }
 
   it("stopped part way: the best so far is a feasible candidate no lighter than the proven best, and families not reached are null", () => {
     const exact = searchSections(FINE);
     let asked = 0;
-    // the first family runs to its end (asked before it, then on its heap steps); the stop comes inside the second
-    const r = searchSections(FINE, { stopWhen: () => ++asked > 3 });
+    // Asked before the first family, then every 4096 heap steps and before each next family: the
+    // second ask stops it inside or right after the first family (deterministic: no clock).
+    const r = searchSections(FINE, { ...SWEEP, stopWhen: () => ++asked > 1 });
     expect(r.stoppedEarly).toBe(true);
-    expect(asked).toBeGreaterThan(3);
     const fam = FINE.families;
     expect(r.bestByFamily[fam[fam.length - 1]!]).toBeNull();
     expect(r.best).not.toBeNull();
