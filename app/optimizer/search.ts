@@ -41,6 +41,59 @@
 //   distance bounded over the box; popping a wide node halves its bt range (branching),
 //   a narrow one spawns one row per bt.
 //
+// (E) Under basis "en1993" (member-checks.md §2) there are no allowable stresses: the context
+//   holds Infinity for them, so (2) is vacuous, and (5), (7) are skipped; (1), (3), (4), (6)
+//   stand. Every EN 1993 check is one more necessary condition; the search uses these:
+//   (E1) Bending: M ≤ Mc,Rd = W·fy/γM0, and with LTB M ≤ Mb,Rd = χLT·W·fy/γM1 ≤ W·fy/γM1;
+//       MV,Rd ≤ Mc,Rd. W ≤ Zz in every class (class 3's Wel,min: the elastic stresses are a
+//       field within ±fy with no axial force, and Zz·fy is the most any such field carries, the
+//       lower-bound theorem). fy is the thickest plate's band, fixed along a row (the
+//       rectangle's smaller side varies with b: the largest fy of the bands it passes through).
+//       So Zz ≥ M·max(γM0, γM1)/fy. Zz = min over a of ∫|y − a| dA (the derivative in a is
+//       A_below − A_above, zero at the equal-area axis), so Zz never falls as material is added
+//       (the integral grows for every a), and ∫|y − a| dA for a fixed a is affine in the free
+//       width (each plate's heights are fixed: width × a fixed ∫|y − a| dy) and ≥ Zz: the
+//       closed-form least width of (4), with a at the point's equal-area axis in rowStart, at
+//       mid-depth in the raw key, and mono-i's knapsack of (4) on it; the mono-i seed key uses
+//       ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4.
+//   (E2) LTB (restraint given), for each moment sign with M > 0: M ≤ Mb = B(W·fy, Mcr)/γM1,
+//       B(Mpl, Mcr) = χLT(√(Mpl/Mcr))·Mpl. B is non-decreasing in Mpl and in Mcr, and
+//       non-increasing in αLT. With Φ = (1 + α(λ − 0.2) + λ²)/2, R = √(Φ² − λ²) and λ ≥ 0.2:
+//       χ = 1/(Φ + R) and ψ = χ·λ² = Φ − R are the smaller roots of λ²x² − 2Φx + 1 and
+//       y² − 2Φy + λ² (B = χ·Mpl = ψ·Mcr). (a) d(Φ + R)/dλ = (Φ′(Φ + R) − λ)/R ≥ 0, as
+//       Φ′ = λ + α/2 ≥ λ and Φ + R = 1/χ ≥ 1 (χ ≤ 1: the first polynomial at 1 is −α(λ − 0.2)
+//       ≤ 0), so χ does not rise with λ: B does not fall as Mcr rises. (b) dψ/dλ = (λ − Φ′ψ)/R
+//       ≥ 0 iff ψ ≤ s = 2λ/(2λ + α); the second polynomial at s is α·s·(0.4λ − λ² − s)/(2λ)
+//       ≤ 0 (λ² + s ≥ 0.4λ for λ ≥ 0.2 and α ≤ 9.6), so s lies between its roots and ψ ≤ s:
+//       B does not fall as Mpl rises. (c) Below λ = 0.2, χ = 1 and ψ = λ², continuous at 0.2.
+//       (d) A larger α raises Φ, hence Φ + R, lowering χ. Then Mcr = C1·(√(P·U + P²t²) − P·t)
+//       with P = π²E·Iy/L², U = π²E·Cw/L² + G·J, t = C2·zg − C3·zj (en1993.ts criticalMoment)
+//       is non-decreasing in P and U and falls as t rises (∂/∂t = P²t/√(…) − P < 0). Iy grows
+//       with every width (parallel axes, as (1)); Cw and J grow with each width in
+//       stability.ts's closed forms (i tf·b³·h0²/24; mono-i h0²·It·Ib/(It + Ib), rising in It
+//       and Ib; channel: d ln Cw/db′ ≥ 2/b′; open J = Σ long·short³/3 rising with the free
+//       plate; the box's Bredt 4A²/∮ds/t rising in b − tw; the rectangle's approximation rising
+//       in either side); curve c (the smaller α) holds once d/b_narrow ≤ 2. So over a range of
+//       widths Mb ≤ B with Zz, Iy, Cw, J and the curve at the widest point, fy at its bound
+//       and t at its least. i, channel, box, rectangle: betaX = 0 and the shear centre at
+//       mid-depth, so t is fixed along a row; tee, mono-i: zg and betaX by interval arithmetic
+//       (enTRange; the centroid and the shear centre move monotonically with each width). The
+//       range bound grows with the range, so "every point of [k, m] fails" is monotone in m:
+//       bisection (rows), and per width for mono-i boxes.
+//   (E3) After a failed evaluation, the rest of the row is dropped when the cause cannot
+//       improve as the free width grows (enFailEndsRow): shear (VRd depends on the row's fixed
+//       plates only; not the rectangle), class 4 of a flange (c/t grows with its width, the
+//       limit is the row's), a web or stem (fixed), or mono-i's web under sagging (ψ =
+//       −(ȳ − y_web,bottom)/(y_web,top − ȳ) rises as bb widens and ȳ falls, and the class-3
+//       limit, 42ε/(0.67 + 0.33ψ) or 62ε(1 − ψ)√(−ψ), does not rise with ψ).
+//   (E4) Every welded point's throat is at least 3 mm against at most 0.7 × (the web; for i,
+//       channel, tee, box the thinner of flange and web), fixed along the row.
+//   Classification makes feasibility non-monotone along a row (a wider flange can turn class 3
+//   or 4), so nothing above assumes monotone feasibility: points are only ever excluded by
+//   these necessary conditions, and the row's first feasible point is still its lightest.
+// - Best mode also cuts each row, and each mono-i box, to the points no heavier than the
+//   incumbent (the objective is affine in each width) before bounding them.
+//
 // (D) The grid's front and the context points (front "grid", the default). One heap holds
 //   every family, so entries pop lightest first across families. An entry (a raw row, a row
 //   tail, a mono-i node) with key o, a lower bound on the objective of its points, is needed:
@@ -55,10 +108,10 @@
 //     bound (1)–(7) is "demand ≤ capacity" for a demand that is one term of u's maximum, and
 //     u ≤ cap implies that demand ≤ cap × capacity: run with the allowables and slenderness
 //     limits scaled by cap (the required I divided by cap) each bound excludes only points
-//     that cannot reach u ≤ cap. So the entry is re-bounded at cap when it pops: a row tail
-//     whose first point cannot reach cap is re-queued at its first point that can, a mono-i
-//     node whose bound rose (by more than REKEY) is re-queued at it, anything else is expanded
-//     or its point evaluated. What is dropped stays beaten: dominance is transitive (strictly
+//     that cannot reach u ≤ cap ((E1), (E2), (E4) likewise divide the demand by cap). So the
+//     entry is re-bounded at cap when it pops: a row tail whose first point cannot reach cap
+//     is re-queued at its first point that can, a mono-i node whose bound rose (by more than
+//     REKEY) is re-queued at it, anything else is expanded or its point evaluated. What is dropped stays beaten: dominance is transitive (strictly
 //     lighter and strictly lower twice over), and only evaluated candidates enter the front.
 //   A feasible point does not end its row here: heavier points may reach lower utilisation.
 //   The heap empties, so every grid point is evaluated or proven off the front and heavier
@@ -89,13 +142,18 @@ import type { FamilyKernel } from "./family-kernel";
 import type { RawCandidate } from "./front";
 import { ABORT_EVERY, Tally, buildResult, checkAbort, offerFeasible, prepare, type PreparedFamily, type SearchOptions, type SearchResult } from "./grid";
 import { searchProblemSchema, type SearchProblemInput } from "./search-schema";
+import * as en1993 from "./basis/en1993";
+import type { En1993Context, En1993Scratch } from "./basis/en1993";
+import * as stability from "./stability";
 
 export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 
 // Local copies of imported bindings: module transforms (tsx, vite-node) turn each access to an
 // imported name into a getter call, which costs more than the arithmetic in these loops.
-const { compositeKernel, plateQAbove, plateWidthAt, K_CY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
-const { C_COMP, C_DEFL, C_SHEAR, C_TENS } = fkm;
+const { compositeKernel, plateQAbove, plateWidthAt, plateNeutralAxis, plateModulusAbout, K_AREA, K_CY, K_IY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
+const { C_BEND, C_CLASS4, C_COMP, C_DEFL, C_LTB, C_SHEAR, C_TENS, C_VB, C_VPL, C_WELD } = fkm;
+const { chiLT, criticalMoment, fyFor, loadHeight, ltbCurveC, ALPHA_LT_C, ALPHA_LT_D, EL_WEB, MIN_WELD_THROAT } = en1993;
+const { stabilityKernel, ST_BETA, ST_CW, ST_J, ST_OUT, ST_SCY } = stability;
 const evaluate = evaluateCandidate,
   objectiveOf = plateObjective;
 
@@ -221,6 +279,18 @@ function iAbout(p: Float64Array, n: number, y0: number): number {
   return s;
 }
 
+/** (E1) The largest fy of the bands holding some thickness in [t1, t2] (fyFor's bands: (previous, maxThickness]). */
+function fyMaxOver(e: En1993Context, t1: number, t2: number): number {
+  let m = -Infinity,
+    prev = -Infinity;
+  for (let i = 0; i < e.bandT.length; i++) {
+    const hi = e.bandT[i];
+    if (hi >= t1 && prev < t2 && e.bandFy[i] > m) m = e.bandFy[i];
+    prev = hi;
+  }
+  return m;
+}
+
 /** First index k with a[k] > x (a ascending). */
 function firstAbove(a: Float64Array, x: number): number {
   let lo = 0,
@@ -274,6 +344,18 @@ class FamilySearch {
   cause = C_TENS;
   slR1 = new Float64Array(8);
   slR2 = new Float64Array(8);
+  // ---- EN 1993 (E): null under the allowable basis
+  readonly en: En1993Context | null;
+  /** indices in v of the family's plate thicknesses (its fy band is the thickest's); empty for the rectangle */
+  readonly enT: number[];
+  /** the bending-type requirement's factor: Zz ≥ M·γ/fy with γ = γM0, or γM1 when LTB is checked and larger (E1) */
+  readonly enGamma: number;
+  readonly mMax: number;
+  readonly st = new Float64Array(ST_OUT);
+  /** interval bound scratch (E2): plates at the low and high corners of a range of widths */
+  readonly pLo = new Float64Array(8 * PLATE_STRIDE);
+  readonly pHi = new Float64Array(8 * PLATE_STRIDE);
+  readonly rng = new Float64Array(8);
 
   constructor(
     readonly pf: PreparedFamily,
@@ -296,6 +378,10 @@ class FamilySearch {
     this.sumAllow = ctx.aC + ctx.aT;
     this.minAllow = Math.min(ctx.aC, ctx.aT);
     this.Idefl = ctx.hasDeflection ? ctx.deflNumerator / ctx.deflLimit : 0;
+    this.en = ctx.en;
+    this.enT = [...new Set(pf.fk.plateThickness.filter((i) => i >= 0))];
+    this.enGamma = ctx.en ? Math.max(ctx.en.gM0, ctx.en.restraint ? ctx.en.gM1 : 0) : 0;
+    this.mMax = Math.max(ctx.Ms, ctx.Mh);
     this.cand = { fi: pf.fi, fk: this.fk, v: this.v, objective: 0, area: 0, utilisation: 0, governing: -1 };
     const dPos = this.groupDims.indexOf(pf.fk.roles.indexOf("depth"));
     let stride = 1;
@@ -464,6 +550,16 @@ class FamilySearch {
       this.t.ruledOut[cause] += k2 - k;
       k = k2;
     }
+    if (this.en) {
+      if (this.enRowOut(cap)) {
+        this.cause = C_WELD;
+        return this.dead(k, kHi);
+      }
+      k = this.enZStart(k, kHi, cap);
+      if (k >= 0 && this.en.restraint) k = this.enLtbStart(k, kHi, cap);
+      // (5), (7) concern the allowable shear stress: not checked under EN 1993
+      return k;
+    }
     if (ctx.hasShear && ctx.V > 0 && this.sym) {
       if (!this.shearOk(k, cap)) {
         this.cause = C_SHEAR;
@@ -485,6 +581,234 @@ class FamilySearch {
       return this.dead(k, kHi);
     }
     return k;
+  }
+
+  // ---- EN 1993 (E) -----------------------------------------------------------------------
+
+  /** (E1) An upper bound on fy over the row's points [k1, k2]. */
+  enFyMax(k1: number, k2: number): number {
+    const e = this.en!,
+      v = this.v;
+    const T = this.enT;
+    if (T.length > 0) {
+      let t = 0;
+      for (let i = 0; i < T.length; i++) if (v[T[i]] > t) t = v[T[i]];
+      return fyFor(e, t);
+    }
+    // rectangle [b, d]: its smaller side chooses the band (member-checks.md) and grows with b
+    const d = v[1];
+    return fyMaxOver(e, Math.min(this.W[k1], d), Math.min(this.W[k2], d));
+  }
+
+  /** (E1) The least plastic modulus a point can have and reach utilisation ≤ cap, with fy ≤ fy. */
+  enZreq(fy: number, cap: number): number {
+    return (this.mMax * this.enGamma) / (fy * cap);
+  }
+
+  /** (E4) The row's fixed plates leave no welded point a utilisation ≤ cap (the 3 mm least throat). */
+  enRowOut(cap: number): boolean {
+    const fam = this.fk.family,
+      v = this.v;
+    if (fam === "rectangle") return false;
+    const t = fam === "mono-i" ? v[5] : Math.min(v[2], v[3]);
+    return MIN_WELD_THROAT > 0.7 * t * cap * (1 + REL);
+  }
+
+  /** (E1) First index ≥ k (≤ kHi) whose plastic modulus can reach the requirement, or −1. */
+  enZStart(k: number, kHi: number, cap: number): number {
+    const fk = this.fk,
+      W = this.W,
+      v = this.v,
+      p = this.plates,
+      ko = this.kout,
+      n = fk.nPlates,
+      f = fk.free;
+    const req = this.enZreq(this.enFyMax(k, kHi), cap) * (1 - REL);
+    for (let iter = 0; iter < 12; iter++) {
+      const b = W[k];
+      v[f] = b;
+      fk.fill(v, p);
+      compositeKernel(p, n, ko);
+      const a = this.sym ? 0.5 * ko[K_MAXY] : plateNeutralAxis(p, n, ko[K_AREA], ko[K_CY]);
+      const Z = plateModulusAbout(p, n, a);
+      if (Z >= req) return k;
+      this.cause = C_BEND;
+      if (k === kHi) return this.dead(k, kHi);
+      // ∫|y − a| dA about this point's equal-area axis a: Zz there, affine in the free width, ≥ Zz everywhere
+      v[f] = W[kHi];
+      fk.fill(v, p);
+      const zHi = plateModulusAbout(p, n, a);
+      if (zHi < req) return this.dead(k, kHi);
+      const bNeed = b + (req - Z) / ((zHi - Z) / (W[kHi] - b));
+      let k2 = firstAtLeast(W, bNeed - REL * (Math.abs(bNeed) + 1));
+      if (k2 <= k) k2 = k + 1;
+      if (k2 > kHi) return this.dead(k, kHi);
+      this.t.ruledOut[C_BEND] += k2 - k;
+      k = k2;
+    }
+    return k;
+  }
+
+  /** (E2) First index ≥ k (≤ kHi) not shown to fail LTB at cap, or −1 (bisection on the range bound). */
+  enLtbStart(k: number, kHi: number, cap: number): number {
+    for (let round = 0; round < 64; round++) {
+      if (!this.ltbOutRow(k, k, cap)) return k;
+      this.cause = C_LTB;
+      if (k === kHi || this.ltbOutRow(k, kHi, cap)) return this.dead(k, kHi);
+      let lo = k,
+        hi = kHi; // [k, lo] out; [k, hi] not
+      while (hi - lo > 1) {
+        const m = (lo + hi) >> 1;
+        if (this.ltbOutRow(k, m, cap)) lo = m;
+        else hi = m;
+      }
+      this.t.ruledOut[C_LTB] += hi - k;
+      k = hi;
+    }
+    return k;
+  }
+
+  /**
+   * (E2) True when no point of the row's range [k1, k2] can have every LTB utilisation ≤ cap:
+   * the resistance bound of enLtbOut with Iy, Cw, J, Zz and the curve at k2 (each monotone in
+   * the free width) and zg, betaX bounded over the range.
+   */
+  ltbOutRow(k1: number, k2: number, cap: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      f = fk.free,
+      n = fk.nPlates,
+      ko = this.kout,
+      st = this.st,
+      pHi = this.pHi;
+    v[f] = W[k2];
+    fk.fill(v, pHi);
+    compositeKernel(pHi, n, ko);
+    const d = ko[K_MAXY],
+      iyHi = ko[K_IY],
+      izHi = ko[K_IZ],
+      yHi = ko[K_CY];
+    const zz = plateModulusAbout(pHi, n, this.sym ? 0.5 * d : plateNeutralAxis(pHi, n, ko[K_AREA], yHi));
+    stabilityKernel(fk.family, v, st);
+    const cw = st[ST_CW],
+      j = st[ST_J];
+    const narrow = fk.family === "mono-i" ? Math.min(v[1], v[3]) : v[f];
+    const aLT = ltbCurveC(fk.family, d, narrow) ? ALPHA_LT_C : ALPHA_LT_D;
+    const fy = this.enFyMax(k1, k2);
+    const r = this.rng;
+    if (fk.family === "tee" || fk.family === "mono-i") {
+      const sHi = st[ST_SCY];
+      v[f] = W[k1];
+      fk.fill(v, this.pLo);
+      compositeKernel(this.pLo, n, ko);
+      stabilityKernel(fk.family, v, st);
+      const yLo = ko[K_CY],
+        sLo = st[ST_SCY];
+      // ȳ and the shear centre move monotonically with the free width: their ends bound them
+      this.enTRange(n, Math.min(yLo, yHi), Math.max(yLo, yHi), Math.min(sLo, sHi), Math.max(sLo, sHi), ko[K_IZ], izHi, d);
+    } else {
+      // i, channel, box, rectangle: betaX = 0 and the shear centre at mid-depth, fixed along the row
+      r[0] = r[1] = loadHeight(this.en!, d, st[ST_SCY]);
+      r[2] = r[3] = st[ST_BETA];
+    }
+    return this.enLtbOut(iyHi, cw, j, zz, fy, aLT, cap);
+  }
+
+  /**
+   * (E2) Bounds on zg and betaX (into rng: zgLo, zgHi, betaLo, betaHi) over a range of widths:
+   * plate widths between pLo's and pHi's (same heights), centroid height ȳ in [yLo, yHi], shear
+   * centre height in [sLo, sHi], Iz in [izLo, izHi]. betaX = (1/Iz)·Σ∫v(w² + v²)dA − 2(ȳ − ysc)
+   * (member-checks.md §1, v = ȳ − y, each plate centred on the symmetry axis). A plate of width
+   * B over [y1, y2] gives (B³/12)·S1 + B·S3 with S1 = ∫v dy, S3 = ∫v³ dy over its height, both
+   * increasing in ȳ (derivatives y2 − y1 > 0 and v2³ − v1³ > 0); interval products over B > 0
+   * and S1, S3 at ȳ's ends, then ÷ Iz > 0 and − 2(ȳ − ysc). zg (loadHeight) is affine in ysc.
+   */
+  enTRange(n: number, yLo: number, yHi: number, sLo: number, sHi: number, izLo: number, izHi: number, d: number): void {
+    let nLo = 0,
+      nHi = 0;
+    for (let i = 0; i < n; i++) {
+      const o = i * PLATE_STRIDE;
+      const b1 = this.pLo[o],
+        b2 = this.pHi[o],
+        y1 = this.pLo[o + 3],
+        y2 = y1 + this.pLo[o + 1];
+      const c1 = (b1 * b1 * b1) / 12,
+        c2 = (b2 * b2 * b2) / 12;
+      // at ȳ = yLo (least S1, S3) and ȳ = yHi (greatest)
+      let u1 = yLo - y2,
+        u2 = yLo - y1;
+      const s1a = (u2 * u2 - u1 * u1) / 2,
+        s3a = (u2 * u2 * u2 * u2 - u1 * u1 * u1 * u1) / 4;
+      u1 = yHi - y2;
+      u2 = yHi - y1;
+      const s1b = (u2 * u2 - u1 * u1) / 2,
+        s3b = (u2 * u2 * u2 * u2 - u1 * u1 * u1 * u1) / 4;
+      nLo += (s1a >= 0 ? c1 * s1a : c2 * s1a) + (s3a >= 0 ? b1 * s3a : b2 * s3a);
+      nHi += (s1b >= 0 ? c2 * s1b : c1 * s1b) + (s3b >= 0 ? b2 * s3b : b1 * s3b);
+    }
+    // relaxed outward so rounding in these sums never narrows the range
+    const slack = REL * (Math.abs(nLo) + Math.abs(nHi)) + 1e-300;
+    nLo -= slack;
+    nHi += slack;
+    const qLo = nLo >= 0 ? nLo / izHi : nLo / izLo,
+      qHi = nHi >= 0 ? nHi / izLo : nHi / izHi;
+    const r = this.rng,
+      e = this.en!;
+    const z1 = loadHeight(e, d, sLo),
+      z2 = loadHeight(e, d, sHi);
+    const zs = REL * (Math.abs(z1) + Math.abs(z2) + d);
+    r[0] = Math.min(z1, z2) - zs;
+    r[1] = Math.max(z1, z2) + zs;
+    const bs = REL * (Math.abs(qLo) + Math.abs(qHi) + d);
+    r[2] = qLo - 2 * (yHi - sLo) - bs;
+    r[3] = qHi - 2 * (yLo - sHi) + bs;
+  }
+
+  /**
+   * (E2) With zg, betaX bounds in rng: true when for some moment sign M > cap·Mb,Rd even with
+   * Iy, Cw, J, Zz at their upper bounds, zj and zg at the ends that lower t = C2·zg − C3·zj, the
+   * smaller imperfection factor and fy ≤ fy. Mcr grows with Iy, Cw, J and falls with t, and
+   * Mb = χLT(√(W·fy/Mcr))·W·fy/γM1 grows with W·fy and with Mcr (proofs in the header), W ≤ Zz.
+   */
+  enLtbOut(iy: number, cw: number, j: number, zz: number, fy: number, aLT: number, cap: number): boolean {
+    const e = this.en!,
+      ctx = this.ctx,
+      r = this.rng;
+    const wfy = zz * fy;
+    for (let sgn = 0; sgn < 2; sgn++) {
+      const M = sgn === 0 ? ctx.Ms : ctx.Mh;
+      if (!(M > 0)) continue;
+      // zj = βc/2, βc = betaX sagging, −betaX hogging
+      const zjLo = sgn === 0 ? r[2] / 2 : -r[3] / 2,
+        zjHi = sgn === 0 ? r[3] / 2 : -r[2] / 2;
+      const t = e.C2 * (e.C2 >= 0 ? r[0] : r[1]) - e.C3 * (e.C3 >= 0 ? zjHi : zjLo);
+      const mcr = criticalMoment(e, iy, cw, j, t);
+      const mb = (chiLT(Math.sqrt(wfy / mcr), aLT) * wfy) / e.gM1;
+      if (M > mb * cap * (1 + REL)) return true;
+    }
+    return false;
+  }
+
+  /**
+   * (E3) After a failed evaluation under EN 1993: true when every wider point of the row fails
+   * too. Shear (resistance or buckling): VRd depends only on the row's fixed d, plates and fy
+   * (all but the rectangle). Class 4: a flange's c/t grows with its width against a limit fixed
+   * along the row (ε is the row's), a web or stem of i, channel, box, tee is fixed; the mono-i
+   * web under sagging only: its ψ rises as bb widens (the centroid falls), so its class-3 limit
+   * (falling in ψ) only tightens. A hogging mono-i web can improve as bb widens: no conclusion.
+   */
+  enFailEndsRow(s: Scratch): boolean {
+    const g = s.governing,
+      fam = this.fk.family;
+    if (g === C_VPL || g === C_VB) return fam !== "rectangle";
+    if (g !== C_CLASS4) return false;
+    const x = s.en as En1993Scratch;
+    for (let i = 0; i < x.nEl; i++) {
+      if (x.elClass[i] !== 4) continue;
+      if (fam !== "mono-i" || x.elName[i] !== EL_WEB || x.elUnder[i] === 1) return true;
+    }
+    return false;
   }
 
   private bands = new Float64Array(2);
@@ -591,6 +915,19 @@ class FamilySearch {
 
   /** Pushes a ready row node at its first index not excluded at utilisation ≤ cap, if it can still matter. */
   pushReady(id: number, k: number, kHi: number, cap: number): void {
+    const lim = this.limit();
+    if (lim < Infinity && k < kHi) {
+      // best mode: points heavier than the incumbent can never be popped; the objective is affine
+      // in the free width, so they are a tail of the row, cut before the bounds look at it
+      const o0 = this.objectiveAt(k),
+        o1 = this.objectiveAt(kHi);
+      if (o1 > lim) {
+        if (o0 > lim) return;
+        const bMax = this.W[k] + ((lim - o0) * (this.W[kHi] - this.W[k])) / (o1 - o0);
+        kHi = Math.min(kHi, firstAbove(this.W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+        if (kHi < k) return;
+      }
+    }
     const k2 = this.rowStart(k, kHi, cap);
     if (k2 < 0) return;
     const key = this.objectiveAt(k2);
@@ -745,7 +1082,7 @@ class FamilySearch {
       } else offerFeasible(this.t, c); // the rest of the row is heavier
     } else {
       this.t.ruledOut[s.governing]++;
-      if (k < kHi) this.pushReady(id, k + 1, kHi, 1);
+      if (k < kHi && !(this.en && this.enFailEndsRow(s))) this.pushReady(id, k + 1, kHi, 1);
     }
   }
 
@@ -764,23 +1101,30 @@ class FamilySearch {
       f = fk.free;
     const d = this.depthOf();
     const req = this.baseIreq(d, cap) * (1 - REL);
+    // (E1) the same with the plastic modulus about mid-depth, ∫|y − d/2| dA ≥ Zz, also affine
+    const zreq = this.en ? this.enZreq(this.enFyMax(kLo, kHi), cap) * (1 - REL) : 0;
     v[f] = W[kLo];
     fk.fill(v, p);
     const i0 = iAbout(p, n, d / 2),
+      z0 = this.en ? plateModulusAbout(p, n, d / 2) : 0,
       o0 = objectiveOf(fk, v, p, this.ctx);
-    if (i0 >= req) return o0;
-    if (kHi === kLo) return this.deadRaw(kLo, kHi);
+    if (i0 >= req && z0 >= zreq) return o0;
+    if (kHi === kLo) return this.deadRaw(kLo, kHi, i0 < req ? -1 : C_BEND);
     v[f] = W[kHi];
     fk.fill(v, p);
     const i1 = iAbout(p, n, d / 2),
+      z1 = this.en ? plateModulusAbout(p, n, d / 2) : 0,
       o1 = objectiveOf(fk, v, p, this.ctx);
-    if (i1 < req) return this.deadRaw(kLo, kHi);
-    const x = (req - i0) / (i1 - i0);
+    if (i1 < req) return this.deadRaw(kLo, kHi, -1);
+    if (z1 < zreq) return this.deadRaw(kLo, kHi, C_BEND);
+    const x = Math.max(i0 >= req ? 0 : (req - i0) / (i1 - i0), z0 >= zreq ? 0 : (zreq - z0) / (z1 - z0));
     return (o0 + (o1 - o0) * x) * (1 - REL);
   }
 
-  private deadRaw(kLo: number, kHi: number): number {
-    this.t.ruledOut[this.Idefl > this.baseIreq(this.depthOf(), 1) * 0.999999 ? C_DEFL : this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP] += kHi - kLo + 1;
+  /** Rules the row out for `reason` (cause −1: the I requirement's, bending or deflection). */
+  private deadRaw(kLo: number, kHi: number, cause: number): number {
+    if (cause < 0) cause = this.Idefl > this.baseIreq(this.depthOf(), 1) * 0.999999 ? C_DEFL : this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP;
+    this.t.ruledOut[cause] += kHi - kLo + 1;
     return NaN;
   }
 
@@ -903,7 +1247,12 @@ class FamilySearch {
       tfb = v[4],
       tw = v[5];
     const req = this.baseIreq(d, 1);
-    const afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
+    let afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
+    if (this.en) {
+      // (E1) likewise ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4 ≥ Zz
+      const zreq = this.enZreq(this.enFyMax(0, 0), 1);
+      afNeed = Math.max(afNeed, (2 * (zreq - (tw * d * d) / 4)) / d);
+    }
     const at0 = btLo * tft,
       ab0 = bbLo * tfb,
       aw = tw * (d - tft - tfb);
@@ -926,7 +1275,7 @@ class FamilySearch {
   }
 
   // affine model of the super node (filled by superBound): I about y0 and objective in (bt, bb)
-  private m = { y0: 0, i00: 0, it: 0, ib: 0, o00: 0, ot: 0, ob: 0, bt0: 0, bb0: 0, jLo: 0, jHi: 0, kLo: 0, kHi: 0, req: 0 };
+  private m = { y0: 0, i00: 0, it: 0, ib: 0, o00: 0, ot: 0, ob: 0, bt0: 0, bb0: 0, jLo: 0, jHi: 0, kLo: 0, kHi: 0, req: 0, za: 0, z00: 0, zt: 0, zb: 0, zreq: 0 };
 
   /** Lower bound on the objective over the super node's (bt, bb) rectangle, or null when none can pass. */
   superBound(id: number, jA: number, jB: number, cap: number): number | null {
@@ -944,10 +1293,10 @@ class FamilySearch {
       this.t.ruledOut[3] += 1;
       return null;
     }
-    const kLo = firstAbove(W, fk.freeMin(v));
+    let kLo = firstAbove(W, fk.freeMin(v));
     // bottom outstand and web; the top outstand element is held at an allowed bt (jLo)
     v[sec] = W[jLo];
-    const kHi = this.rowHi(kLo, W.length - 1, cap);
+    let kHi = this.rowHi(kLo, W.length - 1, cap);
     if (kHi < 0) return null;
     let req = this.baseIreq(this.depthOf(), cap);
     {
@@ -970,9 +1319,71 @@ class FamilySearch {
       req = Math.max(req, (ctx.Ms * cTop) / aC, (ctx.Ms * cBot) / aT, (ctx.Mh * cTop) / aT, (ctx.Mh * cBot) / aC);
     }
     req *= 1 - REL;
-    if (this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi, cap)) {
+    if (!this.en && this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi, cap)) {
       this.t.ruledOut[C_SHEAR] += (jHi - jLo + 1) * (kHi - kLo + 1);
       return null;
+    }
+    const lim = this.limit();
+    for (let round = 0; round < 4; round++) {
+      const j0 = jLo,
+        k0 = kLo;
+      if (lim < Infinity) {
+        // best mode: the objective is affine in each width, so the points no heavier than the
+        // incumbent lie within bt ≤ (its bound at the least bb) and bb ≤ (its bound at the least bt)
+        v[sec] = W[jLo];
+        v[f] = W[kLo];
+        const o00 = this.objectiveOf2();
+        if (o00 > lim) return null;
+        if (jHi > jLo) {
+          v[sec] = W[jHi];
+          const o10 = this.objectiveOf2();
+          if (o10 > lim) {
+            const bMax = W[jLo] + ((lim - o00) * (W[jHi] - W[jLo])) / (o10 - o00);
+            jHi = Math.min(jHi, firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+          }
+          v[sec] = W[jLo];
+        }
+        if (kHi > kLo) {
+          v[f] = W[kHi];
+          const o01 = this.objectiveOf2();
+          if (o01 > lim) {
+            const bMax = W[kLo] + ((lim - o00) * (W[kHi] - W[kLo])) / (o01 - o00);
+            kHi = Math.min(kHi, firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+          }
+        }
+        if (jHi < jLo || kHi < kLo) return null;
+      }
+      if (this.en && this.en.restraint) {
+        // (E2) over the box: first the narrowest top flanges, then the narrowest bottom flanges,
+        // that cannot pass LTB at cap whatever the other width (the box bound grows with the box)
+        this.cause = C_LTB;
+        if (this.ltbOutBox(jLo, jHi, kLo, kHi, cap)) {
+          this.t.ruledOut[C_LTB] += (jHi - jLo + 1) * (kHi - kLo + 1);
+          return null;
+        }
+        if (this.ltbOutBox(jLo, jLo, kLo, kHi, cap)) {
+          let lo = jLo,
+            hi = jHi; // [jLo, lo] out, [jLo, hi] not
+          while (hi - lo > 1) {
+            const mid = (lo + hi) >> 1;
+            if (this.ltbOutBox(jLo, mid, kLo, kHi, cap)) lo = mid;
+            else hi = mid;
+          }
+          jLo = hi;
+        }
+        if (this.ltbOutBox(jLo, jHi, kLo, kLo, cap)) {
+          let lo = kLo,
+            hi = kHi;
+          while (hi - lo > 1) {
+            const mid = (lo + hi) >> 1;
+            if (this.ltbOutBox(jLo, jHi, kLo, mid, cap)) lo = mid;
+            else hi = mid;
+          }
+          kLo = hi;
+        }
+      }
+      // a raised lower end lowers the incumbent's reach in the other width: again until settled
+      if (lim === Infinity || (jLo === j0 && kLo === k0)) break;
     }
     const m = this.m;
     m.jLo = jLo;
@@ -984,67 +1395,190 @@ class FamilySearch {
       bt1 = W[jHi],
       bb0 = W[kLo],
       bb1 = W[kHi];
+    m.bt0 = bt0;
+    m.bb0 = bb0;
+    // (4): I about y0 (mid-depth, then the centroid of the relaxed optimum) is affine in (bt, bb)
     let best = -Infinity;
     let y0 = this.depthOf() / 2;
+    const lp = this.lp;
     for (let round = 0; round < 2; round++) {
-      v[sec] = bt0;
-      v[f] = bb0;
-      fk.fill(v, p);
-      const i00 = iAbout(p, n, y0),
-        o00 = objectiveOf(fk, v, p, this.ctx);
-      v[sec] = bt1;
-      fk.fill(v, p);
-      const it = bt1 > bt0 ? (iAbout(p, n, y0) - i00) / (bt1 - bt0) : 0,
-        ot = bt1 > bt0 ? (objectiveOf(fk, v, p, this.ctx) - o00) / (bt1 - bt0) : 0;
-      v[sec] = bt0;
-      v[f] = bb1;
-      fk.fill(v, p);
-      const ib = bb1 > bb0 ? (iAbout(p, n, y0) - i00) / (bb1 - bb0) : 0,
-        ob = bb1 > bb0 ? (objectiveOf(fk, v, p, this.ctx) - o00) / (bb1 - bb0) : 0;
-      // fractional knapsack: cheapest I per unit objective first
-      let deficit = req - i00;
-      let bt = bt0,
-        bb = bb0,
-        obj = o00;
-      if (deficit > 0) {
-        // take the width with more I per unit objective first (both objective slopes are > 0)
-        const topFirst = (it > 0 ? it / ot : 0) >= (ib > 0 ? ib / ob : 0);
-        for (let pass = 0; pass < 2; pass++) {
-          const top = (pass === 0) === topFirst;
-          const di = top ? it : ib;
-          if (deficit <= 0 || !(di > 0)) continue;
-          const x = Math.min(top ? bt1 - bt0 : bb1 - bb0, deficit / di);
-          deficit -= x * di;
-          obj += x * (top ? ot : ob);
-          if (top) bt += x;
-          else bb += x;
-        }
-        if (deficit > REL * req) {
-          this.t.ruledOut[this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP] += (jHi - jLo + 1) * (kHi - kLo + 1);
-          return null;
-        }
+      const obj = this.lpRound(false, y0, req, bt0, bt1, bb0, bb1);
+      if (obj !== obj) {
+        this.t.ruledOut[this.ctx.aT <= this.ctx.aC ? C_TENS : C_COMP] += (jHi - jLo + 1) * (kHi - kLo + 1);
+        return null;
       }
       if (obj > best) {
         best = obj;
         m.y0 = y0;
-        m.i00 = i00;
-        m.it = it;
-        m.ib = ib;
-        m.o00 = o00;
-        m.ot = ot;
-        m.ob = ob;
-        m.bt0 = bt0;
-        m.bb0 = bb0;
+        m.i00 = lp.c00;
+        m.it = lp.ct;
+        m.ib = lp.cb;
+        m.o00 = lp.o00;
+        m.ot = lp.ot;
+        m.ob = lp.ob;
       }
+      if (req <= 0) break;
       // second round: y0 at the centroid of the relaxed optimum
-      v[sec] = bt;
-      v[f] = bb;
+      v[sec] = lp.bt;
+      v[f] = lp.bb;
       fk.fill(v, p);
       compositeKernel(p, n, this.kout);
       y0 = this.kout[K_CY];
     }
+    m.zreq = 0;
+    if (this.en) {
+      // (E1): ∫|y − a| dA about a fixed a is affine in (bt, bb) and ≥ Zz: the same knapsack on it,
+      // a at mid-depth, then at the equal-area axis of the relaxed optimum
+      const zreq = this.enZreq(this.enFyMax(0, 0), cap) * (1 - REL);
+      m.zreq = zreq;
+      let a = this.depthOf() / 2,
+        bestZ = -Infinity;
+      for (let round = 0; round < 2; round++) {
+        const obj = this.lpRound(true, a, zreq, bt0, bt1, bb0, bb1);
+        if (obj !== obj) {
+          this.t.ruledOut[C_BEND] += (jHi - jLo + 1) * (kHi - kLo + 1);
+          return null;
+        }
+        if (obj > bestZ) {
+          bestZ = obj;
+          m.za = a;
+          m.z00 = lp.c00;
+          m.zt = lp.ct;
+          m.zb = lp.cb;
+          m.o00 = lp.o00;
+          m.ot = lp.ot;
+          m.ob = lp.ob;
+        }
+        v[sec] = lp.bt;
+        v[f] = lp.bb;
+        fk.fill(v, p);
+        compositeKernel(p, n, this.kout);
+        a = plateNeutralAxis(p, n, this.kout[K_AREA], this.kout[K_CY]);
+      }
+      if (bestZ > best) best = bestZ;
+    }
     void id;
-    return best;
+    // a key must stay at or below every point's objective in floating point too (grid mode
+    // compares it with the front's objectives exactly): relax it
+    return best * (1 - REL);
+  }
+
+  private lp = { c00: 0, ct: 0, cb: 0, o00: 0, ot: 0, ob: 0, bt: 0, bb: 0 };
+
+  /** The objective at the widths now in v (fills the plates). */
+  private objectiveOf2(): number {
+    this.fk.fill(this.v, this.plates);
+    return objectiveOf(this.fk, this.v, this.plates, this.ctx);
+  }
+
+  /**
+   * One fractional knapsack over the box [bt0, bt1] × [bb0, bb1]: least objective with a measure
+   * affine in (bt, bb) at least req; the measure is I about y0 (useZ false, (4)) or ∫|y − y0| dA
+   * (useZ true, (E1)), both from the plates at three corners. The objective is affine too; the
+   * width with more measure per unit objective is taken first (both objective slopes > 0).
+   * Leaves the model and the relaxed optimum in this.lp; NaN when even both widths in full fall short.
+   */
+  private lpRound(useZ: boolean, y0: number, req: number, bt0: number, bt1: number, bb0: number, bb1: number): number {
+    const fk = this.fk,
+      v = this.v,
+      sec = fk.second,
+      f = fk.free,
+      p = this.plates,
+      n = fk.nPlates,
+      lp = this.lp,
+      ctx = this.ctx;
+    const measure = useZ ? plateModulusAbout : iAbout;
+    v[sec] = bt0;
+    v[f] = bb0;
+    fk.fill(v, p);
+    const c00 = measure(p, n, y0),
+      o00 = objectiveOf(fk, v, p, ctx);
+    v[sec] = bt1;
+    fk.fill(v, p);
+    const ct = bt1 > bt0 ? (measure(p, n, y0) - c00) / (bt1 - bt0) : 0,
+      ot = bt1 > bt0 ? (objectiveOf(fk, v, p, ctx) - o00) / (bt1 - bt0) : 0;
+    v[sec] = bt0;
+    v[f] = bb1;
+    fk.fill(v, p);
+    const cb = bb1 > bb0 ? (measure(p, n, y0) - c00) / (bb1 - bb0) : 0,
+      ob = bb1 > bb0 ? (objectiveOf(fk, v, p, ctx) - o00) / (bb1 - bb0) : 0;
+    lp.c00 = c00;
+    lp.ct = ct;
+    lp.cb = cb;
+    lp.o00 = o00;
+    lp.ot = ot;
+    lp.ob = ob;
+    let deficit = req - c00;
+    let bt = bt0,
+      bb = bb0,
+      obj = o00;
+    if (deficit > 0) {
+      const topFirst = (ct > 0 ? ct / ot : 0) >= (cb > 0 ? cb / ob : 0);
+      for (let pass = 0; pass < 2; pass++) {
+        const top = (pass === 0) === topFirst;
+        const di = top ? ct : cb;
+        if (deficit <= 0 || !(di > 0)) continue;
+        const x = Math.min(top ? bt1 - bt0 : bb1 - bb0, deficit / di);
+        deficit -= x * di;
+        obj += x * (top ? ot : ob);
+        if (top) bt += x;
+        else bb += x;
+      }
+      if (deficit > REL * req) return NaN;
+    }
+    lp.bt = bt;
+    lp.bb = bb;
+    return obj;
+  }
+
+  /**
+   * (E2) True when no point of the mono-i box bt ∈ [W[j1], W[j2]], bb ∈ [W[k1], W[k2]] can have
+   * every LTB utilisation ≤ cap: Iy, Cw, J, Zz and the curve at the widest corner (each grows
+   * with both widths); the centroid and the shear centre rise with bt and fall with bb, so their
+   * extremes sit at the two mixed corners; Iz between the narrowest and widest corners.
+   */
+  ltbOutBox(j1: number, j2: number, k1: number, k2: number, cap: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      sec = fk.second,
+      f = fk.free,
+      n = fk.nPlates,
+      ko = this.kout,
+      st = this.st,
+      p = this.plates;
+    v[sec] = W[j2];
+    v[f] = W[k2];
+    fk.fill(v, this.pHi);
+    compositeKernel(this.pHi, n, ko);
+    const d = ko[K_MAXY],
+      iy = ko[K_IY],
+      izHi = ko[K_IZ];
+    const zz = plateModulusAbout(this.pHi, n, plateNeutralAxis(this.pHi, n, ko[K_AREA], ko[K_CY]));
+    stabilityKernel(fk.family, v, st);
+    const cw = st[ST_CW],
+      j = st[ST_J];
+    const aLT = ltbCurveC(fk.family, d, Math.min(W[j2], W[k2])) ? ALPHA_LT_C : ALPHA_LT_D;
+    const fy = this.enFyMax(0, 0);
+    v[sec] = W[j1];
+    v[f] = W[k1];
+    fk.fill(v, this.pLo);
+    compositeKernel(this.pLo, n, ko);
+    const izLo = ko[K_IZ];
+    v[sec] = W[j1];
+    v[f] = W[k2];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    stabilityKernel(fk.family, v, st);
+    const yMin = ko[K_CY],
+      sMin = st[ST_SCY];
+    v[sec] = W[j2];
+    v[f] = W[k1];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    stabilityKernel(fk.family, v, st);
+    this.enTRange(n, yMin, ko[K_CY], sMin, st[ST_SCY], izLo, izHi, d);
+    return this.enLtbOut(iy, cw, j, zz, fy, aLT, cap);
   }
 
   /** Bounds a super node over bt indices [jA, jB] at cap and pushes it (k, hi = its bt range) if it can still matter. */
@@ -1066,14 +1600,20 @@ class FamilySearch {
     for (let j = this.groupDims.length - 1; j > secPos; j--) stride *= this.radix[j];
     for (let j = m.jLo; j <= m.jHi; j++) {
       const bt = W[j];
-      const deficit = m.req - (m.i00 + m.it * (bt - m.bt0));
       let bb = m.bb0;
+      // least bb each affine model allows at this bt: I (4), and under EN 1993 ∫|y − a| dA (E1)
+      const deficit = m.req - (m.i00 + m.it * (bt - m.bt0));
       if (deficit > 0) {
         if (!(m.ib > 0)) continue;
         bb = m.bb0 + deficit / m.ib;
-        if (bb > W[m.kHi] * (1 + REL) + REL) continue;
       }
-      const key = m.o00 + m.ot * (bt - m.bt0) + m.ob * (bb - m.bb0);
+      const zDeficit = m.zreq - (m.z00 + m.zt * (bt - m.bt0));
+      if (zDeficit > 0) {
+        if (!(m.zb > 0)) continue;
+        bb = Math.max(bb, m.bb0 + zDeficit / m.zb);
+      }
+      if (bb > W[m.kHi] * (1 + REL) + REL) continue;
+      const key = (m.o00 + m.ot * (bt - m.bt0) + m.ob * (bb - m.bb0)) * (1 - REL);
       if (key > inc) continue;
       const k = Math.max(m.kLo, firstAtLeast(W, bb - REL * (Math.abs(bb) + 1)));
       if (k > m.kHi) continue;

@@ -96,6 +96,36 @@ export function chiLT(lam: number, alphaLT: number): number {
   return Math.min(1, 1 / (phi + Math.sqrt(phi * phi - lam * lam)));
 }
 
+/**
+ * Mcr by the three-factor formula (member-checks.md §2 item 3; mem.), t = C2·zg − C3·zj:
+ * Mcr = C1·(π²·E·Iy/L²)·[√(Cw/Iy + L²·G·J/(π²·E·Iy) + t²) − t].
+ * One function for the check below and the search's bounds (search.ts (E2) calls it with
+ * bounding values of Iy, Cw, J and t).
+ */
+export function criticalMoment(e: En1993Context, Iy: number, Cw: number, J: number, t: number): number {
+  const L = e.L;
+  const Pcr = (PI2 * e.E * Iy) / (L * L);
+  const base = Cw / Iy + (L * L * e.G * J) / (PI2 * e.E * Iy);
+  return e.C1 * Pcr * (Math.sqrt(base + t * t) - t);
+}
+
+/** zg: the load point's height above the shear centre (positive up), either moment sign; d the depth, ysc the shear centre's height. */
+export function loadHeight(e: En1993Context, d: number, ysc: number): number {
+  return e.loadAt === 0 ? d - ysc : e.loadAt === 2 ? -ysc : 0;
+}
+
+/** LTB curve (member-checks.md): welded I and mono-I: c when d/b ≤ 2 (b the narrower flange), otherwise d. */
+export function ltbCurveC(family: string, d: number, bNarrow: number): boolean {
+  return (family === "i" || family === "mono-i") && d / bNarrow <= 2;
+}
+
+/** The least fillet-weld throat any junction gets, mm (member-checks.md §2 item 6). */
+export const MIN_WELD_THROAT = 3;
+
+/** EN 1993-1-1 Table 6.3: imperfection factors αLT of curves c and d. */
+export const ALPHA_LT_C = 0.49,
+  ALPHA_LT_D = 0.76;
+
 /** fy of the first band whose maxThickness ≥ t (member-checks.md §2), NaN beyond the last (the schema refuses those). */
 export function fyFor(e: En1993Context, t: number): number {
   for (let i = 0; i < e.bandT.length; i++) if (t <= e.bandT[i]) return e.bandFy[i];
@@ -107,7 +137,8 @@ const PART_OUTSTAND = 0,
   PART_WEB = 2,
   PART_STEM = 3;
 const PART_NAMES = ["outstand", "internal", "web", "stem"] as const;
-const EL_TOP = 0,
+/** Element names in En1993Scratch.elName (the search reads which element was class 4). */
+export const EL_TOP = 0,
   EL_BOTTOM = 1,
   EL_WEB = 2,
   EL_STEM = 3;
@@ -413,23 +444,18 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   // Mcr = C1·(π²·E·Iy/L²)·[√(Cw/Iy + L²·G·J/(π²·E·Iy) + (C2·zg − C3·zj)²) − (C2·zg − C3·zj)]
   // (the three-factor formula, member-checks.md §2 item 3; mem.).
   if (e.restraint) {
-    const L = e.L,
-      Cw = x.st[ST_CW],
+    const Cw = x.st[ST_CW],
       J = x.st[ST_J],
       beta = x.st[ST_BETA],
       ysc = x.st[ST_SCY];
-    const Pcr = (PI2 * e.E * Iy) / (L * L);
-    const base = Cw / Iy + (L * L * e.G * J) / (PI2 * e.E * Iy);
-    // zg: the load point's height above the shear centre (positive up), either moment sign
-    const zg = e.loadAt === 0 ? d - ysc : e.loadAt === 2 ? -ysc : 0;
-    // curve (member-checks.md): welded I and mono-I: c (αLT = 0.49) when d/b ≤ 2, b the narrower flange; otherwise d (0.76)
+    const zg = loadHeight(e, d, ysc);
     const bNarrow = x.bt < x.bb ? x.bt : x.bb;
     // rolled I (catalogue sections): curve b when d/b ≤ 2, c otherwise, the rolled rows of EN 1993-1-1
     // Table 6.5 (mem.), used in the general case's expression above: one curve more cautious than
     // Table 6.4's a/b for rolled I, a stated choice; a rolled channel stays on curve d
     x.curveB = rolled !== null && family === "i" && d / bNarrow <= 2;
-    x.curveC = rolled !== null ? family === "i" && !x.curveB : (family === "i" || family === "mono-i") && d / bNarrow <= 2;
-    const aLT = x.curveB ? 0.34 : x.curveC ? 0.49 : 0.76;
+    x.curveC = rolled !== null ? family === "i" && !x.curveB : ltbCurveC(family, d, bNarrow);
+    const aLT = x.curveB ? 0.34 : x.curveC ? ALPHA_LT_C : ALPHA_LT_D;
     const WfY = W * fy;
     let worst = -1,
       wr = -Infinity;
@@ -439,7 +465,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
       // zj = βc/2, βc = betaX sagging (top flange compressed), −betaX hogging
       const zj = sgn === 0 ? beta / 2 : -beta / 2;
       const t = e.C2 * zg - e.C3 * zj;
-      const Mcr = e.C1 * Pcr * (Math.sqrt(base + t * t) - t);
+      const Mcr = criticalMoment(e, Iy, Cw, J, t);
       const lam = Math.sqrt(WfY / Mcr);
       const phi = phiLT(lam, aLT);
       // evaluated even when λLT ≤ 0.2 (readings pinned): χLT = 1 there by the min
@@ -546,7 +572,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     x.fvwd = e.fu / (SQRT3 * e.betaW * e.gM2);
     x.aExact = x.q / (2 * x.fvwd);
     const a = Math.ceil(x.aExact);
-    x.a = a > 3 ? a : 3;
+    x.a = a > MIN_WELD_THROAT ? a : MIN_WELD_THROAT;
     const tf = top ? x.tft : x.tfb;
     x.aMax = 0.7 * (tf < x.tw ? tf : x.tw);
     dem[C_WELD] = x.a;
