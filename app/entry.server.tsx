@@ -1,5 +1,6 @@
-// The default React Router node entry, plus one line: the in-process sweep runner starts with the
-// server (app/workers/in-process.server.ts; SPARWISE_INPROCESS_WORKERS=0 turns it off).
+// The default React Router node entry, plus the in-process sweep runner that starts with the
+// server (app/workers/in-process.server.ts; SPARWISE_INPROCESS_WORKERS=0 turns it off) and the
+// Content-Security-Policy nonce from the load context (server.ts).
 import "./workers/in-process.server";
 import { PassThrough } from "node:stream";
 
@@ -9,6 +10,7 @@ import { ServerRouter } from "react-router";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
+import { NonceContext } from "./lib/nonce";
 
 export const streamTimeout = 5_000;
 
@@ -47,9 +49,15 @@ export default function handleRequest(
       streamTimeout + 1000,
     );
 
+    // server.ts's per-request nonce: React's and the router's inline scripts carry it, so the
+    // Content-Security-Policy needs no 'unsafe-inline' for scripts.
+    const nonce = loadContext?.cspNonce;
     const { pipe, abort } = renderToPipeableStream(
-      <ServerRouter context={routerContext} url={request.url} />,
+      <NonceContext.Provider value={nonce}>
+        <ServerRouter context={routerContext} url={request.url} nonce={nonce} />
+      </NonceContext.Provider>,
       {
+        nonce,
         [readyOption]() {
           shellRendered = true;
           const body = new PassThrough({

@@ -8,7 +8,7 @@ import { db } from "~/lib/db.server";
 import { can, isRole, type Permission, type Role } from "~/lib/roles";
 import { commitSession, destroySession, getSession } from "~/lib/session.server";
 import { spendApiPoints } from "~/lib/api-rate-limit.server";
-import { clientAddress, recordSignInFailure, recordSignInSuccess, signInWait, tooManyMessage } from "~/lib/rate-limit.server";
+import { beginSignIn, signInFailed, signInSucceeded, tooManyMessage } from "~/lib/rate-limit.server";
 
 export type { Role, Permission } from "~/lib/roles";
 
@@ -183,12 +183,54 @@ export async function requireApiUser(request: Request, permission?: Permission, 
   } else {
     user = await getUser(request);
     if (!user) throw Response.json({ error: "sign in or send an API token" }, { status: 401 });
+    assertCookieRequestFromOwnPages(request);
   }
   await spendApiPoints(user.id, cost);
   if (permission && !can(user.role, permission)) {
     throw Response.json({ error: `role ${user.role} may not ${PERMISSION_WORDS[permission]}` }, { status: 403 });
   }
   return user;
+}
+
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/** The origins our own pages are served from: the request's, and APP_URL's behind a proxy. */
+function ownOrigins(request: Request): Set<string> {
+  const origins = new Set([new URL(request.url).origin]);
+  try {
+    if (process.env.APP_URL) origins.add(new URL(process.env.APP_URL).origin);
+  } catch {
+    // A malformed APP_URL adds nothing.
+  }
+  return origins;
+}
+
+/**
+ * A browser attaches the session cookie to requests other sites make, so a state-changing API
+ * call on a cookie must prove it comes from our own pages: Sec-Fetch-Site "same-origin" (set by
+ * the browser, no page can forge it) or, from browsers without it, an Origin of ours. A missing
+ * Origin is refused too: browsers always send one on a POST, so only a non-browser client omits
+ * it, and those use a bearer token. A JSON Content-Type forces a CORS preflight on any other
+ * site's fetch, which this server never grants. Bearer tokens are not sent by browsers on
+ * their own, so they skip both checks.
+ */
+function assertCookieRequestFromOwnPages(request: Request): void {
+  if (SAFE_METHODS.has(request.method.toUpperCase())) return;
+  const site = request.headers.get("sec-fetch-site");
+  const origin = request.headers.get("origin");
+  const sameOrigin = site !== null ? site === "same-origin" : origin !== null && ownOrigins(request).has(origin);
+  if (!sameOrigin) {
+    throw Response.json(
+      { error: "cross-origin request refused: a session-cookie request must come from this site's own pages (Origin); scripts use an API token" },
+      { status: 403 },
+    );
+  }
+  // Asked even of a body-less POST (cancel): whether a body follows cannot be told from every
+  // request, and the header is what makes another site's fetch need a preflight.
+  const type = (request.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
+  if (type !== "application/json") {
+    throw Response.json({ error: "Content-Type must be application/json on a session-cookie request" }, { status: 415 });
+  }
 }
 
 async function userForApiToken(token: string): Promise<SessionUser | null> {
@@ -211,6 +253,8 @@ export class SignInError extends Error {
     message: string,
     readonly status: number,
     readonly field: "email" | "password" | "form",
+    /** Seconds until the next attempt may succeed (429 only): the Retry-After header. */
+    readonly retryAfter?: number,
   ) {
     super(message);
     this.name = "SignInError";
@@ -230,14 +274,15 @@ export interface VerifiedUser {
   sessionVersion: number;
 }
 
-export async function verifyCredentials(form: FormData, request: Request): Promise<VerifiedUser> {
+/** `address` is the client's address bucket from the load context (rate-limit.server.ts clientAddress). */
+export async function verifyCredentials(form: FormData, address: string): Promise<VerifiedUser> {
   const parsed = signInSchema.safeParse({ email: form.get("email") ?? undefined, password: form.get("password") ?? undefined });
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
     const field = issue.path[0] === "password" ? "password" : "email";
     throw new SignInError(issue.message, 400, field);
   }
-  const user = await checkPassword(parsed.data.email, parsed.data.password, request);
+  const user = await checkPassword(parsed.data.email, parsed.data.password, address);
   if (!(await loadUser(user.id))) {
     throw new SignInError("This account is not a member of any team. Ask your admin for an invitation.", 403, "email");
   }
@@ -245,26 +290,47 @@ export async function verifyCredentials(form: FormData, request: Request): Promi
 }
 
 /**
- * The account's own password, with the sign-in throttle: used by sign-in and by an existing
- * user accepting an invitation. A disabled account never passes.
+ * The account's own password, with the sign-in throttle (rate-limit.server.ts): used by sign-in
+ * and by an existing user accepting an invitation. A disabled account never passes. `address` is
+ * the client's address from the load context (clientAddress(context)).
  */
-export async function checkPassword(rawEmail: string, password: string, request: Request): Promise<VerifiedUser> {
+export async function checkPassword(rawEmail: string, password: string, address: string): Promise<VerifiedUser> {
   const email = normaliseEmail(rawEmail);
-  const ip = clientAddress(request);
-  const wait = await signInWait(email, ip);
-  if (wait > 0) throw new SignInError(tooManyMessage(wait), 429, "form");
+  const ticket = await beginSignIn(email, address);
+  if ("waitMs" in ticket) throw new SignInError(tooManyMessage(ticket.waitMs), 429, "form", Math.ceil(ticket.waitMs / 1000));
   const row = await db("users").where({ email }).whereNull("disabled_at").first("id", "password_hash", "session_version");
   const ok = await bcrypt.compare(password, row?.password_hash ?? DUMMY_HASH);
   if (!row || !row.password_hash || !ok) {
-    await recordSignInFailure(email, ip);
+    await signInFailed(ticket);
     throw new SignInError("E-mail address or password is wrong.", 401, "password");
   }
-  await recordSignInSuccess(email, ip);
+  // The password was right: this was no guess.
+  await signInSucceeded(email, address);
   return { id: row.id, sessionVersion: row.session_version };
 }
 
-export const authenticator = new Authenticator<VerifiedUser>();
-authenticator.use(new FormStrategy<VerifiedUser>(({ form, request }) => verifyCredentials(form, request)), "form");
+// remix-auth hands the strategy a copy of the request and nothing else, so the address rides in a
+// header that only authenticateSignIn writes (any copy the client sent is dropped first). The
+// authenticator is not exported: no other caller can hand it a request with a forged one.
+const ADDRESS_HEADER = "x-sparwise-signin-address";
+
+const authenticator = new Authenticator<VerifiedUser>();
+authenticator.use(
+  new FormStrategy<VerifiedUser>(({ form, request }) => verifyCredentials(form, request.headers.get(ADDRESS_HEADER) ?? "unknown")),
+  "form",
+);
+
+/** Signs in with the size-checked form; throws SignInError on any refusal. */
+export async function authenticateSignIn(request: Request, form: FormData, address: string): Promise<VerifiedUser> {
+  // FormStrategy reads the body itself: hand it the form already read, in a fresh request.
+  const body = new URLSearchParams();
+  for (const [k, v] of form) if (typeof v === "string") body.append(k, v);
+  const headers = new Headers(request.headers);
+  headers.delete("content-length");
+  headers.set("content-type", "application/x-www-form-urlencoded");
+  headers.set(ADDRESS_HEADER, address);
+  return authenticator.authenticate("form", new Request(request.url, { method: "POST", headers, body }));
+}
 
 // ---------------------------------------------------------------- the acting team
 

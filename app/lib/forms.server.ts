@@ -18,8 +18,16 @@ function plain(status: number, message: string): Response {
 }
 
 /**
+ * How much of an oversized body is read and thrown away so the client gets its 413: a server
+ * that stops reading and closes makes the client see a connection reset instead of the answer.
+ * Past this the connection is cut (server.ts refuses a declared length over it unread).
+ */
+export const DRAIN_CAP = 16 * 1024 * 1024;
+
+/**
  * Reads at most maxBytes of the body, whatever Content-Length claims (it may be absent or lie).
- * On overflow, tooBig gets the bytes read so far, so the message can name the field being sent.
+ * On overflow, tooBig gets the bytes read so far, so the message can name the field being sent;
+ * the rest is drained (kept nowhere) up to DRAIN_CAP before the answer goes out.
  */
 async function readCapped(request: Request, maxBytes: number, tooBig: (prefix: Uint8Array) => Response): Promise<Uint8Array> {
   if (!request.body) return new Uint8Array();
@@ -32,11 +40,26 @@ async function readCapped(request: Request, maxBytes: number, tooBig: (prefix: U
     total += value.byteLength;
     chunks.push(value);
     if (total > maxBytes) {
-      await reader.cancel().catch(() => undefined);
-      throw tooBig(concat(chunks, total));
+      const answer = tooBig(concat(chunks, total));
+      chunks.length = 0;
+      await drain(reader, total);
+      throw answer;
     }
   }
   return concat(chunks, total);
+}
+
+async function drain(reader: ReadableStreamDefaultReader<Uint8Array>, seen: number): Promise<void> {
+  try {
+    for (let total = seen; total <= DRAIN_CAP; ) {
+      const { done, value } = await reader.read();
+      if (done) return;
+      total += value.byteLength;
+    }
+    await reader.cancel();
+  } catch {
+    // The client went away: nothing left to answer.
+  }
 }
 
 function concat(chunks: Uint8Array[], total: number): Uint8Array {

@@ -5,7 +5,7 @@ import { hashPassword, hashToken, MIN_PASSWORD_LENGTH, newToken, normaliseEmail 
 import { appUrl, sendEmail } from "~/lib/email.server";
 import { logActivity } from "~/lib/activity.server";
 import { FieldError } from "~/lib/forms.server";
-import { clientAddress, resetMailAllowed } from "~/lib/rate-limit.server";
+import { resetMailAllowed } from "~/lib/rate-limit.server";
 
 export const RESET_TTL_MS = 60 * 60 * 1000; // one hour (issue 2)
 
@@ -39,10 +39,12 @@ let resetChain: Promise<void> = Promise.resolve();
 let resetPending = 0;
 let resetQueued = 0;
 
-/** Queues the reset e-mail for this address; returns at once, for every address alike. */
-export function requestPasswordReset(request: Request, rawEmail: string): void {
+/**
+ * Queues the reset e-mail for this address; returns at once, for every address alike. `ip` is the
+ * client's address from the load context (clientAddress(context)), for the per-client allowance.
+ */
+export function requestPasswordReset(rawEmail: string, ip: string): void {
   const email = normaliseEmail(rawEmail);
-  const ip = clientAddress(request);
   if (resetPending >= MAX_PENDING_RESET_JOBS) {
     console.error(`requestPasswordReset: ${resetPending} reset e-mails already queued; dropping one`);
     return;

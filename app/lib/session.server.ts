@@ -15,7 +15,7 @@ export interface SessionFlash {
 }
 
 const SESSION_DAYS = 14;
-let storage: ReturnType<typeof createCookieSessionStorage<SessionData, SessionFlash>> | undefined;
+let storage: { secure: boolean; value: ReturnType<typeof createCookieSessionStorage<SessionData, SessionFlash>> } | undefined;
 
 function sessionSecret(): string {
   const secret = process.env.SESSION_SECRET;
@@ -27,20 +27,34 @@ function sessionSecret(): string {
   return "sparwise-development-only-secret";
 }
 
+/**
+ * The cookie is Secure exactly when the app is reached over https (APP_URL's scheme): a browser
+ * then never sends it over plain http. Unset APP_URL means the local plain-http server, where a
+ * Secure cookie would never come back (browsers only exempt localhost).
+ */
+export function sessionCookieSecure(): boolean {
+  return /^https:/i.test((process.env.APP_URL ?? "").trim());
+}
+
 export function getSessionStorage() {
-  storage ??= createCookieSessionStorage<SessionData, SessionFlash>({
-    cookie: {
-      name: "__sparwise",
-      httpOnly: true,
-      sameSite: "lax",
-      path: "/",
-      // Off by default: the local server speaks plain http. Set SESSION_SECURE=1 behind https.
-      secure: process.env.SESSION_SECURE === "1",
-      secrets: [sessionSecret()],
-      maxAge: SESSION_DAYS * 24 * 3600,
-    },
-  });
-  return storage;
+  const secure = sessionCookieSecure();
+  if (!storage || storage.secure !== secure) {
+    storage = {
+      secure,
+      value: createCookieSessionStorage<SessionData, SessionFlash>({
+        cookie: {
+          name: "__sparwise",
+          httpOnly: true,
+          sameSite: "lax",
+          path: "/",
+          secure,
+          secrets: [sessionSecret()],
+          maxAge: SESSION_DAYS * 24 * 3600,
+        },
+      }),
+    };
+  }
+  return storage.value;
 }
 
 export function getSession(request: Request): Promise<Session<SessionData, SessionFlash>> {

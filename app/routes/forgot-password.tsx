@@ -3,6 +3,7 @@ import type { Route } from "./+types/forgot-password";
 import { Button, Field, Notice, PublicCard } from "~/components/ui";
 import { badRequest, parseForm, readForm } from "~/lib/forms.server";
 import { forgotSchema, requestPasswordReset } from "~/lib/passwords.server";
+import { clientAddress } from "~/lib/rate-limit.server";
 
 export function meta() {
   return [{ title: "Forgot your password · Sparwise" }];
@@ -15,11 +16,11 @@ export function loader() {
   return null;
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const parsed = parseForm(await readForm(request), forgotSchema);
   if (!parsed.ok) return badRequest(parsed.errors);
   // The same answer whether or not the address is known, so the form cannot reveal who has an account.
-  requestPasswordReset(request, parsed.data.email);
+  requestPasswordReset(parsed.data.email, clientAddress(context));
   return { sent: SENT_MESSAGE };
 }
 

@@ -3,6 +3,7 @@ import type { Route } from "./+types/invite.$token";
 import { Button, Field, FormError, PublicCard } from "~/components/ui";
 import { ROLE_LABELS } from "~/lib/roles";
 import { checkPassword, getUser, SignInError } from "~/lib/auth.server";
+import { clientAddress } from "~/lib/rate-limit.server";
 import { badRequest, FieldError, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
 import { commitSession, createUserSession, getSession } from "~/lib/session.server";
 import { acceptInvitation, acceptInvitationAsUser, acceptSchema, findInvitation, INVITATION_MESSAGES, joinSchema } from "~/lib/team.server";
@@ -25,7 +26,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 // Two ways in, chosen by the state of the account at the invited address at the moment of the post:
 // a newcomer chooses a name and password; an existing account accepts with its own password (or
 // signed in as that address, with a click) and is never changed by the invitation.
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action({ request, params, context }: Route.ActionArgs) {
   const form = await readForm(request);
   if (form.get("intent") === "join") {
     const parsed = parseForm(form, joinSchema);
@@ -43,7 +44,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       if (!parsed.data.password) throw new FieldError("password", `Enter the password of ${inv.email}.`);
       let verified;
       try {
-        verified = await checkPassword(inv.email, parsed.data.password, request);
+        verified = await checkPassword(inv.email, parsed.data.password, clientAddress(context));
       } catch (error) {
         if (error instanceof SignInError) throw new FieldError(error.field, error.message, error.status);
         throw error;

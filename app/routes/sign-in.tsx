@@ -1,7 +1,8 @@
 import { data, Form, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-in";
 import { Button, Field, FormError, Notice, PublicCard } from "~/components/ui";
-import { authenticator, getUser, SignInError } from "~/lib/auth.server";
+import { authenticateSignIn, getUser, SignInError } from "~/lib/auth.server";
+import { clientAddress } from "~/lib/rate-limit.server";
 import { readForm } from "~/lib/forms.server";
 import { commitSession, createUserSession, getSession, safeRedirect } from "~/lib/session.server";
 
@@ -17,20 +18,15 @@ export async function loader({ request }: Route.LoaderArgs) {
   return data({ next, notice }, { headers: notice ? { "Set-Cookie": await commitSession(session) } : undefined });
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const form = await readForm(request);
-  // remix-auth's FormStrategy reads the body itself; hand it the size-checked form in a fresh request.
-  const body = new URLSearchParams();
-  for (const [k, v] of form) if (typeof v === "string") body.append(k, v);
-  const headers = new Headers(request.headers);
-  headers.delete("content-length");
-  headers.set("content-type", "application/x-www-form-urlencoded");
   try {
-    const user = await authenticator.authenticate("form", new Request(request.url, { method: "POST", headers, body }));
+    const user = await authenticateSignIn(request, form, clientAddress(context));
     return await createUserSession(request, user, safeRedirect(form.get("next")));
   } catch (error) {
     if (error instanceof SignInError) {
-      return data({ errors: { [error.field]: error.message } as Record<string, string> }, { status: error.status });
+      const headers = error.retryAfter ? { "Retry-After": String(error.retryAfter) } : undefined;
+      return data({ errors: { [error.field]: error.message } as Record<string, string> }, { status: error.status, headers });
     }
     throw error;
   }

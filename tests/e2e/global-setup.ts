@@ -11,16 +11,22 @@ export default async function setup(project: TestProject) {
   execFileSync("bash", ["db/create-database.sh", name, "--fresh"], { stdio: "inherit" });
   // Migrations are TypeScript: run them under tsx, not in this process.
   execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { stdio: "inherit", env: { ...process.env, DB_NAME: name } });
-  // APP_URL: links in the e-mails the tests open must lead back to this server.
-  server = spawn("npx", ["react-router-serve", "./build/server/index.js"], {
+  // The production server (server.ts) as npm start runs it: node itself, in a process group of
+  // its own (detached) that the teardown stops whole.
+  const base = `http://127.0.0.1:${port}`;
+  server = spawn(process.execPath, ["--import", "tsx", "server.ts"], {
     // VITEST is blanked so the server starts its in-process sweep workers (in-process.server.ts skips them under vitest).
-    env: { ...process.env, DB_NAME: name, PORT: String(port), NODE_ENV: "production", VITEST: "", APP_URL: `http://127.0.0.1:${port}` },
+    // APP_URL is this server's own address: links in e-mails must lead back to it, not to .env's.
+    env: { ...process.env, DB_NAME: name, PORT: String(port), APP_URL: base, NODE_ENV: "production", VITEST: "" },
     stdio: ["ignore", "inherit", "inherit"],
     detached: true,
   });
-  const base = `http://127.0.0.1:${port}`;
-  const deadline = Date.now() + 60_000;
+  let exited: string | null = null;
+  server.once("exit", (code, signal) => (exited = `exited with ${signal ?? code}`));
+  const deadline = Date.now() + 90_000;
   for (;;) {
+    // Something else answering on the port is no success: our own server must be alive.
+    if (exited) throw new Error(`the app server for the browser tests ${exited} (is port ${port} taken?)`);
     try {
       const res = await fetch(`${base}/healthz`);
       if (res.ok) break;

@@ -3,7 +3,6 @@
 import { afterAll, describe, expect, test } from "vitest";
 import { closeDb, db } from "~/lib/db.server";
 import { hashPassword, requireApiUser, getUser } from "~/lib/auth.server";
-import { ACCOUNT_FAILURES, ADDRESS_FAILURES } from "~/lib/rate-limit.server";
 import * as signIn from "~/routes/sign-in";
 import * as signOut from "~/routes/sign-out";
 import * as dashboard from "~/routes/dashboard";
@@ -13,7 +12,7 @@ import * as reset from "~/routes/reset-password.$token";
 import * as invite from "~/routes/invite.$token";
 import * as admin from "~/routes/admin";
 import * as account from "~/routes/account";
-import { callRoute, cookieFor, cookieForUser, demoUser, DEMO_EMAIL, DEMO_PASSWORD, formPost, messageOf, requestAs } from "./fixtures";
+import { callRoute, cookieFor, cookieForUser, demoUser, DEMO_EMAIL, DEMO_PASSWORD, formPost, fromAddress, messageOf, requestAs } from "./fixtures";
 
 // People this file creates are removed afterwards, so other files see the demo team as seeded.
 const created = new Set<string>();
@@ -28,8 +27,8 @@ let ipSeq = 0;
 /** Each test signs in from its own address so the per-address counter of one cannot trip another. */
 const freshIp = () => `198.51.100.${++ipSeq}`; // TEST-NET-2 (RFC 5737): never a real client
 
-function signInPost(email: string, password: string, ip = freshIp(), next?: string) {
-  return formPost(null, "/sign-in", { email, password, ...(next ? { next } : {}) }, { "X-Forwarded-For": ip });
+async function signInPost(email: string, password: string, ip = freshIp(), next?: string) {
+  return fromAddress(await formPost(null, "/sign-in", { email, password, ...(next ? { next } : {}) }), ip);
 }
 
 function cookieFrom(result: { headers: Headers }): string {
@@ -106,54 +105,7 @@ describe("sign-in", () => {
   });
 });
 
-describe("rate limiting", () => {
-  test(`after ${ACCOUNT_FAILURES} failures the account is locked, even for the right password and a new address`, async () => {
-    const email = "lockout@tallowfield.example";
-    await makeUser(email, "right password here");
-    for (let i = 0; i < ACCOUNT_FAILURES; i++) {
-      const r = await callRoute(signIn.action, await signInPost(email, `wrong ${i}`));
-      expect(r.status).toBe(401);
-    }
-    const locked = await callRoute(signIn.action, await signInPost(email, "right password here"));
-    expect(locked.status).toBe(429);
-    expect(messageOf(locked)).toMatch(/Too many sign-in attempts; try again in 15 minutes/);
-    // Another account is not affected.
-    const other = await callRoute(signIn.action, await signInPost(DEMO_EMAIL.engineer2, DEMO_PASSWORD));
-    expect(other.status).toBe(302);
-  });
-
-  test("a lock expires with its window", async () => {
-    const email = "lapsed@tallowfield.example";
-    await makeUser(email, "right password here");
-    for (let i = 0; i < ACCOUNT_FAILURES; i++) await callRoute(signIn.action, await signInPost(email, "nope"));
-    expect((await callRoute(signIn.action, await signInPost(email, "right password here"))).status).toBe(429);
-    // Age every counter past its expiry, as the clock would after 15 minutes.
-    await db("login_limits").update({ expire: Date.now() - 1000 });
-    expect((await callRoute(signIn.action, await signInPost(email, "right password here"))).status).toBe(302);
-  });
-
-  test(`after ${ADDRESS_FAILURES} failures from one address, that address is locked for every account`, async () => {
-    const ip = "203.0.113.77"; // TEST-NET-3 (RFC 5737)
-    for (let i = 0; i < ADDRESS_FAILURES; i++) {
-      const r = await callRoute(signIn.action, await signInPost(`guess${i}@tallowfield.example`, "x", ip));
-      expect(r.status).toBe(401);
-    }
-    const locked = await callRoute(signIn.action, await signInPost(DEMO_EMAIL.admin, DEMO_PASSWORD, ip));
-    expect(locked.status).toBe(429);
-    expect(messageOf(locked)).toMatch(/Too many sign-in attempts; try again in \d+ minutes?/);
-    const elsewhere = await callRoute(signIn.action, await signInPost(DEMO_EMAIL.admin, DEMO_PASSWORD));
-    expect(elsewhere.status).toBe(302);
-  });
-
-  test("a success clears the account's failures", async () => {
-    const email = "forgetful@tallowfield.example";
-    await makeUser(email, "right password here");
-    for (let round = 0; round < 2; round++) {
-      for (let i = 0; i < ACCOUNT_FAILURES - 1; i++) expect((await callRoute(signIn.action, await signInPost(email, "nope"))).status).toBe(401);
-      expect((await callRoute(signIn.action, await signInPost(email, "right password here"))).status).toBe(302);
-    }
-  });
-});
+// Sign-in throttling is tested in security-server.test.ts.
 
 describe("sign-out", () => {
   test("signing out kills the cookie it was sent with and every older one", async () => {
@@ -387,7 +339,7 @@ describe("reset e-mails are rationed", () => {
     await makeUser(email, "some password here");
     const answers = [];
     for (let i = 0; i < 5; i++) {
-      const res = await callRoute(forgot.action, await formPost(null, "/forgot-password", { email }, { "X-Forwarded-For": freshIp() }));
+      const res = await callRoute(forgot.action, fromAddress(await formPost(null, "/forgot-password", { email }), freshIp()));
       await resetMailSettled(); // the reset e-mail is written off the request path
       answers.push(res.data);
     }

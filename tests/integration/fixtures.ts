@@ -53,6 +53,8 @@ export type As = DemoRole | null;
 export async function requestAs(as: As, path: string, init: RequestInit = {}): Promise<Request> {
   const headers = new Headers(init.headers);
   if (as) headers.set("Cookie", await cookieFor(as));
+  // A browser names the page's origin on every POST; the cookie API refuses requests without it.
+  if (as && init.method && init.method !== "GET" && !headers.has("Origin")) headers.set("Origin", BASE);
   return new Request(new URL(path, BASE), { ...init, headers });
 }
 
@@ -77,6 +79,16 @@ export interface RouteResult {
 
 type RouteFn = (args: { request: Request; params: Record<string, string | undefined>; context: unknown }) => unknown;
 
+// server.ts puts the socket's address in the load context; a test says which address it sends from.
+const clientAddresses = new WeakMap<Request, string>();
+/** The address this test request comes from, as the server would read it off the socket. */
+export function fromAddress<T extends Request>(request: T, address: string): T {
+  clientAddresses.set(request, address);
+  return request;
+}
+/** Requests with no address of their own share this one (TEST-NET-1, RFC 5737). */
+export const DEFAULT_TEST_ADDRESS = "192.0.2.10";
+
 async function fromResponse(res: Response): Promise<RouteResult> {
   const text = await res.text();
   let data: unknown = text;
@@ -98,7 +110,8 @@ function isDataWithInit(v: unknown): v is { type: "DataWithResponseInit"; data: 
 export async function callRoute(fn: unknown, request: Request, params: Record<string, string | undefined> = {}): Promise<RouteResult> {
   if (typeof fn !== "function") throw new Error("callRoute: the route module has no such export");
   try {
-    const out = await (fn as RouteFn)({ request, params, context: {} });
+    const context = { clientAddress: clientAddresses.get(request) ?? DEFAULT_TEST_ADDRESS };
+    const out = await (fn as RouteFn)({ request, params, context });
     return normalise(out);
   } catch (thrown) {
     if (thrown instanceof Response || isDataWithInit(thrown)) return normalise(thrown);
@@ -212,7 +225,7 @@ export class FixtureContext {
 /** Row counts of every table (minus bookkeeping), to prove a refused post wrote nothing. */
 export async function tableCounts(): Promise<Record<string, number>> {
   const [rows] = (await db.raw("SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE'")) as [{ t: string }[]];
-  const skip = new Set(["knex_migrations", "knex_migrations_lock", "login_limits"]);
+  const skip = new Set(["knex_migrations", "knex_migrations_lock", "login_limits", "signin_throttle"]);
   const out: Record<string, number> = {};
   for (const { t } of rows) {
     if (skip.has(t)) continue;

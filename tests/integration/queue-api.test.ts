@@ -31,7 +31,7 @@ async function getCands(as: As, id: string, query = "") {
   return callRoute(cands.loader, await requestAs(as, `/api/v1/sweeps/${id}/candidates${query}`), { id });
 }
 async function doCancel(as: As, id: string) {
-  return callRoute(cancel.action, await requestAs(as, `/api/v1/sweeps/${id}/cancel`, { method: "POST" }), { id });
+  return callRoute(cancel.action, await requestAs(as, `/api/v1/sweeps/${id}/cancel`, { method: "POST", headers: { "Content-Type": "application/json" } }), { id });
 }
 /** A bad request: 4xx, a message matching `names`, no row written anywhere. */
 async function rejects(run: () => Promise<{ status: number; data: unknown; error?: unknown }>, status: number, names: RegExp) {

@@ -1,24 +1,38 @@
 // Pure parts of sign-in and form handling: no database needed.
 import { describe, expect, test } from "vitest";
 import { z } from "zod";
-import { clientAddress, tooManyMessage } from "~/lib/rate-limit.server";
+import { addressBucket, clientAddress, MAX_DELAY_MS, throttleDelay, tooManyMessage } from "~/lib/rate-limit.server";
 import { formToObject, parseForm, readForm, readJson } from "~/lib/forms.server";
 import { safeRedirect } from "~/lib/session.server";
 
-const req = (headers: Record<string, string>) => new Request("http://x.test/", { headers });
-
 describe("clientAddress", () => {
-  test("takes the entry our proxy appended, not the one a client can forge", () => {
-    expect(clientAddress(req({ "X-Forwarded-For": "6.6.6.6, 198.51.100.7" }))).toBe("198.51.100.7");
-    expect(clientAddress(req({ "X-Forwarded-For": "198.51.100.8" }))).toBe("198.51.100.8");
-    expect(clientAddress(req({}))).toBe("direct");
+  test("comes from the load context the server fills from the socket, never from a request header", () => {
+    expect(clientAddress({ clientAddress: "198.51.100.7" })).toBe("198.51.100.7");
+    expect(clientAddress({})).toBe("unknown");
+    expect(clientAddress(undefined)).toBe("unknown");
+  });
+
+  test("an IPv4-mapped address counts as its IPv4; IPv6 counts by its /64", () => {
+    expect(addressBucket("::ffff:203.0.113.9")).toBe("203.0.113.9");
+    expect(addressBucket("2001:db8:1:2:aaaa:bbbb:cccc:dddd")).toBe("2001:db8:1:2::/64");
+    expect(addressBucket("2001:db8:1:2::1")).toBe("2001:db8:1:2::/64");
+    expect(addressBucket("2001:db8::")).toBe("2001:db8:0:0::/64");
+    expect(addressBucket("::1")).toBe("0:0:0:0::/64");
   });
 });
 
-test("the lock-out message rounds up to whole minutes", () => {
+test("the wait message counts seconds, then whole minutes", () => {
   expect(tooManyMessage(15 * 60_000)).toBe("Too many sign-in attempts; try again in 15 minutes.");
-  expect(tooManyMessage(61_000)).toBe("Too many sign-in attempts; try again in 2 minutes.");
-  expect(tooManyMessage(5_000)).toBe("Too many sign-in attempts; try again in 1 minute.");
+  expect(tooManyMessage(61_000)).toBe("Too many sign-in attempts; try again in 61 seconds.");
+  expect(tooManyMessage(1_000)).toBe("Too many sign-in attempts; try again in 1 second.");
+  expect(tooManyMessage(95_000)).toBe("Too many sign-in attempts; try again in 2 minutes.");
+});
+
+test("the hold doubles after the free failures and stops at the cap", () => {
+  expect([1, 2, 3, 4, 5, 6, 7, 8].map((n) => throttleDelay(n, 5))).toEqual([0, 0, 0, 0, 0, 1000, 2000, 4000]);
+  expect(throttleDelay(5 + 10, 5)).toBe(512_000);
+  expect(throttleDelay(5 + 11, 5)).toBe(MAX_DELAY_MS);
+  expect(throttleDelay(10_000, 5)).toBe(MAX_DELAY_MS);
 });
 
 test("safeRedirect keeps only same-site paths", () => {
