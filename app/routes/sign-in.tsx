@@ -10,6 +10,12 @@ export function meta() {
   return [{ title: "Sign in · Sparwise" }];
 }
 
+// A document request only carries an action's headers through this export: the 429's Retry-After.
+export function headers({ actionHeaders }: Route.HeadersArgs) {
+  const retryAfter = actionHeaders.get("Retry-After");
+  return retryAfter ? { "Retry-After": retryAfter } : new Headers();
+}
+
 export async function loader({ request }: Route.LoaderArgs) {
   const next = safeRedirect(new URL(request.url).searchParams.get("next"));
   if (await getUser(request)) throw redirect(next);
