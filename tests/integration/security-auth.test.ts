@@ -21,7 +21,7 @@ import * as sweepPage from "~/routes/sweeps.$sweepId";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
 import { CHANNEL_PROBLEM } from "./workflow-fixtures";
 import { appBaseUrl, DEV_APP_URL } from "~/lib/email.server";
-import { callRoute, cookieForUser, type RouteResult } from "./fixtures";
+import { callRoute, cookieForUser, fromAddress, type RouteResult } from "./fixtures";
 
 const BASE = "http://sparwise.test";
 const SLUG_B = "security-auth-team-b";
@@ -63,9 +63,10 @@ let ipSeq = 0;
 const freshIp = () => `203.0.113.${++ipSeq}`; // TEST-NET-3 (RFC 5737)
 
 async function post(cookie: string | null, path: string, fields: Record<string, string>): Promise<Request> {
-  const headers = new Headers({ "Content-Type": "application/x-www-form-urlencoded", "X-Forwarded-For": freshIp() });
+  const headers = new Headers({ "Content-Type": "application/x-www-form-urlencoded" });
   if (cookie) headers.set("Cookie", cookie);
-  return new Request(new URL(path, BASE), { method: "POST", headers, body: new URLSearchParams(fields) });
+  // Each from its own client address (the server reads it off the socket, not from a header).
+  return fromAddress(new Request(new URL(path, BASE), { method: "POST", headers, body: new URLSearchParams(fields) }), freshIp());
 }
 
 function get(cookie: string | null, path: string): Request {
@@ -207,9 +208,9 @@ describe("2. links in e-mail come from APP_URL only", () => {
   const hostile = { Host: "evil.example", "X-Forwarded-Host": "evil.example", "X-Forwarded-Proto": "https" };
 
   async function hostilePost(cookie: string | null, path: string, fields: Record<string, string>): Promise<Request> {
-    const headers = new Headers({ "Content-Type": "application/x-www-form-urlencoded", "X-Forwarded-For": freshIp(), ...hostile });
+    const headers = new Headers({ "Content-Type": "application/x-www-form-urlencoded", ...hostile });
     if (cookie) headers.set("Cookie", cookie);
-    return new Request(new URL(path, "http://evil.example"), { method: "POST", headers, body: new URLSearchParams(fields) });
+    return fromAddress(new Request(new URL(path, "http://evil.example"), { method: "POST", headers, body: new URLSearchParams(fields) }), freshIp());
   }
 
   test("a reset requested with a forged Host mails a link to APP_URL, not to the forged host", async () => {
