@@ -30,11 +30,11 @@ export const accountActionSchema = z.discriminatedUnion(
  * Changes the signed-in user's password after checking the current one (with the sign-in
  * throttle, so this form cannot be used to guess it). Every session and API token dies, as after
  * a reset — whoever knew the old password is cut off; the caller re-issues its own cookie with
- * the returned session_version.
+ * the returned session_version. `address` is the client's (clientAddress(context)).
  */
-export async function changePassword(request: Request, user: SessionUser, current: string, password: string): Promise<number> {
+export async function changePassword(address: string, user: SessionUser, current: string, password: string): Promise<number> {
   try {
-    await checkPassword(user.email, current, request);
+    await checkPassword(user.email, current, address);
   } catch (error) {
     if (error instanceof SignInError) {
       if (error.status === 429) throw new FieldError("form", error.message, 429);

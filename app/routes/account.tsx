@@ -3,6 +3,7 @@ import type { Route } from "./+types/account";
 import { Button, Field, FormError, Notice } from "~/components/ui";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/lib/api-tokens.server";
 import { accountActionSchema, changePassword } from "~/lib/account.server";
+import { clientAddress } from "~/lib/rate-limit.server";
 import { chooseTeam, MIN_PASSWORD_LENGTH, requireUser, signOut } from "~/lib/auth.server";
 import { commitSession, getSession } from "~/lib/session.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
@@ -17,7 +18,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   return { user, tokens: await listApiTokens(user), minPasswordLength: MIN_PASSWORD_LENGTH };
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const user = await requireUser(request);
   const parsed = parseForm(await readForm(request), accountActionSchema);
   if (!parsed.ok) return badRequest(parsed.errors);
@@ -30,7 +31,7 @@ export async function action({ request }: Route.ActionArgs) {
     }
     if (input.intent === "signOutEverywhere") return signOut(request);
     if (input.intent === "changePassword") {
-      const sv = await changePassword(request, user, input.current, input.password);
+      const sv = await changePassword(clientAddress(context), user, input.current, input.password);
       // This browser stays signed in: its cookie is re-issued with the new session_version.
       const session = await getSession(request);
       session.set("sv", sv);
