@@ -155,10 +155,19 @@ describe("headers on every response (item 9)", () => {
       await page.waitForFunction(() => document.body.innerText.includes("mm⁴"), undefined, { timeout: 30_000 });
       await collect();
 
-      // A finished sweep's page draws its chart (SVG with style attributes).
+      // A finished sweep with results draws its chart (SVG with style attributes): the demo's oldest.
       const api = await page.request.get(`${base()}/api/v1/sweeps`);
-      const done = ((await api.json()) as { items: { id: number; status: string }[] }).items.find((s) => s.status === "succeeded")!;
-      await page.goto(`${base()}/sweeps/${done.id}`);
+      const items = ((await api.json()) as { items: { id: number; status: string }[] }).items;
+      let withResults: number | undefined;
+      for (const s of [...items].reverse().filter((s) => s.status === "succeeded")) {
+        const one = (await (await page.request.get(`${base()}/api/v1/sweeps/${s.id}`)).json()) as { best: unknown };
+        if (one.best) {
+          withResults = s.id;
+          break;
+        }
+      }
+      expect(withResults).toBeDefined();
+      await page.goto(`${base()}/sweeps/${withResults}`);
       await page.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 60_000 });
       await collect();
 
