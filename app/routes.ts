@@ -48,4 +48,5 @@ export default [
   route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
   // Candidate downloads
   route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
+  route("options/:optionId/section.svg", "routes/options.$optionId.section[.]svg.ts"),
 ] satisfies RouteConfig;

@@ -109,6 +109,9 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           <Link to={`/options/${option.id}/record`} className="rounded-md bg-accent px-3 py-1.5 text-sm font-semibold text-white">
             Calculation record
           </Link>
+          <a href={`/options/${option.id}/section.svg`} download className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold">
+            Section drawing (SVG)
+          </a>
           {may.recheck ? (
             <Link to={`/sweeps/${option.sweepId}/recheck`} className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold">
               Recheck with altered limits

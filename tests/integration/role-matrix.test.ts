@@ -119,6 +119,7 @@ export const ROWS: Record<string, MatrixRow> = {
   "/sweeps/:sweepId/candidates.csv": { params: wf("sweepId"), foreign: wfForeign("sweepId"), get: members(200) },
   "/options/:optionId": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200), post: members(400) },
   "/options/:optionId/record": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
+  "/options/:optionId/section.svg": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
   "/stock-lists": { get: members(200), post: permitted("editBrief", 400) },
 };
 
