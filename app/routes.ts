@@ -28,6 +28,7 @@ export default [
     route("projects", "routes/projects.tsx"),
     route("projects/new", "routes/projects.new.tsx"),
     route("projects/:projectId", "routes/projects.$projectId.tsx"),
+    route("projects/:projectId/schedule", "routes/projects.$projectId.schedule.tsx"),
     route("projects/:projectId/briefs/new", "routes/projects.$projectId.briefs.new.tsx"),
     route("briefs/:briefId", "routes/briefs.$briefId.tsx"),
     route("sweeps/:sweepId", "routes/sweeps.$sweepId.tsx"),
@@ -48,5 +49,6 @@ export default [
   route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
   // Candidate downloads
   route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
+  route("projects/:projectId/schedule.csv", "routes/projects.$projectId.schedule[.]csv.ts"),
   route("options/:optionId/section.svg", "routes/options.$optionId.section[.]svg.ts"),
 ] satisfies RouteConfig;

@@ -111,6 +111,11 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
           </h1>
           {project.client ? <p className="text-ink/80">Client: {project.client}</p> : null}
           {project.description ? <p className="mt-1 max-w-2xl text-sm">{project.description}</p> : null}
+          <p className="mt-1 text-sm">
+            <Link to={`/projects/${project.id}/schedule`} className="text-accent underline">
+              Member schedule
+            </Link>
+          </p>
         </div>
         {may.brief && !project.archived ? (
           <Link to={`/projects/${project.id}/briefs/new`} className="rounded-md bg-accent px-4 py-2 text-sm font-semibold text-white">

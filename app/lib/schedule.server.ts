@@ -1,0 +1,77 @@
+// The project's member schedule: every saved option with its mark, section, mass and quantity,
+// for the printable page and the CSV download.
+//
+// Choices (spec silent): briefs carry no member mark column, so the mark is the brief's name
+// (else "Option N"); length and count are the ones the option's sweep ran for (a recheck may
+// alter them), else the brief's — the same rule getOption uses; the weld throat is the engine's
+// EN 1993 design.weld.a (null under the allowable-stress basis or with no welds).
+import Papa from "papaparse";
+import { db, parseJson } from "~/lib/db.server";
+import { familyLabel } from "~/lib/labels";
+import type { ReviewState, SavedCandidate } from "~/lib/options.server";
+import { candidateChecks } from "~/optimizer";
+import type { SearchProblem } from "~/optimizer/search-schema";
+
+export interface ScheduleRow {
+  optionId: number;
+  mark: string;
+  family: string;
+  section: string;
+  massPerMetre: number;
+  lengthM: number | null;
+  count: number | null;
+  /** kg; null when length or count is unknown */
+  totalMass: number | null;
+  weldThroat: number | null;
+  reviewState: ReviewState;
+}
+
+export function sectionDescription(c: Pick<SavedCandidate, "family" | "dimensions">): string {
+  const dims = Object.entries(c.dimensions).map(([k, v]) => `${k} ${v}`);
+  return `${familyLabel(c.family)} ${dims.join(" × ")} mm`;
+}
+
+export async function projectSchedule(projectId: number): Promise<ScheduleRow[]> {
+  const rows = await db("options as o")
+    .leftJoin("briefs as b", "b.id", "o.brief_id")
+    .leftJoin("sweeps as s", "s.id", "o.sweep_id")
+    .where("o.project_id", projectId)
+    .orderBy("o.id")
+    .select("o.id", "o.candidate", "o.problem", "o.review_state", "b.name as brief_name", "b.member_length_m", "b.member_count", "s.member_length_m as sweep_member_length_m", "s.member_count as sweep_member_count");
+  return rows.map((r: Record<string, unknown>) => {
+    const c = parseJson<SavedCandidate>(r.candidate);
+    const problem = parseJson<SearchProblem>(r.problem);
+    const lengthM = (r.sweep_member_length_m as number | null) ?? (r.member_length_m as number | null) ?? null;
+    const count = (r.sweep_member_count as number | null) ?? (r.member_count as number | null) ?? null;
+    let weldThroat: number | null = null;
+    try {
+      weldThroat = candidateChecks(c.family, c.dimensions, problem).design?.weld?.a ?? null;
+    } catch {
+      // a saved section the engine no longer accepts: the schedule still lists it, without a throat
+    }
+    return {
+      optionId: r.id as number,
+      mark: (r.brief_name as string | null) || `Option ${r.id}`,
+      family: c.family,
+      section: sectionDescription(c),
+      massPerMetre: c.massPerMetre,
+      lengthM,
+      count,
+      totalMass: lengthM != null && count != null ? c.massPerMetre * lengthM * count : null,
+      weldThroat,
+      reviewState: r.review_state as ReviewState,
+    };
+  });
+}
+
+export const SCHEDULE_CSV_FIELDS = ["option", "mark", "section", "mass_kg_per_m", "length_m", "count", "total_mass_kg", "weld_throat_mm", "review_state"] as const;
+
+export function scheduleCsv(rows: ScheduleRow[]): string {
+  const blank = (x: number | null) => (x == null ? "" : x);
+  return (
+    Papa.unparse({
+      fields: [...SCHEDULE_CSV_FIELDS],
+      data: rows.map((r) => [r.optionId, r.mark, r.section, r.massPerMetre, blank(r.lengthM), blank(r.count), blank(r.totalMass), blank(r.weldThroat), r.reviewState]),
+    }) + "\n"
+  );
+}

@@ -1,0 +1,59 @@
+// The member schedule: quantities and totals against a hand calculation, the CSV's columns and
+// units, and the download through its route (team-scoped).
+import { afterAll, describe, expect, test } from "vitest";
+import Papa from "papaparse";
+import { closeDb, db } from "~/lib/db.server";
+import { projectSchedule, scheduleCsv, SCHEDULE_CSV_FIELDS } from "~/lib/schedule.server";
+import { CHANNEL_PROBLEM } from "./workflow-fixtures";
+import { callRoute, FixtureContext, loadRouteModule, requestAs } from "./fixtures";
+
+afterAll(() => closeDb());
+const ctx = new FixtureContext();
+
+async function scheduleFixture() {
+  const teamId = await ctx.teamId();
+  const engineer = await ctx.user("engineer");
+  const [projectId] = await db("projects").insert({ team_id: teamId, name: "Schedule fixture shed", created_by: engineer.id });
+  const [briefId] = await db("briefs").insert({ project_id: projectId, name: "B1 roof beam", problem: JSON.stringify(CHANNEL_PROBLEM), units: "si", member_length_m: 6, member_count: 4, created_by: engineer.id });
+  const cand = (massPerMetre: number) => JSON.stringify({ family: "channel", dimensions: { d: 300, b: 100, tf: 10, tw: 8 }, area: 1, massPerMetre, utilisation: 0.5, governing: "shear", rank: 1 });
+  const [a] = await db("options").insert({ project_id: projectId, brief_id: briefId, candidate: cand(42.5), problem: JSON.stringify(CHANNEL_PROBLEM), review_state: "approved", created_by: engineer.id });
+  const [b] = await db("options").insert({ project_id: projectId, candidate: cand(30), problem: JSON.stringify(CHANNEL_PROBLEM), created_by: engineer.id });
+  return { projectId: Number(projectId), a: Number(a), b: Number(b) };
+}
+
+describe("member schedule", () => {
+  test("mark, quantity and total mass by hand; an option without a brief has no total", async () => {
+    const f = await scheduleFixture();
+    const rows = await projectSchedule(f.projectId);
+    expect(rows.map((r) => r.optionId)).toEqual([f.a, f.b]);
+    const [ra, rb] = rows;
+    expect(ra.mark).toBe("B1 roof beam");
+    expect(ra.section).toBe("Channel d 300 × b 100 × tf 10 × tw 8 mm");
+    // total = 42.5 kg/m × 6 m × 4 = 1020 kg (hand calculation)
+    expect(ra.totalMass).toBeCloseTo(1020, 9);
+    expect(ra.reviewState).toBe("approved");
+    expect(rb.mark).toBe(`Option ${f.b}`);
+    expect(rb.totalMass).toBeNull();
+
+    const parsed = Papa.parse<string[]>(scheduleCsv(rows).trim());
+    expect(parsed.data[0]).toEqual([...SCHEDULE_CSV_FIELDS]);
+    // every quantity column names its unit
+    for (const h of ["mass_kg_per_m", "length_m", "total_mass_kg", "weld_throat_mm"]) expect(parsed.data[0]).toContain(h);
+    const row = Object.fromEntries(parsed.data[0].map((h, i) => [h, parsed.data[1][i]]));
+    expect(Number(row.total_mass_kg)).toBeCloseTo(1020, 9);
+    expect(row.length_m).toBe("6");
+    expect(row.count).toBe("4");
+    expect(parsed.data[2][parsed.data[0].indexOf("total_mass_kg")]).toBe("");
+  });
+
+  test("the CSV route answers the viewer with the same rows, and another team gets 404", async () => {
+    const f = await scheduleFixture();
+    const mod = await loadRouteModule("routes/projects.$projectId.schedule[.]csv.ts");
+    const res = await callRoute(mod.loader, await requestAs("viewer", `/projects/${f.projectId}/schedule.csv`), { projectId: String(f.projectId) });
+    expect(res.status).toBe(200);
+    const { otherTeam } = { otherTeam: await ctx.otherTeam() };
+    const [foreign] = await db("projects").insert({ team_id: otherTeam.teamId, name: "Foreign", created_by: otherTeam.adminId });
+    const res2 = await callRoute(mod.loader, await requestAs("viewer", `/projects/${foreign}/schedule.csv`), { projectId: String(foreign) });
+    expect(res2.status).toBe(404);
+  });
+});
