@@ -27,7 +27,8 @@ export function governingLtb(d: DesignBlock): LtbDesign | null {
   return d.ltb.reduce((a, b) => (b.MEd / b.MbRd > a.MEd / a.MbRd ? b : a));
 }
 
-export function designRow(v: CandidateVerdict): DesignRow | null {
+/** From a verdict (candidateChecks) or a search candidate, which carry the same design block and checks. */
+export function designRow(v: Pick<CandidateVerdict, "design" | "checks" | "governing">): DesignRow | null {
   const d = v.design;
   if (!d) return null;
   const l = governingLtb(d);

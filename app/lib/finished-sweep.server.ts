@@ -24,7 +24,7 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
   // and the restraint study a queued EN 1993 sweep stores with its results
   const study = studyApplies(problem) ? await sweepRestraintStudy(problem) : null;
   const ms = Date.now() - t0;
-  const rows = candidatesToStore(result, problem.objective);
+  const rows = candidatesToStore(result, problem.objective, problem);
   return knex.transaction(async (trx) => {
     const [id] = await trx("sweeps").insert({
       team_id: input.teamId,

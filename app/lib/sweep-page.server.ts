@@ -41,17 +41,22 @@ export const toChartCandidate = (c: CandidateRow): ChartCandidate => ({
 
 /**
  * Under the EN 1993 basis, each row with the engine's design figures (class, Mcr, χLT,
- * resistances, weld throat) from candidateChecks, the one evaluation the search itself ran,
- * worked out on the engine thread; under the allowable basis, none.
+ * resistances, weld throat): the ones the sweep stored with its results (candidates.design);
+ * rows stored before that column get them from candidateChecks, the one evaluation the search
+ * itself ran, worked out on the engine thread. Under the allowable basis, none.
  */
-export async function withDesign<T extends { family: string; dimensions: Record<string, number> }>(rows: T[], problem: SearchProblem): Promise<(T & { design: DesignRow | null })[]> {
+export async function withDesign<T extends { family: string; dimensions: Record<string, number>; design?: DesignRow | null }>(rows: T[], problem: SearchProblem): Promise<(T & { design: DesignRow | null })[]> {
   if (problem.basis !== "en1993" || rows.length === 0) return rows.map((r) => ({ ...r, design: null }));
-  const design = await runOnEngineThread(
-    "designRows",
-    problem,
-    rows.map((r) => ({ family: r.family, dimensions: r.dimensions })),
-  );
-  return rows.map((r, i) => ({ ...r, design: design[i] ?? null }));
+  const missing = rows.flatMap((r, i) => (r.design ? [] : [i]));
+  const computed = missing.length
+    ? await runOnEngineThread(
+        "designRows",
+        problem,
+        missing.map((i) => ({ family: rows[i].family, dimensions: rows[i].dimensions })),
+      )
+    : [];
+  const byRow = new Map(missing.map((i, k) => [i, computed[k] ?? null]));
+  return rows.map((r, i) => ({ ...r, design: r.design ?? byRow.get(i) ?? null }));
 }
 
 /** Every stored candidate, rank order (the CSV export; never the page). */
@@ -59,7 +64,7 @@ export async function sweepCandidates(sweepId: number, problem?: SearchProblem):
   const out: ChartCandidate[] = [];
   for (let page = 1; out.length < MAX_EXPORT_CANDIDATES; page++) {
     const r = await listCandidates(sweepId, { page, pageSize: 500, sort: "rank" });
-    const rows = r.items.map(toChartCandidate);
+    const rows = r.items.map((c) => ({ ...toChartCandidate(c), design: c.design }));
     out.push(...(problem ? await withDesign(rows, problem) : rows));
     if (r.items.length < 500) break;
   }
@@ -108,6 +113,7 @@ export async function chartSample(sweepId: number): Promise<ChartSample> {
       governing: String(r.governing),
       onFront: !!r.on_front,
       familyBest: !!r.family_best,
+      design: null, // the chart draws no design figures
     }),
   );
   return { points, stored: Number(rows[0]?.n ?? 0), front: Number(rows[0]?.front_n ?? 0) };

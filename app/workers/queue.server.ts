@@ -26,6 +26,8 @@ import { gridCostProblem, timedOutReason } from "./sweep-budget";
 import type { ProgressUnit } from "./sweep-search.server";
 import { notify } from "~/lib/notifications.server";
 import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
+import { designRow, type DesignRow } from "~/lib/design-summary";
+import { candidateChecks } from "~/optimizer/checks";
 
 export type SweepStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled" | "timed_out";
 export const TERMINAL: ReadonlySet<SweepStatus> = new Set(["succeeded", "failed", "cancelled", "timed_out"]);
@@ -403,7 +405,7 @@ async function lockHeld(trx: Knex.Transaction, claim: Pick<Claim, "id" | "token"
  * utilisation, with the overall best always rank 1. The front is capped at STORED_FRONT_CAP rows
  * (lightest first) so one pathological sweep cannot write an unbounded number of rows.
  */
-export function candidatesToStore(result: SearchResult, objective: "mass" | "cost") {
+export function candidatesToStore(result: SearchResult, objective: "mass" | "cost", problem?: SearchProblem) {
   const keyOf = (c: SearchPoint) => `${c.family}|${JSON.stringify(c.dimensions)}`;
   const familyBest = new Set<string>();
   for (const c of Object.values(result.bestByFamily)) if (c) familyBest.add(keyOf(c));
@@ -429,7 +431,23 @@ export function candidatesToStore(result: SearchResult, objective: "mass" | "cos
     governing: c.governing,
     on_front: front.has(keyOf(c)),
     family_best: familyBest.has(keyOf(c)),
+    design: problem?.basis === "en1993" ? storedDesign(c, problem) : null,
   }));
+}
+
+/**
+ * An EN 1993 row's design figures (lib/design-summary.ts), stored so no page view re-runs the
+ * checks. The best and family bests carry the search's design block; front points are light, so
+ * theirs comes from candidateChecks, the evaluation the search itself ran (≈ 50 µs each, once per
+ * sweep, before the results transaction).
+ */
+function storedDesign(c: SearchPoint & { design?: SearchCandidate["design"]; checks?: SearchCandidate["checks"] }, problem: SearchProblem): string | null {
+  try {
+    const row = c.design && c.checks ? designRow({ design: c.design, checks: c.checks, governing: c.governing }) : designRow(candidateChecks(c.family, c.dimensions, problem));
+    return row ? JSON.stringify(row) : null;
+  } catch {
+    return null;
+  }
 }
 
 /**
@@ -453,7 +471,7 @@ export async function finishSweep(
   budgetMs = 0,
   progress?: { done: number; total: number; unit?: ProgressUnit },
 ): Promise<boolean> {
-  const rows = candidatesToStore(result, claim.problem.objective);
+  const rows = candidatesToStore(result, claim.problem.objective, claim.problem);
   const timedOut = result.stoppedEarly === true;
   const reason = timedOut ? timedOutReason(claim.problem, result.best, budgetMs) : (result.reason ?? null);
   const notice = await db.transaction(async (trx) => {
@@ -726,6 +744,8 @@ export interface CandidateRow {
   governing: string;
   onFront: boolean;
   familyBest: boolean;
+  /** EN 1993 sweeps: the design figures stored with the row (null under the allowable basis) */
+  design: DesignRow | null;
 }
 
 export async function listCandidates(
@@ -749,7 +769,7 @@ export async function listCandidates(
     ])
     .limit(pageSize)
     .offset((page - 1) * pageSize)
-    .select("rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best");
+    .select("rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "design");
   return {
     total: Number(n),
     page,
@@ -765,6 +785,7 @@ export async function listCandidates(
       governing: r.governing,
       onFront: !!r.on_front,
       familyBest: !!r.family_best,
+      design: r.design ? parseJson<DesignRow>(r.design) : null,
     })),
   };
 }

@@ -68,6 +68,11 @@ describe("EN 1993 brief → sweep → results", () => {
     expect(best.design!.chiLT).toBeLessThanOrEqual(1);
     expect(best.design!.weldThroat).toBeGreaterThanOrEqual(3); // at least 3 mm (member-checks.md §2, welds)
     expect(String(best.design!.governingClause)).toMatch(/EN 1993/);
+    // Stored with the results (candidates.design), front points included: no page view re-runs the checks.
+    const stored = await db("candidates").where({ sweep_id: sweepId }).select("rank", "design");
+    expect(stored.length).toBeGreaterThan(1);
+    for (const r of stored) expect(parseJson<{ sectionClass: number }>(r.design).sectionClass).toBeGreaterThanOrEqual(1);
+    expect(data.candidates.every((c) => c.design !== null)).toBe(true);
     const c1 = await db("candidates").where({ sweep_id: sweepId, rank: 1 }).first();
     const verdict = buildRecord(c1.family, parseJson(c1.dimensions), problem).verdict;
     const l = verdict.design!.ltb!.reduce((a, b) => (b.MEd / b.MbRd > a.MEd / a.MbRd ? b : a));
