@@ -101,7 +101,11 @@ export class Front {
     if (!ok) return;
     const it = this.items;
     let pos = at;
-    while (pos < it.length && it[pos].objective === c.objective && it[pos].utilisation <= c.utilisation) pos++;
+    while (pos < it.length && it[pos].objective === c.objective && it[pos].utilisation <= c.utilisation) {
+      // the same candidate offered again (a search that already knew it): keep one
+      if (it[pos].utilisation === c.utilisation && it[pos].fi === c.fi && it[pos].v.every((x, i) => x === c.v[i])) return;
+      pos++;
+    }
     // members strictly heavier and strictly more utilised are now beaten
     let j = pos;
     while (j < it.length && it[j].objective === c.objective) j++;

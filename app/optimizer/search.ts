@@ -140,7 +140,7 @@ import { bruteForceSearch } from "./brute-force";
 import * as fkm from "./family-kernel";
 import type { FamilyKernel } from "./family-kernel";
 import type { RawCandidate } from "./front";
-import { ABORT_EVERY, Tally, buildResult, checkAbort, offerFeasible, prepare, type PreparedFamily, type SearchOptions, type SearchResult } from "./grid";
+import { ABORT_EVERY, Tally, buildResult, checkAbort, offerFeasible, prepare, type Prepared, type PreparedFamily, type SearchOptions, type SearchPoint, type SearchResult } from "./grid";
 import { searchProblemSchema, type SearchProblemInput } from "./search-schema";
 import * as en1993 from "./basis/en1993";
 import type { En1993Context, En1993Scratch } from "./basis/en1993";
@@ -1622,14 +1622,54 @@ class FamilySearch {
   }
 }
 
+/**
+ * Evaluates known candidates and offers the feasible ones (the same evaluation as the search).
+ * Only shapes of the grid count: a family in the problem, each dimension on its axis (the width
+ * and depth grids are exact products, so a grid value compares equal), valid geometry.
+ */
+function offerKnown(p: Prepared, t: Tally, known: readonly SearchPoint[], gridMode: boolean): void {
+  if (known.length === 0) return;
+  const s = new Scratch();
+  for (const c of known) {
+    const pf = p.families.find((f) => f.fk.family === c.family);
+    if (!pf) continue;
+    const fk = pf.fk;
+    const v = Float64Array.from(fk.dims, (d) => c.dimensions[d]);
+    let onGrid = true;
+    let di = -1;
+    for (let i = 0; i < v.length && onGrid; i++) {
+      const j = pf.axes[i].indexOf(v[i]);
+      if (j < 0) onGrid = false;
+      if (fk.roles[i] === "depth") di = j;
+    }
+    if (!onGrid || !fk.groupValid(v) || !(v[fk.free] > fk.freeMin(v)) || (fk.second >= 0 && !(v[fk.second] > fk.secondMin(v)))) continue;
+    t.evaluated++;
+    if (!evaluate(fk, v, p.ctx, s, false)) continue;
+    offerFeasible(t, { fi: pf.fi, fk, v, objective: s.objective, area: s.area, utilisation: s.utilisation, governing: s.governing }, gridMode ? di : -1);
+  }
+}
+
 /** The exact search. Throws a ZodError (fields named) on a bad problem. */
 export function searchSections(input: SearchProblemInput, options: SearchOptions = {}): SearchResult {
+  return searchWithKnown(input, options, []);
+}
+
+/**
+ * The exact search, first evaluating `known` candidates of the same grid (each family's dimensions
+ * by name): the feasible ones become incumbents before the search starts. The answer is the same
+ * (a grid candidate only ever lowers an incumbent to a value the search would reach anyway, and
+ * ties still pop within the 1e-9 margin), found sooner when a known candidate is near the best:
+ * the restraint study (restraint-study.ts) passes each spacing's bests to the next, finer one.
+ */
+export function searchWithKnown(input: SearchProblemInput, options: SearchOptions, known: readonly SearchPoint[]): SearchResult {
   if (options.exhaustive) return bruteForceSearch(input, options);
   const problem = searchProblemSchema.parse(input);
   const p = prepare(problem, options.depthIndexRange);
   const explore = Math.max(0, options.explore ?? 0);
   const gridMode = (options.front ?? (explore > 0 ? "evaluated" : "grid")) === "grid";
   const t = new Tally(p.families.length, gridMode ? p.depths.length : 0, options.stopWhen);
+  // (best mode only: in grid mode every point of the front is evaluated in its turn anyway)
+  if (!gridMode) offerKnown(p, t, known, gridMode);
   const shared = gridMode ? new Heap() : null;
   const fams = p.families.map((pf) => new FamilySearch(pf, p.ctx, t, shared ?? new Heap(), gridMode, gridMode ? 0 : explore));
   checkAbort(options.signal);

@@ -12,33 +12,32 @@
 // on cancel (a synchronous search cannot read messages while it runs).
 import { isMainThread, parentPort, workerData } from "node:worker_threads";
 import * as Comlink from "comlink";
-import { searchProblemSchema, searchSections, type SearchProblemInput } from "../optimizer/index";
+import { restraintStudy, searchProblemSchema, type SearchProblemInput } from "../optimizer/index";
 import { STUDY_SEGMENTS, studyApplies, type RestraintStudy, type StudyPoint } from "../lib/restraint-study";
 import { nodeEndpoint, spawnThread } from "./thread-spawn";
 
 const KIND = "sparwise-study-thread";
 
 /**
- * The lightest section at each restraint spacing L/k, k = 1 … 6: the brief itself with only
- * restraint.length changed, searched exactly (the engine's `best`). Runs on the thread.
+ * The lightest section at each restraint spacing L/k, k = 1 … 6: the engine's restraintStudy
+ * (each spacing the exact search of the brief with only restraint.length changed). Runs on the thread.
  */
 export function restraintStudyJob(input: SearchProblemInput): RestraintStudy {
   const problem = searchProblemSchema.parse(input);
   if (!studyApplies(problem)) throw new Error("the restraint study needs an EN 1993 brief with a restraint length");
-  const L = problem.restraint!.length;
   const t0 = Date.now();
-  const points: StudyPoint[] = STUDY_SEGMENTS.map((k) => {
-    const r = searchSections({ ...problem, restraint: { ...problem.restraint!, length: L / k } });
-    const b = r.best;
+  const study = restraintStudy(problem, { divisions: STUDY_SEGMENTS.length });
+  const points: StudyPoint[] = study.points.map((q) => {
+    const b = q.best;
     const point: StudyPoint = {
-      restraints: k - 1,
-      lengthM: L / k,
+      restraints: q.intermediateRestraints,
+      lengthM: q.spacing,
       best: b ? { family: b.family, dimensions: b.dimensions, massPerMetre: b.massPerMetre, utilisation: b.utilisation, governing: b.governing, ...(b.cost !== undefined ? { cost: b.cost } : {}) } : null,
     };
-    if (!b && r.reason) point.reason = r.reason;
+    if (!b && q.reason) point.reason = q.reason;
     return point;
   });
-  return { lengthM: L, points, elapsedMs: Date.now() - t0 };
+  return { lengthM: study.length, points, elapsedMs: Date.now() - t0 };
 }
 
 const api = { study: restraintStudyJob };

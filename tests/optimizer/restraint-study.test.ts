@@ -1,0 +1,89 @@
+// The engine's restraint study (restraint-study.ts, member-checks.md §3): each spacing's answer is
+// the exact search of the brief at that spacing (brute force on small grids), more restraints
+// never make the lightest section heavier, and bad requests name their field.
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { bruteForceSearch } from "~/optimizer/brute-force";
+import { EngineInputError } from "~/optimizer/errors";
+import type { Family } from "~/optimizer/geometry";
+import { restraintStudy } from "~/optimizer/restraint-study";
+import { searchSections } from "~/optimizer/search";
+import { CONTRACT_EXAMPLE_PROBLEM, type SearchProblemInput } from "~/optimizer/search-schema";
+import { en1993Arb } from "./search-arbitraries";
+
+const RUNS = Number(process.env.SEARCH_PROPERTY_RUNS ?? 0) || undefined;
+const dims = (c: { family: string; dimensions: Record<string, number> } | null | undefined) => (c ? `${c.family} ${JSON.stringify(c.dimensions)}` : "none");
+
+const withRestraint = en1993Arb.filter((p) => p.restraint !== undefined);
+
+describe("restraint study against independent searches", () => {
+  it("every spacing's best and bests per family equal brute force at that spacing; lighter (or equal) with more restraints", () => {
+    fc.assert(
+      fc.property(withRestraint, fc.integer({ min: 1, max: 6 }), (p, divisions) => {
+        const study = restraintStudy(p, { divisions });
+        expect(study.points.map((q) => q.segments)).toEqual(Array.from({ length: divisions }, (_, i) => i + 1));
+        let prev = Infinity;
+        for (const q of study.points) {
+          expect(q.intermediateRestraints).toBe(q.segments - 1);
+          expect(q.spacing).toBeCloseTo(p.restraint!.length / q.segments, 12);
+          const brute = bruteForceSearch({ ...p, restraint: { ...p.restraint!, length: p.restraint!.length / q.segments } });
+          expect(dims(q.best)).toBe(dims(brute.best));
+          for (const f of Object.keys(brute.bestByFamily) as Family[]) expect(dims(q.bestByFamily[f])).toBe(dims(brute.bestByFamily[f]));
+          const obj = q.best ? (q.best.cost ?? q.best.area) : Infinity;
+          // a shorter segment only raises Mcr: the feasible set grows, the best cannot get heavier
+          expect(obj).toBeLessThanOrEqual(prev * (1 + 1e-12));
+          prev = obj;
+        }
+      }),
+      { numRuns: RUNS ?? 40, seed: 6061 },
+    );
+  }, 600_000);
+
+  it("a 6 m floor beam: the study's spacings match the search run at each spacing", () => {
+    const p: SearchProblemInput = {
+      basis: "en1993",
+      steel: { grade: "S355" },
+      restraint: { length: 6, C1: 1.13, C2: 0.45, C3: 0.525, loadAt: "top" },
+      moment: { sagging: 120 },
+      shear: 150,
+      depth: { min: 200, max: 450, step: 10 },
+      width: { min: 100, max: 300, step: 10 },
+      thicknesses: [6, 8, 10, 12, 15, 20],
+      families: ["i", "box"],
+    };
+    const study = restraintStudy(p);
+    expect(study.length).toBe(6);
+    expect(study.points).toHaveLength(6);
+    for (const q of study.points) {
+      const r = searchSections({ ...p, restraint: { ...p.restraint!, length: 6 / q.segments } }, { front: "evaluated" });
+      expect(dims(q.best)).toBe(dims(r.best));
+    }
+    // the I unrestrained over 6 m is markedly heavier than one braced at 1 m (LTB governs it);
+    // the box, stiff in torsion, hardly cares
+    const i6 = study.points[0].bestByFamily.i!,
+      i1 = study.points[5].bestByFamily.i!;
+    expect(i6.governing).toBe("ltb");
+    expect(i6.massPerMetre).toBeGreaterThan(i1.massPerMetre * 1.5);
+    expect(study.points[0].bestByFamily.box!.massPerMetre).toBeLessThan(i6.massPerMetre);
+  });
+});
+
+describe("restraint study rejections name the field", () => {
+  const en: SearchProblemInput = { ...CONTRACT_EXAMPLE_PROBLEM, basis: "en1993", steel: { grade: "S355" }, families: ["i"], restraint: { length: 4 } };
+  const field = (f: () => unknown) => {
+    try {
+      f();
+    } catch (e) {
+      expect(e).toBeInstanceOf(EngineInputError);
+      return (e as EngineInputError).field;
+    }
+    throw new Error("no error");
+  };
+  it("divisions outside 1 … 6 or not whole", () => {
+    for (const d of [0, 7, 2.5, NaN]) expect(field(() => restraintStudy(en, { divisions: d }))).toBe("divisions");
+  });
+  it("the allowable basis, or no restraint length", () => {
+    expect(field(() => restraintStudy({ ...CONTRACT_EXAMPLE_PROBLEM }))).toBe("basis");
+    expect(field(() => restraintStudy({ ...en, restraint: undefined }))).toBe("restraint");
+  });
+});
