@@ -50,5 +50,6 @@ export default [
   // Candidate downloads
   route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
   route("projects/:projectId/schedule.csv", "routes/projects.$projectId.schedule[.]csv.ts"),
+  route("projects/:projectId/cutting-list.csv", "routes/projects.$projectId.cutting-list[.]csv.ts"),
   route("options/:optionId/section.svg", "routes/options.$optionId.section[.]svg.ts"),
 ] satisfies RouteConfig;

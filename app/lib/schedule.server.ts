@@ -10,12 +10,16 @@ import { db, parseJson } from "~/lib/db.server";
 import { familyLabel } from "~/lib/labels";
 import type { ReviewState, SavedCandidate } from "~/lib/options.server";
 import { candidateChecks } from "~/optimizer";
+import { DEFAULT_DENSITY } from "~/optimizer/schema";
 import type { SearchProblem } from "~/optimizer/search-schema";
 
 export interface ScheduleRow {
   optionId: number;
   mark: string;
-  family: string;
+  family: SavedCandidate["family"];
+  dimensions: Record<string, number>;
+  /** kg/m³, the problem's */
+  density: number;
   section: string;
   massPerMetre: number;
   lengthM: number | null;
@@ -53,6 +57,9 @@ export async function projectSchedule(projectId: number): Promise<ScheduleRow[]>
       optionId: r.id as number,
       mark: (r.brief_name as string | null) || `Option ${r.id}`,
       family: c.family,
+      dimensions: c.dimensions,
+      // a stored problem saved before the schema filled its default carries none: the engine's default then, as the properties used
+      density: problem.density ?? DEFAULT_DENSITY,
       section: sectionDescription(c),
       massPerMetre: c.massPerMetre,
       lengthM,

@@ -32,6 +32,9 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
           <a href={`/projects/${project.id}/schedule.csv`} download className="text-accent underline">
             Download CSV
           </a>
+          <a href={`/projects/${project.id}/cutting-list.csv`} download className="text-accent underline">
+            Plate cutting list (CSV)
+          </a>
         </div>
       </div>
       {rows.length === 0 ? (

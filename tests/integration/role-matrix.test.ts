@@ -113,6 +113,7 @@ export const ROWS: Record<string, MatrixRow> = {
   "/projects/:projectId": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200), post: permitted("createProject", 400) },
   "/projects/:projectId/schedule": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200) },
   "/projects/:projectId/schedule.csv": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200) },
+  "/projects/:projectId/cutting-list.csv": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200) },
   "/projects/:projectId/briefs/new": { params: wf("projectId"), foreign: wfForeign("projectId"), get: permitted("editBrief", 200), post: permitted("editBrief", 400) },
   "/briefs/:briefId": { params: wf("briefId"), foreign: wfForeign("briefId"), get: members(200), post: permitted("editBrief", 400) },
   "/sweeps/:sweepId": { params: wf("sweepId"), foreign: wfForeign("sweepId"), get: members(200), post: members(400) },

@@ -57,3 +57,24 @@ describe("member schedule", () => {
     expect(res2.status).toBe(404);
   });
 });
+
+describe("plate cutting list", () => {
+  test("a channel's three plates per member, grouped by thickness, masses by hand", async () => {
+    const { cuttingList, cuttingListCsv, CUTTING_CSV_FIELDS } = await import("~/lib/cutting-list");
+    const f = await scheduleFixture();
+    const list = cuttingList(await projectSchedule(f.projectId));
+    // channel d 300, b 100, tf 10, tw 8 as the engine lays it out: a full-depth web 8 × 300 and two
+    // flange outstands 10 × (100 − 8) = 10 × 92; 6 m, 4 members; ρ = 7850 kg/m³
+    expect(list.skipped).toBe(1);
+    expect(list.groups.map((g) => g.thickness)).toEqual([8, 10]);
+    const flange = list.groups[1].plates[0];
+    expect([flange.width, flange.count]).toEqual([92, 8]);
+    // flanges: 0.010 × 0.092 × 6 × 7850 × 8 = 346.656 kg; web: 0.008 × 0.300 × 6 × 7850 × 4 = 452.16 kg
+    expect(list.groups[1].mass).toBeCloseTo(346.656, 6);
+    expect(list.groups[0].plates[0].width).toBe(300);
+    expect(list.totalMass).toBeCloseTo(346.656 + 452.16, 6);
+    const csv = Papa.parse<string[]>(cuttingListCsv(list).trim()).data;
+    expect(csv[0]).toEqual([...CUTTING_CSV_FIELDS]);
+    expect(csv).toHaveLength(3);
+  });
+});
