@@ -25,7 +25,8 @@ stop() {
   local pid target
   pid="$(tr -dc '0-9' <"$PIDFILE")"
   # /proc, not ps: a minimal Debian has no procps.
-  if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null && tr '\0' ' ' <"/proc/$pid/cmdline" | grep -q "server\.ts"; then
+  # react-router-serve: the server an older `npm run up` started (npx in its own group), stopped the same way.
+  if [ -n "$pid" ] && kill -0 "$pid" 2>/dev/null && tr '\0' ' ' <"/proc/$pid/cmdline" | grep -Eq "server\.ts|react-router-serve"; then
     target="$pid"
     # Field 5 of /proc/PID/stat is the process group (the name in field 2 has no spaces: "(node)").
     if [ "$(cut -d' ' -f5 "/proc/$pid/stat")" = "$pid" ]; then target="-$pid"; fi
