@@ -2,6 +2,7 @@
 // ("stresses only: no stability checks" under the allowable basis), the brief's assumptions in
 // words, and one candidate's EN 1993 figures (class, Mcr, χLT, resistances, weld throat, the
 // governing check and its clause). Numbers come from the engine's verdict; units via units.ts.
+import { checkLabel } from "~/lib/labels";
 import type { CandidateVerdict } from "~/optimizer/checks";
 import type { SearchProblem } from "~/optimizer/search-schema";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
@@ -126,7 +127,7 @@ export function DesignFigures({ verdict, units }: { verdict: CandidateVerdict; u
       <dd data-testid="design-weld">{row.weldThroat === null ? "— (no welds)" : `${formatNumber(fromSI("length", row.weldThroat, units))} ${unitLabel("length", units)}`}</dd>
       <dt>Governs</dt>
       <dd>
-        {verdict.governing} <span className="text-xs text-ink/70">({row.governingClause})</span>
+        {checkLabel(verdict.governing)} <span className="text-xs text-ink/70">({row.governingClause})</span>
       </dd>
     </dl>
   );

@@ -2,6 +2,7 @@
 // and the queue use (briefFormSchema wraps searchProblemSchema), wired with Conform so errors
 // sit beside their fields with aria-describedby, and the form still posts without JavaScript.
 // The preview (grid size, one sample section's properties and checks) runs the engine in the browser.
+import { checkLabel, fieldLabel } from "~/lib/labels";
 import { useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { Form } from "react-router";
 import { getCollectionProps, getFormProps, getInputProps, useForm, type FieldMetadata, type SubmissionResult } from "@conform-to/react";
@@ -495,7 +496,7 @@ export function BriefEditor({
             <ul className="mt-2 grid gap-1 sm:grid-cols-2">
               {["moment.sagging", "moment.hogging", "shear", "allowable.tension", "allowable.compression", "allowable.shear", "depth.min", "depth.max", "depth.step", "width.min", "width.max", "width.step", "thicknesses", "families"].map((p) => (
                 <li key={p}>
-                  <span className="text-ink/70">{p}:</span> {origText(p)}
+                  <span className="text-ink/70">{fieldLabel(p)}:</span> {origText(p)}
                 </li>
               ))}
             </ul>
@@ -555,7 +556,7 @@ export function BriefEditor({
                     <dd>{formatQuantity("length", preview.props.centroid.y, units)}</dd>
                     <dt>Utilisation</dt>
                     <dd>
-                      {preview.verdict!.utilisation.toFixed(3)} ({preview.verdict!.governing}){preview.verdict!.feasible ? "" : " — fails"}
+                      {preview.verdict!.utilisation.toFixed(3)} ({checkLabel(preview.verdict!.governing)}){preview.verdict!.feasible ? "" : " — fails"}
                     </dd>
                   </dl>
                 </div>

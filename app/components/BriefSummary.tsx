@@ -1,8 +1,11 @@
 // A brief's values with their units, read-only (option page and calculation record).
+import { familyLabel } from "~/lib/labels";
 import type { SearchProblem } from "~/optimizer/search-schema";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { FIELD_QUANTITIES, type NumericField } from "~/lib/brief-form";
+
+const SLENDERNESS_WORDS: Record<string, string> = { outstand: "flange outstand", internal: "internal plate", web: "web", stem: "stem" };
 
 export function BriefSummary({ problem, units }: { problem: SearchProblem; units: UnitSystem }) {
   const q = (field: NumericField, v: number | undefined) => (v === undefined ? "—" : `${formatNumber(fromSI(FIELD_QUANTITIES[field], v, units))} ${unitLabel(FIELD_QUANTITIES[field], units)}`);
@@ -59,8 +62,8 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
     ["Depth", axis("depth")],
     ["Width", axis("width")],
     ["Plate thicknesses", `${problem.thicknesses.map((t) => formatNumber(fromSI("length", t, units))).join(", ")} ${unitLabel("length", units)}`],
-    ["Families", problem.families.join(", ")],
-    ["Slenderness limits (b/t)", Object.entries(s).map(([k, v]) => `${k} ${v}`).join(", ") || "none"],
+    ["Shape families", problem.families.map(familyLabel).join(", ")],
+    ["Slenderness limits (b/t)", Object.entries(s).filter(([, v]) => v !== undefined).map(([k, v]) => `${SLENDERNESS_WORDS[k] ?? k} ${v}`).join(", ") || "none"],
     ["Density", q("density", problem.density)],
     [
       "Objective",

@@ -3,6 +3,7 @@
 // filter is fetched, so the page stays small however many candidates a sweep stored (issue 9).
 // Linked to the chart through the selected rank; up to four ticked for comparison.
 import { useEffect, useRef, useState } from "react";
+import { checkLabel, familyLabel } from "~/lib/labels";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
@@ -233,7 +234,7 @@ export function CandidateTable({
                   <span aria-hidden="true" style={{ color: FAMILY_STYLE[c.family as Family]?.colour }}>
                     ●{" "}
                   </span>
-                  {c.family}
+                  {familyLabel(c.family)}
                 </td>
                 <td className="p-2 tabular-nums">{describeDimensions(c.dimensions, units)}</td>
                 <td className="p-2 text-right tabular-nums">{formatNumber(fromSI("massPerLength", c.massPerMetre, units))}</td>
@@ -241,7 +242,7 @@ export function CandidateTable({
                 <td className="p-2 text-right tabular-nums">{c.utilisation.toFixed(3)}</td>
                 {withDesign ? <DesignCells d={c.design ?? null} units={units} /> : null}
                 <td className="p-2">
-                  {c.governing}
+                  {checkLabel(c.governing)}
                   {c.design?.governingClause ? <span className="block text-xs text-ink/70">{c.design.governingClause}</span> : null}
                 </td>
                 <td className="p-2">{c.onFront ? "yes" : ""}</td>

@@ -1,6 +1,7 @@
 // Side-by-side comparison of up to four candidates: each drawn to one common scale, its
 // properties, its stress diagram under the brief's governing moment, and every check. All
 // from the engine in the browser (sectionStresses, candidateChecks): nothing re-derived here.
+import { checkLabel, familyLabel } from "~/lib/labels";
 import { candidateChecks } from "~/optimizer/checks";
 import { sectionStresses } from "~/optimizer/stress";
 import type { Family } from "~/optimizer/geometry";
@@ -37,7 +38,7 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
           <article key={c.rank} className="space-y-2 rounded-lg border border-ink/15 bg-white p-3 text-sm">
             <header className="flex items-start justify-between gap-2">
               <h3 className="font-bold">
-                #{c.rank} {c.family}
+                #{c.rank} {familyLabel(c.family)}
               </h3>
               {onRemove ? (
                 <button type="button" className="text-xs underline" onClick={() => onRemove(c.rank)}>
@@ -62,7 +63,7 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
               <dd>{formatQuantity("length", p.centroid.y, units)}</dd>
               <dt>Utilisation</dt>
               <dd>
-                <strong>{verdict.utilisation.toFixed(3)}</strong> ({verdict.governing})
+                <strong>{verdict.utilisation.toFixed(3)}</strong> ({checkLabel(verdict.governing)})
               </dd>
             </dl>
             <DesignFigures verdict={verdict} units={units} />

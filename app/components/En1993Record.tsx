@@ -8,6 +8,7 @@
 //
 // Worked in SI, EN 1993's own units (mm, N, MPa, kN·m); a US customary brief also gets each
 // result in its own units in brackets, so the substituted numbers read as the code writes them.
+import { checkLabel } from "~/lib/labels";
 import type { CandidateVerdict } from "~/optimizer/checks";
 import type { ClassifiedElement, DesignBlock, LtbDesign } from "~/optimizer/design-types";
 import type { Family } from "~/optimizer/geometry";
@@ -347,7 +348,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
         </h3>
         <CheckTable verdict={verdict} units={units} />
         <p className="mt-1">
-          Utilisation = demand ÷ resistance; the largest, <strong>{verdict.utilisation.toFixed(3)}</strong>, is set by {verdict.governing} (
+          Utilisation = demand ÷ resistance; the largest, <strong>{verdict.utilisation.toFixed(3)}</strong>, is set by {checkLabel(verdict.governing)} (
           {verdict.checks.find((c) => c.name === verdict.governing)?.clause}).
         </p>
       </section>

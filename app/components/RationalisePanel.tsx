@@ -1,6 +1,7 @@
 // The project page's "Rationalise plate thicknesses" panel: a GET form (k, m in the URL, so a
 // result can be shared as a link) and the selection the server computed. Values are SI: the
 // stored candidates are SI whatever units each brief was entered in.
+import { familyLabel } from "~/lib/labels";
 import { Form, Link } from "react-router";
 import { formatNumber } from "~/components/PropertyTable";
 import { Caution } from "~/components/Caution";
@@ -144,7 +145,7 @@ function RationaliseResultView({ result }: { result: ProjectRationalisation }) {
                       </Link>
                     </td>
                     <td className="p-2">
-                      {s.family}{" "}
+                      {familyLabel(s.family)}{" "}
                       {Object.entries(s.dimensions)
                         .map(([k, v]) => `${k} ${v}`)
                         .join(", ")}

@@ -1,6 +1,7 @@
 // The restraint study on the sweep page (member-checks.md §3): the lightest section at the
 // restraint spacings L, L/2 … L/6, charted as mass per length against the number of
 // intermediate lateral restraints, with the same figures as a table (the chart's text form).
+import { checkLabel, familyLabel } from "~/lib/labels";
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
@@ -53,10 +54,10 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
               <tr key={p.restraints} className="border-b border-ink/10">
                 <td className="p-2 text-right tabular-nums">{p.restraints}</td>
                 <td className="p-2 text-right tabular-nums">{span(p.lengthM)}</td>
-                <td className="p-2">{p.best ? `${p.best.family} ${describeDimensions(p.best.dimensions, units)}` : `none passes${p.reason ? `: ${p.reason}` : ""}`}</td>
+                <td className="p-2">{p.best ? `${familyLabel(p.best.family)} ${describeDimensions(p.best.dimensions, units)}` : `none passes${p.reason ? `: ${p.reason}` : ""}`}</td>
                 <td className="p-2 text-right tabular-nums">{p.best ? formatNumber(fromSI("massPerLength", p.best.massPerMetre, units)) : "—"}</td>
                 <td className="p-2 text-right tabular-nums">{p.best && none ? `${formatNumber((100 * (none - p.best.massPerMetre)) / none, 3)} %` : "—"}</td>
-                <td className="p-2">{p.best ? `${p.best.governing} (utilisation ${p.best.utilisation.toFixed(3)})` : "—"}</td>
+                <td className="p-2">{p.best ? `${checkLabel(p.best.governing)} (utilisation ${p.best.utilisation.toFixed(3)})` : "—"}</td>
               </tr>
             );
           })}

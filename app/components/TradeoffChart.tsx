@@ -1,6 +1,7 @@
 // Mass per metre against utilisation for a sweep's stored candidates: one series per family
 // (colour and marker shape), the front as a line, utilisation = 1 (the allowable limit) as a
 // reference line. Hover shows the section; a click selects it (the table follows).
+import { checkLabel, familyLabel } from "~/lib/labels";
 import { CartesianGrid, Legend, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from "recharts";
 import type { Family } from "~/optimizer/geometry";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
@@ -41,11 +42,11 @@ function Tip({ active, payload, units }: { active?: boolean; payload?: { payload
   return (
     <div className="rounded-md border border-ink/20 bg-white p-2 text-xs shadow">
       <p className="font-semibold">
-        #{c.rank} {c.family}
+        #{c.rank} {familyLabel(c.family)}
       </p>
       <p>{describeDimensions(c.dimensions, units)}</p>
       <p>
-        {formatNumber(fromSI("massPerLength", c.massPerMetre, units))} {unitLabel("massPerLength", units)} · utilisation {c.utilisation.toFixed(3)} ({c.governing})
+        {formatNumber(fromSI("massPerLength", c.massPerMetre, units))} {unitLabel("massPerLength", units)} · utilisation {c.utilisation.toFixed(3)} ({checkLabel(c.governing)})
       </p>
     </div>
   );
@@ -83,7 +84,7 @@ export function TradeoffChart({
           {families.map((f) => (
             <Scatter
               key={f}
-              name={f}
+              name={familyLabel(f)}
               data={candidates.filter((c) => c.family === f).map(toPoint)}
               fill={FAMILY_STYLE[f]?.colour ?? "#1d2733"}
               shape={FAMILY_STYLE[f]?.shape ?? "circle"}

@@ -18,4 +18,26 @@ export const ACTIVITY_WORDS: Record<string, string> = {
   material_added: "added a material",
   material_changed: "changed a material",
   material_deleted: "deleted a material",
+  section_saved: "saved a section from the bench",
 };
+
+/** What an activity entry is about, in words ("saved section 3", never "saved_section 3"). */
+export const SUBJECT_WORDS: Record<string, string> = {
+  api_token: "API token",
+  brief: "brief",
+  catalogue: "catalogue",
+  invitation: "invitation",
+  material: "material",
+  option: "option",
+  project: "project",
+  saved_section: "saved section",
+  stock_list: "stock list",
+  sweep: "sweep",
+  team: "team",
+  user: "member",
+};
+
+/** Where an activity subject can be opened, when it has a page of its own. */
+export function subjectHref(type: string, id: number): string | null {
+  return type === "brief" ? `/briefs/${id}` : type === "sweep" ? `/sweeps/${id}` : type === "option" ? `/options/${id}` : null;
+}

@@ -5,6 +5,7 @@
 //
 // Typed text is kept as text (not numbers) so a half-typed "12." or a blank field survives a
 // reload and the engine's message about it is the one shown.
+import { plainMessage } from "~/lib/labels";
 import { z } from "zod";
 import { FAMILIES, FAMILY_DIMENSIONS, FILLETED_FAMILIES, type Family } from "~/optimizer/geometry";
 import { sectionInputSchema, type ParsedSectionInput, type SectionInput } from "~/optimizer/schema";
@@ -258,7 +259,8 @@ export function parseSectionInput(raw: unknown, units: UnitSystem): { ok: true; 
 
 /** The message, prefixed with its field when the engine's wording does not name it already. */
 export function describeFieldError(e: FieldError): string {
-  return e.message.includes(e.field) || e.field === "input" ? e.message : `${e.field}: ${e.message}`;
+  // worded through the one label table: rows counted from 1 as the bench shows them
+  return plainMessage(e.message.includes(e.field) || e.field === "input" ? e.message : `${e.field}: ${e.message}`);
 }
 
 /** Loads as typed → SI numbers; blank moment means 0, blank shear means none. */

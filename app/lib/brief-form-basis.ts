@@ -47,7 +47,8 @@ export function gradeFill(grade: En1993Grade): { fy: { maxThickness: number; fy:
  */
 export const DEFAULT_MOMENT_DIAGRAM = "udl-simple";
 
-const num = (name: string) => z.number({ error: `${name} must be a number` }).optional();
+// Unreadable text becomes NaN, reported by brief-form's transform beside the other errors.
+const num = (name: string) => z.number({ error: `${name} must be a number` }).optional().catch(Number.NaN);
 
 /** Spread into the brief form's zod object (brief-form.ts). */
 export const basisFormShape = {

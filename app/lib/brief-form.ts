@@ -7,6 +7,7 @@ import { z } from "zod";
 import { FAMILIES, type Family } from "~/optimizer/geometry";
 import { CONTRACT_EXAMPLE_PROBLEM, searchProblemSchema, rawGridSize, type SearchProblem } from "~/optimizer/search-schema";
 import { fromSI, toSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { plainMessage } from "~/lib/labels";
 import { BASIS_FIELD_QUANTITIES, DEFAULT_GRADE, bandQuantity, gradeFill, basisFormDefaults, basisFormShape, basisIssuePath, basisIssues, basisToProblemInput } from "~/lib/brief-form-basis";
 
 /** Which quantity each numeric field holds (for conversion and for the unit shown beside it). */
@@ -43,7 +44,9 @@ export function fieldUnit(field: NumericField | "thicknesses", units: UnitSystem
   return unitLabel(field === "thicknesses" ? "length" : FIELD_QUANTITIES[field], units);
 }
 
-const num = (name: string) => z.number({ error: `${name} must be a number` }).optional();
+// Unreadable text becomes NaN (caught, not thrown), so the transform still runs and reports it
+// beside every other field's error instead of stopping the whole form at the first bad number.
+const num = (name: string) => z.number({ error: `${name} must be a number` }).optional().catch(Number.NaN);
 
 /**
  * Thicknesses are typed as a list ("6, 8, 10"). Each entry must be a number; the engine's
@@ -73,7 +76,8 @@ const formFields = z.object({
   material: z.string().max(80).optional(),
   stockListId: z.number().int().positive().optional(),
   memberLength: num("memberLength"),
-  memberCount: z.number({ error: "memberCount must be a whole number" }).int("memberCount must be a whole number").min(1, "memberCount must be ≥ 1").max(100000, "memberCount: at most 100000").optional(),
+  // whole, 1 … 100000: checked in the transform beside the other fields' errors
+  memberCount: num("memberCount"),
   moment: z.object({ sagging: num("moment.sagging"), hogging: num("moment.hogging") }).default({}),
   shear: num("shear"),
   allowable: z.object({ tension: num("allowable.tension"), compression: num("allowable.compression"), shear: num("allowable.shear") }).default({}),
@@ -282,45 +286,90 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
  * The form schema: text → numbers (Conform coerces), then units → SI, then the engine's
  * searchProblemSchema, whose issues are copied onto the same paths.
  */
-export const briefFormSchema = formFields.transform((f, ctx): { meta: BriefMeta; problem: SearchProblem } => {
+/** Numbers the form could not read (text in a number field, NaN after coercion): their paths, and the values with them left out. */
+function dropUnreadable<T>(values: T): { values: T; paths: (string | number)[][] } {
+  const paths: (string | number)[][] = [];
+  const walk = (o: unknown, at: (string | number)[]): unknown => {
+    if (typeof o === "number" && Number.isNaN(o)) {
+      paths.push(at);
+      return undefined;
+    }
+    if (Array.isArray(o)) return o.map((x, i) => walk(x, [...at, i]));
+    if (o && typeof o === "object") return Object.fromEntries(Object.entries(o).map(([k, x]) => [k, walk(x, [...at, k])]));
+    return o;
+  };
+  return { values: walk(values, []) as T, paths };
+}
+
+/**
+ * Issues of the engine that name a group rather than one of its fields go to the group's first
+ * field, so every message sits beside an input (the editor has none for "moment" itself).
+ */
+const GROUP_FIELD: Record<string, (string | number)[]> = {
+  moment: ["moment", "sagging"],
+  allowable: ["allowable", "tension"],
+  deflection: ["deflection", "span"],
+  steel: ["steel", "grade"],
+  restraint: ["restraint", "length"],
+  supports: ["supports", "bearingLength"],
+  grid: ["depth", "step"],
+};
+
+/**
+ * The form schema: text → numbers (Conform coerces), then units → SI, then the engine's
+ * searchProblemSchema, whose issues are copied onto the same paths. Every issue is gathered
+ * before any is reported, so a text in one number field does not hide the others' errors, and
+ * every message is worded through the one label table (labels.ts: no field paths on the page).
+ */
+export const briefFormSchema = formFields.transform((raw, ctx): { meta: BriefMeta; problem: SearchProblem } => {
+  const issues: { path: (string | number)[]; message: string }[] = [];
+  const taken = new Set<string>();
+  const add = (path: (string | number)[], message: string) => {
+    const key = path.join(".");
+    if (taken.has(key)) return;
+    taken.add(key);
+    issues.push({ path, message });
+  };
+  const { values: f, paths: unreadable } = dropUnreadable(raw);
+  for (const p of unreadable) add(p, `${p.map((x) => (typeof x === "number" ? "[]" : x)).join(".").replace(/\.\[\]/g, "[]")} must be a number`);
   const t = parseThicknessList(f.thicknesses);
-  if (t.error) ctx.addIssue({ code: "custom", path: ["thicknesses"], message: t.error });
+  if (t.error) add(["thicknesses"], t.error);
   // The basis fields' own plain-word messages first; the engine's issue on the same field is then left out.
-  const own = basisIssues(f);
-  for (const i of own) ctx.addIssue({ code: "custom", path: i.path, message: i.message });
-  const ownPaths = new Set(own.map((i) => i.path.join(".")));
+  for (const i of basisIssues(f)) add(i.path, i.message);
   const r = searchProblemSchema.safeParse(formToProblemInput(f));
   if (!r.success) {
     const { bandRows } = basisToProblemInput(f, (_k, _q, v) => v);
     for (const issue of r.error.issues) {
-      // Array items (thicknesses[3], families[1]) belong to the list's one field; the grid cap to the
-      // steps; an fy band to the row it was typed in.
+      // Array items (thicknesses[3], families[1]) belong to the list's one field; an fy band to the
+      // row it was typed in; a group's issue to its first field.
       let path: (string | number)[] = basisIssuePath(issue.path as (string | number)[], bandRows) ?? (issue.path.filter((p) => typeof p === "string") as string[]);
-      if (path[0] === "grid") path = ["depth", "step"];
-      if (ownPaths.has(path.join("."))) continue;
-      ctx.addIssue({ code: "custom", path, message: issue.message });
+      if (path.length === 1 && GROUP_FIELD[String(path[0])]) path = GROUP_FIELD[String(path[0])];
+      // the message names bands by the engine's index; the editor shows rows (blank rows dropped)
+      add(path, issue.message.replace(/steel\.fy\[(\d+)\]/g, (_, i: string) => `steel.fy[${bandRows[Number(i)] ?? Number(i)}]`));
     }
-    return z.NEVER;
   }
-  if (t.error || own.length) return z.NEVER;
   const meta: BriefMeta = { name: f.name, units: f.units };
   if (f.material) meta.material = f.material;
   if (f.stockListId) meta.stockListId = f.stockListId;
+  const known = readSiMemo(f.siValues);
   if (f.memberLength !== undefined) {
-    if (!(f.memberLength > 0)) {
-      ctx.addIssue({ code: "custom", path: ["memberLength"], message: "memberLength must be > 0" });
-      return z.NEVER;
-    }
-    meta.memberLengthM = fieldToSI(readSiMemo(f.siValues), f.units, "memberLength", f.memberLength);
+    if (!(f.memberLength > 0)) add(["memberLength"], "memberLength must be > 0");
+    else meta.memberLengthM = fieldToSI(known, f.units, "memberLength", f.memberLength);
   }
-  if (f.memberCount !== undefined) meta.memberCount = f.memberCount;
-  const E = r.data.deflection?.E ?? fieldToSI(readSiMemo(f.siValues), f.units, "deflection.E", f.deflection.E);
+  if (f.memberCount !== undefined) {
+    if (!Number.isInteger(f.memberCount)) add(["memberCount"], "memberCount must be a whole number");
+    else if (f.memberCount < 1) add(["memberCount"], "memberCount must be ≥ 1");
+    else if (f.memberCount > 100000) add(["memberCount"], "memberCount: at most 100000");
+    else meta.memberCount = f.memberCount;
+  }
+  const E = r.success ? (r.data.deflection?.E ?? fieldToSI(known, f.units, "deflection.E", f.deflection.E)) : undefined;
   if (E !== undefined) {
-    if (!(E > 0) || !Number.isFinite(E)) {
-      ctx.addIssue({ code: "custom", path: ["deflection", "E"], message: "deflection.E must be > 0" });
-      return z.NEVER;
-    }
-    meta.elasticModulus = E;
+    if (!(E > 0) || !Number.isFinite(E)) add(["deflection", "E"], "deflection.E must be > 0");
+    else meta.elasticModulus = E;
+  }
+  if (issues.length || !r.success) {
+    for (const i of issues) ctx.addIssue({ code: "custom", path: i.path, message: plainMessage(i.message) });
+    return z.NEVER;
   }
   return { meta, problem: r.data };
 });
@@ -421,16 +470,8 @@ export function newBriefFormDefaults(units: UnitSystem): Record<string, unknown>
   return { ...problemToFormDefaults(NEW_BRIEF_PROBLEM, { units, name: "" }), restraintThroughout: false };
 }
 
-export const FAMILY_LABELS: Record<Family, string> = {
-  rectangle: "Rectangle (solid bar)",
-  i: "I (equal flanges)",
-  "mono-i": "Mono-symmetric I",
-  channel: "Channel",
-  "channel-down": "Channel, web on top",
-  tee: "Tee",
-  box: "Box",
-  angle: "Angle",
-};
+/** Family names come from the one label table (labels.ts). */
+export { FAMILY_LABELS } from "~/lib/labels";
 export const SEARCH_FAMILIES: readonly Family[] = FAMILIES;
 
 /** The grid size the preview shows (the engine's own count, before invalid geometry is dropped). */

@@ -43,7 +43,7 @@ export const FIELD_LABELS: Record<string, string> = {
   deflection: "Deflection",
   "deflection.span": "Span",
   "deflection.serviceLoad": "Service load",
-  "deflection.limitRatio": "Deflection limit ratio (span ÷ …)",
+  "deflection.limitRatio": "Limit ratio (span ÷ …)",
   "deflection.E": "Elastic modulus E",
   objective: "Objective",
   prices: "Plate prices",
@@ -57,16 +57,16 @@ export const FIELD_LABELS: Record<string, string> = {
   "steel.fy": "Yield strength bands",
   "steel.fy[].maxThickness": "Band up to thickness",
   "steel.fy[].fy": "Yield strength fy",
-  "steel.fu": "Ultimate strength fu",
+  "steel.fu": "Tensile strength fu",
   "steel.E": "Elastic modulus E",
   "steel.G": "Shear modulus G",
-  "steel.gammaM0": "Partial factor γM0",
-  "steel.gammaM1": "Partial factor γM1",
-  "steel.gammaM2": "Partial factor γM2",
-  "steel.eta": "Shear factor η",
-  "steel.betaW": "Weld factor βw",
+  "steel.gammaM0": "γM0, cross-section resistance",
+  "steel.gammaM1": "γM1, member buckling",
+  "steel.gammaM2": "γM2, welds",
+  "steel.eta": "Shear area factor η",
+  "steel.betaW": "Weld correlation factor βw",
   restraint: "Lateral restraint",
-  "restraint.length": "Restraint spacing",
+  "restraint.length": "Restraint length",
   "restraint.C1": "Moment factor C1",
   "restraint.C2": "Moment factor C2",
   "restraint.C3": "Moment factor C3",
@@ -77,7 +77,7 @@ export const FIELD_LABELS: Record<string, string> = {
   fabrication: "Fabrication rules",
   "fabrication.minThickness": "Thinnest plate allowed",
   "fabrication.flangeAtLeastWeb": "Flanges at least as thick as the web",
-  "fabrication.minBoxClear": "Least clear width inside a box",
+  "fabrication.minBoxClear": "Least clear width inside a box (b − 2·tw)",
   geometry: "Geometry",
   rank: "Candidate",
   note: "Note",
@@ -189,6 +189,7 @@ export function describeBreach(b: LimitBreach, units: UnitSystem): string {
  */
 const PATHS = Object.keys(FIELD_LABELS).sort((a, b) => b.length - a.length);
 // (used by plainMessage below)
+const PLATE_DIMENSIONS: Record<string, string> = { b: "width b", h: "height h", z: "left edge z", y: "bottom edge y" };
 const ROW_NOUNS: Record<string, string> = { plates: "plate", polygons: "polygon", points: "point", thicknesses: "thickness", families: "family", prices: "price", rows: "row" };
 
 /** A label inside a sentence: lower case, except a leading symbol ("I (equal flanges)", "E"). */
@@ -197,16 +198,22 @@ function midSentence(label: string): string {
 }
 
 export function plainMessage(message: string): string {
-  let out = message;
+  // fy bands by the row the editor shows ("steel.fy[1].maxThickness" → "band 2, plates up to")
+  let out = message.replace(/steel\.fy\[(\d+)\]\.(maxThickness|fy)/g, (_, i: string, k: string) => `band ${Number(i) + 1}, ${k === "fy" ? "fy" : "plates up to"}`);
   // Dotted and list paths anywhere ("allowable.tension", "thicknesses[]", "prices[].pricePerKg").
   for (const p of PATHS) {
     if (!p.includes(".") && !p.includes("[")) continue;
     const re = new RegExp(`(^|[^\\w.\\[])${p.replace(/[.[\]]/g, (c) => `\\${c}`)}(?![\\w\\[])`, "g");
     out = out.replace(re, (_, pre: string) => `${pre}${pre === "" ? FIELD_LABELS[p] : midSentence(FIELD_LABELS[p])}`);
   }
+  // a plate's own dimension ("plates[2].b" → "plate 3, width b")
+  out = out.replace(/\bplates\[(\d+)\]\.(b|h|z|y)\b/g, (_, i: string, k: string) => `plate ${Number(i) + 1}, ${PLATE_DIMENSIONS[k]}`);
+  out = out.replace(/\]\.points\[/g, "], points[");
   out = out.replace(/\b(plates|polygons|points|thicknesses|families|prices|rows)\[(\d+)\]/g, (_, list: string, i: string) => `${ROW_NOUNS[list]} ${Number(i) + 1}`);
   out = out.replace(/objective is "(mass|cost)"/g, (_, o: "mass" | "cost") => `the objective is ${OBJECTIVE_LABELS[o]}`);
   out = out.replace(/(use )?objective "(mass|cost)"/g, (_, use: string | undefined, o: "mass" | "cost") => `${use ?? ""}the ${OBJECTIVE_LABELS[o]} objective`);
+  // A family named in quotes by its engine name ("mono-i") → its label.
+  out = out.replace(/"([a-z-]+)"/g, (m: string, f: string) => (f in FAMILY_LABELS ? `“${FAMILY_LABELS[f as Family]}”` : m));
   // A one-word field opening the message ("shear must be ≥ 0", "grid: …").
   out = out.replace(/^([a-zA-Z]+)(?=[: ])/, (w: string) => FIELD_LABELS[w] ?? w);
   return out.charAt(0).toUpperCase() + out.slice(1);

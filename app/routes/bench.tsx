@@ -3,6 +3,7 @@
 // Web Worker (app/workers/section.worker.ts) so typing never waits for it; the state lives
 // in the URL (?s=…) so a bench can be shared; members who may edit briefs can file the
 // section under a project.
+import { FAMILY_LABELS } from "~/lib/labels";
 import { useEffect, useRef, useState } from "react";
 import { useFetcher, useSearchParams, type ShouldRevalidateFunctionArgs } from "react-router";
 import * as Comlink from "comlink";
@@ -77,16 +78,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 // ---------------------------------------------------------------- words
 
-const FAMILY_LABELS: Record<Family, string> = {
-  rectangle: "Rectangle",
-  i: "I (equal flanges)",
-  "mono-i": "I with unequal flanges",
-  channel: "Channel",
-  "channel-down": "Channel, web on top",
-  tee: "Tee",
-  box: "Box",
-  angle: "Angle",
-};
+// Family names: the one label table (labels.ts), the same as the brief and the sweep pages.
 
 const DIM_WORDS: Record<string, string> = {
   d: "overall depth",

@@ -1,5 +1,6 @@
 // The calculation record: one printable sheet per option. Every number comes from the engine
 // (record.ts gathers them); the composite-area table is the engine's own compositeTable.
+import { checkLabel, familyLabel } from "~/lib/labels";
 import { Link } from "react-router";
 import type { Route } from "./+types/options.$optionId.record";
 import { requirePermission } from "~/lib/auth.server";
@@ -56,7 +57,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
           </p>
           <h1 className="text-2xl font-bold">Calculation record: option {option.id}</h1>
           <p className="text-sm">
-            {c.family} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
+            {familyLabel(c.family)} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
             {option.note ? ` · note: ${option.note}` : ""}
           </p>
         </div>
@@ -225,7 +226,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
           </h2>
           <CheckTable verdict={rec.verdict} units={units} />
           <p className="mt-1 text-sm">
-            Utilisation = demand ÷ capacity; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {rec.verdict.governing}.
+            Utilisation = demand ÷ capacity; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {checkLabel(rec.verdict.governing)}.
             {option.problem.basis === "en1993"
               ? " The engine returned no EN 1993 design block for this section, so its checks cannot be worked through here."
               : " Allowable-stress basis: stresses only, no stability checks (no lateral-torsional buckling, no shear buckling, no local buckling beyond the slenderness limits given)."}

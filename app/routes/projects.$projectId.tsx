@@ -1,4 +1,5 @@
 import { Form, Link, data } from "react-router";
+import { familyLabel } from "~/lib/labels";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { z } from "zod";
 import type { Route } from "./+types/projects.$projectId";
@@ -6,7 +7,7 @@ import { requirePermission } from "~/lib/auth.server";
 import { readForm } from "~/lib/forms.server";
 import { addMember, getProject, listBriefs, projectActivity, projectMembers, removeMember, setArchived, teamMembersOutside, updateProject } from "~/lib/projects.server";
 import { projectFormSchema } from "~/lib/project-form";
-import { ACTIVITY_WORDS } from "~/lib/activity-words";
+import { ACTIVITY_WORDS, SUBJECT_WORDS, subjectHref } from "~/lib/activity-words";
 import { listProjectOptions } from "~/lib/options.server";
 import { can } from "~/lib/roles";
 import { ProjectFields } from "~/components/ProjectFields";
@@ -186,7 +187,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
                     {o.note ? <span className="block text-xs text-ink/70">{o.note}</span> : null}
                   </td>
                   <td className="p-2">
-                    {o.family}{" "}
+                    {familyLabel(o.family)}{" "}
                     {Object.entries(o.dimensions)
                       .map(([k, v]) => `${k} ${v}`)
                       .join(", ")}
@@ -281,7 +282,15 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
                 {a.subjectType && a.subjectId ? (
                   <span className="text-ink/70">
                     {" "}
-                    ({a.subjectType} {a.subjectId})
+                    ({SUBJECT_WORDS[a.subjectType] ?? a.subjectType.replaceAll("_", " ")}{" "}
+                    {subjectHref(a.subjectType, a.subjectId) ? (
+                      <Link to={subjectHref(a.subjectType, a.subjectId)!} className="text-accent underline">
+                        {a.subjectId}
+                      </Link>
+                    ) : (
+                      a.subjectId
+                    )}
+                    )
                   </span>
                 ) : null}
               </li>

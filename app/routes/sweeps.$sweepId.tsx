@@ -1,4 +1,5 @@
 import { useEffect, useState } from "react";
+import { checkLabel, familyLabel } from "~/lib/labels";
 import { Form, Link, data, redirect, useRevalidator } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/sweeps.$sweepId";
@@ -209,8 +210,8 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
           <section aria-label="Summary" className="rounded-lg border border-ink/15 bg-white p-4 text-sm">
             {sweep.best ? (
               <p data-testid="best">
-                <strong>{timedOut ? "Best found so far (not proven lightest):" : sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {sweep.best.family} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
-                {sweep.best.utilisation.toFixed(3)} ({sweep.best.governing}){sweep.best.cost != null ? `, cost ${sweep.best.cost.toFixed(2)} per m (the cheapest: objective "cost")` : ""}.
+                <strong>{timedOut ? "Best found so far (not proven lightest):" : sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {familyLabel(sweep.best.family)} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
+                {sweep.best.utilisation.toFixed(3)} ({checkLabel(sweep.best.governing)}){sweep.best.cost != null ? `, cost ${sweep.best.cost.toFixed(2)} per m (the cheapest, as the brief asks)` : ""}.
                 {bestDesign ? (
                   <span data-testid="best-design">
                     {" "}
@@ -300,7 +301,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               {sel ? (
                 <section aria-label="Selected candidate" className="flex flex-wrap items-end gap-3 rounded-lg border border-accent bg-white p-3 text-sm" data-testid="selected">
                   <p className="flex-1">
-                    Selected <strong>#{sel.rank}</strong> {sel.family} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({sel.governing})
+                    Selected <strong>#{sel.rank}</strong> {familyLabel(sel.family)} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({checkLabel(sel.governing)})
                   </p>
                   <button
                     type="button"

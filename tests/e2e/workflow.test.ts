@@ -69,7 +69,7 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   // A field error sits by its field and nothing is sent until it is fixed.
   await eng.getByLabel(/Depth, max/).fill("50");
   await eng.getByRole("button", { name: "Save and run" }).click();
-  await eng.getByText("depth.max must be ≥ depth.min").waitFor();
+  await eng.getByText("Depth, max must be ≥ depth, min").waitFor();
   await eng.getByLabel(/Depth, max/).fill("400");
   await screenshot(eng, "workflow-brief");
 

@@ -32,14 +32,14 @@ describe("brief form ↔ SearchProblem", () => {
     d.families = [];
     const s = parseWithZod(formData(d), { schema: briefFormSchema });
     expect(s.status).toBe("error");
-    expect(errorsOf(s)?.["depth.max"]).toEqual(["depth.max must be ≥ depth.min"]);
+    expect(errorsOf(s)?.["depth.max"]).toEqual(["Depth, max must be ≥ depth, min"]);
     expect(errorsOf(s)?.families?.[0]).toMatch(/at least one family/);
   });
   it("names text in a number field and a bad thickness", () => {
     const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "B" }) as Record<string, any>;
     d.moment = { sagging: "lots", hogging: 0 };
     const s = parseWithZod(formData(d), { schema: briefFormSchema });
-    expect(errorsOf(s)?.["moment.sagging"]).toEqual(["moment.sagging must be a number"]);
+    expect(errorsOf(s)?.["moment.sagging"]).toEqual(["Sagging moment must be a number"]);
     d.moment = { sagging: 120, hogging: 0 };
     d.thicknesses = "6, eight";
     const t = parseWithZod(formData(d), { schema: briefFormSchema });
@@ -78,7 +78,7 @@ describe("cost objective", () => {
     const d = problemToFormDefaults(DEFAULT_PROBLEM, { units: "si", name: "B" }) as Record<string, any>;
     d.objective = "cost";
     const none = parseWithZod(formData(d), { schema: briefFormSchema });
-    expect(errorsOf(none)?.prices?.[0]).toMatch(/prices are required when objective is "cost"/);
+    expect(errorsOf(none)?.prices?.[0]).toMatch(/Plate prices are required when the objective is cheapest/);
     d.prices = JSON.stringify(DEFAULT_PROBLEM.thicknesses.map((t) => ({ thickness: t, pricePerKg: 1 + t / 100 })));
     const ok = parseWithZod(formData(d), { schema: briefFormSchema });
     if (ok.status !== "success") throw new Error(JSON.stringify(errorsOf(ok)));
