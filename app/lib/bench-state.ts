@@ -258,9 +258,14 @@ export function parseSectionInput(raw: unknown, units: UnitSystem): { ok: true; 
 }
 
 /** The message, prefixed with its field when the engine's wording does not name it already. */
+/** The error as the API states it: the field's path (an API client addresses fields by path). */
 export function describeFieldError(e: FieldError): string {
-  // worded through the one label table: rows counted from 1 as the bench shows them
-  return plainMessage(e.message.includes(e.field) || e.field === "input" ? e.message : `${e.field}: ${e.message}`);
+  return e.message.includes(e.field) || e.field === "input" ? e.message : `${e.field}: ${e.message}`;
+}
+
+/** The error as a person reads it on the bench: worded through the one label table, rows counted from 1 as shown. */
+export function plainFieldError(e: FieldError): string {
+  return plainMessage(describeFieldError(e));
 }
 
 /** Loads as typed → SI numbers; blank moment means 0, blank shear means none. */

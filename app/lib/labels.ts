@@ -209,6 +209,7 @@ export function plainMessage(message: string): string {
   // a plate's own dimension ("plates[2].b" → "plate 3, width b")
   out = out.replace(/\bplates\[(\d+)\]\.(b|h|z|y)\b/g, (_, i: string, k: string) => `plate ${Number(i) + 1}, ${PLATE_DIMENSIONS[k]}`);
   out = out.replace(/\]\.points\[/g, "], points[");
+  out = out.replace(/\bpolygons\[(\d+)\]\.(points|hole)\b/g, (_, i: string, k: string) => `polygon ${Number(i) + 1} ${k}`);
   out = out.replace(/\b(plates|polygons|points|thicknesses|families|prices|rows)\[(\d+)\]/g, (_, list: string, i: string) => `${ROW_NOUNS[list]} ${Number(i) + 1}`);
   out = out.replace(/objective is "(mass|cost)"/g, (_, o: "mass" | "cost") => `the objective is ${OBJECTIVE_LABELS[o]}`);
   out = out.replace(/(use )?objective "(mass|cost)"/g, (_, use: string | undefined, o: "mass" | "cost") => `${use ?? ""}the ${OBJECTIVE_LABELS[o]} objective`);

@@ -237,7 +237,8 @@ function limitGrids(p: SearchProblem, maxSteps: number): LimitGrid[] {
       steps: maxSteps,
       at: (k) => {
         const q = clone(p);
-        const value = from * factor(k);
+        // twelve figures: 3 × 0.7 is 2.1, not 2.0999999999999996
+        const value = Number((from * factor(k)).toPrecision(12));
         set(q, value);
         return { problem: q, value };
       },

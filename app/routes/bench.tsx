@@ -18,7 +18,7 @@ import {
   benchSectionInput,
   convertBenchState,
   decodeBenchState,
-  describeFieldError,
+  plainFieldError,
   encodeBenchState,
   parseBenchState,
   parseSectionInput,
@@ -64,7 +64,7 @@ export async function action({ request }: Route.ActionArgs) {
   if (!state) return badRequest({ state: "The section could not be read: reload the bench and try again." });
   const built = benchSectionInput(state);
   const section = "errors" in built ? { ok: false as const, errors: built.errors } : parseSectionInput(built.input, state.units);
-  if (!section.ok) return badRequest({ section: `Section: ${describeFieldError(section.errors[0]!)}` });
+  if (!section.ok) return badRequest({ section: `Section: ${plainFieldError(section.errors[0]!)}` });
   try {
     sectionProperties(section.input);
   } catch (e) {
@@ -498,7 +498,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
                 <ul className="mt-1 list-disc pl-5">
                   {errors.map((e, i) => (
                     <li key={i} data-field={e.field}>
-                      {describeFieldError(e)}
+                      {plainFieldError(e)}
                     </li>
                   ))}
                 </ul>

@@ -80,7 +80,7 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await page.locator('input[name="dim-tf"]').fill("600");
   const alert = page.getByRole("alert").filter({ hasText: "not valid" });
   await alert.waitFor({ timeout: 10_000 });
-  await expect(alert.textContent()).resolves.toContain("tee: d must exceed tf");
+  await expect(alert.textContent()).resolves.toContain("Tee: d must exceed tf");
   await expect(page.locator('input[name="dim-tf"]').getAttribute("aria-invalid")).resolves.toBe(null);
   await expect(page.locator('input[name="dim-d"]').getAttribute("aria-invalid")).resolves.toBe("true");
   await page.locator('input[name="dim-tf"]').fill("16");
@@ -120,7 +120,7 @@ test("type a section on the bench: centroid and Iz follow, errors name the field
   await page.waitForFunction(() => document.querySelector('tr[data-property="centroid.y"] [data-value]')?.textContent === "150 mm", undefined, { timeout: 10_000 });
   await expect(page.locator('tr[data-property="J"]').textContent()).resolves.toContain("approximate");
   await page.getByLabel("Polygon 2 points (z,y pairs, mm)").fill("20,20 180,20 180,280 twenty,280");
-  await page.getByRole("alert").filter({ hasText: "polygons[1]" }).waitFor({ timeout: 10_000 });
+  await page.getByRole("alert").filter({ hasText: "Polygon 2" }).waitFor({ timeout: 10_000 });
   await page.getByLabel("Polygon 2 points (z,y pairs, mm)").fill("20,20 180,20 180,280 20,280");
   await page.getByRole("alert").filter({ hasText: "not valid" }).waitFor({ state: "detached", timeout: 10_000 });
   await page.getByLabel("Plates", { exact: true }).check();

@@ -53,12 +53,12 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   await eng.getByLabel(/^Sagging moment/).fill("60");
   await eng.getByLabel(/Depth, max/).fill("300");
   await eng.getByLabel(/Width, min/).fill("50");
-  await eng.getByLabel(/^Plate thicknesses/).fill("6, 8");
+  await eng.getByLabel(/^Plate thicknesses/).fill("6, 8, 10, 12, 15, 20, 25");
   await eng.getByLabel(/^Member length/).fill("5.4");
   await eng.getByLabel(/^Member count/).fill("4");
   await eng.getByText(US).first().click();
   await expect(value(eng, /Depth, max/)).resolves.toBe("11.811");
-  await expect(value(eng, /^Plate thicknesses/)).resolves.toBe("0.23622, 0.314961");
+  await expect(value(eng, /^Plate thicknesses/)).resolves.toBe("0.23622, 0.314961, 0.393701, 0.472441, 0.590551, 0.787402, 0.984252");
   // 355 MPa ÷ 6.894757 MPa/ksi = 51.4884 ksi at six figures (NIST SP 811 App. B).
   await expect(value(eng, /^Band 1: fy/)).resolves.toBe("51.4884");
   await eng.getByText(SI).first().click();
@@ -74,7 +74,7 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   await eng.getByText(SI).first().click();
   await expect(value(eng, /Depth, max/)).resolves.toBe("300");
   await expect(value(eng, /Width, min/)).resolves.toBe("50");
-  await expect(value(eng, /^Plate thicknesses/)).resolves.toBe("6, 8");
+  await expect(value(eng, /^Plate thicknesses/)).resolves.toBe("6, 8, 10, 12, 15, 20, 25");
   await expect(value(eng, /^Density/)).resolves.toBe("7850");
   await expect(value(eng, /^Band 1: fy/)).resolves.toBe("355");
   await expect(value(eng, /^Band 2: plates up to/)).resolves.toBe("40");
