@@ -7,7 +7,7 @@
 import { z } from "zod";
 import { BASES, EN1993_DEFAULTS, EN1993_GRADES, LOAD_POSITIONS, type En1993Grade, type SearchProblem } from "~/optimizer/search-schema";
 import type { Quantity } from "~/optimizer/units";
-import { MOMENT_DIAGRAMS, matchMomentDiagram, momentDiagram } from "~/lib/moment-diagrams";
+import { matchMomentDiagram, momentDiagram } from "~/lib/moment-diagrams";
 
 /** Rows of the fy-band table the editor shows; blank rows are dropped (EN 10025-2 lists up to six bands to 150 mm). */
 export const FY_BAND_ROWS = 5;
@@ -222,4 +222,3 @@ export function basisFormDefaults(problem: SearchProblem, v: FromSI): { values: 
   };
 }
 
-export { MOMENT_DIAGRAMS };

@@ -9,6 +9,7 @@ export interface CautionBasis {
   restraint?: unknown;
   supports?: { stiffened?: boolean } | null;
   deflection?: unknown;
+  slenderness?: unknown;
 }
 
 /** The words shown wherever allowable-basis results appear (member-checks.md §2). */
@@ -16,20 +17,6 @@ export const STRESSES_ONLY = "stresses only: no stability checks";
 
 const VERIFY =
   "Verify every result against the governing local design code and have it approved by a licensed engineer before fabrication.";
-
-/**
- * Simplifications the EN 1993 basis states (member-checks.md §2, "Readings pinned"), in words;
- * the record lists them too, so they are kept here once.
- */
-export const EN1993_SIMPLIFICATIONS: readonly string[] = [
-  "Class 4 sections are not designed: a section with a class 4 element is rejected, not checked with effective widths.",
-  "A tee's stem is classified as an outstand in compression whatever its stress gradient (conservative).",
-  "Lateral-torsional buckling uses the general case of EN 1993-1-1 §6.3.2.2 (no §6.3.2.3 rolled-section curves, no modification factor f), with Mcr from the three-factor formula (C1, C2, C3) over the stated restraint length; the load is taken to act in the plane of the web without twist.",
-  "Shear buckling takes the web alone (the flanges' share is ignored) with a non-rigid end post.",
-  "Bending with shear uses the EN 1993-1-1 §6.2.8(5) reduction for every family with a web, class 3 and mono-symmetric sections included.",
-  "The flange-to-web weld throat is sized by the simplified method of EN 1993-1-8 §4.5.3.3 from the longitudinal shear flow only.",
-  "The moments and shear are taken as factored design values for one load case; nothing combines load cases.",
-];
 
 /**
  * The caution's text for a problem's basis. Without a problem: on the section bench ("bench") it
@@ -61,7 +48,7 @@ export function cautionText(p?: CautionBasis | null, scope: "bench" | "project" 
       "the flange-to-web weld throat",
       stiffened ? null : "web crippling (patch loading) at an end support",
       p.deflection ? "deflection" : null,
-      "the slenderness limits given",
+      p.slenderness && Object.keys(p.slenderness).length ? "the slenderness limits given" : null,
     ].filter(Boolean);
     const notCovered = [
       p.restraint ? null : "lateral-torsional buckling (the compression flange is taken as restrained throughout)",
