@@ -274,7 +274,7 @@ const CHECK_HINTS: Record<CheckName, string> = {
   deflection: "allow deeper sections or relax the deflection limit",
   "class-4": "allow thicker plates or narrower widths",
   "bending-resistance": "allow deeper or wider sections or thicker plates",
-  ltb: "add lateral restraints (a shorter restraint.length), or allow wider, stockier flanges",
+  ltb: "add lateral restraints (a shorter restraint length), or allow wider, stockier flanges",
   "shear-resistance": "allow thicker webs or deeper sections",
   "shear-buckling": "allow thicker webs, or shallower webs",
   "bending-shear": "allow thicker webs or deeper sections",

@@ -51,7 +51,7 @@ test("EN 1993 floor beam: brief → sweep with class, Mcr, χLT and the restrain
 
   // The restraint length is the engineer's to state: without it the message sits by the field.
   await eng.getByRole("button", { name: "Save and run" }).click();
-  await eng.getByText("restraint.length: enter the longest distance between lateral restraints").waitFor();
+  await eng.getByText(/enter the longest distance between lateral restraints/).first().waitFor();
   await eng.getByLabel(/^Restraint length/).fill("6");
   // The moment-diagram preset fills C1, C2, C3 (ENV 1993-1-1 Annex F, mem.); the load sits on the top flange.
   await eng.getByLabel("Moment diagram over that length").selectOption("point-simple");
