@@ -7,9 +7,9 @@
 // document now stays small whatever the sweep: the table's other pages, sorts and filters come
 // from GET /api/v1/sweeps/:id/candidates (candidatesPage, which the table fetches), and the chart
 // draws the front sampled evenly plus every family's best.
-import { db, parseJson } from "~/lib/db.server";
+import { db, getDb, parseJson } from "~/lib/db.server";
 import { notFound } from "~/lib/projects.server";
-import { listCandidates, getTeamSweep, WITH_RESULTS, type CandidateRow, type CandidatesQuery, type SweepView } from "~/workers/queue.server";
+import { listCandidates, getTeamSweep, TERMINAL, WITH_RESULTS, type CandidateRow, type CandidatesQuery, type SweepView } from "~/workers/queue.server";
 import { runOnEngineThread } from "~/workers/engine-thread.server";
 import type { ChartCandidate } from "~/components/TradeoffChart";
 import type { UnitSystem } from "~/optimizer/units";
@@ -18,10 +18,11 @@ import type { DesignRow } from "~/lib/design-summary";
 
 /** Rows of the candidate table per page (the page's first page, and each page the table fetches). */
 export const TABLE_PAGE_SIZE = 50;
-/** Most front candidates the chart draws (evenly spaced along the front, its two ends kept). */
-export const CHART_FRONT_MAX = 250;
-/** Most candidates off the front the chart draws (the queue stores few: family bests). */
-export const CHART_OTHERS_MAX = 100;
+/**
+ * Most points the chart draws: every k-th stored candidate by rank (evenly along the front), plus
+ * rank 1, the front's heaviest end and each family's best (at most one per family, ≤ 20).
+ */
+export const CHART_MAX_POINTS = 200;
 /** Most rechecks and saved options listed by name on the page (the rest are counted). */
 export const PAGE_LIST_MAX = 30;
 
@@ -84,56 +85,106 @@ export interface ChartSample {
   front: number;
 }
 
+const CHART_COLUMNS = ["rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best"];
+
 /**
- * The chart's points: the front sampled evenly by rank (every k-th, k chosen so at most
- * CHART_FRONT_MAX remain, the last kept so the line reaches the heaviest end), the candidates off
- * the front likewise up to CHART_OTHERS_MAX, and always rank 1 and every family's best.
+ * The chart's points: every k-th stored candidate by rank (k chosen so at most CHART_MAX_POINTS
+ * remain; the stored candidates are the front plus a few family bests, so this samples the front
+ * evenly), and always rank 1, the front's heaviest end and every family's best. Ranks run 1…n
+ * (candidatesToStore), so the sample is a list of ranks read through the (sweep_id, rank) key, and
+ * the counts come from the (sweep_id, on_front) index alone: a 2,000-candidate sweep costs the
+ * database a few index lookups, not a scan of its rows.
  */
 export async function chartSample(sweepId: number): Promise<ChartSample> {
-  const [rows] = (await db.raw(
-    `SELECT \`rank\`, family, dimensions, area, mass_per_metre, cost, utilisation, governing, on_front, family_best, n, front_n FROM (
-       SELECT c.*, ROW_NUMBER() OVER (PARTITION BY on_front ORDER BY \`rank\`) AS k, COUNT(*) OVER (PARTITION BY on_front) AS part_n,
-              COUNT(*) OVER () AS n, SUM(on_front) OVER () AS front_n
-         FROM candidates c WHERE sweep_id = ?
-     ) x
-     WHERE \`rank\` = 1 OR family_best = 1 OR k = part_n
-        OR MOD(k - 1, CEIL(part_n / IF(on_front, ?, ?))) = 0
-     ORDER BY \`rank\``,
-    [sweepId, CHART_FRONT_MAX - 1, CHART_OTHERS_MAX - 1],
-  )) as [Record<string, unknown>[]];
-  const points = rows.map((r) =>
-    toChartCandidate({
-      rank: Number(r.rank),
-      family: String(r.family),
-      dimensions: parseJson(r.dimensions as string),
-      area: Number(r.area),
-      massPerMetre: Number(r.mass_per_metre),
-      cost: r.cost === null ? null : Number(r.cost),
-      utilisation: Number(r.utilisation),
-      governing: String(r.governing),
-      onFront: !!r.on_front,
-      familyBest: !!r.family_best,
-      design: null, // the chart draws no design figures
-    }),
-  );
-  return { points, stored: Number(rows[0]?.n ?? 0), front: Number(rows[0]?.front_n ?? 0) };
+  const [counts, last] = await Promise.all([
+    db("candidates").where({ sweep_id: sweepId }).first(db.raw("COUNT(*) AS n"), db.raw("COALESCE(SUM(on_front), 0) AS f")),
+    db("candidates").where({ sweep_id: sweepId, on_front: true }).orderBy("rank", "desc").first("rank"),
+  ]);
+  const stored = Number(counts?.n ?? 0),
+    front = Number(counts?.f ?? 0);
+  if (stored === 0) return { points: [], stored, front };
+  const k = Math.max(1, Math.ceil(stored / (CHART_MAX_POINTS - 20)));
+  const ranks = new Set<number>();
+  for (let r = 1; r <= stored; r += k) ranks.add(r);
+  if (last) ranks.add(Number(last.rank));
+  const [sampled, bests] = await Promise.all([
+    db("candidates").where({ sweep_id: sweepId }).whereIn("rank", [...ranks]).select(CHART_COLUMNS),
+    db("candidates").where({ sweep_id: sweepId, family_best: true }).select(CHART_COLUMNS),
+  ]);
+  const byRank = new Map<number, Record<string, unknown>>();
+  for (const r of [...sampled, ...bests]) byRank.set(Number(r.rank), r);
+  const points = [...byRank.values()]
+    .sort((a, b) => Number(a.rank) - Number(b.rank))
+    .map((r) =>
+      toChartCandidate({
+        rank: Number(r.rank),
+        family: String(r.family),
+        dimensions: parseJson(r.dimensions as string),
+        area: Number(r.area),
+        massPerMetre: Number(r.mass_per_metre),
+        cost: r.cost === null ? null : Number(r.cost),
+        utilisation: Number(r.utilisation),
+        governing: String(r.governing),
+        onFront: !!r.on_front,
+        familyBest: !!r.family_best,
+        design: null, // the chart draws no design figures
+      }),
+    );
+  return { points, stored, front };
+}
+
+/** What a finished sweep's page shows of its candidates: never changes once the sweep has ended. */
+interface ResultParts {
+  chart: ChartSample;
+  table: Awaited<ReturnType<typeof candidatesPage>>;
+  families: string[];
+}
+
+/**
+ * A sweep's stored candidates are written once, in the transaction that ends it, and never change
+ * after, so each process keeps the result parts of the last RESULT_CACHE_SIZE finished sweeps it
+ * served (a page view then costs the database the sweep's row and its small lists, not the chart
+ * and table reads). Keyed by database and id; only ever filled for ended sweeps.
+ */
+const RESULT_CACHE_SIZE = 200;
+const resultCache = new Map<string, ResultParts>();
+
+async function resultParts(sweep: SweepView): Promise<ResultParts> {
+  const key = `${String((getDb().client.config.connection as { database?: string }).database)}:${sweep.id}`;
+  const hit = resultCache.get(key);
+  if (hit) {
+    resultCache.delete(key);
+    resultCache.set(key, hit);
+    return hit;
+  }
+  const [chart, table, families] = await Promise.all([
+    chartSample(sweep.id),
+    candidatesPage(sweep, { page: 1, pageSize: TABLE_PAGE_SIZE, sort: "rank" }),
+    db("candidates").where({ sweep_id: sweep.id }).distinct("family").orderBy("family"),
+  ]);
+  const parts = { chart, table, families: (families as { family: string }[]).map((f) => f.family) };
+  if (TERMINAL.has(sweep.status)) {
+    resultCache.set(key, parts);
+    if (resultCache.size > RESULT_CACHE_SIZE) resultCache.delete(resultCache.keys().next().value!);
+  }
+  return parts;
 }
 
 export async function loadSweepPage(teamId: number, id: number) {
   const sweep = await getTeamSweep(id, { teamId });
   if (!sweep) throw notFound("No such sweep in your team.");
   const done = WITH_RESULTS.has(sweep.status);
-  const [brief, project, rechecks, rechecksN, options, optionsN, chart, table, families] = await Promise.all([
+  const [brief, project, rechecks, rechecksN, options, optionsN, parts] = await Promise.all([
     sweep.briefId ? db("briefs").where({ id: sweep.briefId }).first("id", "name", "units") : null,
     sweep.projectId ? db("projects").where({ id: sweep.projectId }).first("id", "name") : null,
     db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).orderBy("id", "desc").limit(PAGE_LIST_MAX).select("id", "status"),
     db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).count({ n: "*" }).first(),
     db("options").where({ sweep_id: sweep.id }).orderBy("id").limit(PAGE_LIST_MAX).select("id", "review_state", "candidate"),
     db("options").where({ sweep_id: sweep.id }).count({ n: "*" }).first(),
-    done ? chartSample(sweep.id) : ({ points: [], stored: 0, front: 0 } as ChartSample),
-    done ? candidatesPage(sweep, { page: 1, pageSize: TABLE_PAGE_SIZE, sort: "rank" }) : null,
-    done ? db("candidates").where({ sweep_id: sweep.id }).distinct("family").orderBy("family") : [],
+    done ? resultParts(sweep) : null,
   ]);
+  const chart = parts?.chart ?? { points: [], stored: 0, front: 0 },
+    table = parts?.table ?? null;
   // the best's design figures for the summary line (rank 1 is on the table's first page)
   const bestRow = table?.items.find((c) => c.rank === 1);
   return {
@@ -141,7 +192,7 @@ export async function loadSweepPage(teamId: number, id: number) {
     chart,
     table: table ? { items: table.items.map((c) => ({ ...toChartCandidate(c), design: c.design ?? null })), total: table.total, page: table.page, pageSize: table.pageSize } : { items: [], total: 0, page: 1, pageSize: TABLE_PAGE_SIZE },
     bestDesign: bestRow?.design ?? null,
-    families: (families as { family: string }[]).map((f) => f.family),
+    families: parts?.families ?? [],
     brief: brief ? { id: brief.id as number, name: brief.name as string } : null,
     project: project ? { id: project.id as number, name: project.name as string } : null,
     units: ((brief?.units as UnitSystem | undefined) ?? "si") as UnitSystem,

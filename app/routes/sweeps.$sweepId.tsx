@@ -294,7 +294,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                 <TradeoffChart candidates={chart.points} units={units} selected={selected} onSelect={select} />
                 {chart.points.length < chart.stored ? (
                   <p className="text-xs text-ink/70" data-testid="chart-sample">
-                    The chart draws {chart.points.length.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly, with both ends and every family's best. The table below pages through all of them.
+                    The chart draws {chart.points.length.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly by rank, with both ends and every family's best. The table below pages through all of them.
                   </p>
                 ) : null}
               </section>

@@ -42,7 +42,7 @@ const { sessionCookieFor } = await import("~/lib/session.server");
 const { getUser } = await import("~/lib/auth.server");
 const { createApiToken } = await import("~/lib/api-tokens.server");
 const { insertBigSweep } = await import("../integration/big-sweep");
-const { MAX_SECTION_POINTS, MAX_SECTION_POLYGONS } = await import("~/optimizer/validate");
+const { MAX_SECTION_POINTS, MAX_SECTION_POLYGONS, findInputViolation } = await import("~/optimizer/validate");
 
 const freePort = () =>
   new Promise<number>((resolve, reject) => {
@@ -94,6 +94,16 @@ const stopServer = () => {
   server = undefined;
 };
 process.on("exit", stopServer);
+process.on("uncaughtException", (e) => {
+  stopServer();
+  console.error(e);
+  process.exit(1);
+});
+process.on("unhandledRejection", (e) => {
+  stopServer();
+  console.error(e);
+  process.exit(1);
+});
 for (const deadline = Date.now() + 60_000; ; ) {
   try {
     if ((await fetch(`${base}/healthz`)).ok) break;
@@ -147,11 +157,9 @@ for (let i = 0; i < 20; i++) await healthz();
 for (let i = 0; i < 10; i++) await page();
 
 // ---- baseline
-const idle = stats(await Promise.all(Array.from({ length: 1 }, async () => {
-  const xs: number[] = [];
-  for (let i = 0; i < 300; i++) xs.push((await healthz()).ms);
-  return xs;
-})).then((x) => x.flat()));
+const idleTimes: number[] = [];
+for (let i = 0; i < 300; i++) idleTimes.push((await healthz()).ms);
+const idle = stats(idleTimes);
 console.log(`\nbaseline: /healthz one at a time: ${fmt(idle)}`);
 
 // ---- item 4
@@ -161,7 +169,8 @@ const fan = (n: number) =>
   Array.from({ length: n }, (_, k) => {
     const th = (2 * Math.PI * k) / n;
     const r = k % 2 ? 1000 : 1 + (k % 7) * 0.01;
-    return [round(r * Math.cos(th)), round(r * Math.sin(th))];
+    // full precision: rounded to 0.01 mm the crowded inner ends would touch
+    return [r * Math.cos(th), r * Math.sin(th)];
   });
 const circle = (n: number, cz: number, r = 100) => Array.from({ length: n }, (_, k) => [round(cz + r * Math.cos((2 * Math.PI * k) / n)), round(r * Math.sin((2 * Math.PI * k) / n))]);
 const perPolygon = Math.floor(MAX_SECTION_POINTS / MAX_SECTION_POLYGONS);
@@ -178,6 +187,8 @@ console.log(`\nitem 4: POST /api/v1/properties at the caps (${MAX_SECTION_POINTS
 let worst: { label: string; body: string; median: number } | null = null;
 for (const [label, section] of cases) {
   const body = JSON.stringify(section);
+  const v = findInputViolation(section);
+  if (v) throw new Error(`${label}: the bench's own section is refused: ${v.message}`);
   const first = await properties(body);
   if (first.status !== 200) throw new Error(`${label}: expected 200, got ${first.status}`);
   const xs: number[] = [];

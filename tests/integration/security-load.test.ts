@@ -14,7 +14,7 @@ import { searchSections } from "~/optimizer";
 import * as sweepApi from "~/routes/api.v1.sweeps.$id";
 import { BASE, FixtureContext, callRoute, demoUser, loadRouteModule, requestAs, tableCounts } from "./fixtures";
 import { insertBigSweep } from "./big-sweep";
-import { CHART_FRONT_MAX, CHART_OTHERS_MAX, TABLE_PAGE_SIZE } from "~/lib/sweep-page.server";
+import { CHART_MAX_POINTS, TABLE_PAGE_SIZE } from "~/lib/sweep-page.server";
 import * as candidatesApi from "~/routes/api.v1.sweeps.$id.candidates";
 import { teamAndUser, tinyProblem, waitFor } from "./queue-helpers";
 
@@ -278,7 +278,8 @@ describe("item 8: the sweep page stays small whatever the sweep", () => {
     expect(JSON.stringify(data).length).toBeLessThan(100_000);
     expect(data.chart.stored).toBe(2_000);
     expect(data.chart.front).toBe(1_992);
-    expect(data.chart.points.length).toBeLessThanOrEqual(CHART_FRONT_MAX + CHART_OTHERS_MAX);
+    expect(data.chart.points.length).toBeLessThanOrEqual(CHART_MAX_POINTS);
+    expect(data.chart.points.length).toBeGreaterThan(CHART_MAX_POINTS / 2);
     const ranks = data.chart.points.map((p) => p.rank);
     expect(ranks[0]).toBe(1);
     expect(ranks).toContain(1_992); // the front's heaviest end
