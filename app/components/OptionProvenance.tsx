@@ -1,6 +1,7 @@
 // Where an option came from and which problem it was checked against: the sweep it was saved
 // from (and, for a recheck, the sweep that one rechecked), the brief, and the fact that the limits
 // shown are that sweep's own snapshot, not the brief's current values (issue 11, item 3).
+import { NO_NUMBERS, sweepNo, type Numbers } from "~/lib/numbering";
 import { Link } from "react-router";
 
 export interface ProvenanceFacts {
@@ -10,14 +11,14 @@ export interface ProvenanceFacts {
   briefName: string | null;
 }
 
-export function OptionProvenance({ option, linked = true }: { option: ProvenanceFacts; linked?: boolean }) {
+export function OptionProvenance({ option, numbers = NO_NUMBERS, linked = true }: { option: ProvenanceFacts; numbers?: Numbers; linked?: boolean }) {
   const sweep = (id: number) =>
     linked ? (
       <Link to={`/sweeps/${id}`} className="text-accent underline">
-        sweep {id}
+        sweep {sweepNo(numbers, id)}
       </Link>
     ) : (
-      <>sweep {id}</>
+      <>sweep {sweepNo(numbers, id)}</>
     );
   return (
     <p className="text-sm" data-testid="provenance">

@@ -37,6 +37,8 @@ export interface OptionRecord {
   sweepId: number | null;
   /** the sweep that sweep rechecked, when the option was saved from a recheck */
   recheckOf: number | null;
+  /** approved, and its brief's problem has changed since the approval: the approval may no longer hold */
+  approvalStale: boolean;
   candidate: SavedCandidate;
   problem: SearchProblem;
   note: string | null;
@@ -124,6 +126,8 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
           "s.recheck_of as sweep_recheck_of",
           "s.member_length_m as sweep_member_length_m",
           "s.member_count as sweep_member_count",
+          "b.problem_changed_at",
+          db.raw("(select max(r.created_at) from reviews r where r.option_id = o.id and r.decision = 'approved') as approved_at"),
           "u.name as author",
         )
     : undefined;
@@ -137,6 +141,7 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     briefName: row.brief_name,
     sweepId: row.sweep_id,
     recheckOf: row.sweep_recheck_of ?? null,
+    approvalStale: isStale(row.review_state, row.approved_at, row.problem_changed_at),
     candidate: parseJson(row.candidate),
     problem: parseJson(row.problem),
     note: row.note,
@@ -167,12 +172,41 @@ export async function listReviews(optionId: number) {
   }));
 }
 
+/**
+ * An approval goes stale when its brief's problem changes after it (a rename does not count:
+ * briefs.problem_changed_at moves only with the problem). Compared in the database's clock.
+ */
+function isStale(state: unknown, approvedAt: unknown, changedAt: unknown): boolean {
+  if (state !== "approved" || !approvedAt || !changedAt) return false;
+  return new Date(changedAt as string).getTime() > new Date(approvedAt as string).getTime();
+}
+
 export async function listProjectOptions(projectId: number) {
-  const rows = await db("options as o").leftJoin("users as u", "u.id", "o.created_by").where("o.project_id", projectId).orderBy("o.id", "desc").select("o.*", "u.name as author");
+  const rows = await db("options as o")
+    .leftJoin("users as u", "u.id", "o.created_by")
+    .leftJoin("briefs as b", "b.id", "o.brief_id")
+    .leftJoin("sweeps as s", "s.id", "o.sweep_id")
+    .where("o.project_id", projectId)
+    .orderBy("o.id", "desc")
+    .select(
+      "o.*",
+      "u.name as author",
+      "b.name as brief_name",
+      "b.problem_changed_at",
+      db.raw("coalesce(s.member_length_m, b.member_length_m) as member_length_m"),
+      db.raw("coalesce(s.member_count, b.member_count) as member_count"),
+      db.raw("(select max(r.created_at) from reviews r where r.option_id = o.id and r.decision = 'approved') as approved_at"),
+    );
   return rows.map((r: Record<string, unknown>) => {
     const c = parseJson<SavedCandidate>(r.candidate);
     return {
       id: r.id as number,
+      briefId: (r.brief_id as number | null) ?? null,
+      briefName: (r.brief_name as string | null) ?? null,
+      /** the member the option's sweep was run for (m, count) */
+      memberLengthM: (r.member_length_m as number | null) ?? null,
+      memberCount: (r.member_count as number | null) ?? null,
+      approvalStale: isStale(r.review_state, r.approved_at, r.problem_changed_at),
       family: c.family,
       dimensions: c.dimensions,
       massPerMetre: c.massPerMetre,

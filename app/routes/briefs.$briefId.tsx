@@ -1,4 +1,6 @@
 import { Link } from "react-router";
+import { sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import type { Route } from "./+types/briefs.$briefId";
 import { requirePermission } from "~/lib/auth.server";
 import { getBrief, getProject } from "~/lib/projects.server";
@@ -38,6 +40,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     stockLists: await listStockLists(user.teamId),
     teamMaterials: await listMaterials(user.teamId),
     sweeps: sweeps.map((s) => ({ id: s.id as number, status: s.status as string, recheckOf: s.recheck_of as number | null, at: new Date(s.created_at).toISOString() })),
+    numbers: await projectNumbers({ sweeps: sweeps.flatMap((s) => [s.id as number, s.recheck_of as number | null]) }),
     mayEdit: can(user.role, "editBrief"),
     saved: new URL(request.url).searchParams.get("saved") === "1",
   };
@@ -50,7 +53,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function BriefPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { brief, problem, project, defaults, stockLists, teamMaterials, sweeps, mayEdit, saved } = loaderData;
+  const { brief, problem, project, defaults, stockLists, teamMaterials, sweeps, mayEdit, saved, numbers } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -67,10 +70,10 @@ export default function BriefPage({ loaderData, actionData }: Route.ComponentPro
             <span key={s.id}>
               {i ? ", " : ""}
               <Link to={`/sweeps/${s.id}`} className="text-accent underline">
-                {s.id}
+                {sweepNo(numbers, s.id)}
               </Link>{" "}
               ({s.status}
-              {s.recheckOf ? `, recheck of ${s.recheckOf}` : ""})
+              {s.recheckOf ? `, recheck of ${sweepNo(numbers, s.recheckOf)}` : ""})
             </span>
           ))}
         </p>

@@ -1,4 +1,6 @@
 import type { Route } from "./+types/dashboard";
+import { optionNo, sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { requirePermission } from "~/lib/auth.server";
 import { can, ROLE_LABELS } from "~/lib/roles";
 import { dashboardData } from "~/lib/dashboard.server";
@@ -10,11 +12,13 @@ export function meta() {
 // Who you are, where to start, and the work waiting: my projects, my sweeps, reviews, the queue.
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
-  return { user, ...(await dashboardData(user)) };
+  const d = await dashboardData(user);
+  const numbers = await projectNumbers({ sweeps: d.sweeps.flatMap((s) => [s.id, s.recheckOf]), options: d.reviews.map((r) => r.id) });
+  return { user, ...d, numbers };
 }
 
 export default function Dashboard({ loaderData }: Route.ComponentProps) {
-  const { user, projects, sweeps, reviews, queue } = loaderData;
+  const { user, projects, sweeps, reviews, queue, numbers } = loaderData;
   const starts = [
     can(user.role, "createProject") && { href: "/projects", title: "Projects", text: "Start a project, write a brief and run a sweep." },
     can(user.role, "review") && { href: "/projects", title: "Reviews", text: "Open an option, recheck it with altered limits, approve or return it." },
@@ -58,7 +62,7 @@ export default function Dashboard({ loaderData }: Route.ComponentProps) {
               {reviews.map((r) => (
                 <li key={r.id}>
                   <a href={`/options/${r.id}`} className="text-accent underline">
-                    Option {r.id}
+                    Option {optionNo(numbers, r.id)}
                   </a>{" "}
                   in {r.project}
                   {r.author ? ` (from ${r.author})` : ""}
@@ -78,10 +82,10 @@ export default function Dashboard({ loaderData }: Route.ComponentProps) {
               {sweeps.map((s) => (
                 <li key={s.id}>
                   <a href={`/sweeps/${s.id}`} className="text-accent underline">
-                    Sweep {s.id}
+                    Sweep {sweepNo(numbers, s.id)}
                   </a>{" "}
                   {s.brief ? `· ${s.brief} ` : ""}
-                  {s.recheckOf ? `· recheck of ${s.recheckOf} ` : ""}· {s.status}
+                  {s.recheckOf ? `· recheck of sweep ${sweepNo(numbers, s.recheckOf)} ` : ""}· {s.status}
                   {s.status === "running" ? ` (${s.percent}%)` : ""}
                 </li>
               ))}

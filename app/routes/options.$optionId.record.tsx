@@ -1,5 +1,8 @@
 // The calculation record: one printable sheet per option. Every number comes from the engine
 // (record.ts gathers them); the composite-area table is the engine's own compositeTable.
+import { StaleApproval } from "~/components/ReviewBadge";
+import { optionNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { Link } from "react-router";
 import type { Route } from "./+types/options.$optionId.record";
@@ -18,7 +21,7 @@ import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
-  return [{ title: `Calculation record, option ${data?.option.id ?? ""} · Sparwise` }];
+  return [{ title: `Calculation record, option ${data ? optionNo(data.numbers, data.option.id) : ""} · Sparwise` }];
 }
 
 
@@ -26,11 +29,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
   const option = await getOption(user.teamId, idParam(params.optionId));
   const reviews = await listReviews(option.id);
-  return { option, reviews, team: user.teamName, printedAt: new Date().toISOString() };
+  const numbers = await projectNumbers({ sweeps: [option.sweepId, option.recheckOf], options: [option.id] });
+  return { option, reviews, numbers, team: user.teamName, printedAt: new Date().toISOString() };
 }
 
 export default function RecordPage({ loaderData }: Route.ComponentProps) {
-  const { option, reviews, team, printedAt } = loaderData;
+  const { option, reviews, team, printedAt, numbers } = loaderData;
   const units = option.units;
   const c = option.candidate;
   const rec = buildRecord(c.family, c.dimensions, option.problem);
@@ -55,7 +59,9 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
           <p className="text-sm text-ink/70">
             {team} · {option.projectName}
           </p>
-          <h1 className="text-2xl font-bold">Calculation record: option {option.id}</h1>
+          <h1 className="text-2xl font-bold">Calculation record: option {optionNo(numbers, option.id)}
+            {option.approvalStale ? <StaleApproval /> : null}
+          </h1>
           <p className="text-sm">
             {familyLabel(c.family)} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
             {option.note ? ` · note: ${option.note}` : ""}
@@ -76,7 +82,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         <h2 id="inputs-h" className="text-lg font-bold">
           1. Inputs
         </h2>
-        <OptionProvenance option={option} linked={false} />
+        <OptionProvenance option={option} numbers={numbers} linked={false} />
         <BasisNote problem={option.problem} className="mb-1" />
         <BriefSummary problem={option.problem} units={units} />
         {option.memberLengthM && option.memberCount ? (

@@ -1,4 +1,7 @@
 import { Form, Link, data } from "react-router";
+import { StaleApproval } from "~/components/ReviewBadge";
+import { optionNo, sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import type { Route } from "./+types/options.$optionId";
 import { requirePermission } from "~/lib/auth.server";
 import { readForm } from "~/lib/forms.server";
@@ -15,7 +18,7 @@ import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
-  return [{ title: `Option ${data?.option.id ?? ""} · Sparwise` }];
+  return [{ title: `Option ${data ? optionNo(data.numbers, data.option.id) : ""} · Sparwise` }];
 }
 
 
@@ -28,6 +31,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const refusal = inReview && can(user.role, "review") ? reviewRefusal(user.role, await reviewTies(option, user.id)) : null;
   return {
     option,
+    numbers: await projectNumbers({ sweeps: [option.sweepId, option.recheckOf], options: [option.id] }),
     feasible: verdict.feasible,
     notes: verdict.design?.notes ?? null,
     reviews: await listReviews(option.id),
@@ -77,7 +81,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function OptionPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { option, reviews, may, feasible, notes, reviewRefusal: refusal } = loaderData;
+  const { option, reviews, may, feasible, notes, reviewRefusal: refusal, numbers } = loaderData;
   const errors = (actionData?.errors ?? null) as Record<string, string> | null;
   const c = option.candidate;
   return (
@@ -92,13 +96,14 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
               <>
                 {" › "}
                 <Link to={`/sweeps/${option.sweepId}`} className="text-accent underline">
-                  sweep {option.sweepId}
+                  sweep {sweepNo(numbers, option.sweepId)}
                 </Link>
               </>
             ) : null}
           </p>
           <h1 className="text-2xl font-bold">
-            Option {option.id} <ReviewBadge state={option.reviewState} />
+            Option {optionNo(numbers, option.id)} <ReviewBadge state={option.reviewState} />
+            {option.approvalStale ? <StaleApproval /> : null}
           </h1>
           <p className="text-sm text-ink/80">
             Saved by {option.createdBy ?? "—"} on {option.createdAt.slice(0, 10)}
@@ -139,7 +144,7 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           <h2 id="brief-h" className="text-lg font-bold">
             The problem it was checked against
           </h2>
-          <OptionProvenance option={option} />
+          <OptionProvenance option={option} numbers={numbers} />
           <BasisNote problem={option.problem} />
           <BriefSummary problem={option.problem} units={option.units} />
           <Assumptions problem={option.problem} units={option.units} notes={notes ?? undefined} />

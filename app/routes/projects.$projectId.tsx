@@ -1,4 +1,7 @@
 import { Form, Link, data } from "react-router";
+import { StaleApproval } from "~/components/ReviewBadge";
+import { optionNo, sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { familyLabel } from "~/lib/labels";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { z } from "zod";
@@ -52,10 +55,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     result: q?.ok ? await rationaliseProject(project.id, q.query) : null,
     perBrief: RATIONALISE_CANDIDATES_PER_BRIEF,
   };
+  const numbers = await projectNumbers({ sweeps: briefs.map((b) => b.lastSweepId), options: options.map((o) => o.id) });
   return data({
     project: { id: project.id, name: project.name, client: project.client, description: project.description, archived: project.archived_at != null },
     briefs,
     options,
+    numbers,
     savedSections: savedSections.map((x) => ({ id: x.id, name: x.name, by: x.createdByName, on: dateOnly(x.createdAt), href: benchHref(x.section, x.units) })),
     members,
     outside,
@@ -97,7 +102,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ProjectPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { project, briefs, options, savedSections, members, outside, activity, may, rationalisation } = loaderData;
+  const { project, briefs, options, savedSections, members, outside, activity, may, rationalisation, numbers } = loaderData;
   return (
     <div className="space-y-8">
       <div className="flex flex-wrap items-start justify-between gap-3">
@@ -149,7 +154,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
                     <>
                       {" · "}
                       <Link to={`/sweeps/${b.lastSweepId}`} className="text-accent underline">
-                        sweep {b.lastSweepId} ({b.lastSweepStatus})
+                        sweep {sweepNo(numbers, b.lastSweepId)} ({b.lastSweepStatus})
                       </Link>
                     </>
                   ) : null}
@@ -171,6 +176,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
             <thead>
               <tr className="border-b border-ink/30 text-left">
                 <th className="p-2">Option</th>
+                <th className="p-2">Brief and member</th>
                 <th className="p-2">Section (mm)</th>
                 <th className="p-2 text-right">Mass</th>
                 <th className="p-2 text-right">Utilisation</th>
@@ -182,9 +188,21 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
                 <tr key={o.id} className="border-b border-ink/10">
                   <td className="p-2">
                     <Link to={`/options/${o.id}`} className="font-semibold text-accent underline">
-                      Option {o.id}
+                      Option {optionNo(numbers, o.id)}
                     </Link>
                     {o.note ? <span className="block text-xs text-ink/70">{o.note}</span> : null}
+                  </td>
+                  <td className="p-2">
+                    {o.briefId ? (
+                      <Link to={`/briefs/${o.briefId}`} className="text-accent underline">
+                        {o.briefName}
+                      </Link>
+                    ) : (
+                      "—"
+                    )}
+                    <span className="block text-xs text-ink/70">
+                      {o.memberLengthM ? `${o.memberCount ?? 1} × ${formatQuantity("span", o.memberLengthM, "si")}` : "member length not given"}
+                    </span>
                   </td>
                   <td className="p-2">
                     {familyLabel(o.family)}{" "}
@@ -196,6 +214,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
                   <td className="p-2 text-right tabular-nums">{o.utilisation.toFixed(3)}</td>
                   <td className="p-2">
                     <ReviewBadge state={o.reviewState} />
+                    {o.approvalStale ? <StaleApproval /> : null}
                   </td>
                 </tr>
               ))}

@@ -1,4 +1,6 @@
 import { Link } from "react-router";
+import { optionNo, sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { useState } from "react";
 import type { Route } from "./+types/sweeps.$sweepId.comparison";
 import { requirePermission } from "~/lib/auth.server";
@@ -24,7 +26,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
   const c = await compareRecheck(user.teamId, idParam(params.sweepId));
   const slim = (s: typeof c.original) => ({ id: s.id, status: s.status, best: s.best ? { family: s.best.family, dimensions: s.best.dimensions, massPerMetre: s.best.massPerMetre, utilisation: s.best.utilisation, governing: s.best.governing } : null, reason: s.reason, problem: s.problem });
-  return { original: slim(c.original), recheck: slim(c.recheck), changes: c.changes, massDifference: c.massDifference, options: c.options };
+  const numbers = await projectNumbers({ sweeps: [c.original.id, c.recheck.id], options: c.options.map((o) => o.id) });
+  return { original: slim(c.original), recheck: slim(c.recheck), changes: c.changes, massDifference: c.massDifference, options: c.options, numbers };
 }
 
 function valueText(path: string, v: unknown, units: UnitSystem): string {
@@ -41,7 +44,7 @@ function valueText(path: string, v: unknown, units: UnitSystem): string {
 }
 
 export default function Comparison({ loaderData }: Route.ComponentProps) {
-  const { original, recheck, changes, massDifference, options } = loaderData;
+  const { original, recheck, changes, massDifference, options, numbers } = loaderData;
   const [units, setUnits] = useState<UnitSystem>("si");
   const asCandidate = (s: typeof original, rank: number): ChartCandidate[] => (s.best ? [{ rank, ...s.best, onFront: true }] : []);
   return (
@@ -51,11 +54,11 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
           <h1 className="text-2xl font-bold">Recheck comparison</h1>
           <p className="text-sm">
             <Link to={`/sweeps/${original.id}`} className="text-accent underline">
-              Original: sweep {original.id}
+              Original: sweep {sweepNo(numbers, original.id)}
             </Link>{" "}
             ·{" "}
             <Link to={`/sweeps/${recheck.id}`} className="text-accent underline">
-              Recheck: sweep {recheck.id}
+              Recheck: sweep {sweepNo(numbers, recheck.id)}
             </Link>{" "}
             ({recheck.status})
           </p>
@@ -106,12 +109,12 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
             </p>
             <div className="grid gap-4 md:grid-cols-2">
               <div>
-                <h3 className="font-semibold">Original (sweep {original.id})</h3>
+                <h3 className="font-semibold">Original (sweep {sweepNo(numbers, original.id)})</h3>
                 <BasisNote problem={original.problem} />
                 <CompareCandidates candidates={asCandidate(original, 1)} problem={original.problem} units={units} />
               </div>
               <div>
-                <h3 className="font-semibold">Recheck (sweep {recheck.id})</h3>
+                <h3 className="font-semibold">Recheck (sweep {sweepNo(numbers, recheck.id)})</h3>
                 <BasisNote problem={recheck.problem} />
                 <CompareCandidates candidates={asCandidate(recheck, 1)} problem={recheck.problem} units={units} />
               </div>
@@ -141,7 +144,7 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
                 <tr key={o.id} className="border-b border-ink/10">
                   <td className="p-2">
                     <Link to={`/options/${o.id}`} className="text-accent underline">
-                      Option {o.id}
+                      Option {optionNo(numbers, o.id)}
                     </Link>{" "}
                     <ReviewBadge state={o.reviewState} />
                   </td>

@@ -1,4 +1,6 @@
 import { Link, redirect } from "react-router";
+import { projectNumbers } from "~/lib/numbering.server";
+import { sweepNo } from "~/lib/numbering";
 import { parseWithZod } from "@conform-to/zod/v4";
 import type { Route } from "./+types/sweeps.$sweepId.recheck";
 import { requirePermission } from "~/lib/auth.server";
@@ -29,7 +31,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   await requirePermission(request, "recheck");
   const brief = sweep.briefId ? await db("briefs").where({ id: sweep.briefId }).first("name", "units", "member_length_m", "member_count", "material", "elastic_modulus_mpa") : null;
   const units: UnitSystem = brief?.units === "us" ? "us" : "si";
-  const name = `Recheck of sweep ${sweep.id}${brief ? ` (${brief.name})` : ""}`.slice(0, 160);
+  const no = sweepNo(await projectNumbers({ sweeps: [sweep.id] }), sweep.id);
+  const name = `Recheck of sweep ${no}${brief ? ` (${brief.name})` : ""}`.slice(0, 160);
   // The member and material as the original sweep ran (older sweeps kept no member: the brief's).
   const defaults = problemToFormDefaults(sweep.problem, {
     units,
@@ -39,7 +42,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     material: brief?.material ?? undefined,
     elasticModulus: brief?.elastic_modulus_mpa ?? undefined,
   });
-  return { sweepId: sweep.id, defaults, original: defaults, stockLists: await listStockLists(user.teamId), teamMaterials: await listMaterials(user.teamId) };
+  return { sweepId: sweep.id, sweepNo: no, defaults, original: defaults, stockLists: await listStockLists(user.teamId), teamMaterials: await listMaterials(user.teamId) };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -58,17 +61,17 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function Recheck({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweepId, defaults, original, stockLists, teamMaterials } = loaderData;
+  const { sweepId, sweepNo: no, defaults, original, stockLists, teamMaterials } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
         <Link to={`/sweeps/${sweepId}`} className="text-accent underline">
-          Sweep {sweepId}
+          Sweep {no}
         </Link>
       </p>
-      <h1 className="text-2xl font-bold">Recheck sweep {sweepId}</h1>
+      <h1 className="text-2xl font-bold">Recheck sweep {no}</h1>
       <p className="max-w-3xl text-sm">
-        Every value of the original brief is below and editable. Running it starts a new sweep linked to sweep {sweepId}; the original and its brief stay as they were. When it finishes, its
+        Every value of the original brief is below and editable. Running it starts a new sweep linked to sweep {no}; the original and its brief stay as they were. When it finishes, its
         page links to the comparison.
       </p>
       <BriefEditor defaultValue={defaults} original={original} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} allowSave={false} runLabel="Run recheck" />

@@ -1,4 +1,6 @@
 import { useEffect, useState } from "react";
+import { optionNo, sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { Form, Link, data, redirect, useRevalidator } from "react-router";
 import { z } from "zod";
@@ -25,7 +27,7 @@ import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 
 export function meta({ data }: Route.MetaArgs) {
-  return [{ title: `Sweep ${data?.sweep.id ?? ""} · Sparwise` }];
+  return [{ title: `Sweep ${data ? sweepNo(data.numbers, data.sweep.id) : ""} · Sparwise` }];
 }
 
 
@@ -34,6 +36,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const page = await loadSweepPage(user.teamId, idParam(params.sweepId));
   return {
     ...page,
+    numbers: await projectNumbers({ sweeps: [page.sweep.id, page.sweep.recheckOf, ...page.rechecks.map((r) => r.id)], options: page.options.map((o) => o.id) }),
     may: {
       save: can(user.role, "saveOption") && page.project !== null,
       recheck: can(user.role, "recheck"),
@@ -73,7 +76,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function SweepPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweep, chart, table, families, brief, project, rechecks, options, may } = loaderData;
+  const { sweep, chart, table, families, brief, project, rechecks, options, may, numbers } = loaderData;
   const [units, setUnits] = useState<UnitSystem>(loaderData.units);
   const [selected, setSelected] = useState<number | null>(chart.points[0]?.rank ?? null);
   // Candidates the page has seen (the chart's sample, each table page fetched), by rank: what can be selected and compared.
@@ -153,13 +156,13 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
             ) : null}
           </p>
           <h1 className="text-2xl font-bold">
-            Sweep {sweep.id} <span className="text-base font-normal text-ink/70">({live.status})</span>
+            Sweep {sweepNo(numbers, sweep.id)} <span className="text-base font-normal text-ink/70">({live.status})</span>
           </h1>
           {sweep.recheckOf ? (
             <p className="text-sm">
               Recheck of{" "}
               <Link to={`/sweeps/${sweep.recheckOf}`} className="text-accent underline">
-                sweep {sweep.recheckOf}
+                sweep {sweepNo(numbers, sweep.recheckOf)}
               </Link>{" "}
               ·{" "}
               <Link to={`/sweeps/${sweep.id}/comparison`} className="font-semibold text-accent underline">
@@ -253,7 +256,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                     <span key={r.id}>
                       {i ? ", " : ""}
                       <Link to={`/sweeps/${r.id}/comparison`} className="text-accent underline">
-                        sweep {r.id}
+                        sweep {sweepNo(numbers, r.id)}
                       </Link>{" "}
                       ({r.status})
                     </span>
@@ -269,7 +272,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                     <span key={o.id}>
                       {i ? ", " : ""}
                       <Link to={`/options/${o.id}`} className="text-accent underline">
-                        option {o.id} (#{o.rank})
+                        option {optionNo(numbers, o.id)} (#{o.rank})
                       </Link>{" "}
                       <ReviewBadge state={o.reviewState} />
                     </span>

@@ -116,7 +116,8 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   // The reviewer finds it on the dashboard, rechecks with lower allowables and compares.
   const rev = await signIn("reviewer@tallowfield.example", "/");
   const optionPath = new URL(optionUrl).pathname;
-  await rev.getByTestId("awaiting-review").getByRole("link", { name: `Option ${optionPath.split("/").pop()}` }).waitFor();
+  // options are numbered within their project: the new project's first option is "Option 1"
+  await rev.getByTestId("awaiting-review").locator(`a[href="${optionPath}"]`).filter({ hasText: "Option 1" }).waitFor();
   await rev.goto(optionUrl);
   await rev.getByRole("link", { name: "Recheck with altered limits" }).click();
   await rev.waitForURL(/\/recheck$/);

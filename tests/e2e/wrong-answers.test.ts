@@ -99,7 +99,12 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   await eng.getByTestId("candidate-table").locator("tbody tr").first().click();
   await eng.getByRole("button", { name: "Save as option" }).click();
   await eng.waitForURL(/\/options\/\d+$/);
-  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(new RegExp(`Saved from sweep ${sweepId}\\b`));
+  // sweeps are numbered within their project: this new project's first sweep is sweep 1
+  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(/Saved from sweep 1\b/);
+  await eng.getByRole("heading", { level: 1, name: /^Option 1\b/ }).waitFor();
+  const option1 = eng.url();
+  await eng.getByRole("button", { name: "Request review" }).click();
+  await eng.getByText("Review requested; the team's reviewers were e-mailed.").waitFor();
 
   // The reviewer rechecks: member length and count are there; only depth max is cut below the option's depth.
   const rev = await signIn("reviewer@tallowfield.example", "/");
@@ -131,8 +136,27 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   await eng.getByTestId("candidate-table").locator("tbody tr").first().click();
   await eng.getByRole("button", { name: "Save as option" }).click();
   await eng.waitForURL(/\/options\/\d+$/);
-  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(new RegExp(`Saved from sweep ${recheckId}, a recheck of sweep ${sweepId}\\b`));
+  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(/Saved from sweep 2, a recheck of sweep 1\b/);
   await eng.goto(`${eng.url()}/record`);
-  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(new RegExp(`sweep ${recheckId}, a recheck of sweep ${sweepId}`));
-  void briefUrl;
+  await expect(eng.getByTestId("provenance").textContent()).resolves.toMatch(/sweep 2, a recheck of sweep 1\b/);
+  void recheckId;
+
+  // Item 12: the reviewer approves option 1; the engineer then changes the brief's limits: the
+  // project's options table names brief and member and flags the approval stale.
+  await rev.goto(option1);
+  await rev.getByRole("button", { name: "Approve" }).click();
+  await rev.getByText("Option approved.").waitFor();
+  await eng.goto(briefUrl);
+  await eng.getByText(SI).first().click();
+  await eng.getByLabel(/Depth, max/).fill("290");
+  await eng.getByRole("button", { name: "Save brief" }).click();
+  await eng.waitForURL(/\?saved=1$/);
+  await eng.getByRole("link", { name: /Loading bay canopy/ }).first().click();
+  const row = eng.locator("tr").filter({ has: eng.getByRole("link", { name: "Option 1", exact: true }) });
+  const text = (await row.textContent()) ?? "";
+  expect(text).toContain("Canopy edge beam");
+  expect(text).toContain("4 × 5.4 m");
+  expect(text).toContain("Approved");
+  expect(text).toContain("Brief changed since approval");
+  await screenshot(eng, "units-project-options-stale");
 });
