@@ -35,6 +35,10 @@
 //       row and its passing points form one interval, found by bisection.
 //   (6) Slenderness ratios are affine in the free width: explicit limits on it.
 //   (7) Shear through the web band (every family with a web, stem or legs): see webShearOk.
+//   (8) Where the centroid moves along the row (tee, channel-down, mono-i rows), (2) over the
+//       whole row is loose; over a sub-range [k, m] each fibre's distance is least at one end
+//       and Iz greatest at m, and the shear stress at the centroid is at least V·Zz(k)/(2·Iz(m)·b):
+//       see rangeOut. Tight at a single point, growing weaker with m: bisection.
 // - mono-i has two widths: a "super" node per (d, tft, tfb, tw) and range of bt bounds both
 //   with the fractional-knapsack solution of min objective s.t. I_y0(bt, bb) ≥ I_req (a
 //   2-variable LP solved in closed form, valid by (4)), I_req from (2) with each fibre's
@@ -150,7 +154,7 @@ export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 
 // Local copies of imported bindings: module transforms (tsx, vite-node) turn each access to an
 // imported name into a getter call, which costs more than the arithmetic in these loops.
-const { compositeKernel, plateQAbove, plateWidthAt, plateNeutralAxis, plateModulusAbout, K_AREA, K_CY, K_IY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
+const { compositeKernel, plateQAbove, plateWidthAt, plateNeutralAxis, plateModulusAbout, KERNEL_OUT, K_AREA, K_CY, K_IY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
 const { C_BEND, C_CLASS4, C_COMP, C_DEFL, C_LTB, C_SHEAR, C_TENS, C_VB, C_VPL, C_WELD } = fkm;
 const { chiLT, criticalMoment, fyFor, loadHeight, ltbCurveC, ALPHA_LT_C, ALPHA_LT_D, EL_WEB, MIN_WELD_THROAT } = en1993;
 const { stabilityKernel, ST_BETA, ST_CW, ST_J, ST_OUT, ST_SCY } = stability;
@@ -580,7 +584,101 @@ class FamilySearch {
       this.cause = C_SHEAR;
       return this.dead(k, kHi);
     }
+    if (!this.sym && !fk.unsymmetric) {
+      // (8): skip the run of points that the sub-range bound shows failing (bisection)
+      for (let round = 0; round < 64; round++) {
+        this.rangeFrom(k);
+        if (!this.rangeOut(k, cap)) break;
+        if (k === kHi || this.rangeOut(kHi, cap)) return this.dead(k, kHi);
+        let lo = k,
+          hi = kHi;
+        while (hi - lo > 1) {
+          const m = (lo + hi) >> 1;
+          if (this.rangeOut(m, cap)) lo = m;
+          else hi = m;
+        }
+        this.t.ruledOut[this.cause] += hi - k;
+        k = hi;
+      }
+    }
     return k;
+  }
+
+  private rk = new Float64Array(KERNEL_OUT);
+  /** the plastic modulus at the low end of the range rangeOut bounds (NaN until needed) */
+  private rkZz = NaN;
+
+  /** (8) Fixes the low end k of the ranges rangeOut(m) bounds (its plates in this.plates). */
+  rangeFrom(k: number): void {
+    const fk = this.fk,
+      v = this.v;
+    v[fk.free] = this.W[k];
+    fk.fill(v, this.plates);
+    compositeKernel(this.plates, fk.nPlates, this.rk);
+    this.rkZz = NaN;
+  }
+
+  /**
+   * (8) Sections with the centroid moving along the row (tee, channel-down, mono-i rows): true
+   * when every point of [k, m] (k set by rangeFrom) has a bending or shear utilisation above
+   * cap. Over the range Iz ≤ Iz(m) (1); each fibre's distance is least at the end the centroid
+   * moves away from it ((2)'s monotone c), so σ ≥ M·c_least/Iz(m). Shear at the centroid:
+   * Q(ȳ) = ∫_{y>ȳ}(y − ȳ) dA = ½∫|y − ȳ| dA (as ∫(y − ȳ) dA = 0) ≥ Zz/2, and Zz never falls as
+   * material is added ((E1)), so τ(ȳ) ≥ V·Zz(k)/(2·Iz(m)·b), b the width at ȳ, when ȳ stays
+   * inside one plate of fixed size over the range (both ends inside it; ȳ moves monotonically).
+   * At m = k this is the point's own bending ratio: tight.
+   */
+  rangeOut(m: number, cap: number): boolean {
+    const fk = this.fk,
+      ctx = this.ctx,
+      v = this.v,
+      n = fk.nPlates,
+      ko = this.kout,
+      rk = this.rk,
+      p = this.plates,
+      q = this.pHi;
+    v[fk.free] = this.W[m];
+    fk.fill(v, q);
+    compositeKernel(q, n, ko);
+    const iz = ko[K_IZ];
+    const up = fk.centroidDir > 0;
+    const cTop = up ? ko[K_MAXY] - ko[K_CY] : rk[K_MAXY] - rk[K_CY],
+      cBot = up ? rk[K_CY] - rk[K_MINY] : ko[K_CY] - ko[K_MINY];
+    const aC = ctx.aC * cap,
+      aT = ctx.aT * cap;
+    const lim = 1 + REL;
+    if (ctx.Ms * cTop > aC * iz * lim || ctx.Ms * cBot > aT * iz * lim || ctx.Mh * cTop > aT * iz * lim || ctx.Mh * cBot > aC * iz * lim) {
+      this.cause = C_TENS;
+      return true;
+    }
+    if (this.Idefl > iz * cap * lim) {
+      this.cause = C_DEFL;
+      return true;
+    }
+    if (ctx.hasShear && ctx.V > 0) {
+      const y1 = rk[K_CY],
+        y2 = ko[K_CY];
+      const b = plateWidthAt(p, n, y1, 1);
+      if (b > 0 && b === plateWidthAt(p, n, y1, -1) && b === plateWidthAt(q, n, y2, 1) && b === plateWidthAt(q, n, y2, -1) && this.sameBand(p, q, n, y1, y2)) {
+        if (this.rkZz !== this.rkZz) this.rkZz = plateModulusAbout(p, n, plateNeutralAxis(p, n, rk[K_AREA], y1));
+        if (ctx.V * this.rkZz > 2 * iz * b * ctx.aS * cap * lim) {
+          this.cause = C_SHEAR;
+          return true;
+        }
+      }
+    }
+    return false;
+  }
+
+  /** Both heights y1 (plates p) and y2 (plates q) lie strictly inside the same plate, which does not change along the row. */
+  private sameBand(p: Float64Array, q: Float64Array, n: number, y1: number, y2: number): boolean {
+    for (let i = 0; i < n; i++) {
+      const o = i * PLATE_STRIDE;
+      const bot = p[o + 3],
+        top = bot + p[o + 1];
+      if (bot < y1 && y1 < top && bot < y2 && y2 < top) return p[o] === q[o] && p[o + 1] === q[o + 1] && p[o + 3] === q[o + 3];
+    }
+    return false;
   }
 
   // ---- EN 1993 (E) -----------------------------------------------------------------------
@@ -1002,9 +1100,21 @@ class FamilySearch {
       if (h.key[0] > this.incumbent()) break;
       h.pop();
       this.pending -= h.outN;
-      this.step(h.outKey, h.outId, h.outK, h.outHi, h.outKind);
+      this.step(h.outKey, h.outId, h.outK, h.outHi, h.outKind, h.outN);
     }
     // Rows left in the heap are pruned by the incumbent, which exists whenever anything was left.
+  }
+
+  /**
+   * (D) The cap for an entry whose points weigh at least o, at context slot `slot`: 1 in best
+   * mode and while the entry may hold its depth's lightest; otherwise the least utilisation of
+   * the front strictly lighter than o (below 1e-9 the utilisations carry too few digits,
+   * subnormal demands, for the bounds' relative slack: no dominance bound then).
+   */
+  capAt(o: number, slot: number): number {
+    if (!this.gridMode || o <= this.t.ctxObj[slot] * (1 + REL)) return 1;
+    const u = this.t.front.minUtilBelow(o);
+    return u < 1 && u > 1e-9 ? u : 1;
   }
 
   /**
@@ -1013,31 +1123,52 @@ class FamilySearch {
    * otherwise only front members, which have utilisation ≤ cap = the least utilisation of the
    * front strictly lighter than the key (D); every bound then runs at that cap.
    */
-  step(key: number, id: number, k: number, kHi: number, kind: number): void {
-    const fk = this.fk;
+  step(key: number, id: number, k: number, kHi: number, kind: number, n: number): void {
+    const fk = this.fk,
+      W = this.W;
     this.decode(id);
-    let cap = 1;
-    if (this.gridMode && !(key <= this.t.ctxObj[this.ctxBase + this.depthIndex(id)] * (1 + REL))) {
-      const u = this.t.front.minUtilBelow(key);
-      // (below 1e-9 the utilisations carry too few digits (subnormal demands) for the bounds'
-      // relative slack: no dominance bound then, only a slower search)
-      if (u < 1 && u > 1e-9) cap = u;
-    }
+    const slot = this.gridMode ? this.ctxBase + this.depthIndex(id) : 0;
+    let cap = this.capAt(key, slot);
+    // Grid mode re-keys an entry whose bound at cap moved up, following the front's cap at each
+    // new key in turn (the front only ever lowers it, so the key stays a lower bound), and waits
+    // at the last one: the front may have fallen further by the time it pops again.
     if (kind === KIND_SUPER_RAW) {
-      this.pushSuper(id, 0, this.W.length - 1, cap);
+      if (cap < 1) {
+        const btLo = W[firstAbove(W, fk.secondMin(this.v))],
+          bbLo = W[firstAbove(W, fk.freeMin(this.v))];
+        let o = key;
+        for (let it = 0; it < 32; it++) {
+          const b = this.superRawKey(btLo, bbLo, cap);
+          if (!(b > o * (1 + REKEY))) break;
+          o = b;
+          cap = this.capAt(o, slot);
+        }
+        if (o > key) {
+          this.push(o, id, k, kHi, KIND_SUPER_RAW, n);
+          return;
+        }
+      }
+      this.pushSuper(id, 0, W.length - 1, cap);
       return;
     }
     if (kind === KIND_SUPER) {
       if (cap < 1) {
-        // re-key first: a node whose bound at this cap has moved up waits for its turn
-        const b = this.superBound(id, k, kHi, cap);
-        if (b === null) return;
         const m = this.m;
-        if (b > key * (1 + REKEY)) {
-          this.push(b, id, m.jLo, m.jHi, KIND_SUPER, (m.jHi - m.jLo + 1) * (m.kHi - m.kLo + 1));
+        let o = key;
+        for (let it = 0; it < 3; it++) {
+          const b = this.superBound(id, k, kHi, cap);
+          if (b === null) return;
+          k = m.jLo;
+          kHi = m.jHi;
+          this.decode(id);
+          if (!(b > o * (1 + REKEY))) break;
+          o = b;
+          cap = this.capAt(o, slot);
+        }
+        if (o > key) {
+          this.push(o, id, k, kHi, KIND_SUPER, (m.jHi - m.jLo + 1) * (m.kHi - m.kLo + 1));
           return;
         }
-        this.decode(id);
       }
       if (kHi - k + 1 > SUPER_SPLIT) {
         // branch on bt: each half gets its own (tighter) bound
@@ -1049,21 +1180,42 @@ class FamilySearch {
       return;
     }
     if (kind === KIND_RAW) {
+      if (cap < 1) {
+        let o = key;
+        for (let it = 0; it < 32; it++) {
+          const b = this.rowRawKey(k, kHi, cap);
+          if (b !== b) return;
+          if (!(b > o * (1 + REKEY))) break;
+          o = b;
+          cap = this.capAt(o, slot);
+        }
+        if (o > key) {
+          this.push(o, id, k, kHi, KIND_RAW, kHi - k + 1);
+          return;
+        }
+      }
       this.pushReady(id, k, kHi, cap);
       return;
     }
     // KIND_READY
     if (cap < 1) {
       // (D): drop the points that cannot reach utilisation cap; re-queue at the next one that can
-      const hi = this.rowHi(k, kHi, cap);
-      if (hi < 0) return;
-      const k2 = this.rowStart(k, hi, cap);
-      if (k2 < 0) return;
-      if (k2 > k) {
-        this.push(this.objectiveAt(k2), id, k2, hi, KIND_READY, hi - k2 + 1);
+      let moved = false;
+      for (let it = 0; it < 8; it++) {
+        const hi = this.rowHi(k, kHi, cap);
+        if (hi < 0) return;
+        const k2 = this.rowStart(k, hi, cap);
+        if (k2 < 0) return;
+        kHi = hi;
+        if (k2 === k) break;
+        k = k2;
+        moved = true;
+        cap = this.capAt(this.objectiveAt(k), slot);
+      }
+      if (moved) {
+        this.push(this.objectiveAt(k), id, k, kHi, KIND_READY, kHi - k + 1);
         return;
       }
-      kHi = hi;
     }
     // evaluate the point (same evaluation as brute force)
     this.v[fk.free] = this.W[k];
@@ -1076,7 +1228,7 @@ class FamilySearch {
       c.utilisation = s.utilisation;
       c.governing = s.governing;
       if (this.gridMode) {
-        offerFeasible(this.t, c, this.depthIndex(id));
+        offerFeasible(this.t, c, slot - this.ctxBase);
         // the rest of the row is heavier but may reach a lower utilisation: a front matter
         if (k < kHi) this.push(this.objectiveAt(k + 1), id, k + 1, kHi, KIND_READY, kHi - k);
       } else offerFeasible(this.t, c); // the rest of the row is heavier
@@ -1239,18 +1391,18 @@ class FamilySearch {
    * A_f ≈ M/(σ·d) − A_web/6 read as a bound). Objective = that flange area at its cheapest
    * price plus the web.
    */
-  superRawKey(btLo: number, bbLo: number): number {
+  superRawKey(btLo: number, bbLo: number, cap = 1): number {
     const v = this.v,
       ctx = this.ctx;
     const d = v[0],
       tft = v[2],
       tfb = v[4],
       tw = v[5];
-    const req = this.baseIreq(d, 1);
+    const req = this.baseIreq(d, cap);
     let afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
     if (this.en) {
       // (E1) likewise ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4 ≥ Zz
-      const zreq = this.enZreq(this.enFyMax(0, 0), 1);
+      const zreq = this.enZreq(this.enFyMax(0, 0), cap);
       afNeed = Math.max(afNeed, (2 * (zreq - (tw * d * d) / 4)) / d);
     }
     const at0 = btLo * tft,
@@ -1708,7 +1860,7 @@ export function searchWithKnown(input: SearchProblemInput, options: SearchOption
     h.pop();
     const fs = fams[h.outFam];
     fs.pending -= h.outN;
-    fs.step(h.outKey, h.outId, h.outK, h.outHi, h.outKind);
+    fs.step(h.outKey, h.outId, h.outK, h.outHi, h.outKind, h.outN);
   }
   report();
   return buildResult(p, t, "grid");
