@@ -36,9 +36,19 @@
 //   (6) Slenderness ratios are affine in the free width: explicit limits on it.
 //   (7) Shear through the web band (every family with a web, stem or legs): see webShearOk.
 //   (8) Where the centroid moves along the row (tee, channel-down, mono-i rows), (2) over the
-//       whole row is loose; over a sub-range [k, m] each fibre's distance is least at one end
-//       and Iz greatest at m, and the shear stress at the centroid is at least V·Zz(k)/(2·Iz(m)·b):
-//       see rangeOut. Tight at a single point, growing weaker with m: bisection.
+//       whole row is loose; over a sub-range [k, m] of the row it is tight. For every x in
+//       [k, m]: Iz(x) ≤ Iz(m) by (1); the centroid moves monotonically toward the free plate,
+//       so the fibre it moves away from has c(x) ≥ c(k) and the other c(x) ≥ c(m); hence
+//       σ(x) ≥ M·c_least/Iz(m) at each fibre, and deflection needs I_defl ≤ Iz(m). Shear at the
+//       centroid ȳ (one of the heights the contract's maximum runs over):
+//       Q(ȳ) = ∫_{y>ȳ}(y − ȳ) dA = ½∫|y − ȳ| dA (since ∫(y − ȳ) dA = 0) ≥ ½·Zz, Zz being the least
+//       over a of ∫|y − a| dA; Zz never falls as material is added (E1), so Q(ȳ(x)) ≥ Zz(k)/2.
+//       When ȳ(k) and ȳ(m) lie strictly inside one plate that the free width does not change,
+//       with the same total width b just above and below both, ȳ(x) (between them, monotone)
+//       has width b, so τ(x) ≥ V·Zz(k)/(2·Iz(m)·b). Each bound is the point's own demand at
+//       m = k (tight) and only weakens as m grows (Iz(m), c(m) move the loose way), so "every
+//       point of [k, m] fails" is monotone in m: bisection finds the first point that may pass.
+//       (rangeFrom/rangeOut; allowable basis only, as (2), (5), (7).)
 // - mono-i has two widths: a "super" node per (d, tft, tfb, tw) and range of bt bounds both
 //   with the fractional-knapsack solution of min objective s.t. I_y0(bt, bb) ≥ I_req (a
 //   2-variable LP solved in closed form, valid by (4)), I_req from (2) with each fibre's

@@ -32,7 +32,7 @@ describe("family kernels match geometry.ts", () => {
           expect(fk.nPlates).toBe(ref.length);
           ref.forEach((p, i) => expect([...plates.subarray(i * 4, i * 4 + 4)]).toEqual([p.b, p.h, p.z, p.y]));
         }),
-        { numRuns: 300 },
+        { numRuns: 300, seed: 50713 },
       );
     });
   }
