@@ -4,14 +4,16 @@
 // Reads only; nothing here writes a row.
 import { z } from "zod";
 import { db, parseJson } from "~/lib/db.server";
-import { candidateThicknesses, FAMILIES, rationalise, type Family, type RationaliseInput } from "~/optimizer";
+import { candidateThicknesses, FAMILIES, type Family, type RationaliseInput, type RationaliseResult } from "~/optimizer";
+import { runOnEngineThread } from "~/workers/engine-thread.server";
 
 /**
  * Candidates per brief handed to the integer program: the "best few dozen" the issue asks for,
  * the lightest by area. The stored set is the best, each family's best and the weight-versus-
  * utilisation front, so the lightest 30 cover the useful trades between mass and thickness.
- * The solve runs in the page's loader on the server's thread, so the whole program is held to
- * about RATIONALISE_VARIABLE_BUDGET candidate variables: measured on this machine with random
+ * The solve runs on the server's engine thread (engine-thread.server.ts), off the event loop, but
+ * one solve still holds that thread (and the section requests queued behind it), so the whole
+ * program is held to about RATIONALISE_VARIABLE_BUDGET candidate variables: measured on this machine with random
  * 7-thickness candidate sets, 30 briefs × 20 took up to 1.9 s, 20 × 30 0.6 s, 60 × 10 0.8 s
  * (real sweeps' candidates are far more alike and solve in milliseconds). Large projects get
  * fewer candidates per brief, never fewer than RATIONALISE_MIN_PER_BRIEF; the page says how many.
@@ -211,10 +213,12 @@ export async function rationaliseProject(projectId: number, query: RationaliseQu
     maxThicknesses: query.k,
     maxDepths: query.m,
   };
-  let r: ReturnType<typeof rationalise>;
+  let r: RationaliseResult;
   try {
-    r = rationalise(input);
+    r = await runOnEngineThread("rationalise", input);
   } catch (e) {
+    // the engine thread full or past its time limit: a page, so say it in words rather than a 503
+    if (e instanceof Response) return { k: query.k, m: query.m, perBrief, skipped, outcome: { ok: false, reason: "The engine is busy with other work; reload the page in a moment.", unconstrainedMass } };
     // The engine throws only when the solver's rounding breaks the limits it was given (its own
     // self-check): say so rather than answer a 500 or show a selection that is not right.
     console.error("rationalise failed", e);

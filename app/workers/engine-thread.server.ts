@@ -1,5 +1,5 @@
 // Engine calls a request may trigger that can take longer than ~50 ms (a section's properties, the
-// EN 1993 figures of a page of candidates) run here, on one worker
+// EN 1993 figures of a page of candidates, a project's thickness rationalisation) run here, on one worker
 // thread, so the event loop that serves every other request (and /healthz) never waits on them
 // (issue 9: one 185 kB POST /api/v1/properties held the server for 8.9 s). The vertex caps
 // (validate.ts) keep the worst accepted section to tens of milliseconds, but a contrived outline
@@ -21,6 +21,7 @@ import { candidateChecks } from "../optimizer/checks";
 import type { Family } from "../optimizer/geometry";
 import type { SearchProblem } from "../optimizer/search-schema";
 import { designRow, type DesignRow } from "../lib/design-summary";
+import { rationalise, type RationaliseInput, type RationaliseResult } from "../optimizer";
 import { nodeEndpoint, spawnThread } from "./thread-spawn";
 
 const KIND = "sparwise-engine-thread";
@@ -58,7 +59,16 @@ export function designRowsJob(problem: SearchProblem, rows: { family: string; di
   });
 }
 
-const jobs = { sectionProperties: sectionPropertiesJob, designRows: designRowsJob };
+/**
+ * A project's thickness rationalisation: the engine's integer program, up to about 2 s at the
+ * variable budget (rationalise.server.ts). It throws only when its own self-check fails; the
+ * error crosses the thread as a rejection, so the caller handles it as before.
+ */
+export function rationaliseJob(input: RationaliseInput): RationaliseResult {
+  return rationalise(input);
+}
+
+const jobs = { sectionProperties: sectionPropertiesJob, designRows: designRowsJob, rationalise: rationaliseJob };
 type Jobs = typeof jobs;
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === KIND) {

@@ -2,12 +2,24 @@
 // finished sweeps; the selection must equal a plain enumeration over the same stored candidates,
 // computed here without the engine's integer program; a k no selection meets gives the clear
 // message; bad k / m answer 400 naming the field; another team's project is 404; nothing is written.
-import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { afterAll, beforeAll, describe, expect, test, vi } from "vitest";
 import { closeDb, db, parseJson } from "~/lib/db.server";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
 import { candidatesPerBrief, RATIONALISE_CANDIDATES_PER_BRIEF, RATIONALISE_VARIABLE_BUDGET } from "~/lib/rationalise.server";
 import { callRoute, FixtureContext, loadRouteModule, requestAs, tableCounts, type RouteResult } from "./fixtures";
 import { CHANNEL_PROBLEM, foreignFixture } from "./workflow-fixtures";
+
+// The integer program (up to ~2 s) must run on the engine thread, never on the event loop: this
+// process's copy of the engine's rationalise only counts and refuses. The thread loads the engine
+// itself (outside vitest's module graph), so only a solve sent there can answer.
+const onEventLoop = vi.hoisted(() => ({ calls: 0 }));
+vi.mock("~/optimizer", async (importOriginal) => ({
+  ...(await importOriginal<typeof import("~/optimizer")>()),
+  rationalise: () => {
+    onEventLoop.calls++;
+    throw new Error("rationalise ran on the event loop");
+  },
+}));
 
 afterAll(() => closeDb());
 const ctx = new FixtureContext();
@@ -137,6 +149,13 @@ describe("project rationalisation", () => {
     expect(candidatesPerBrief(30) * 30).toBeLessThanOrEqual(RATIONALISE_VARIABLE_BUDGET);
     expect(candidatesPerBrief(60) * 60).toBeLessThanOrEqual(RATIONALISE_VARIABLE_BUDGET);
     expect(candidatesPerBrief(10_000)).toBeGreaterThanOrEqual(1);
+  });
+
+  test("the solve runs on the engine thread, not on the event loop (was: in the loader's thread)", async () => {
+    const res = await load(projectId, "?k=3");
+    expect(res.status).toBe(200);
+    expect(res.data.rationalisation.result!.outcome?.ok).toBe(true);
+    expect(onEventLoop.calls).toBe(0);
   });
 
   test("without ?k the page computes nothing and shows the default k = 3", async () => {
