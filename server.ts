@@ -18,6 +18,7 @@ import { createRequestHandler } from "@react-router/express";
 import type { AppLoadContext, ServerBuild } from "react-router";
 import "./app/lib/load-context";
 import { DRAIN_CAP } from "./app/lib/forms.server";
+import { appServedOverHttps } from "./app/lib/app-url.server";
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 // Same lookup as knexfile.ts: the working directory's .env first; set variables always win.
@@ -152,7 +153,7 @@ async function main() {
   const port = Number(process.env.PORT ?? 3000);
   if (!Number.isInteger(port) || port < 0 || port > 65535) fail(`PORT must be a port number, not "${process.env.PORT}".`);
   const hops = trustProxyHops();
-  const https = /^https:/i.test((process.env.APP_URL ?? "").trim());
+  const https = appServedOverHttps();
   const buildDir = path.join(root, "build");
   const build = (await import(pathToFileURL(path.join(buildDir, "server", "index.js")).href).catch((e: unknown) =>
     fail(`No server build in ${buildDir}: run \`npm run build\` first.\n${String(e)}`),

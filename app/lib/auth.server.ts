@@ -5,6 +5,7 @@ import { Authenticator } from "remix-auth";
 import { FormStrategy } from "remix-auth-form";
 import { z } from "zod";
 import { db } from "~/lib/db.server";
+import { appOrigin } from "~/lib/app-url.server";
 import { can, isRole, type Permission, type Role } from "~/lib/roles";
 import { commitSession, destroySession, getSession } from "~/lib/session.server";
 import { spendApiPoints } from "~/lib/api-rate-limit.server";
@@ -197,11 +198,9 @@ const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 /** The origins our own pages are served from: the request's, and APP_URL's behind a proxy. */
 function ownOrigins(request: Request): Set<string> {
   const origins = new Set([new URL(request.url).origin]);
-  try {
-    if (process.env.APP_URL) origins.add(new URL(process.env.APP_URL).origin);
-  } catch {
-    // A malformed APP_URL adds nothing.
-  }
+  // a malformed APP_URL adds nothing
+  const app = appOrigin();
+  if (app) origins.add(app);
   return origins;
 }
 

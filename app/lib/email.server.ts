@@ -48,37 +48,3 @@ export async function sendEmail(message: OutgoingEmail, trx?: Knex.Transaction):
   });
   return Number(id);
 }
-
-// Links in e-mail come only from APP_URL, never from the request: Host and X-Forwarded-Host are
-// whatever the sender typed, and a reset link pointing at their server hands them the token.
-export const DEV_APP_URL = "http://localhost:3000";
-
-/** The base of every link in e-mail: APP_URL; in development and tests DEV_APP_URL when unset. */
-export function appBaseUrl(): string {
-  const raw = process.env.APP_URL?.trim();
-  if (!raw) {
-    if (process.env.NODE_ENV === "production") {
-      throw new Error(
-        "APP_URL is not set: links in e-mail need the address people open Sparwise at (e.g. APP_URL=https://sparwise.example.com in .env). `npm run up` writes APP_URL=http://localhost:3000.",
-      );
-    }
-    return DEV_APP_URL;
-  }
-  let url: URL;
-  try {
-    url = new URL(raw);
-  } catch {
-    throw new Error(`APP_URL is not a valid URL: ${JSON.stringify(raw)}. Give the full address, e.g. https://sparwise.example.com`);
-  }
-  if (url.protocol !== "http:" && url.protocol !== "https:") throw new Error(`APP_URL must start with http:// or https://, not ${url.protocol}`);
-  // A path prefix is kept (the app may be served under one); a query or fragment would break every link.
-  return url.origin + url.pathname.replace(/\/+$/, "");
-}
-
-/** Absolute link for e-mails, from APP_URL only. `path` starts with "/". */
-export function appUrl(path: string): string {
-  return appBaseUrl() + path;
-}
-
-// Fail at start, not at the first e-mail: the server bundle imports this module when it loads.
-if (process.env.NODE_ENV === "production") appBaseUrl();

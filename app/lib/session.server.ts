@@ -1,5 +1,6 @@
 import { createCookieSessionStorage, redirect, type Session } from "react-router";
 import "~/lib/db.server"; // loads .env (through knexfile) before the secret is read
+import { appServedOverHttps } from "~/lib/app-url.server";
 
 // The cookie carries the user id and the user's session_version at sign-in. Sign-out (and a
 // password reset) bumps users.session_version, so every cookie issued before dies at once —
@@ -33,7 +34,7 @@ function sessionSecret(): string {
  * Secure cookie would never come back (browsers only exempt localhost).
  */
 export function sessionCookieSecure(): boolean {
-  return /^https:/i.test((process.env.APP_URL ?? "").trim());
+  return appServedOverHttps();
 }
 
 export function getSessionStorage() {

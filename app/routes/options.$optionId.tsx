@@ -5,7 +5,7 @@ import { projectNumbers } from "~/lib/numbering.server";
 import type { Route } from "./+types/options.$optionId";
 import { requirePermission } from "~/lib/auth.server";
 import { readForm } from "~/lib/forms.server";
-import { appUrl } from "~/lib/email.server";
+import { appUrl } from "~/lib/app-url.server";
 import { decideReview, decisionSchema, getOption, listReviews, optionVerdict, requestReview, reviewTies, WorkflowError } from "~/lib/options.server";
 import { can, reviewRefusal } from "~/lib/roles";
 import { z } from "zod";

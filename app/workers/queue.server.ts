@@ -22,6 +22,7 @@ import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
 import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
+import { appUrl } from "~/lib/app-url.server";
 import { gridCostProblem, timedOutReason } from "./sweep-budget";
 import type { ProgressUnit } from "./sweep-search.server";
 import { notify } from "~/lib/notifications.server";
@@ -579,11 +580,6 @@ function sweepLink(id: number): string {
   return `/sweeps/${id}`;
 }
 
-function absolute(link: string): string {
-  const base = process.env.APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
-  return base.replace(/\/$/, "") + link;
-}
-
 /**
  * The owner's e-mail (outbox) and in-app notice, written inside the transaction that ends the
  * sweep, so both exist exactly when the final status does: a retried or fenced-off attempt never
@@ -594,7 +590,7 @@ async function announceEnd(n: EndedNotice, trx: Knex.Transaction): Promise<void>
   if (!owner || owner.disabled_at) return;
   const title = `Sweep ${n.id} ${STATUS_WORDS[n.status]}`;
   await sendEmail(
-    { teamId: n.teamId, to: owner.email, subject: title, text: `Hello ${owner.name},\n\n${title}. ${n.summary}\n\nOpen it: ${absolute(sweepLink(n.id))}\n\n— Sparwise` },
+    { teamId: n.teamId, to: owner.email, subject: title, text: `Hello ${owner.name},\n\n${title}. ${n.summary}\n\nOpen it: ${appUrl(sweepLink(n.id))}\n\n— Sparwise` },
     trx,
   );
   await notify(n.ownerId, { title, body: n.summary.slice(0, 2000), link: sweepLink(n.id) }, trx);

@@ -20,7 +20,8 @@ import * as option from "~/routes/options.$optionId";
 import * as sweepPage from "~/routes/sweeps.$sweepId";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
 import { CHANNEL_PROBLEM } from "./workflow-fixtures";
-import { appBaseUrl, DEV_APP_URL } from "~/lib/email.server";
+import { appBaseUrl, DEV_APP_URL } from "~/lib/app-url.server";
+import { endHeldSweep } from "~/workers/queue.server";
 import { callRoute, cookieForUser, fromAddress, type RouteResult } from "./fixtures";
 
 const BASE = "http://sparwise.test";
@@ -236,6 +237,18 @@ describe("2. links in e-mail come from APP_URL only", () => {
     const mail = await db("outbox").where({ to_address: email }).orderBy("id", "desc").first("text_body");
     expect(mail.text_body).toContain(`${DEV_APP_URL}/invite/`);
     expect(mail.text_body).not.toMatch(/evil\.example/);
+  });
+
+  test("a sweep's end notice links to APP_URL too (was: the queue's own fallback, localhost and PORT)", async () => {
+    const owner = await db("users").where({ email: "engineer@tallowfield.example" }).first("id", "email");
+    const [id] = await db("sweeps").insert({ team_id: teamA, owner_id: owner.id, problem: JSON.stringify(CHANNEL_PROBLEM), status: "running", lease_token: "app-url-link-test", attempts: 1 });
+    const claim = { id: Number(id), token: "app-url-link-test", attempt: 1, workerId: "app-url test", teamId: teamA, ownerId: owner.id, problem: CHANNEL_PROBLEM as never };
+    await withEnv({ APP_URL: "https://sparwise.example.org/", PORT: "4999" }, async () => {
+      expect(await endHeldSweep(claim, "failed", "stopped by the APP_URL test")).toBe(true);
+    });
+    const mail = await db("outbox").where({ to_address: owner.email }).orderBy("id", "desc").first("text_body");
+    expect(mail.text_body).toContain(`https://sparwise.example.org/sweeps/${id}`);
+    expect(mail.text_body).not.toMatch(/localhost/);
   });
 
   test("in production a missing or malformed APP_URL is refused with a message naming it", async () => {
