@@ -6,7 +6,7 @@ import { useEffect, useRef, useState } from "react";
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
-import { describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
+import { candidateName, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { FAMILY_STYLE } from "~/components/family-style";
 import type { Family } from "~/optimizer/geometry";
 import type { DesignRow } from "~/lib/design-summary";
@@ -67,6 +67,7 @@ export function CandidateTable({
   families,
   withCost,
   withDesign,
+  withRolled = false,
   units,
   selected,
   onSelect,
@@ -82,6 +83,8 @@ export function CandidateTable({
   withCost: boolean;
   /** EN 1993 basis: the rows carry the engine's design figures; allowable: the table says it checks stresses only */
   withDesign: boolean;
+  /** the sweep searched catalogues: rows say rolled (with designation) or welded */
+  withRolled?: boolean;
   units: UnitSystem;
   selected: number | null;
   onSelect: (rank: number) => void;
@@ -108,7 +111,7 @@ export function CandidateTable({
       .then(async (res) => {
         if (!res.ok) throw new Error(String(res.status));
         const body = (await res.json()) as { items: (ChartCandidate & { area: number; familyBest: boolean })[]; total: number; page: number; pageSize: number };
-        const items = body.items.map(({ rank, family, dimensions, massPerMetre, utilisation, governing, onFront, cost, design }) => ({
+        const items = body.items.map(({ rank, family, dimensions, massPerMetre, utilisation, governing, onFront, cost, design, source, designation, catalogue, costMaterial, costFabrication }) => ({
           rank,
           family,
           dimensions,
@@ -118,6 +121,11 @@ export function CandidateTable({
           onFront,
           cost,
           design: design ?? null,
+          source,
+          designation,
+          catalogue,
+          costMaterial,
+          costFabrication,
         }));
         setData({ items, total: body.total, page: body.page, pageSize: body.pageSize });
         onRows?.(items);
@@ -187,7 +195,7 @@ export function CandidateTable({
                 Compare
               </th>
               {head("rank", "Rank")}
-              {head("family", "Family")}
+              {head("family", withRolled ? "Section" : "Family")}
               <th scope="col" className="p-2">
                 Dimensions
               </th>
@@ -232,13 +240,30 @@ export function CandidateTable({
                 <td className="p-2 tabular-nums">{c.rank}</td>
                 <td className="p-2">
                   <span aria-hidden="true" style={{ color: FAMILY_STYLE[c.family as Family]?.colour }}>
-                    ●{" "}
+                    {c.source === "rolled" ? "●" : "○"}{" "}
                   </span>
-                  {familyLabel(c.family)}
+                  {c.source === "rolled" ? candidateName(c) : familyLabel(c.family)}
+                  {c.source === "rolled" ? (
+                    <span className="block text-xs text-ink/70">
+                      rolled {familyLabel(c.family)}
+                      {c.catalogue ? ` · ${c.catalogue}` : ""}
+                    </span>
+                  ) : withRolled ? (
+                    <span className="block text-xs text-ink/70">welded</span>
+                  ) : null}
                 </td>
                 <td className="p-2 tabular-nums">{describeDimensions(c.dimensions, units)}</td>
                 <td className="p-2 text-right tabular-nums">{formatNumber(fromSI("massPerLength", c.massPerMetre, units))}</td>
-                {withCost ? <td className="p-2 text-right tabular-nums">{c.cost != null ? c.cost.toFixed(2) : "—"}</td> : null}
+                {withCost ? (
+                  <td className="p-2 text-right tabular-nums">
+                    {c.cost != null ? c.cost.toFixed(2) : "—"}
+                    {c.costMaterial != null ? (
+                      <span className="block text-xs text-ink/70" data-testid="cost-parts">
+                        material {c.costMaterial.toFixed(2)} + fabrication {(c.costFabrication ?? 0).toFixed(2)}
+                      </span>
+                    ) : null}
+                  </td>
+                ) : null}
                 <td className="p-2 text-right tabular-nums">{c.utilisation.toFixed(3)}</td>
                 {withDesign ? <DesignCells d={c.design ?? null} units={units} /> : null}
                 <td className="p-2">

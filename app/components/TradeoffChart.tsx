@@ -21,6 +21,18 @@ export interface ChartCandidate {
   cost?: number | null;
   /** EN 1993 basis: the engine's class, Mcr, χLT, resistances and weld throat (null under the allowable basis) */
   design?: DesignRow | null;
+  /** "rolled": a catalogue section, named by its designation; absent or "plate": welded from plate */
+  source?: "plate" | "rolled";
+  designation?: string | null;
+  catalogue?: string | null;
+  /** cost objective: the material and fabrication parts of cost */
+  costMaterial?: number | null;
+  costFabrication?: number | null;
+}
+
+/** The section's name on pages: a rolled section's designation, else its family. */
+export function candidateName(c: Pick<ChartCandidate, "family" | "source" | "designation">): string {
+  return c.source === "rolled" && c.designation ? c.designation : c.family;
 }
 
 interface Point {
@@ -42,7 +54,8 @@ function Tip({ active, payload, units }: { active?: boolean; payload?: { payload
   return (
     <div className="rounded-md border border-ink/20 bg-white p-2 text-xs shadow">
       <p className="font-semibold">
-        #{c.rank} {familyLabel(c.family)}
+        #{c.rank} {c.source === "rolled" ? candidateName(c) : familyLabel(c.family)}
+        {c.source === "rolled" ? <span className="font-normal"> (rolled, {familyLabel(c.family)})</span> : null}
       </p>
       <p>{describeDimensions(c.dimensions, units)}</p>
       <p>
@@ -67,7 +80,19 @@ export function TradeoffChart({
 }) {
   const toPoint = (c: ChartCandidate): Point => ({ x: fromSI("massPerLength", c.massPerMetre, units), y: c.utilisation, c });
   const families = [...new Set(candidates.map((c) => c.family))] as Family[];
-  const front = candidates.filter((c) => c.onFront).map(toPoint).sort((a, b) => a.x - b.x);
+  // With catalogue sections in the sweep, rolled and welded are told apart by the marker: rolled
+  // filled, welded drawn as an outline in the family's colour (shape and colour still the family's).
+  const mixed = candidates.some((c) => c.source === "rolled");
+  const series = mixed
+    ? (["plate", "rolled"] as const).flatMap((src) =>
+        families
+          .filter((f) => candidates.some((c) => c.family === f && (c.source ?? "plate") === src))
+          .map((f) => ({ key: `${src}-${f}`, name: `${familyLabel(f)} (${src === "rolled" ? "rolled" : "welded"})`, family: f, list: candidates.filter((c) => c.family === f && (c.source ?? "plate") === src), outline: src === "plate" })),
+      )
+    : families.map((f) => ({ key: f, name: familyLabel(f), family: f, list: candidates.filter((c) => c.family === f), outline: false }));
+  // each side's own front (the rolled rows' front is worked out among them: catalogue-sweep.ts)
+  const front = candidates.filter((c) => c.onFront && c.source !== "rolled").map(toPoint).sort((a, b) => a.x - b.x);
+  const rolledFront = candidates.filter((c) => c.onFront && c.source === "rolled").map(toPoint).sort((a, b) => a.x - b.x);
   const sel = candidates.find((c) => c.rank === selected);
   const massUnit = unitLabel("massPerLength", units);
   return (
@@ -80,13 +105,18 @@ export function TradeoffChart({
           <Tooltip content={<Tip units={units} />} />
           <Legend verticalAlign="top" />
           <ReferenceLine y={1} stroke="#8a4b00" strokeDasharray="6 4" label={{ value: "utilisation 1 (the limit)", position: "insideTopRight", fill: "#8a4b00", fontSize: 12 }} />
-          <Scatter name="Front" data={front} line={{ stroke: "#1d2733", strokeWidth: 1.5 }} shape={() => <g />} legendType="line" isAnimationActive={false} />
-          {families.map((f) => (
+          <Scatter name={mixed ? "Front (welded)" : "Front"} data={front} line={{ stroke: "#1d2733", strokeWidth: 1.5 }} shape={() => <g />} legendType="line" isAnimationActive={false} />
+          {mixed && rolledFront.length ? (
+            <Scatter name="Front (rolled)" data={rolledFront} line={{ stroke: "#1d2733", strokeWidth: 1.5, strokeDasharray: "4 3" }} shape={() => <g />} legendType="line" isAnimationActive={false} />
+          ) : null}
+          {series.map(({ key, name, family: f, list, outline }) => (
             <Scatter
-              key={f}
-              name={familyLabel(f)}
-              data={candidates.filter((c) => c.family === f).map(toPoint)}
-              fill={FAMILY_STYLE[f]?.colour ?? "#1d2733"}
+              key={key}
+              name={name}
+              data={list.map(toPoint)}
+              fill={outline ? "#ffffff" : (FAMILY_STYLE[f]?.colour ?? "#1d2733")}
+              stroke={outline ? (FAMILY_STYLE[f]?.colour ?? "#1d2733") : undefined}
+              strokeWidth={outline ? 1.5 : undefined}
               shape={FAMILY_STYLE[f]?.shape ?? "circle"}
               isAnimationActive={false}
               onClick={(p: unknown) => {
@@ -100,7 +130,7 @@ export function TradeoffChart({
         </ScatterChart>
       </ResponsiveContainer>
       <figcaption className="mt-1 text-xs text-ink/70">
-        Stored candidates: the front (lightest at each utilisation) and each family's lightest. Click a point to select it; the table below lists the same candidates.
+        Stored candidates: the front (lightest at each utilisation) and each family's lightest{mixed ? "; catalogue (rolled) sections as filled markers, welded plate sections as outlines" : ""}. Click a point to select it; the table below lists the same candidates.
       </figcaption>
     </figure>
   );

@@ -11,6 +11,7 @@ import { can } from "~/lib/roles";
 import { db } from "~/lib/db.server";
 import { enqueueSweep } from "~/workers/queue.server";
 import { formFailure } from "~/lib/form-reply.server";
+import { withBriefCatalogues } from "~/lib/brief-catalogues.server";
 
 /** A queue error Response (JSON { error }) as a plain message for the form. */
 export async function queueErrorMessage(e: unknown): Promise<string | null> {
@@ -30,7 +31,11 @@ export async function submitBrief(request: Request, user: SessionUser, target: {
   if (submission.status !== "success") return formFailure(submission);
   if (intent === "run" && !can(user.role, "runSweep"))
     return formFailure(submission, 403, [`Your role (${user.role}) may save briefs but not run sweeps.`]);
-  const { meta, problem } = submission.value;
+  const { meta } = submission.value;
+  // the chosen catalogues' sections and the team's costs (brief-catalogues.server.ts)
+  const extended = await withBriefCatalogues(form, user.teamId, submission.value.problem);
+  if (!extended.ok) return formFailure(submission, 400, [extended.message]);
+  const problem = extended.problem;
   if (meta.stockListId) {
     const ok = await db("stock_lists").where({ id: meta.stockListId, team_id: user.teamId }).first("id");
     if (!ok) return formFailure(submission, 400, ["stockListId: no such stock list in your team"]);

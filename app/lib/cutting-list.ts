@@ -4,7 +4,8 @@
 //
 // Choices (spec silent): a plate's thickness is the smaller of its two cross-section sides and
 // its width the larger; its length is the member length. Members without a length and count,
-// and sections not made of plates the engine knows, are left out and counted in `skipped`.
+// and sections not made of plates the engine knows (rolled catalogue sections among them: bought
+// as sections, not cut), are left out and counted in `skipped`.
 // Prices from stock lists are not applied yet.
 import Papa from "papaparse";
 import { familyPlates, type Family } from "~/optimizer/geometry";
@@ -15,6 +16,7 @@ export interface CuttingInput {
   density: number;
   lengthM: number | null;
   count: number | null;
+  rolled?: boolean;
 }
 
 export interface CutPlate {
@@ -36,7 +38,7 @@ export function cuttingList(rows: CuttingInput[]): { groups: ThicknessGroup[]; t
   const byKey = new Map<string, CutPlate>();
   let skipped = 0;
   for (const r of rows) {
-    if (r.lengthM == null || r.count == null) {
+    if (r.lengthM == null || r.count == null || r.rolled) {
       skipped++;
       continue;
     }

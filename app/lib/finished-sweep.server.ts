@@ -4,7 +4,8 @@
 import type { Knex } from "knex";
 import { searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
 import { candidatesToStore } from "~/workers/queue.server";
-import { SWEEP_SEARCH_OPTIONS, sweepRestraintStudy, withAdvice } from "~/workers/sweep-search.server";
+import { catalogueSummary, withRolledRows } from "~/lib/catalogue-sweep";
+import { SWEEP_SEARCH_OPTIONS, sweepCatalogues, sweepRestraintStudy, withAdvice } from "~/workers/sweep-search.server";
 import { studyApplies } from "~/lib/restraint-study";
 
 export interface FinishedSweepInput {
@@ -20,11 +21,12 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
   const problem = searchProblemSchema.parse(input.problem);
   const t0 = Date.now();
   // The queue's search options, so fixtures store the same candidates (front included) a real sweep does.
-  const result = await withAdvice(problem, await searchSections(problem, SWEEP_SEARCH_OPTIONS));
+  const result = await withAdvice(problem, await sweepCatalogues(problem, await searchSections(problem, SWEEP_SEARCH_OPTIONS)));
   // and the restraint study a queued EN 1993 sweep stores with its results
   const study = studyApplies(problem) ? await sweepRestraintStudy(problem) : null;
   const ms = Date.now() - t0;
-  const rows = candidatesToStore(result, problem.objective, problem);
+  const rows = withRolledRows(candidatesToStore(result, problem.objective, problem), result, problem);
+  const catalogue = catalogueSummary(result, problem);
   return knex.transaction(async (trx) => {
     const [id] = await trx("sweeps").insert({
       team_id: input.teamId,
@@ -41,6 +43,7 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
       reason: result.reason ?? null,
       restraint_study: study ? JSON.stringify(study) : null,
       advice: result.advice ? JSON.stringify(result.advice) : null,
+      catalogue_result: catalogue ? JSON.stringify(catalogue) : null,
       attempts: 1,
       started_at: trx.raw("NOW(3) - INTERVAL ? MICROSECOND", [ms * 1000]),
       finished_at: trx.raw("NOW(3)"),

@@ -11,6 +11,8 @@ import { notFound } from "~/lib/projects.server";
 import type { SessionUser } from "~/lib/auth.server";
 import { reviewRefusal, type ReviewTies } from "~/lib/roles";
 import { candidateChecks, type CandidateVerdict } from "~/optimizer/checks";
+import { SHAPE_FAMILY, type CatalogueSection, type CatalogueShape } from "~/optimizer/catalogue";
+import { catalogueCandidateChecks } from "~/optimizer/catalogue-search";
 import type { Family } from "~/optimizer/geometry";
 import type { SearchProblem } from "~/optimizer/search-schema";
 
@@ -25,6 +27,11 @@ export interface SavedCandidate {
   utilisation: number;
   governing: string;
   rank: number;
+  /** a catalogue section (issue 13): its designation, catalogue and shape; absent for welded plate sections */
+  source?: "rolled";
+  designation?: string;
+  catalogue?: string;
+  shape?: CatalogueShape;
 }
 
 export interface OptionRecord {
@@ -89,6 +96,7 @@ export async function saveOption(user: SessionUser, sweepId: number, rank: numbe
     utilisation: c.utilisation,
     governing: c.governing,
     rank: c.rank,
+    ...(c.source === "rolled" ? rolledFields(c.designation, c.catalogue, c.family, sweep.problem) : {}),
   };
   return db.transaction(async (trx) => {
     const [id] = await trx("options").insert({
@@ -156,9 +164,25 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
   };
 }
 
-/** The engine's own checks of the saved section under a problem (its own, or a recheck's). */
+/** The engine's own checks of the saved section under a problem (its own, or a recheck's); a rolled one by the catalogue rules. */
 export function optionVerdict(option: Pick<OptionRecord, "candidate">, problem: SearchProblem): CandidateVerdict {
-  return candidateChecks(option.candidate.family, option.candidate.dimensions, problem);
+  const c = option.candidate;
+  const rolled = savedRolledSection(c);
+  if (rolled) return catalogueCandidateChecks(rolled, problem);
+  return candidateChecks(c.family, c.dimensions, problem);
+}
+
+/** A saved rolled candidate as the catalogue section it was (its dimensions carry the catalogue's names). */
+export function savedRolledSection(c: SavedCandidate): CatalogueSection | null {
+  if (c.source !== "rolled" || !c.shape) return null;
+  return { designation: c.designation ?? "rolled section", shape: c.shape, dims: c.dimensions };
+}
+
+function rolledFields(designation: string | null, catalogue: string | null, family: string, problem: unknown): Partial<SavedCandidate> {
+  const p = parseJson<SearchProblem>(problem);
+  const section = p.catalogues?.find((k) => k.name === catalogue)?.sections.find((s) => s.designation === designation);
+  const shape = section?.shape ?? (Object.entries(SHAPE_FAMILY).find(([, f]) => f === family)?.[0] as CatalogueShape | undefined);
+  return { source: "rolled", designation: designation ?? undefined, catalogue: catalogue ?? undefined, shape };
 }
 
 export async function listReviews(optionId: number) {

@@ -4,12 +4,13 @@
 // Choices (spec silent): briefs carry no member mark column, so the mark is the brief's name
 // (else "Option N"); length and count are the ones the option's sweep ran for (a recheck may
 // alter them), else the brief's — the same rule getOption uses; the weld throat is the engine's
-// EN 1993 design.weld.a (null under the allowable-stress basis or with no welds).
+// EN 1993 design.weld.a (null under the allowable-stress basis or with no welds). A rolled option
+// (issue 13) is named by its designation, checked by the catalogue rules (no flange-to-web weld,
+// so no throat) and marked rolled, which keeps it off the plate cutting list.
 import Papa from "papaparse";
 import { db, parseJson } from "~/lib/db.server";
 import { familyLabel } from "~/lib/labels";
-import type { ReviewState, SavedCandidate } from "~/lib/options.server";
-import { candidateChecks } from "~/optimizer";
+import { optionVerdict, type ReviewState, type SavedCandidate } from "~/lib/options.server";
 import { DEFAULT_DENSITY } from "~/optimizer/schema";
 import type { SearchProblem } from "~/optimizer/search-schema";
 
@@ -28,9 +29,12 @@ export interface ScheduleRow {
   totalMass: number | null;
   weldThroat: number | null;
   reviewState: ReviewState;
+  /** a catalogue (rolled) section, not cut from plate */
+  rolled?: boolean;
 }
 
-export function sectionDescription(c: Pick<SavedCandidate, "family" | "dimensions">): string {
+export function sectionDescription(c: Pick<SavedCandidate, "family" | "dimensions" | "source" | "designation">): string {
+  if (c.source === "rolled" && c.designation) return `${c.designation} (rolled ${familyLabel(c.family)})`;
   const dims = Object.entries(c.dimensions).map(([k, v]) => `${k} ${v}`);
   return `${familyLabel(c.family)} ${dims.join(" × ")} mm`;
 }
@@ -49,7 +53,7 @@ export async function projectSchedule(projectId: number): Promise<ScheduleRow[]>
     const count = (r.sweep_member_count as number | null) ?? (r.member_count as number | null) ?? null;
     let weldThroat: number | null = null;
     try {
-      weldThroat = candidateChecks(c.family, c.dimensions, problem).design?.weld?.a ?? null;
+      weldThroat = optionVerdict({ candidate: c }, problem).design?.weld?.a ?? null;
     } catch {
       // a saved section the engine no longer accepts: the schedule still lists it, without a throat
     }
@@ -67,6 +71,7 @@ export async function projectSchedule(projectId: number): Promise<ScheduleRow[]>
       totalMass: lengthM != null && count != null ? c.massPerMetre * lengthM * count : null,
       weldThroat,
       reviewState: r.review_state as ReviewState,
+      ...(c.source === "rolled" ? { rolled: true } : {}),
     };
   });
 }

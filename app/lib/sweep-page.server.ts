@@ -38,17 +38,27 @@ export const toChartCandidate = (c: CandidateRow): ChartCandidate => ({
   governing: c.governing,
   onFront: c.onFront,
   cost: c.cost,
+  source: c.source,
+  designation: c.designation,
+  catalogue: c.catalogue,
+  costMaterial: c.costMaterial,
+  costFabrication: c.costFabrication,
 });
 
 /**
  * Under the EN 1993 basis, each row with the engine's design figures (class, Mcr, χLT,
  * resistances, weld throat): the ones the sweep stored with its results (candidates.design);
  * rows stored before that column get them from candidateChecks, the one evaluation the search
- * itself ran, worked out on the engine thread. Under the allowable basis, none.
+ * itself ran, worked out on the engine thread. Under the allowable basis, none. A rolled row always
+ * stored its figures with the sweep (catalogue-sweep.ts); worked out again through its family's
+ * welded checks they would be wrong (no fillets, welded curves), so one without stays without.
  */
-export async function withDesign<T extends { family: string; dimensions: Record<string, number>; design?: DesignRow | null }>(rows: T[], problem: SearchProblem): Promise<(T & { design: DesignRow | null })[]> {
+export async function withDesign<T extends { family: string; dimensions: Record<string, number>; design?: DesignRow | null; source?: "plate" | "rolled" }>(
+  rows: T[],
+  problem: SearchProblem,
+): Promise<(T & { design: DesignRow | null })[]> {
   if (problem.basis !== "en1993" || rows.length === 0) return rows.map((r) => ({ ...r, design: null }));
-  const missing = rows.flatMap((r, i) => (r.design ? [] : [i]));
+  const missing = rows.flatMap((r, i) => (r.design || r.source === "rolled" ? [] : [i]));
   const computed = missing.length
     ? await runOnEngineThread(
         "designRows",
@@ -85,7 +95,9 @@ export interface ChartSample {
   front: number;
 }
 
-const CHART_COLUMNS = ["rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best"];
+const CHART_COLUMNS = ["rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "source", "designation", "catalogue", "cost_material", "cost_fabrication"];
+/** Most rolled front rows the chart draws (a catalogue's front is short: rarely more than a dozen). */
+const ROLLED_CHART_MAX = 20;
 
 /**
  * The chart's points: every k-th stored candidate by rank (k chosen so at most CHART_MAX_POINTS
@@ -93,26 +105,33 @@ const CHART_COLUMNS = ["rank", "family", "dimensions", "area", "mass_per_metre",
  * evenly), and always rank 1, the front's heaviest end and every family's best. Ranks run 1…n
  * (candidatesToStore), so the sample is a list of ranks read through the (sweep_id, rank) key, and
  * the counts come from the (sweep_id, on_front) index alone: a 2,000-candidate sweep costs the
- * database a few index lookups, not a scan of its rows.
+ * database a few index lookups, not a scan of its rows. A sweep that searched catalogues stores its
+ * rolled rows after the welded ones (catalogue-sweep.ts), each side with its own front: the last
+ * ROLLED_CHART_MAX front rows by rank bring the rolled front whole (they are the highest ranks),
+ * and the welded front's heaviest end is its own last front row.
  */
 export async function chartSample(sweepId: number): Promise<ChartSample> {
   const [counts, last] = await Promise.all([
     db("candidates").where({ sweep_id: sweepId }).first(db.raw("COUNT(*) AS n"), db.raw("COALESCE(SUM(on_front), 0) AS f")),
-    db("candidates").where({ sweep_id: sweepId, on_front: true }).orderBy("rank", "desc").first("rank"),
+    db("candidates").where({ sweep_id: sweepId, on_front: true }).orderBy("rank", "desc").limit(ROLLED_CHART_MAX).select(CHART_COLUMNS),
   ]);
   const stored = Number(counts?.n ?? 0),
     front = Number(counts?.f ?? 0);
   if (stored === 0) return { points: [], stored, front };
-  const k = Math.max(1, Math.ceil(stored / (CHART_MAX_POINTS - 20)));
+  const rolledFront = (last as Record<string, unknown>[]).filter((r) => r.source === "rolled");
+  const lastWelded =
+    (last as Record<string, unknown>[]).find((r) => r.source !== "rolled") ??
+    (rolledFront.length ? await db("candidates").where({ sweep_id: sweepId, on_front: true, source: "plate" }).orderBy("rank", "desc").first("rank") : null);
+  const k = Math.max(1, Math.ceil(stored / (CHART_MAX_POINTS - 20 - rolledFront.length)));
   const ranks = new Set<number>();
   for (let r = 1; r <= stored; r += k) ranks.add(r);
-  if (last) ranks.add(Number(last.rank));
+  if (lastWelded) ranks.add(Number(lastWelded.rank));
   const [sampled, bests] = await Promise.all([
     db("candidates").where({ sweep_id: sweepId }).whereIn("rank", [...ranks]).select(CHART_COLUMNS),
     db("candidates").where({ sweep_id: sweepId, family_best: true }).select(CHART_COLUMNS),
   ]);
   const byRank = new Map<number, Record<string, unknown>>();
-  for (const r of [...sampled, ...bests]) byRank.set(Number(r.rank), r);
+  for (const r of [...sampled, ...bests, ...rolledFront]) byRank.set(Number(r.rank), r);
   const points = [...byRank.values()]
     .sort((a, b) => Number(a.rank) - Number(b.rank))
     .map((r) =>
@@ -127,6 +146,11 @@ export async function chartSample(sweepId: number): Promise<ChartSample> {
         governing: String(r.governing),
         onFront: !!r.on_front,
         familyBest: !!r.family_best,
+        source: r.source === "rolled" ? "rolled" : "plate",
+        designation: (r.designation as string | null) ?? null,
+        catalogue: (r.catalogue as string | null) ?? null,
+        costMaterial: r.cost_material == null ? null : Number(r.cost_material),
+        costFabrication: r.cost_fabrication == null ? null : Number(r.cost_fabrication),
         design: null, // the chart draws no design figures
       }),
     );
@@ -227,6 +251,7 @@ function publicSweep(s: SweepView) {
         }
       : null,
     restraintStudy: s.restraintStudy,
+    catalogueResult: s.catalogueResult,
     reason: s.reason,
     advice: s.advice,
     error: s.error,

@@ -286,16 +286,23 @@ export function sideBySide(problem: SearchProblem, plate: SearchResult, rolled: 
 }
 
 /** A sweep's result: the plate search's, and with catalogues the catalogue's beside it. */
-export type SweepResult = SearchResult & { catalogue?: CatalogueResult; sideBySide?: SideBySide };
+export type CatalogueSweepResult = SearchResult & { catalogue?: CatalogueResult; sideBySide?: SideBySide };
 
 /**
  * Adds the catalogue search to a finished plate search (the queue, the seed's finished sweeps and
  * the bench all go through here). With the cost objective the lightest welded section needs the
- * plate search again under objective "mass" (its best only); `searchPlates` runs it.
+ * plate search again under objective "mass" (its best only): `plateByMass`, which the caller runs
+ * where it runs searches (in its thread or on worker threads); without it the lightest welded
+ * section is left out.
  */
-export function withCatalogues(problem: SearchProblem, plate: SearchResult, searchPlates: (p: SearchProblem) => SearchResult, options: Pick<SearchOptions, "signal"> = {}): SweepResult {
+export function withCatalogues<R extends SearchResult>(problem: SearchProblem, plate: R, plateByMass?: SearchResult | null, options: Pick<SearchOptions, "signal"> = {}): R & { catalogue?: CatalogueResult; sideBySide?: SideBySide } {
   if (!problem.catalogues?.length) return plate;
   const catalogue = searchCatalogues(problem, options);
-  const byMass = problem.objective === "cost" ? searchPlates({ ...problem, objective: "mass" }) : plate;
+  const byMass = problem.objective === "cost" ? (plateByMass ?? { ...plate, best: null }) : plate;
   return { ...plate, catalogue, sideBySide: sideBySide(problem, plate, catalogue, byMass) };
+}
+
+/** The plate problem whose best is the lightest welded section (objective "mass"), or null when the problem's own best already is. */
+export function lightestWeldedProblem(problem: SearchProblem): SearchProblem | null {
+  return problem.catalogues?.length && problem.objective === "cost" ? { ...problem, objective: "mass" } : null;
 }

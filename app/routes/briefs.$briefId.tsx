@@ -11,6 +11,7 @@ import { submitBrief } from "~/lib/brief-actions.server";
 import { db } from "~/lib/db.server";
 import { can } from "~/lib/roles";
 import { BriefEditor } from "~/components/BriefEditor";
+import { listCatalogueChoices } from "~/lib/brief-catalogues.server";
 import { Notice } from "~/components/ui";
 import { BriefSummary } from "~/components/BriefSummary";
 import { idParam } from "~/lib/route-params";
@@ -39,6 +40,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     }),
     stockLists: await listStockLists(user.teamId),
     teamMaterials: await listMaterials(user.teamId),
+    catalogues: await listCatalogueChoices(user.teamId),
     sweeps: sweeps.map((s) => ({ id: s.id as number, status: s.status as string, recheckOf: s.recheck_of as number | null, at: new Date(s.created_at).toISOString() })),
     numbers: await projectNumbers({ sweeps: sweeps.flatMap((s) => [s.id as number, s.recheck_of as number | null]) }),
     mayEdit: can(user.role, "editBrief"),
@@ -53,7 +55,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function BriefPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { brief, problem, project, defaults, stockLists, teamMaterials, sweeps, mayEdit, saved, numbers } = loaderData;
+  const { brief, problem, project, defaults, stockLists, teamMaterials, sweeps, mayEdit, saved, numbers, catalogues } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -79,7 +81,13 @@ export default function BriefPage({ loaderData, actionData }: Route.ComponentPro
         </p>
       ) : null}
       {mayEdit ? (
-        <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} />
+        <BriefEditor
+          defaultValue={defaults}
+          lastResult={actionData?.result}
+          stockLists={stockLists}
+          teamMaterials={teamMaterials}
+          catalogues={{ options: catalogues, chosen: (problem.catalogues ?? []).map((c) => c.name), shapes: problem.catalogues?.[0]?.shapes }}
+        />
       ) : (
         <div className="max-w-2xl space-y-2">
           <p className="text-sm text-ink/70">Your role may read this brief but not edit it. Open one of its sweeps to recheck it.</p>

@@ -7,7 +7,7 @@ import { checkLabel, familyLabel } from "~/lib/labels";
 import { Link } from "react-router";
 import type { Route } from "./+types/options.$optionId.record";
 import { requirePermission } from "~/lib/auth.server";
-import { getOption, listReviews } from "~/lib/options.server";
+import { getOption, listReviews, savedRolledSection } from "~/lib/options.server";
 import { buildRecord } from "~/lib/record";
 import { Caution } from "~/components/Caution";
 import { SectionDrawing } from "~/components/SectionDrawing";
@@ -37,7 +37,8 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
   const { option, reviews, team, printedAt, numbers } = loaderData;
   const units = option.units;
   const c = option.candidate;
-  const rec = buildRecord(c.family, c.dimensions, option.problem);
+  const rolled = savedRolledSection(c);
+  const rec = buildRecord(c.family, c.dimensions, option.problem, rolled);
   // The EN 1993 part needs the engine's design block (absent under the allowable basis).
   const en = option.problem.basis === "en1993" ? (rec.verdict.design ?? null) : null;
   const L = unitLabel("length", units),
@@ -63,6 +64,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
             {option.approvalStale ? <StaleApproval /> : null}
           </h1>
           <p className="text-sm">
+            {rolled ? `${rolled.designation} (rolled, from ${c.catalogue ?? "a catalogue"}; root fillets and corner radii in the properties, not in the table of rectangles): ` : ""}
             {familyLabel(c.family)} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
             {option.note ? ` · note: ${option.note}` : ""}
           </p>

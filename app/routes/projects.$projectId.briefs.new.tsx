@@ -8,6 +8,7 @@ import { listMaterials } from "~/lib/materials.server";
 import { submitBrief } from "~/lib/brief-actions.server";
 import { BriefEditor } from "~/components/BriefEditor";
 import { idParam } from "~/lib/route-params";
+import { listCatalogueChoices } from "~/lib/brief-catalogues.server";
 
 export function meta() {
   return [{ title: "New brief · Sparwise" }];
@@ -25,6 +26,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     defaults: newBriefFormDefaults(units),
     stockLists: await listStockLists(user.teamId),
     teamMaterials: await listMaterials(user.teamId),
+    catalogues: await listCatalogueChoices(user.teamId),
   };
 }
 
@@ -35,7 +37,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function NewBrief({ loaderData, actionData }: Route.ComponentProps) {
-  const { project, defaults, stockLists, teamMaterials } = loaderData;
+  const { project, defaults, stockLists, teamMaterials, catalogues } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -44,7 +46,7 @@ export default function NewBrief({ loaderData, actionData }: Route.ComponentProp
         </Link>
       </p>
       <h1 className="text-2xl font-bold">New brief</h1>
-      <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} />
+      <BriefEditor defaultValue={defaults} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} catalogues={{ options: catalogues, chosen: [] }} />
     </div>
   );
 }

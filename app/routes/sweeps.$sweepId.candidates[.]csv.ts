@@ -18,11 +18,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const en = sweep.problem.basis === "en1993";
   const designFields = en ? ["class", "Mcr_kNm", "chiLT", "McRd_kNm", "MbRd_kNm", "VRd_kN", "weld_throat_mm", "governing_clause"] : ["basis"];
   const blank = (x: number | null | undefined) => (x == null ? "" : x);
+  // a sweep that searched catalogues says which rows are rolled sections, and which
+  const cat = sweep.catalogueResult != null;
   const csv = Papa.unparse({
-    fields: ["rank", "family", ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front", ...designFields],
+    fields: ["rank", "family", ...(cat ? ["source", "designation", "catalogue"] : []), ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front", ...designFields],
     data: rows.map((r) => [
       r.rank,
       r.family,
+      ...(cat ? [r.source === "rolled" ? "rolled" : "welded", r.designation ?? "", r.catalogue ?? ""] : []),
       ...dims.map((d) => r.dimensions[d] ?? ""),
       r.massPerMetre,
       r.utilisation,

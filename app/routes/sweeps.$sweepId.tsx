@@ -15,7 +15,7 @@ import { queueErrorMessage } from "~/lib/brief-actions.server";
 import { Caution } from "~/components/Caution";
 import { WhatItWouldTake } from "~/components/WhatItWouldTake";
 import { ProgressBar } from "~/components/ProgressBar";
-import { TradeoffChart, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
+import { TradeoffChart, candidateName, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { CandidateTable } from "~/components/CandidateTable";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { UnitSwitch } from "~/components/UnitSwitch";
@@ -23,6 +23,7 @@ import { ReviewBadge } from "~/components/ReviewBadge";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import { RestraintStudyChart } from "~/components/RestraintStudyChart";
+import { RolledAndWelded } from "~/components/RolledAndWelded";
 import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 
@@ -281,6 +282,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               ) : null}
             </p>
           </section>
+          {sweep.catalogueResult ? <RolledAndWelded summary={sweep.catalogueResult} units={units} cost={sweep.problem.objective === "cost"} /> : null}
           <Caution problem={sweep.problem} />
           <details className="rounded-lg border border-ink/15 bg-white p-4" open={sweep.problem.basis === "en1993"}>
             <summary className="cursor-pointer font-semibold">Basis and assumptions</summary>
@@ -304,7 +306,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               {sel ? (
                 <section aria-label="Selected candidate" className="flex flex-wrap items-end gap-3 rounded-lg border border-accent bg-white p-3 text-sm" data-testid="selected">
                   <p className="flex-1">
-                    Selected <strong>#{sel.rank}</strong> {familyLabel(sel.family)} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({checkLabel(sel.governing)})
+                    Selected <strong>#{sel.rank}</strong> {sel.source === "rolled" ? `${candidateName(sel)} (rolled ${familyLabel(sel.family)})` : familyLabel(sel.family)} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({checkLabel(sel.governing)})
                   </p>
                   <button
                     type="button"
@@ -346,6 +348,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                   families={families}
                   withCost={withCost}
                   withDesign={sweep.problem.basis === "en1993"}
+                  withRolled={sweep.catalogueResult != null}
                   units={units}
                   selected={selected}
                   onSelect={select}

@@ -13,6 +13,7 @@
 //   (sweep_id, rank) unique key backs it up, so no retry can leave duplicates.
 // - An engine error (the search throwing) is deterministic, so it fails the sweep at once; only
 //   a lost worker (lease expiry) is retried, up to max_attempts claims.
+import { catalogueSummary, withRolledRows, type CatalogueSummary } from "~/lib/catalogue-sweep";
 import { randomBytes } from "node:crypto";
 import { EventEmitter } from "node:events";
 import type { Knex } from "knex";
@@ -472,7 +473,9 @@ export async function finishSweep(
   budgetMs = 0,
   progress?: { done: number; total: number; unit?: ProgressUnit },
 ): Promise<boolean> {
-  const rows = candidatesToStore(result, claim.problem.objective, claim.problem);
+  // the brief's catalogue sections ranked after the plate candidates (catalogue-sweep.ts)
+  const rows = withRolledRows(candidatesToStore(result, claim.problem.objective, claim.problem), result, claim.problem);
+  const catalogue = catalogueSummary(result, claim.problem);
   const timedOut = result.stoppedEarly === true;
   const reason = timedOut ? timedOutReason(claim.problem, result.best, budgetMs) : (result.reason ?? null);
   const notice = await db.transaction(async (trx) => {
@@ -501,6 +504,7 @@ export async function finishSweep(
           reason,
           restraint_study: result.restraintStudy ? JSON.stringify(result.restraintStudy) : null,
           advice: result.advice ? JSON.stringify(result.advice) : null,
+          catalogue_result: catalogue ? JSON.stringify(catalogue) : null,
           // the search's last report (a short sweep ends before any heartbeat wrote one); a stopped
           // search did not finish its families, so its progress stays where it stopped
           ...(progress
@@ -628,6 +632,8 @@ export interface SweepView {
   best: SearchCandidate | null;
   /** EN 1993 sweeps with a restraint length: the lightest section at L … L/6 */
   restraintStudy: RestraintStudy | null;
+  /** the brief searched catalogues: lightest and cheapest welded and rolled, counts, sections left out */
+  catalogueResult: CatalogueSummary | null;
   reason: string | null;
   error: string | null;
   attempts: number;
@@ -678,6 +684,7 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     counts: row.counts ? parseJson(row.counts) : null,
     best: row.best ? parseJson(row.best) : null,
     restraintStudy: row.restraint_study ? parseJson(row.restraint_study) : null,
+    catalogueResult: row.catalogue_result ? parseJson(row.catalogue_result) : null,
     reason: row.reason,
     error: row.error,
     attempts: row.attempts,
@@ -742,6 +749,13 @@ export interface CandidateRow {
   familyBest: boolean;
   /** EN 1993 sweeps: the design figures stored with the row (null under the allowable basis) */
   design: DesignRow | null;
+  /** "rolled": a catalogue section (its designation and catalogue below); "plate": welded from plate */
+  source: "plate" | "rolled";
+  designation: string | null;
+  catalogue: string | null;
+  /** objective "cost": the material and fabrication parts of `cost` */
+  costMaterial: number | null;
+  costFabrication: number | null;
 }
 
 export async function listCandidates(
@@ -765,7 +779,7 @@ export async function listCandidates(
     ])
     .limit(pageSize)
     .offset((page - 1) * pageSize)
-    .select("rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "design");
+    .select("rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "design", "source", "designation", "catalogue", "cost_material", "cost_fabrication");
   return {
     total: Number(n),
     page,
@@ -782,6 +796,11 @@ export async function listCandidates(
       onFront: !!r.on_front,
       familyBest: !!r.family_best,
       design: r.design ? parseJson<DesignRow>(r.design) : null,
+      source: r.source === "rolled" ? "rolled" : "plate",
+      designation: r.designation ?? null,
+      catalogue: r.catalogue ?? null,
+      costMaterial: r.cost_material ?? null,
+      costFabrication: r.cost_fabrication ?? null,
     })),
   };
 }

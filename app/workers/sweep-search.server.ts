@@ -13,7 +13,7 @@
 // Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
 // so a runner at full concurrency does not oversubscribe the machine.
 import os from "node:os";
-import { PROGRESS_UNIT, rawGridSize, searchSections, whatItWouldTakeSteps, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
+import { PROGRESS_UNIT, lightestWeldedProblem, rawGridSize, searchSections, whatItWouldTakeSteps, withCatalogues, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
 import { searchInThreads } from "./search-threads";
 import { runRestraintStudy } from "./study-thread";
 import { studyApplies, type SweepResult } from "~/lib/restraint-study";
@@ -44,12 +44,11 @@ export async function runSweepSearch(problem: SearchProblem, opts: SweepSearchOp
   // the threads' shapes add up to the grid's, so the unit is the same either way
   const onProgress = (d: number, t: number) => opts.onProgress(d, t, PROGRESS_UNIT);
   let result: SweepResult;
+  const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
   if (rawGridSize(problem) <= IN_THREAD_MAX_GRID)
     result = searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress, stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline });
-  else {
-    const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
-    result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, deadline, onProgress });
-  }
+  else result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, deadline, onProgress });
+  result = await sweepCatalogues(problem, result, { signal: opts.signal, threads, deadline });
   if (studyApplies(problem))
     // the study belongs to the sweep's time budget too: none once the search used it up
     result.restraintStudy = result.stoppedEarly
@@ -57,6 +56,34 @@ export async function runSweepSearch(problem: SearchProblem, opts: SweepSearchOp
       : await sweepRestraintStudy(problem, opts.signal, deadline);
   // a sweep stopped at its budget gets the advice that narrows the grid (sweep-budget.ts), not more searches
   return result.stoppedEarly ? result : withAdvice(problem, result, opts.signal, deadline);
+}
+
+/**
+ * The brief's catalogues searched beside the plates (the engine's withCatalogues). The catalogue
+ * is enumerated in this thread (about 1–2 ms a section; at most MAX_CATALOGUE_SECTIONS, so
+ * seconds at worst, well inside the lease). With the cost objective the lightest welded section
+ * takes one more plate search, best only, where the sweep's own ran.
+ *
+ * Under a time budget (choice, the spec is silent): the catalogue is still enumerated after a plate
+ * search that stopped at its budget (bounded as above, and its rolled answers are exact), but the
+ * extra plate search for the lightest welded section is not started then, and one that itself
+ * stops at the deadline is dropped: the side-by-side then leaves the lightest welded section out
+ * rather than show one not proven lightest.
+ */
+export async function sweepCatalogues<R extends SearchResult>(problem: SearchProblem, result: R, opts: { signal?: AbortSignal; threads?: number; deadline?: number } = {}) {
+  if (!problem.catalogues?.length) return result;
+  const massProblem = result.stoppedEarly ? null : lightestWeldedProblem(problem);
+  const { deadline } = opts;
+  let byMass: SearchResult | null = null;
+  if (massProblem)
+    byMass =
+      rawGridSize(massProblem) <= IN_THREAD_MAX_GRID
+        ? searchSections(massProblem, { front: "evaluated", signal: opts.signal, stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline })
+        : await searchInThreads(massProblem, { front: "evaluated", threads: opts.threads ?? 1, signal: opts.signal, deadline });
+  if (byMass?.stoppedEarly) byMass = null;
+  await new Promise((r) => setImmediate(r));
+  opts.signal?.throwIfAborted();
+  return withCatalogues(problem, result, byMass, { signal: opts.signal });
 }
 
 /**

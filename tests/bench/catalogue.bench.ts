@@ -40,7 +40,7 @@ console.log(`Starter catalogue: ${sections.length} sections (IPE, HEA, HEB, UPE)
 for (const [label, input] of cases) {
   const plates = searchProblemSchema.parse(input);
   const both = searchProblemSchema.parse({ ...input, catalogues: [{ name: "starter", sections }] });
-  const run = (p: typeof plates) => withCatalogues(p, searchSections(p, SWEEP_SEARCH_OPTIONS), (q) => searchSections(q, { front: "evaluated" }));
+  const run = (p: typeof plates) => withCatalogues(p, searchSections(p, SWEEP_SEARCH_OPTIONS));
   run(both); // warm-up
   run(plates);
   // interleaved, so a busy moment on a shared machine falls on both alike
@@ -58,7 +58,7 @@ for (const [label, input] of cases) {
   const med = (a: number[]) => [...a].sort((x, y) => x - y)[a.length >> 1]!;
   const tb = med(tp),
     t = med(tt);
-  const [, tc] = timeMedian(() => withCatalogues(both, rb, (q) => searchSections(q, { front: "evaluated" })), 5);
+  const [, tc] = timeMedian(() => withCatalogues(both, rb), 5);
   const w = r.sideBySide!.welded.lightest,
     rl = r.sideBySide!.rolled.lightest;
   console.log(`\n${label}`);
