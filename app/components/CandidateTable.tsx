@@ -245,7 +245,7 @@ export function CandidateTable({
                   {c.source === "rolled" ? candidateName(c) : familyLabel(c.family)}
                   {c.source === "rolled" ? (
                     <span className="block text-xs text-ink/70">
-                      rolled {familyLabel(c.family)}
+                      rolled {familyLabel(c.family).toLowerCase()}
                       {c.catalogue ? ` · ${c.catalogue}` : ""}
                     </span>
                   ) : withRolled ? (

@@ -2,6 +2,7 @@
 // lightest of each and, with the cost objective, the cheapest of each with its material and
 // fabrication parts. Pure props: SI values in, the brief's units out.
 import type { CatalogueSummary, SummaryPoint } from "~/lib/catalogue-sweep";
+import { checkLabel, familyLabel } from "~/lib/labels";
 import type { UnitSystem } from "~/optimizer/units";
 import { formatQuantity } from "~/components/PropertyTable";
 import { describeDimensions } from "~/components/TradeoffChart";
@@ -10,12 +11,12 @@ function Section({ p, units }: { p: SummaryPoint | null; units: UnitSystem }) {
   if (!p) return <span className="text-ink/70">none feasible</span>;
   return (
     <span>
-      <strong>{p.source === "rolled" ? p.designation : p.family}</strong>
+      <strong>{p.source === "rolled" ? p.designation : familyLabel(p.family)}</strong>
       <span className="block text-xs text-ink/70">
-        {p.source === "rolled" ? `rolled ${p.family}${p.catalogue ? ` · ${p.catalogue}` : ""}` : `welded · ${describeDimensions(p.dimensions, units)}`}
+        {p.source === "rolled" ? `rolled ${familyLabel(p.family).toLowerCase()}${p.catalogue ? ` · ${p.catalogue}` : ""}` : `welded · ${describeDimensions(p.dimensions, units)}`}
       </span>
       <span className="block tabular-nums">
-        {formatQuantity("massPerLength", p.massPerMetre, units)} · utilisation {p.utilisation.toFixed(3)} ({p.governing})
+        {formatQuantity("massPerLength", p.massPerMetre, units)} · utilisation {p.utilisation.toFixed(3)} ({checkLabel(p.governing)})
       </span>
       {p.cost !== undefined ? (
         <span className="block tabular-nums" data-testid="cost-parts">

@@ -55,7 +55,7 @@ function Tip({ active, payload, units }: { active?: boolean; payload?: { payload
     <div className="rounded-md border border-ink/20 bg-white p-2 text-xs shadow">
       <p className="font-semibold">
         #{c.rank} {c.source === "rolled" ? candidateName(c) : familyLabel(c.family)}
-        {c.source === "rolled" ? <span className="font-normal"> (rolled, {familyLabel(c.family)})</span> : null}
+        {c.source === "rolled" ? <span className="font-normal"> (rolled, {familyLabel(c.family).toLowerCase()})</span> : null}
       </p>
       <p>{describeDimensions(c.dimensions, units)}</p>
       <p>

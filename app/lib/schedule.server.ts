@@ -34,7 +34,7 @@ export interface ScheduleRow {
 }
 
 export function sectionDescription(c: Pick<SavedCandidate, "family" | "dimensions" | "source" | "designation">): string {
-  if (c.source === "rolled" && c.designation) return `${c.designation} (rolled ${familyLabel(c.family)})`;
+  if (c.source === "rolled" && c.designation) return `${c.designation} (rolled ${familyLabel(c.family).toLowerCase()})`;
   const dims = Object.entries(c.dimensions).map(([k, v]) => `${k} ${v}`);
   return `${familyLabel(c.family)} ${dims.join(" × ")} mm`;
 }

@@ -306,7 +306,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               {sel ? (
                 <section aria-label="Selected candidate" className="flex flex-wrap items-end gap-3 rounded-lg border border-accent bg-white p-3 text-sm" data-testid="selected">
                   <p className="flex-1">
-                    Selected <strong>#{sel.rank}</strong> {sel.source === "rolled" ? `${candidateName(sel)} (rolled ${familyLabel(sel.family)})` : familyLabel(sel.family)} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({checkLabel(sel.governing)})
+                    Selected <strong>#{sel.rank}</strong> {sel.source === "rolled" ? `${candidateName(sel)} (rolled ${familyLabel(sel.family).toLowerCase()})` : familyLabel(sel.family)} {describeDimensions(sel.dimensions, units)} · {formatQuantity("massPerLength", sel.massPerMetre, units)} · utilisation {sel.utilisation.toFixed(3)} ({checkLabel(sel.governing)})
                   </p>
                   <button
                     type="button"

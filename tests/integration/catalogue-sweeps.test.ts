@@ -148,11 +148,22 @@ describe("a finished sweep over catalogue and plates", () => {
     const { sweepId } = await sweep("cost");
     const page = await loadRouteModule("routes/sweeps.$sweepId.tsx");
     const res = await callRoute(page.loader, await requestAs("engineer", `/sweeps/${sweepId}`), { sweepId: String(sweepId) });
-    const data = res.data as { sweep: { catalogueResult: CatalogueSummary | null }; candidates: { rank: number; source?: string; designation?: string | null; costMaterial?: number | null }[] };
+    type Row = { rank: number; source?: string; designation?: string | null; costMaterial?: number | null; onFront: boolean };
+    const data = res.data as { sweep: { catalogueResult: CatalogueSummary | null }; chart: { points: Row[] }; table: { items: Row[]; total: number } };
     expect(data.sweep.catalogueResult?.sideBySide.rolled.cheapest).toBeTruthy();
-    const rolled = data.candidates.find((c) => c.source === "rolled")!;
+    // the chart draws both sides, each with its own front
+    const points = data.chart.points;
+    expect(points.some((c) => c.source === "rolled" && c.onFront)).toBe(true);
+    expect(points.some((c) => c.source !== "rolled" && c.onFront)).toBe(true);
+    const rolled = points.find((c) => c.source === "rolled")!;
     expect(rolled.designation).toMatch(/^UPE /);
     expect(rolled.costMaterial).toBeGreaterThan(0);
+    // the table's pages come from the API: rolled rows rank after the welded ones, so the last page by rank starts with them
+    const api = await import("~/routes/api.v1.sweeps.$id.candidates");
+    const last = await callRoute(api.loader, await requestAs("engineer", `/api/v1/sweeps/${sweepId}/candidates?sort=-rank&pageSize=5`), { id: String(sweepId) });
+    const items = (last.data as { items: (Row & { design: unknown })[] }).items;
+    expect(items[0]!.source).toBe("rolled");
+    expect(items[0]!.designation).toMatch(/^UPE /);
 
     const save = await callRoute(page.action, await formPost("engineer", `/sweeps/${sweepId}`, { intent: "saveOption", rank: String(rolled.rank), note: "rolled" }), { sweepId: String(sweepId) });
     expect(save.status).toBe(302);
@@ -166,5 +177,17 @@ describe("a finished sweep over catalogue and plates", () => {
     const record = await loadRouteModule("routes/options.$optionId.record.tsx");
     const rec = await callRoute(record.loader, await requestAs("engineer", `/options/${optionId}/record`), { optionId: String(optionId) });
     expect(rec.status).toBe(200);
+
+    // the member schedule names it by its designation and the plate cutting list leaves it out (bought rolled, not cut)
+    const { projectSchedule } = await import("~/lib/schedule.server");
+    const { cuttingList } = await import("~/lib/cutting-list");
+    const projectId = (await db("options").where({ id: optionId }).first("project_id")).project_id as number;
+    const sched = await projectSchedule(projectId);
+    const row = sched.find((r) => r.optionId === optionId)!;
+    expect(row.section).toBe(`${rolled.designation} (rolled channel)`);
+    expect(row.weldThroat).toBeNull();
+    const list = cuttingList(sched.filter((r) => r.optionId === optionId).map((r) => ({ ...r, lengthM: 6, count: 2 })));
+    expect(list.groups).toHaveLength(0);
+    expect(list.skipped).toBe(1);
   });
 });
