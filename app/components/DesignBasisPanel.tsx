@@ -27,6 +27,7 @@ export interface BasisFields {
 export const BASIS_LABELS: Record<Basis, string> = {
   en1993: "EN 1993 limit states: resistances, lateral-torsional buckling, shear buckling, welds",
   allowable: `Allowable stresses (${STRESSES_ONLY})`,
+  aisc360: "AISC 360-16 (ASD or LRFD): Chapter F flexure with lateral-torsional buckling, G2 shear, J2 welds, J10 web yielding and crippling",
 };
 
 const LOAD_LABELS = { top: "Top flange (destabilising)", shearCentre: "Shear centre", bottom: "Bottom flange (stabilising)" } as const;

@@ -8,6 +8,7 @@ import { DEFAULT_DENSITY } from "./schema";
 import { MAX_DENSITY } from "./validate";
 import { CATALOGUE_SHAPES, catalogueSectionSchema } from "./catalogue";
 import { costsSchema } from "./cost";
+import { toSI } from "./units";
 
 /** A brief may search this many catalogues and this many catalogue sections in all. */
 export const MAX_CATALOGUES = 10;
@@ -99,8 +100,11 @@ export const CHECK_NAMES = [
 ] as const;
 export type CheckName = (typeof CHECK_NAMES)[number];
 
-/** Design bases (member-checks.md §2): "allowable" = typed allowable stresses; "en1993" = limit states. */
-export const BASES = ["allowable", "en1993"] as const;
+/**
+ * Design bases (member-checks.md §2): "allowable" = typed allowable stresses; "en1993" = limit
+ * states to EN 1993; "aisc360" = AISC 360-16, ASD or LRFD (issue 14).
+ */
+export const BASES = ["allowable", "en1993", "aisc360"] as const;
 export type Basis = (typeof BASES)[number];
 
 /** Families the EN 1993 basis covers (member-checks.md §2); the others need the allowable basis. */
@@ -129,6 +133,69 @@ export type En1993Grade = keyof typeof EN1993_GRADES;
  * From memory.
  */
 export const EN1993_DEFAULTS = { E: 210000, G: 81000, gammaM0: 1.0, gammaM1: 1.0, gammaM2: 1.25, eta: 1.2, betaW: 1.0 } as const;
+/** Families the AISC 360-16 basis covers (Chapter F: F2–F5 I and channel, F7 box, F9 tee, F11 bar). */
+export const AISC360_FAMILIES = EN1993_FAMILIES;
+export const AISC360_REFUSAL = "not covered by the AISC 360 basis; use the allowable-stress basis";
+/** AISC 360-16 §B3.1, B3.2: Load and Resistance Factor Design (φ) or Allowable Strength Design (Ω). */
+export const AISC360_METHODS = ["ASD", "LRFD"] as const;
+export type Aisc360Method = (typeof AISC360_METHODS)[number];
+const ksi = (x: number) => toSI("stress", x, "us");
+/**
+ * AISC 360 grade presets: Fy, Fu (ASTM minima as tabulated in the AISC Steel Construction Manual
+ * Table 2-3, from memory) and the thickest plate the specification covers at that Fy (A36 to 8 in,
+ * A572 Gr 50 to 4 in; from memory). A992 is a rolled-shape specification (W shapes): offered for
+ * catalogue sections only, never for plate (`aisc.rolledGrade`).
+ */
+export const AISC360_GRADES = {
+  A36: { Fy: ksi(36), Fu: ksi(58), maxThickness: 203.2, plate: true },
+  "A572 Gr 50": { Fy: ksi(50), Fu: ksi(65), maxThickness: 101.6, plate: true },
+  A992: { Fy: ksi(50), Fu: ksi(65), maxThickness: Infinity, plate: false },
+} as const;
+export type Aisc360Grade = keyof typeof AISC360_GRADES;
+export const AISC360_PLATE_GRADES = ["A36", "A572 Gr 50"] as const satisfies readonly Aisc360Grade[];
+/**
+ * E = 29,000 ksi and G = 11,200 ksi (AISC 360-16 §B, Symbols / Chapter E, F notation); FEXX =
+ * 70 ksi, the E70 electrode that matches A36, A572 Gr 50 and A992 (AISC 360-16 Table J2.5 note,
+ * common practice). Converted once here through units.ts.
+ */
+export const AISC360_DEFAULTS = { E: ksi(29000), G: ksi(11200), FEXX: ksi(70) } as const;
+
+const aiscGradeKey = (g: string | undefined): Aisc360Grade | undefined => {
+  const k = g?.trim().toUpperCase().replace(/\s+/g, " ");
+  return (Object.keys(AISC360_GRADES) as Aisc360Grade[]).find((n) => n.toUpperCase() === k);
+};
+
+const aiscSchema = z
+  .object({
+    /** plate grade: "A36" or "A572 Gr 50" fill Fy, Fu; any other name needs Fy and Fu typed */
+    grade: z.string({ error: "aisc.grade must be text" }).max(40, { message: "aisc.grade: at most 40 characters" }).optional(),
+    Fy: within("aisc.Fy", 1, 5000, "MPa").optional(),
+    Fu: within("aisc.Fu", 1, 10000, "MPa").optional(),
+    E: within("aisc.E", 1, 1e7, "MPa").default(AISC360_DEFAULTS.E),
+    G: within("aisc.G", 1, 1e7, "MPa").default(AISC360_DEFAULTS.G),
+    FEXX: within("aisc.FEXX", 1, 10000, "MPa").default(AISC360_DEFAULTS.FEXX),
+    /** catalogue (rolled) sections: their grade, A992 unless given */
+    rolledGrade: z.string({ error: "aisc.rolledGrade must be text" }).max(40, { message: "aisc.rolledGrade: at most 40 characters" }).default("A992"),
+    rolledFy: within("aisc.rolledFy", 1, 5000, "MPa").optional(),
+  })
+  .transform((s, ctx) => {
+    const key = aiscGradeKey(s.grade);
+    if (key !== undefined && !AISC360_GRADES[key].plate) {
+      ctx.addIssue({ code: "custom", path: ["grade"], message: `aisc.grade: ${key} is a rolled-shape specification, for catalogue sections only (aisc.rolledGrade); plate needs ${AISC360_PLATE_GRADES.join(" or ")}, or Fy and Fu typed` });
+      return z.NEVER;
+    }
+    const preset = key !== undefined ? AISC360_GRADES[key] : undefined;
+    const Fy = s.Fy ?? preset?.Fy;
+    const Fu = s.Fu ?? preset?.Fu;
+    if (Fy === undefined) ctx.addIssue({ code: "custom", path: ["Fy"], message: `aisc.Fy is required unless aisc.grade names a preset (${AISC360_PLATE_GRADES.join(", ")})` });
+    if (Fu === undefined) ctx.addIssue({ code: "custom", path: ["Fu"], message: `aisc.Fu is required unless aisc.grade names a preset (${AISC360_PLATE_GRADES.join(", ")})` });
+    const rk = aiscGradeKey(s.rolledGrade);
+    const rolledFy = s.rolledFy ?? (rk !== undefined ? AISC360_GRADES[rk].Fy : undefined);
+    if (rolledFy === undefined) ctx.addIssue({ code: "custom", path: ["rolledFy"], message: "aisc.rolledFy is required unless aisc.rolledGrade names a preset (A992, A572 Gr 50, A36)" });
+    if (Fy === undefined || Fu === undefined || rolledFy === undefined) return z.NEVER;
+    return { ...s, grade: key ?? s.grade, Fy, Fu, rolledFy, maxThickness: preset?.maxThickness };
+  });
+
 export const LOAD_POSITIONS = ["top", "shearCentre", "bottom"] as const;
 export type LoadPosition = (typeof LOAD_POSITIONS)[number];
 
@@ -179,6 +246,12 @@ const restraintSchema = z.object({
   C2: factor("restraint.C2").default(0),
   C3: factor("restraint.C3").default(1),
   loadAt: z.enum(LOAD_POSITIONS, { error: 'restraint.loadAt must be "top", "shearCentre" or "bottom"' }).default("shearCentre"),
+  /**
+   * AISC 360 basis: the lateral-torsional buckling modification factor (AISC 360-16 §F1, Eq. F1-1
+   * gives it from the moment diagram; 1.0 is always conservative). F1-1 cannot fall below 1 nor
+   * rise above 12.5/2.5 = 5, so a typed value outside [1, 5] is refused.
+   */
+  Cb: within("restraint.Cb", 1, 5, "").default(1),
 });
 
 const supportsSchema = z.object({
@@ -203,7 +276,11 @@ export const searchProblemSchema = z
     }),
     shear: action("shear", "kN").optional(),
     /** member-checks.md §2: "allowable" (typed allowable stresses, the default) or "en1993". */
-    basis: z.enum(BASES, { error: 'basis must be "allowable" or "en1993"' }).default("allowable"),
+    basis: z.enum(BASES, { error: 'basis must be "allowable", "en1993" or "aisc360"' }).default("allowable"),
+    /** AISC 360 basis: "ASD" (Ω) or "LRFD" (φ); required under "aisc360". */
+    method: z.enum(AISC360_METHODS, { error: 'method must be "ASD" or "LRFD"' }).optional(),
+    /** AISC 360 basis: the plate grade or Fy, Fu; E, G, FEXX; the catalogue sections' grade. */
+    aisc: aiscSchema.optional(),
     /** Required under "allowable"; not used under "en1993". */
     allowable: z
       .object({
@@ -286,6 +363,21 @@ export const searchProblemSchema = z
       if (!p.allowable) ctx.addIssue({ code: "custom", path: ["allowable"], message: 'allowable is required when basis is "allowable" (tension, compression, and shear when a shear force is given)' });
       else if (p.shear !== undefined && p.shear > 0 && p.allowable.shear === undefined)
         ctx.addIssue({ code: "custom", path: ["allowable", "shear"], message: "allowable.shear is required when shear is given" });
+    } else if (p.basis === "aisc360") {
+      if (!p.method) ctx.addIssue({ code: "custom", path: ["method"], message: 'method is required when basis is "aisc360" ("ASD" or "LRFD")' });
+      if (!p.aisc) ctx.addIssue({ code: "custom", path: ["aisc"], message: 'aisc is required when basis is "aisc360" (a plate grade, A36 or A572 Gr 50, or Fy and Fu)' });
+      else if (p.aisc.maxThickness !== undefined) {
+        const tMax = p.aisc.maxThickness;
+        p.thicknesses.forEach((t, i) => {
+          if (t > tMax)
+            ctx.addIssue({ code: "custom", path: ["thicknesses", i], message: `thicknesses: ${t} mm is thicker than ${p.aisc!.grade} plate is specified for (${tMax} mm); remove the plate or type Fy and Fu` });
+        });
+      }
+      p.families.forEach((f, i) => {
+        if (!(AISC360_FAMILIES as readonly string[]).includes(f)) ctx.addIssue({ code: "custom", path: ["families", i], message: `families: "${f}" is ${AISC360_REFUSAL}` });
+      });
+      if (p.supports.stiffened === false && p.supports.bearingLength === undefined)
+        ctx.addIssue({ code: "custom", path: ["supports", "bearingLength"], message: "supports.bearingLength is required when supports.stiffened is false (the bearing length lb, mm)" });
     } else {
       if (!p.steel) ctx.addIssue({ code: "custom", path: ["steel"], message: 'steel is required when basis is "en1993" (fy bands, fu; or a preset grade)' });
       else {
