@@ -5,11 +5,11 @@
 // from welded ones (basis/en1993.ts: classification widths from the fillets, rolled shear area,
 // LTB curve b/c, no flange-to-web weld). A catalogue is a short list, so it is simply enumerated;
 // the plate search (search.ts) is untouched and the two results are put side by side here.
-import { BASIS_MODULES, CHECK_CLAUSES, CHECK_UNITS, Scratch, evaluateCandidate, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
+import { BASIS_MODULES, CHECK_UNITS, Scratch, attachDesign, checkClause, evaluateCandidate, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
 import type { RolledSection } from "./basis/core";
 import { SHAPE_FAMILY, catalogueSectionInput, type CatalogueSection, type CatalogueShape } from "./catalogue";
 import { MIN_WELD_THROAT, WELD_RUNS, weldCostPerMetre, type CostParts } from "./cost";
-import type { DesignBlock } from "./design-types";
+import type { AiscDesign, DesignBlock } from "./design-types";
 import { EngineInputError } from "./errors";
 import { FAMILY_KERNELS } from "./family-kernel";
 import type { Family } from "./geometry";
@@ -62,6 +62,8 @@ export interface RolledCandidate {
   checks: CheckResult[];
   properties: SectionProperties;
   design?: DesignBlock;
+  /** basis "aisc360": Table B4.1b, Chapter F, G, J worked out */
+  aisc?: AiscDesign;
 }
 
 export interface SkippedSection {
@@ -130,6 +132,8 @@ function prepare(section: CatalogueSection, density: number): Prepared {
 
 /** Why the problem's basis does not check this shape, or null when it does. */
 export function catalogueShapeRefusal(shape: CatalogueShape, problem: Pick<SearchProblem, "basis">): string | null {
+  if (problem.basis === "aisc360" && !EN1993_CATALOGUE_SHAPES.includes(shape))
+    return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the AISC 360 basis in this version (rolled I and channel sections are); use the allowable-stress basis`;
   if (problem.basis === "en1993" && !EN1993_CATALOGUE_SHAPES.includes(shape))
     return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the EN 1993 basis in this version (rolled I, H and channel sections are); use the allowable-stress basis`;
   return null;
@@ -150,7 +154,7 @@ export function catalogueCandidateChecks(section: CatalogueSection, problem: Sea
     const d = s.demand[c];
     if (d !== d) continue;
     const name = CHECK_NAMES[c];
-    checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: CHECK_CLAUSES[name] });
+    checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: checkClause(problem.basis, name) });
   }
   const out: CandidateVerdict & { properties: SectionProperties; dimensions: Record<string, number> } = {
     checks,
@@ -161,8 +165,7 @@ export function catalogueCandidateChecks(section: CatalogueSection, problem: Sea
     properties: pr.properties,
     dimensions: pr.dimensions,
   };
-  const design = BASIS_MODULES[ctx.basis].design(fk, pr.v, ctx, s, problem);
-  if (design) out.design = design;
+  attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, pr.v, ctx, s, problem));
   return out;
 }
 
@@ -234,6 +237,7 @@ export function searchCatalogues(problem: SearchProblem, options: Pick<SearchOpt
     const v = catalogueCandidateChecks(section, problem);
     c.checks = v.checks;
     if (v.design) c.design = v.design;
+    if (v.aisc) c.aisc = v.aisc;
     return c;
   };
   const lightest = feasible.length ? feasible.reduce((m, c) => (byArea(c, m) < 0 ? c : m)) : null;

@@ -10,10 +10,11 @@ import type { Family } from "./geometry";
 import * as fkm from "./family-kernel";
 import type { FamilyKernel } from "./family-kernel";
 import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
-import type { DesignBlock } from "./design-types";
+import type { AiscDesign, DesignBlock } from "./design-types";
 import { allowableBasis } from "./basis/allowable";
 import { Scratch, finish, plateObjective, type CheckContext, type DesignBasisModule, type RecordLine } from "./basis/core";
 import { en1993Basis, makeEn1993Context } from "./basis/en1993";
+import { aisc360Basis, makeAiscContext } from "./basis/aisc360";
 import { EngineInputError } from "./errors";
 import { MIN_WELD_THROAT, weldCostPerMetre } from "./cost";
 
@@ -24,13 +25,31 @@ const { compositeKernel, K_AREA, K_CY, K_CZ, K_IY, K_IYZ, K_IZ } = composite;
 const { FAMILY_KERNELS, N_CHECKS } = fkm;
 
 /** The design-basis modules, indexed by CheckContext.basis. */
-export const BASIS_MODULES: readonly DesignBasisModule[] = [allowableBasis, en1993Basis];
+export const BASIS_MODULES: readonly DesignBasisModule[] = [allowableBasis, en1993Basis, aisc360Basis];
 const evalAllowable = allowableBasis.evaluate,
-  evalEn1993 = en1993Basis.evaluate;
+  evalEn1993 = en1993Basis.evaluate,
+  evalAisc = aisc360Basis.evaluate;
+
+/** CheckContext.basis of a brief's basis. */
+export function basisIndex(basis: SearchProblem["basis"]): 0 | 1 | 2 {
+  return basis === "en1993" ? 1 : basis === "aisc360" ? 2 : 0;
+}
 
 /** The module of a brief's basis (record lines, caution wording). */
 export function designBasis(basis: SearchProblem["basis"]): DesignBasisModule {
-  return basis === "en1993" ? en1993Basis : allowableBasis;
+  return BASIS_MODULES[basisIndex(basis)];
+}
+
+/** The clause shown beside a check under the brief's basis. */
+export function checkClause(basis: SearchProblem["basis"], name: CheckName): string {
+  return designBasis(basis).clauses?.[name] ?? CHECK_CLAUSES[name];
+}
+
+/** Files a basis module's design block where CandidateVerdict and SearchCandidate keep it. */
+export function attachDesign(out: { design?: DesignBlock; aisc?: AiscDesign }, d: DesignBlock | AiscDesign | undefined): void {
+  if (!d) return;
+  if (d.basis === "aisc360") out.aisc = d;
+  else out.design = d;
 }
 
 export function makeCheckContext(p: SearchProblem): CheckContext {
@@ -43,7 +62,9 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     if (s.stem !== undefined) slenderLimit[6] = s.stem;
   }
   const en = p.basis === "en1993";
-  const hasShear = p.shear !== undefined && (en || p.allowable?.shear !== undefined);
+  const us = p.basis === "aisc360";
+  const limit = en || us;
+  const hasShear = p.shear !== undefined && (limit || p.allowable?.shear !== undefined);
   let deflNumerator = 0,
     deflLimit = Infinity;
   if (p.deflection) {
@@ -55,16 +76,17 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
   }
   // Under "en1993" the allowable stresses are absent: Infinity keeps every stress-based bound
   // of search.ts vacuous (and so sound) without touching it.
+  const basis = basisIndex(p.basis);
   return {
-    basis: en ? 1 : 0,
-    precedence: (en ? en1993Basis : allowableBasis).precedence,
+    basis,
+    precedence: BASIS_MODULES[basis].precedence,
     Ms: p.moment.sagging * 1e6,
     Mh: p.moment.hogging * 1e6,
     V: hasShear ? p.shear! * 1000 : 0,
     hasShear,
-    aT: en ? Infinity : p.allowable!.tension,
-    aC: en ? Infinity : p.allowable!.compression,
-    aS: en ? Infinity : (p.allowable!.shear ?? Infinity),
+    aT: limit ? Infinity : p.allowable!.tension,
+    aC: limit ? Infinity : p.allowable!.compression,
+    aS: limit ? Infinity : (p.allowable!.shear ?? Infinity),
     slenderLimit,
     hasDeflection: p.deflection !== undefined,
     deflNumerator,
@@ -74,6 +96,7 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     prices: new Map((p.prices ?? []).map((q) => [q.thickness, q.pricePerKg])),
     weldPerMetre: p.objective === "cost" ? weldCostPerMetre(MIN_WELD_THROAT, p.costs?.weld) : 0,
     en: en ? makeEn1993Context(p) : null,
+    us: us ? makeAiscContext(p) : null,
   };
 }
 
@@ -122,7 +145,7 @@ export function evaluateCandidate(fk: FamilyKernel, v: Float64Array, ctx: CheckC
     k[K_CY] = r.cy;
   }
   s.area = s.k[K_AREA];
-  return ctx.basis === 0 ? evalAllowable(fk, v, ctx, s, all, ok) : evalEn1993(fk, v, ctx, s, all, ok);
+  return ctx.basis === 0 ? evalAllowable(fk, v, ctx, s, all, ok) : ctx.basis === 1 ? evalEn1993(fk, v, ctx, s, all, ok) : evalAisc(fk, v, ctx, s, all, ok);
 }
 
 export type CheckUnit = "MPa" | "mm" | "ratio" | "kN·m" | "kN";
@@ -146,6 +169,8 @@ export interface CandidateVerdict {
   area: number;
   /** basis "en1993" only: what the limit-state checks worked out */
   design?: DesignBlock;
+  /** basis "aisc360" only: Table B4.1b, Chapter F, G, J2, J10 worked out */
+  aisc?: AiscDesign;
   /**
    * With a deflection check: the service deflection's components, mm. An unsymmetric section
    * (the angle) bends about an inclined axis and moves sideways too; the check is on the total.
@@ -208,7 +233,7 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
     const d = s.demand[c];
     if (d !== d) continue;
     const name = CHECK_NAMES[c];
-    checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: CHECK_CLAUSES[name] });
+    checks.push({ name, demand: d, capacity: s.capacity[c], utilisation: d / s.capacity[c], unit: CHECK_UNITS[name], clause: checkClause(problem.basis, name) });
   }
   const out: CandidateVerdict = { checks, utilisation: s.utilisation, governing: CHECK_NAMES[s.governing], feasible, area: s.area };
   if (ctx.hasDeflection) {
@@ -222,8 +247,7 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
       sideways = (ctx.deflNumerator * Math.abs(Iyz)) / den;
     out.deflection = { vertical, sideways, total: fk.unsymmetric ? Math.hypot(vertical, sideways) : vertical };
   }
-  const design = BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem);
-  if (design) out.design = design;
+  attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem));
   return out;
 }
 

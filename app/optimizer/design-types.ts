@@ -160,3 +160,145 @@ export interface DesignBlock {
   /** stated simplifications and assumptions, in words, for the record */
   notes: string[];
 }
+
+// ------------------------------------------------------------------ AISC 360-16 (issue 14)
+
+/** One element of AISC 360-16 Table B4.1b (flexure). */
+export interface AiscElement {
+  /** "top flange", "bottom flange", "flange", "web", "stem" */
+  element: string;
+  under: MomentSign[];
+  /** the Table B4.1b case applied */
+  case: string;
+  /** width-to-thickness ratio λ */
+  ratio: number;
+  lambdaP: number;
+  lambdaR: number;
+  class: "compact" | "noncompact" | "slender";
+  /** welded I flanges (case 11): kc = 4/√(h/tw), 0.35 … 0.76 */
+  kc?: number;
+}
+
+/** One Chapter F limit state other than lateral-torsional buckling. */
+export interface AiscLimitState {
+  name: string;
+  /** the equation number(s), e.g. "F2-1" */
+  equation: string;
+  /** nominal strength, kN·m */
+  Mn: number;
+}
+
+/** Chapter F for one moment sign. */
+export interface AiscFlexure {
+  moment: MomentSign;
+  /** required strength of that sign, kN·m */
+  M: number;
+  section: "F2" | "F3" | "F4" | "F5" | "F7" | "F9" | "F11";
+  limitStates: AiscLimitState[];
+  /** the least of limitStates, kN·m, and its available strength (φMn or Mn/Ω) */
+  MnLocal: number;
+  availableLocal: number;
+  /** kN·m */
+  Mp: number;
+  My: number;
+  /** elastic moduli to the compression and tension fibres, mm³ */
+  Sxc: number;
+  Sxt: number;
+  Rpc?: number;
+  Rpt?: number;
+  Rpg?: number;
+  /** MPa (F4, F5) */
+  FL?: number;
+  /** null when the brief gives no unbraced length (compression flange braced throughout) */
+  ltb: {
+    /** mm */
+    Lb: number;
+    Cb: number;
+    /** Lb ≤ Lp, Lp < Lb ≤ Lr, Lb > Lr (F9 with the stem in compression: always "elastic", Mcr) */
+    zone: "plastic" | "inelastic" | "elastic";
+    /** mm; null where the section has none (tee stem in compression) */
+    Lp: number | null;
+    Lr: number | null;
+    /** rts (F2, F3), rt (F4, F5) or ry (F7, F9), mm */
+    radius: number | null;
+    radiusName: "rts" | "rt" | "ry";
+    equation: string;
+    /** MPa */
+    Fcr?: number;
+    /** kN·m */
+    Mcr?: number;
+    /** F9-11 / F9-13 */
+    B?: number;
+    /** kN·m; null when LTB does not apply (Lb ≤ Lp) */
+    Mn: number | null;
+    available: number | null;
+  } | null;
+}
+
+/** G2.1 (I, channel), G3 (tee), G4 (box) or G2-1 by analogy (bar). */
+export interface AiscShear {
+  clause: "G2.1" | "G3" | "G4" | "bar";
+  /** web depth used in h/tw, mm */
+  h: number;
+  tw: number;
+  /** mm² */
+  Aw: number;
+  kv: number | null;
+  /** Cv1 (G2.1) or Cv2 (G2.2) */
+  Cv: number;
+  /** kN */
+  Vn: number;
+  phi: number;
+  omega: number;
+  /** kN */
+  available: number;
+  /** G2.1(a): rolled I web with h/tw ≤ 2.24√(E/Fy) */
+  rolledA: boolean;
+}
+
+/** J2 flange-to-web fillet welds. */
+export interface AiscWeld {
+  Qf: number;
+  /** N/mm */
+  q: number;
+  /** MPa */
+  FEXX: number;
+  /** leg size needed, mm, before rounding */
+  wExact: number;
+  /** leg size, mm */
+  w: number;
+  /** Table J2.4 minimum, mm */
+  wMin: number;
+  /** the thinner part joined, mm */
+  wMax: number;
+}
+
+/** J10.2 and J10.3 at an unstiffened end support. */
+export interface AiscBearing {
+  lb: number;
+  k: number;
+  /** kN, summed over the webs */
+  RnYielding: number;
+  RnCrippling: number;
+  cripplingEquation: "J10-5a" | "J10-5b";
+  /** the lesser available strength, kN */
+  available: number;
+}
+
+/** Everything the AISC 360 basis worked out for one candidate. */
+export interface AiscDesign {
+  basis: "aisc360";
+  method: "ASD" | "LRFD";
+  grade?: string;
+  /** MPa */
+  Fy: number;
+  Fu: number;
+  E: number;
+  elements: AiscElement[];
+  /** one per non-zero moment sign; empty when the section is outside this version */
+  flexure: AiscFlexure[];
+  shear: AiscShear | null;
+  weld: AiscWeld | null;
+  bearing: AiscBearing | null;
+  notes: string[];
+}

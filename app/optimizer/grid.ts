@@ -5,7 +5,7 @@ import { candidateChecks, makeCheckContext, type CheckContext, type CheckResult 
 import { FAMILY_KERNELS, N_CHECKS, dimsObject, type FamilyKernel } from "./family-kernel";
 import { Front, compareAcross, compareInFamily, type RawCandidate } from "./front";
 import type { Family } from "./geometry";
-import type { DesignBlock } from "./design-types";
+import type { AiscDesign, DesignBlock } from "./design-types";
 import { sectionProperties, type SectionProperties } from "./properties";
 import { CHECK_NAMES, gridValues, type CheckName, type SearchProblem } from "./search-schema";
 
@@ -67,6 +67,8 @@ export interface SearchCandidate extends SearchPoint {
   properties: SectionProperties;
   /** basis "en1993" only: class, resistances, Mcr, χLT, weld throat … (design-types.ts) */
   design?: DesignBlock;
+  /** basis "aisc360" only: Table B4.1b, Chapter F zone, Lp, Lr, Mn, G2 shear … (design-types.ts) */
+  aisc?: AiscDesign;
   /** with a deflection check: vertical, sideways and total service deflection, mm (checks.ts) */
   deflection?: { vertical: number; sideways: number; total: number };
 }
@@ -239,6 +241,7 @@ function toOutput(p: Prepared, c: RawCandidate): SearchCandidate {
     properties,
   };
   if (verdict.design) out.design = verdict.design;
+  if (verdict.aisc) out.aisc = verdict.aisc;
   if (verdict.deflection) out.deflection = verdict.deflection;
   if (p.ctx.cost) out.cost = c.objective;
   return out;

@@ -3,11 +3,12 @@
 // check, objective). checks.ts holds the one evaluation that calls a basis; the basis
 // modules (allowable.ts, en1993.ts) hold their own checks.
 import * as composite from "../composite";
-import type { DesignBlock } from "../design-types";
+import type { AiscDesign, DesignBlock } from "../design-types";
 import type { FamilyKernel } from "../family-kernel";
 import * as fkm from "../family-kernel";
 import type { CheckName, SearchProblem } from "../search-schema";
 import type { En1993Context, En1993Scratch } from "./en1993";
+import type { AiscContext, AiscScratch } from "./aisc360";
 import { WELD_RUNS } from "../cost";
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
@@ -15,8 +16,8 @@ const { KERNEL_OUT, PLATE_STRIDE } = composite;
 const { N_CHECKS } = fkm;
 
 export interface CheckContext {
-  /** 0 = "allowable", 1 = "en1993" (member-checks.md §2): index into BASIS_MODULES. */
-  basis: 0 | 1;
+  /** 0 = "allowable", 1 = "en1993" (member-checks.md §2), 2 = "aisc360" (issue 14): index into BASIS_MODULES. */
+  basis: 0 | 1 | 2;
   /** Check indices in precedence order: ties in governing go to the earlier (member-checks.md §2's numbering). */
   precedence: Int8Array;
   /** Design moments, N·mm (kN·m × 10⁶). */
@@ -25,7 +26,7 @@ export interface CheckContext {
   /** Shear force, N (kN × 10³); 0 when no shear check. */
   V: number;
   hasShear: boolean;
-  /** Allowable stresses, MPa; Infinity under "en1993", which keeps the stress bounds of search.ts vacuous. */
+  /** Allowable stresses, MPa; Infinity under "en1993" and "aisc360", which keeps the stress bounds of search.ts vacuous. */
   aT: number;
   aC: number;
   aS: number;
@@ -48,6 +49,8 @@ export interface CheckContext {
   weldPerMetre: number;
   /** basis "en1993": steel, factors, restraint, supports. */
   en: En1993Context | null;
+  /** basis "aisc360": method, steel, unbraced length, supports. */
+  us: AiscContext | null;
 }
 
 /**
@@ -87,6 +90,8 @@ export class Scratch {
   objective = 0;
   /** basis "en1993": its intermediate results (filled by en1993.ts, read back for the design block) */
   en: En1993Scratch | null = null;
+  /** basis "aisc360": its intermediate results (filled by aisc360.ts) */
+  us: AiscScratch | null = null;
   /** set by catalogue-search.ts for a catalogue section; null for plate candidates */
   rolled: RolledSection | null = null;
 }
@@ -147,9 +152,11 @@ export interface DesignBasisModule {
    */
   evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scratch, all: boolean, ok: boolean): boolean;
   /** After evaluate(all = true): the design block for results and records (undefined under "allowable"). */
-  design(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scratch, problem: SearchProblem): DesignBlock | undefined;
+  design(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scratch, problem: SearchProblem): DesignBlock | AiscDesign | undefined;
   /** The record's lines for a verdict under this basis (each naming its clause). */
-  recordLines(verdict: { checks: { name: CheckName; demand: number; capacity: number; utilisation: number }[]; design?: DesignBlock }): RecordLine[];
+  recordLines(verdict: { checks: { name: CheckName; demand: number; capacity: number; utilisation: number }[]; design?: DesignBlock; aisc?: AiscDesign }): RecordLine[];
+  /** The clause shown beside a check where this basis's differs from CHECK_CLAUSES (checks.ts). */
+  clauses?: Partial<Record<CheckName, string>>;
   /** What the basis checks and what it does not, for the caution shown with its results. */
   caution: { checks: string; notChecked: string };
 }
