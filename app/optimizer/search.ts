@@ -158,6 +158,8 @@ import { ABORT_EVERY, Tally, buildResult, checkAbort, offerFeasible, prepare, ty
 import { searchProblemSchema, type SearchProblemInput } from "./search-schema";
 import * as en1993 from "./basis/en1993";
 import type { En1993Context, En1993Scratch } from "./basis/en1993";
+import * as aisc from "./basis/aisc360";
+import type { AiscContext } from "./basis/aisc360";
 import * as stability from "./stability";
 
 export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
@@ -167,7 +169,8 @@ export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 const { compositeKernel, plateQAbove, plateWidthAt, plateNeutralAxis, plateModulusAbout, KERNEL_OUT, K_AREA, K_CY, K_IY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
 const { C_BEND, C_CLASS4, C_COMP, C_DEFL, C_LTB, C_SHEAR, C_TENS, C_VB, C_VPL, C_WELD } = fkm;
 const { chiLT, criticalMoment, fyFor, loadHeight, ltbCurveC, ALPHA_LT_C, ALPHA_LT_D, EL_WEB, MIN_WELD_THROAT } = en1993;
-const { stabilityKernel, ST_BETA, ST_CW, ST_J, ST_OUT, ST_SCY } = stability;
+const { stabilityKernel, ST_BETA, ST_CW, ST_H0, ST_J, ST_OUT, ST_SCY } = stability;
+const { flexureGamma, ltbUpperI } = aisc;
 const evaluate = evaluateCandidate,
   objectiveOf = plateObjective;
 
@@ -360,6 +363,10 @@ class FamilySearch {
   slR2 = new Float64Array(8);
   // ---- EN 1993 (E): null under the allowable basis
   readonly en: En1993Context | null;
+  /** (U) basis "aisc360": its context; null otherwise */
+  readonly us: AiscContext | null;
+  /** a limit-state basis (en1993 or aisc360): the plastic-modulus bound (E1)/(U1) applies */
+  readonly lim: boolean;
   /** indices in v of the family's plate thicknesses (its fy band is the thickest's); empty for the rectangle */
   readonly enT: number[];
   /** the bending-type requirement's factor: Zz ≥ M·γ/fy with γ = γM0, or γM1 when LTB is checked and larger (E1) */
@@ -393,8 +400,10 @@ class FamilySearch {
     this.minAllow = Math.min(ctx.aC, ctx.aT);
     this.Idefl = ctx.hasDeflection ? ctx.deflNumerator / ctx.deflLimit : 0;
     this.en = ctx.en;
+    this.us = ctx.us;
+    this.lim = ctx.en !== null || ctx.us !== null;
     this.enT = [...new Set(pf.fk.plateThickness.filter((i) => i >= 0))];
-    this.enGamma = ctx.en ? Math.max(ctx.en.gM0, ctx.en.restraint ? ctx.en.gM1 : 0) : 0;
+    this.enGamma = ctx.en ? Math.max(ctx.en.gM0, ctx.en.restraint ? ctx.en.gM1 : 0) : ctx.us ? flexureGamma(ctx.us) : 0;
     this.mMax = Math.max(ctx.Ms, ctx.Mh);
     this.cand = { fi: pf.fi, fk: this.fk, v: this.v, objective: 0, area: 0, utilisation: 0, governing: -1 };
     const dPos = this.groupDims.indexOf(pf.fk.roles.indexOf("depth"));
@@ -574,6 +583,11 @@ class FamilySearch {
       // (5), (7) concern the allowable shear stress: not checked under EN 1993
       return k;
     }
+    if (this.us) {
+      k = this.enZStart(k, kHi, cap);
+      if (k >= 0 && this.us.restraint) k = this.usLtbStart(k, kHi, cap);
+      return k;
+    }
     if (ctx.hasShear && ctx.V > 0 && this.sym) {
       if (!this.shearOk(k, cap)) {
         this.cause = C_SHEAR;
@@ -693,8 +707,9 @@ class FamilySearch {
 
   // ---- EN 1993 (E) -----------------------------------------------------------------------
 
-  /** (E1) An upper bound on fy over the row's points [k1, k2]. */
+  /** (E1) An upper bound on fy over the row's points [k1, k2] ((U1): the plate Fy, one value). */
   enFyMax(k1: number, k2: number): number {
+    if (this.us) return this.us.Fy;
     const e = this.en!,
       v = this.v;
     const T = this.enT;
@@ -756,6 +771,63 @@ class FamilySearch {
     }
     return k;
   }
+
+  /** (U2) First index ≥ k (≤ kHi) not shown to fail LTB at cap, or −1 (bisection on the range bound, as (E2)). */
+  usLtbStart(k: number, kHi: number, cap: number): number {
+    if (this.fk.family !== "i") return k;
+    for (let round = 0; round < 64; round++) {
+      if (!this.usLtbOutRow(k, k, cap)) return k;
+      this.cause = C_LTB;
+      if (k === kHi || this.usLtbOutRow(k, kHi, cap)) return this.dead(k, kHi);
+      let lo = k,
+        hi = kHi;
+      while (hi - lo > 1) {
+        const m = (lo + hi) >> 1;
+        if (this.usLtbOutRow(k, m, cap)) lo = m;
+        else hi = m;
+      }
+      this.t.ruledOut[C_LTB] += hi - k;
+      k = hi;
+    }
+    return k;
+  }
+
+  /**
+   * (U2) True when no point of an i row's range [k1, k2] (b from W[k1] to W[k2]) can have its LTB
+   * utilisation ≤ cap: M·γ > cap·ltbUpperI(properties at both ends), the upper bound on Mn over
+   * the range proven in the header.
+   */
+  usLtbOutRow(k1: number, k2: number, cap: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      f = fk.free,
+      n = fk.nPlates,
+      ko = this.kout,
+      st = this.st,
+      lo = this.usLo,
+      hi = this.usHi;
+    for (let end = 0; end < 2; end++) {
+      const o = end === 0 ? lo : hi;
+      v[f] = W[end === 0 ? k1 : k2];
+      fk.fill(v, this.pHi);
+      compositeKernel(this.pHi, n, ko);
+      stabilityKernel(fk.family, v, st);
+      const d = ko[K_MAXY];
+      o[0] = ko[K_AREA];
+      o[1] = ko[K_IZ];
+      o[2] = ko[K_IY];
+      o[3] = st[ST_J];
+      o[4] = st[ST_CW];
+      o[5] = plateModulusAbout(this.pHi, n, 0.5 * d);
+      o[6] = v[f];
+    }
+    const M = Math.max(this.ctx.Ms, this.ctx.Mh);
+    const ub = ltbUpperI(this.us!, v[0], v[2], v[3], lo, hi);
+    return M * this.enGamma > ub * cap * (1 + REL);
+  }
+  readonly usLo = new Float64Array(8);
+  readonly usHi = new Float64Array(8);
 
   /** (E2) First index ≥ k (≤ kHi) not shown to fail LTB at cap, or −1 (bisection on the range bound). */
   enLtbStart(k: number, kHi: number, cap: number): number {
@@ -1264,18 +1336,18 @@ class FamilySearch {
     const d = this.depthOf();
     const req = this.baseIreq(d, cap) * (1 - REL);
     // (E1) the same with the plastic modulus about mid-depth, ∫|y − d/2| dA ≥ Zz, also affine
-    const zreq = this.en ? this.enZreq(this.enFyMax(kLo, kHi), cap) * (1 - REL) : 0;
+    const zreq = this.lim ? this.enZreq(this.enFyMax(kLo, kHi), cap) * (1 - REL) : 0;
     v[f] = W[kLo];
     fk.fill(v, p);
     const i0 = iAbout(p, n, d / 2),
-      z0 = this.en ? plateModulusAbout(p, n, d / 2) : 0,
+      z0 = this.lim ? plateModulusAbout(p, n, d / 2) : 0,
       o0 = objectiveOf(fk, v, p, this.ctx);
     if (i0 >= req && z0 >= zreq) return o0;
     if (kHi === kLo) return this.deadRaw(kLo, kHi, i0 < req ? -1 : C_BEND);
     v[f] = W[kHi];
     fk.fill(v, p);
     const i1 = iAbout(p, n, d / 2),
-      z1 = this.en ? plateModulusAbout(p, n, d / 2) : 0,
+      z1 = this.lim ? plateModulusAbout(p, n, d / 2) : 0,
       o1 = objectiveOf(fk, v, p, this.ctx);
     if (i1 < req) return this.deadRaw(kLo, kHi, -1);
     if (z1 < zreq) return this.deadRaw(kLo, kHi, C_BEND);
@@ -1410,7 +1482,7 @@ class FamilySearch {
       tw = v[5];
     const req = this.baseIreq(d, cap);
     let afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
-    if (this.en) {
+    if (this.lim) {
       // (E1) likewise ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4 ≥ Zz
       const zreq = this.enZreq(this.enFyMax(0, 0), cap);
       afNeed = Math.max(afNeed, (2 * (zreq - (tw * d * d) / 4)) / d);
@@ -1481,7 +1553,7 @@ class FamilySearch {
       req = Math.max(req, (ctx.Ms * cTop) / aC, (ctx.Ms * cBot) / aT, (ctx.Mh * cTop) / aT, (ctx.Mh * cBot) / aC);
     }
     req *= 1 - REL;
-    if (!this.en && this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi, cap)) {
+    if (!this.lim && this.ctx.hasShear && this.ctx.V > 0 && !this.superShearOk(jLo, jHi, kLo, kHi, cap)) {
       this.t.ruledOut[C_SHEAR] += (jHi - jLo + 1) * (kHi - kLo + 1);
       return null;
     }
@@ -1588,7 +1660,7 @@ class FamilySearch {
       y0 = this.kout[K_CY];
     }
     m.zreq = 0;
-    if (this.en) {
+    if (this.lim) {
       // (E1): ∫|y − a| dA about a fixed a is affine in (bt, bb) and ≥ Zz: the same knapsack on it,
       // a at mid-depth, then at the equal-area axis of the relaxed optimum
       const zreq = this.enZreq(this.enFyMax(0, 0), cap) * (1 - REL);

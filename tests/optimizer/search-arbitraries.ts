@@ -168,3 +168,48 @@ export const en1993Arb: fc.Arbitrary<SearchProblemInput> = fc
   // design, so they are not search problems to compare
   .filter((p) => searchProblemSchema.safeParse(p).success);
 
+
+/**
+ * AISC 360 briefs (issue 14) over small grids: ASD or LRFD, both plate presets or typed Fy, Fu,
+ * unbraced lengths from short (plastic zone) to long (elastic), Cb from 1 to the F1-1 values of
+ * the usual diagrams, unstiffened supports, hogging, every family the basis covers. Moments and
+ * shears reach past what the small grids carry, so every Chapter F section, G2 with Cv1 < 1, the
+ * weld and J10 govern somewhere.
+ */
+export const aisc360Arb: fc.Arbitrary<SearchProblemInput> = fc
+  .record({
+    method: fc.constantFrom("ASD" as const, "LRFD" as const),
+    sagging: fc.oneof(fc.constant(0), fc.double({ min: 1, max: 600, noNaN: true })),
+    hogging: fc.oneof(fc.constant(0), fc.constant(0), fc.double({ min: 1, max: 400, noNaN: true })),
+    shear: fc.option(fc.oneof(fc.double({ min: 5, max: 300, noNaN: true }), fc.double({ min: 300, max: 1500, noNaN: true })), { nil: undefined }),
+    aisc: fc.oneof(fc.constantFrom({ grade: "A36" }, { grade: "A572 Gr 50" }), fc.record({ Fy: fc.constantFrom(290, 450), Fu: fc.constantFrom(400, 550) })),
+    restraint: fc.option(fc.record({ length: fc.double({ min: 0.3, max: 9, noNaN: true }), Cb: fc.constantFrom(1, 1.14, 1.3, 1.67, 2.27) }), { nil: undefined }),
+    unstiffened: fc.option(fc.double({ min: 0, max: 200, noNaN: true }), { nil: undefined }),
+    depth: axisArb(40, 900),
+    width: axisArb(20, 300),
+    thicknesses: fc.uniqueArray(fc.constantFrom(...STOCK), { minLength: 1, maxLength: 3 }),
+    families: fc.shuffledSubarray([...EN1993_FAMILIES], { minLength: 1, maxLength: 4 }),
+    deflection: fc.option(
+      fc.record({ span: fc.double({ min: 1, max: 12, noNaN: true }), serviceLoad: fc.double({ min: 0, max: 40, noNaN: true }), limitRatio: fc.constantFrom(240, 360), E: fc.constant(199948) }),
+      { nil: undefined },
+    ),
+  })
+  .filter((r) => r.sagging > 0 || r.hogging > 0)
+  .map((r) => {
+    const p: SearchProblemInput = {
+      basis: "aisc360",
+      method: r.method,
+      aisc: r.aisc,
+      moment: { sagging: r.sagging, hogging: r.hogging },
+      depth: r.depth,
+      width: r.width,
+      thicknesses: r.thicknesses,
+      families: r.families,
+    };
+    if (r.shear !== undefined) p.shear = r.shear;
+    if (r.restraint) p.restraint = r.restraint;
+    if (r.unstiffened !== undefined) p.supports = { stiffened: false, bearingLength: r.unstiffened };
+    if (r.deflection) p.deflection = r.deflection;
+    return p;
+  })
+  .filter((p) => searchProblemSchema.safeParse(p).success);

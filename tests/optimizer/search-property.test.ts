@@ -9,7 +9,7 @@ import type { Family } from "~/optimizer/geometry";
 import type { SearchPoint, SearchResult } from "~/optimizer/grid";
 import { searchSections } from "~/optimizer/search";
 import type { SearchProblemInput } from "~/optimizer/search-schema";
-import { en1993Arb, problemArb } from "./search-arbitraries";
+import { aisc360Arb, en1993Arb, problemArb } from "./search-arbitraries";
 import { sectionStresses } from "~/optimizer/stress";
 
 // SEARCH_PROPERTY_RUNS=2000 for a long soak; the default keeps `npm test` quick.
@@ -57,6 +57,13 @@ describe("fast search against brute force (random small grids)", () => {
     fc.assert(
       fc.property(en1993Arb, (p) => agrees(p)),
       { numRuns: runs(120), seed: 19931 },
+    );
+  }, 600_000);
+
+  it("the same under the AISC 360 basis, ASD and LRFD (Chapter F zones, G2, J2, J10)", () => {
+    fc.assert(
+      fc.property(aisc360Arb, (p) => agrees(p)),
+      { numRuns: runs(150), seed: 36016 },
     );
   }, 600_000);
 });

@@ -496,6 +496,99 @@ export function rtOf(bc: number, tc: number, hc: number, tw: number, h: number, 
   return bc / Math.sqrt(12 * (h0 / d + (aw * h * h) / (6 * h0 * d)));
 }
 
+/**
+ * search.ts (U2): an upper bound on the lateral-torsional buckling strength Mn of every welded
+ * doubly symmetric I (family i) of one row: d, tf, tw fixed, b between lo[6] and hi[6], with
+ * lo/hi = [A, Iz, Iy, J, Cw, Zx, b] at the two ends. Each of these grows with b, as do Sx = 2Iz/d,
+ * √(Iy·Cw), rt (F4-11: b² over a denominator falling in b) and Rpg (F5-6: aw falls in b); h/tw, h0
+ * and so the web's class and Chapter F section are fixed along the row. Returns Infinity when
+ * some point may have Lb ≤ Lp (no LTB check there). Otherwise every point is inelastic or elastic
+ * and its Mn is at most the larger of:
+ *  inelastic (possible when Lb ≤ Lr's upper bound): Cb·[Mmax·(1 − r) + Mr·r] falls as r rises
+ *    (Mmax ≥ Mr) and rises with Mmax, Mr; r = (Lb − Lp)/(Lr − Lp) falls as Lp or Lr rises while
+ *    Lp < Lb ≤ Lr (∂r/∂Lp = (Lb − Lr)/(Lr − Lp)², ∂r/∂Lr = −(Lb − Lp)/(Lr − Lp)²), so r ≥ r at
+ *    (Lp, Lr) upper bounds, and Mmax, Mr at theirs;
+ *  elastic (possible when Lb > Lr's lower bound): F2-3/F2-4 is Cb·π²E/Lb²·√(P² + 0.078·J·Lb²·P/h0),
+ *    P = √(Iy·Cw) (rts² = P/Sx, c = 1); F4-3/F4-5 the same with P = Sx·rt²; F5-4 Cb·π²E·rt²/Lb²
+ *    (≤ Fy) times Rpg·Sx: each rising in P, J, rt, Rpg, Sx;
+ * and at most the zone's cap (Mp, Rpc·Myc, Rpg·Fy·Sx) at its upper bound. Lr rises with rts (rt)
+ * and J/(Sx·h0) (F2-6, F4-8), F5-5 with rt: interval ends give its bounds.
+ */
+export function ltbUpperI(e: AiscContext, d: number, tf: number, tw: number, lo: Float64Array, hi: Float64Array): number {
+  const E = e.E,
+    Fy = e.Fy,
+    re = Math.sqrt(E / Fy),
+    Lb = e.Lb,
+    Cb = e.Cb;
+  const h = d - 2 * tf,
+    h0 = d - tf;
+  const lamW = h / tw;
+  const SxLo = (2 * lo[1]) / d,
+    SxHi = (2 * hi[1]) / d;
+  const JLo = lo[3],
+    JHi = hi[3];
+  const elastic = (P: number, J: number) => ((Cb * PI2 * E) / (Lb * Lb)) * Math.sqrt(P * P + (0.078 * J * Lb * Lb * P) / h0);
+  const lrOf = (r: number, j: number, FL: number) => {
+    const k = FL / E;
+    return 1.95 * r * (E / FL) * Math.sqrt(j + Math.sqrt(j * j + 6.76 * k * k));
+  };
+  const combine = (Mmax: number, Mr: number, LpHi: number, LrLo: number, LrHi: number, el: number): number => {
+    if (Lb <= LpHi) return Infinity;
+    let ub = -Infinity;
+    if (Lb <= LrHi) {
+      const r = (Lb - LpHi) / (LrHi - LpHi);
+      ub = Cb * (Mmax * (1 - r) + Mr * r);
+    }
+    if (Lb > LrLo && el > ub) ub = el;
+    return ub < Mmax ? ub : Mmax;
+  };
+  if (lamW <= 3.76 * re) {
+    // F2 (and F3: the same LTB)
+    const MpHi = Fy * hi[5];
+    const LpHi = 1.76 * Math.sqrt(hi[2] / lo[0]) * re;
+    const PLo = Math.sqrt(lo[2] * lo[4]),
+      PHi = Math.sqrt(hi[2] * hi[4]);
+    const rtsLo = Math.sqrt(PLo / SxHi),
+      rtsHi = Math.sqrt(PHi / SxLo);
+    const LrLo = lrOf(rtsLo, JLo / (SxHi * h0), 0.7 * Fy),
+      LrHi = lrOf(rtsHi, JHi / (SxLo * h0), 0.7 * Fy);
+    return combine(MpHi, 0.7 * Fy * SxHi, LpHi, LrLo, LrHi, elastic(PHi, JHi));
+  }
+  const rtOfB = (b: number) => rtOf(b, tf, h, tw, h, h0, d);
+  const rtLo = rtOfB(lo[6]),
+    rtHi = rtOfB(hi[6]);
+  const LpHi = 1.1 * rtHi * re;
+  if (lamW <= 5.7 * re) {
+    // F4: Rpc·Myc = Mp(1 − t) + Myc·t with t fixed by the web (F4-9b), rising in Mp and Myc
+    const lpw = 3.76 * re,
+      lrw = 5.7 * re;
+    const t = (lamW - lpw) / (lrw - lpw);
+    const MycHi = Fy * SxHi;
+    const MpHi = Math.min(Fy * hi[5], 1.6 * MycHi);
+    const RM = Math.max(MpHi * (1 - t) + MycHi * t, MycHi);
+    const FL = 0.7 * Fy;
+    const LrLo = lrOf(rtLo, JLo / (SxHi * h0), FL),
+      LrHi = lrOf(rtHi, JHi / (SxLo * h0), FL);
+    return combine(RM, FL * SxHi, LpHi, LrLo, LrHi, elastic(SxHi * rtHi * rtHi, JHi));
+  }
+  // F5: Mn = Rpg·Fcr·Sx with Fcr ≤ Fy
+  let aw = (h * tw) / (hi[6] * tf);
+  if (aw > 10) aw = 10;
+  let Rpg = 1 - (aw / (1200 + 300 * aw)) * (h / tw - 5.7 * re);
+  if (Rpg > 1) Rpg = 1;
+  const LrLo = Math.PI * rtLo * Math.sqrt(E / (0.7 * Fy)),
+    LrHi = Math.PI * rtHi * Math.sqrt(E / (0.7 * Fy));
+  if (Lb <= LpHi) return Infinity;
+  let F = -Infinity;
+  if (Lb <= LrHi) F = Cb * (Fy - 0.3 * Fy * ((Lb - LpHi) / (LrHi - LpHi)));
+  if (Lb > LrLo) {
+    const el = (Cb * PI2 * E * rtHi * rtHi) / (Lb * Lb);
+    if (el > F) F = el;
+  }
+  if (F > Fy) F = Fy;
+  return Rpg * F * SxHi;
+}
+
 function setLocal(w: FlexWork): void {
   let m = w.yld;
   if (w.flb < m) m = w.flb;
