@@ -105,6 +105,25 @@
 //   Classification makes feasibility non-monotone along a row (a wider flange can turn class 3
 //   or 4), so nothing above assumes monotone feasibility: points are only ever excluded by
 //   these necessary conditions, and the row's first feasible point is still its lightest.
+// (U) Under basis "aisc360" (issue 14; basis/aisc360.ts) the allowable stresses are Infinity too,
+//   so (2), (5), (7) are vacuous and (1), (3), (4), (6) stand. The search uses:
+//   (U1) Every Chapter F nominal strength of the "bending-resistance" check is at most Mp = Fy·Zx:
+//       F2-1, F3-1/F3-2 and F7-1/F7-2/F7-6 are ≤ Mp as written; F4: Rpc·Myc ≤ Mp (F4-9a/b cap
+//       Rpc at Mp/Myc, and F4-10's Rpc = 1 is ≤ Mp/Myc) and the limit states' least is ≤ that;
+//       F5: with Sxt ≥ Sxc, Rpg·Fy·Sxc ≤ Fy·Sxc = Fy·Sx,min, with Sxt < Sxc, F5-10's Fy·Sxt =
+//       Fy·Sx,min, and Fy·Sx,min ≤ Fy·Zx by the lower-bound theorem of (E1); F9: Mp ≤ Fy·Zx
+//       (F9-2) or My = Fy·Sx,min (F9-4); F11-1 ≤ Fy·Z. So M ≤ φ·Mn needs Zx ≥ M/(φ·Fy) and
+//       M ≤ Mn/Ω needs Zx ≥ M·Ω/Fy: (E1)'s machinery with γ = 1/φb or Ωb and fy = the plate Fy
+//       (one value on every row).
+//   (U2) LTB of family i (the only family with an LTB range bound here; others rely on (U1)):
+//       over a row's widths [b1, b2] (d, tf, tw fixed, so h/tw, h0 and the web's Chapter F section
+//       are fixed) A, Iz, Iy, J, Cw, Zx, Sx, √(Iy·Cw), rt and Rpg all grow with b, and
+//       aisc360.ts ltbUpperI bounds the LTB strength of every point of the range from above
+//       from their values at b1 and b2 (monotonicity argument in its comment); Infinity when a
+//       point may sit in the plastic zone (no LTB check). The bound grows with the range, so
+//       "every point of [k, m] fails" is monotone in m: bisection as (E2). Precision: compared
+//       with the 1e-9 relative margin, like every other bound.
+//   Shear, welds and J10 are not used to bound (they only make more points infeasible).
 // - Best mode also cuts each row, and each mono-i box, to the points no heavier than the
 //   incumbent (the objective is affine in each width) before bounding them.
 //
