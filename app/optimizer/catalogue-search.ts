@@ -42,6 +42,12 @@ const KERNEL: Record<CatalogueShape, { family: Family; dims: (d: CatalogueSectio
  * checks every shape.
  */
 export const EN1993_CATALOGUE_SHAPES: readonly CatalogueShape[] = ["I", "channel"];
+/**
+ * Shapes the AISC 360 basis checks as catalogue sections: rolled I (W), channel and tee (WT), whose
+ * rolled rules (Table B4.1b case 10, G2.1(a), h less the fillets, k = tf + r in J10) aisc360.ts
+ * applies; angles and hollow sections are left out with a reason.
+ */
+export const AISC360_CATALOGUE_SHAPES: readonly CatalogueShape[] = ["I", "channel", "tee"];
 
 export interface RolledCandidate {
   source: "rolled";
@@ -132,8 +138,8 @@ function prepare(section: CatalogueSection, density: number): Prepared {
 
 /** Why the problem's basis does not check this shape, or null when it does. */
 export function catalogueShapeRefusal(shape: CatalogueShape, problem: Pick<SearchProblem, "basis">): string | null {
-  if (problem.basis === "aisc360" && !EN1993_CATALOGUE_SHAPES.includes(shape))
-    return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the AISC 360 basis in this version (rolled I and channel sections are); use the allowable-stress basis`;
+  if (problem.basis === "aisc360" && !AISC360_CATALOGUE_SHAPES.includes(shape))
+    return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the AISC 360 basis in this version (rolled I, channel and tee sections are); use the allowable-stress basis`;
   if (problem.basis === "en1993" && !EN1993_CATALOGUE_SHAPES.includes(shape))
     return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the EN 1993 basis in this version (rolled I, H and channel sections are); use the allowable-stress basis`;
   return null;
