@@ -249,9 +249,9 @@ const restraintSchema = z.object({
   /**
    * AISC 360 basis: the lateral-torsional buckling modification factor (AISC 360-16 §F1, Eq. F1-1
    * gives it from the moment diagram; 1.0 is always conservative). F1-1 cannot fall below 1 nor
-   * rise above 12.5/2.5 = 5, so a typed value outside [1, 5] is refused.
+   * rise above 12.5/2.5 = 5, so a typed value outside [1, 5] is refused. Absent: 1.0 (aisc360.ts).
    */
-  Cb: within("restraint.Cb", 1, 5, "").default(1),
+  Cb: within("restraint.Cb", 1, 5, "").optional(),
 });
 
 const supportsSchema = z.object({

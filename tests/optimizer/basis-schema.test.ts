@@ -32,7 +32,7 @@ describe("basis", () => {
   });
 
   it("an unknown basis names the field", () => {
-    expect(issues({ ...en, basis: "bs5950" })).toContainEqual({ path: "basis", message: 'basis must be "allowable" or "en1993"' });
+    expect(issues({ ...en, basis: "bs5950" })).toContainEqual({ path: "basis", message: 'basis must be "allowable", "en1993" or "aisc360"' });
   });
 
   it("S355 preset fills fy bands, fu, βw; E, G, partial factors and η take the recommended values", () => {
