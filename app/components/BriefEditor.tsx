@@ -3,7 +3,7 @@
 // sit beside their fields with aria-describedby, and the form still posts without JavaScript.
 // The preview (grid size, one sample section's properties and checks) runs the engine in the browser.
 import { checkLabel, fieldLabel } from "~/lib/labels";
-import { CatalogueChoice, type CatalogueChoiceOption } from "~/components/CatalogueChoice";
+import { CatalogueChoice, type CatalogueChoiceOption, type KeptCatalogueOption } from "~/components/CatalogueChoice";
 import type { CatalogueShape } from "~/optimizer/catalogue";
 import { useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { Form } from "react-router";
@@ -138,7 +138,7 @@ export function BriefEditor({
   /** for a recheck: the original values, shown beside each changed field */
   original?: Record<string, unknown>;
   /** the team's section catalogues and the brief's choice among them (absent: no catalogue choice shown) */
-  catalogues?: { options: CatalogueChoiceOption[]; chosen: string[]; shapes?: CatalogueShape[] };
+  catalogues?: { options: CatalogueChoiceOption[]; chosen: string[]; shapes?: CatalogueShape[]; kept?: KeptCatalogueOption[] };
 }) {
   const [units, setUnits] = useState<UnitSystem>((defaultValue.units as UnitSystem) ?? "si");
   const [problem, setProblem] = useState<SearchProblem | null>(() => {
@@ -474,7 +474,7 @@ export function BriefEditor({
             </p>
           ) : null}
         </fieldset>
-        {catalogues ? <CatalogueChoice catalogues={catalogues.options} chosen={catalogues.chosen} shapes={catalogues.shapes} /> : null}
+        {catalogues ? <CatalogueChoice catalogues={catalogues.options} chosen={catalogues.chosen} shapes={catalogues.shapes} kept={catalogues.kept} /> : null}
 
         <Group title="Slenderness limits (width ÷ thickness)" note="Leave a limit empty to skip that check.">
           <NumberInput meta={slender.outstand} label="Flange outstand" units={units} />

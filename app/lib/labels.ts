@@ -179,6 +179,10 @@ export function describeBreach(b: LimitBreach, units: UnitSystem): string {
       const v = (x: number) => (q ? formatQuantity(q, x, units) : formatNumber(x));
       return `${checkLabel(b.check)} ${v(b.demand)} exceeds ${fieldLabel(b.limit).toLowerCase()} ${v(b.capacity)} (utilisation ${b.utilisation.toFixed(3)})`;
     }
+    case "catalogue":
+      return `${b.designation} is no longer among the catalogue sections searched${b.catalogue ? ` (${b.catalogue})` : ""}`;
+    case "basis":
+      return b.reason;
   }
 }
 

@@ -6,8 +6,8 @@ import { db, parseJson } from "~/lib/db.server";
 import { logActivity } from "~/lib/activity.server";
 import { changedLimits } from "~/lib/brief-form";
 import { notFound } from "~/lib/projects.server";
-import type { SavedCandidate } from "~/lib/options.server";
-import { sectionLimits, type LimitBreach } from "~/optimizer";
+import { savedRolledSection, type SavedCandidate } from "~/lib/options.server";
+import { rolledSectionLimits, sectionLimits, type LimitBreach } from "~/optimizer";
 import type { SessionUser } from "~/lib/auth.server";
 import { enqueueSweep, getTeamSweep, type SweepView } from "~/workers/queue.server";
 import type { SearchProblem } from "~/optimizer/search-schema";
@@ -59,7 +59,9 @@ export async function compareRecheck(teamId: number, recheckId: number): Promise
   const options = rows.map((r: Record<string, unknown>) => {
     const candidate = parseJson<SavedCandidate>(r.candidate);
     // Every limit, not only the checks: a recheck that only cut depth.max must fail a deeper option.
-    const after = sectionLimits(candidate.family, candidate.dimensions, recheck.problem);
+    // a rolled option by the catalogue rules: still among the searched sections, and its checks
+    const rolled = savedRolledSection(candidate);
+    const after = rolled ? rolledSectionLimits(rolled, candidate.catalogue ?? null, recheck.problem) : sectionLimits(candidate.family, candidate.dimensions, recheck.problem);
     return {
       id: r.id as number,
       candidate,

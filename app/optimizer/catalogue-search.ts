@@ -17,6 +17,7 @@ import type { SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "
 import type { SectionFamily } from "./hollow";
 import { sectionProperties, type SectionProperties } from "./properties";
 import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
+import { CHECK_LIMIT, type LimitBreach, type SectionLimits } from "./limits";
 import { sectionStresses } from "./stress";
 
 /**
@@ -173,6 +174,27 @@ export function catalogueCandidateChecks(section: CatalogueSection, problem: Sea
   };
   attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, pr.v, ctx, s, problem));
   return out;
+}
+
+/**
+ * A rolled section (a saved option) against every limit of a problem, as sectionLimits does for a
+ * welded one: is it still among the problem's catalogue sections (same catalogue name, same
+ * designation and dimensions, its shape taken), does the basis check its shape, and does it pass
+ * every check by the rolled rules. The plate grid (depth, width, thicknesses, families) does not
+ * apply to a section bought rolled.
+ */
+export function rolledSectionLimits(section: CatalogueSection, catalogue: string | null, problem: SearchProblem): SectionLimits {
+  const breaches: LimitBreach[] = [];
+  const same = (x: CatalogueSection) => x.designation === section.designation && x.shape === section.shape && Object.entries(section.dims).every(([k, v]) => (x.dims as Record<string, number | undefined>)[k] === v);
+  const listed = (problem.catalogues ?? []).some((c) => c.name === catalogue && (!c.shapes || c.shapes.includes(section.shape)) && c.sections.some(same));
+  if (!listed) breaches.push({ kind: "catalogue", limit: "catalogues", designation: section.designation, catalogue });
+  const refusal = catalogueShapeRefusal(section.shape, problem);
+  if (refusal) return { breaches: [...breaches, { kind: "basis", limit: "basis", reason: refusal }], verdict: null };
+  const verdict = catalogueCandidateChecks(section, problem);
+  // as sectionLimits: a check fails when demand > capacity
+  for (const c of verdict.checks)
+    if (c.demand > c.capacity) breaches.push({ kind: "check", limit: CHECK_LIMIT[c.name], check: c.name, demand: c.demand, capacity: c.capacity, utilisation: c.utilisation, unit: c.unit });
+  return { breaches, verdict };
 }
 
 const compareRolled = (objective: (c: RolledCandidate) => number) => (a: RolledCandidate, b: RolledCandidate) =>

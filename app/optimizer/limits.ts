@@ -45,7 +45,11 @@ export type LimitBreach =
   | { kind: "geometry"; limit: "geometry"; dim: string; rule: string }
   /** fabrication rules (member-checks.md, `fabrication`): the section is off the problem's grid */
   | { kind: "fabrication"; limit: "fabrication.minThickness" | "fabrication.flangeAtLeastWeb" | "fabrication.minBoxClear"; dim: string; value: number; bound: number }
-  | { kind: "check"; limit: string; check: CheckName; demand: number; capacity: number; utilisation: number; unit: CheckUnit };
+  | { kind: "check"; limit: string; check: CheckName; demand: number; capacity: number; utilisation: number; unit: CheckUnit }
+  /** a rolled section (catalogue-search.ts rolledSectionLimits): no longer among the problem's catalogue sections */
+  | { kind: "catalogue"; limit: "catalogues"; designation: string; catalogue: string | null }
+  /** a rolled section whose shape the problem's basis does not check (catalogueShapeRefusal's reason) */
+  | { kind: "basis"; limit: "basis"; reason: string };
 
 export interface SectionLimits {
   /** every limit broken, grid first, then checks (empty: the section is on the grid and feasible) */

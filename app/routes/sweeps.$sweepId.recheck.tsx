@@ -17,6 +17,7 @@ import { BriefEditor } from "~/components/BriefEditor";
 import { formFailure } from "~/lib/form-reply.server";
 import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
+import { listCatalogueChoices, withBriefCatalogues } from "~/lib/brief-catalogues.server";
 
 export function meta() {
   return [{ title: "Recheck · Sparwise" }];
@@ -42,16 +43,29 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     material: brief?.material ?? undefined,
     elasticModulus: brief?.elastic_modulus_mpa ?? undefined,
   });
-  return { sweepId: sweep.id, sweepNo: no, defaults, original: defaults, stockLists: await listStockLists(user.teamId), teamMaterials: await listMaterials(user.teamId) };
+  // the catalogues the original searched, offered as it searched them (brief-catalogues.server.ts)
+  const catalogues = {
+    options: await listCatalogueChoices(user.teamId),
+    chosen: [] as string[],
+    shapes: sweep.problem.catalogues?.[0]?.shapes,
+    kept: (sweep.problem.catalogues ?? []).map((c) => ({ name: c.name, sections: c.sections.length })),
+  };
+  return { sweepId: sweep.id, sweepNo: no, defaults, original: defaults, stockLists: await listStockLists(user.teamId), teamMaterials: await listMaterials(user.teamId), catalogues };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requirePermission(request, "recheck");
-  const submission = parseWithZod(await readForm(request), { schema: briefFormSchema });
+  const original = await getTeamSweep(idParam(params.sweepId), user);
+  if (!original) throw notFound("No such sweep in your team.");
+  const form = await readForm(request);
+  const submission = parseWithZod(form, { schema: briefFormSchema });
   if (submission.status !== "success") return formFailure(submission);
+  // the original's catalogues (as searched) and costs carry over unless the form changes them
+  const extended = await withBriefCatalogues(form, user.teamId, submission.value.problem, original.problem);
+  if (!extended.ok) return formFailure(submission, 400, [extended.message]);
   try {
     const { meta } = submission.value;
-    const id = await startRecheck(user, idParam(params.sweepId), submission.value.problem, { lengthM: meta.memberLengthM, count: meta.memberCount });
+    const id = await startRecheck(user, original.id, extended.problem, { lengthM: meta.memberLengthM, count: meta.memberCount });
     throw redirect(`/sweeps/${id}`);
   } catch (e) {
     const msg = await queueErrorMessage(e);
@@ -61,7 +75,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function Recheck({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweepId, sweepNo: no, defaults, original, stockLists, teamMaterials } = loaderData;
+  const { sweepId, sweepNo: no, defaults, original, stockLists, teamMaterials, catalogues } = loaderData;
   return (
     <div className="space-y-4">
       <p className="text-sm">
@@ -74,7 +88,7 @@ export default function Recheck({ loaderData, actionData }: Route.ComponentProps
         Every value of the original brief is below and editable. Running it starts a new sweep linked to sweep {no}; the original and its brief stay as they were. When it finishes, its
         page links to the comparison.
       </p>
-      <BriefEditor defaultValue={defaults} original={original} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} allowSave={false} runLabel="Run recheck" />
+      <BriefEditor defaultValue={defaults} original={original} lastResult={actionData?.result} stockLists={stockLists} teamMaterials={teamMaterials} allowSave={false} runLabel="Run recheck" catalogues={catalogues} />
     </div>
   );
 }

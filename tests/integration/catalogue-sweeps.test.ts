@@ -191,3 +191,113 @@ describe("a finished sweep over catalogue and plates", () => {
     expect(list.skipped).toBe(1);
   });
 });
+
+describe("a recheck carries the catalogue choice", () => {
+  const PRICES = JSON.stringify([6, 8, 10, 12, 15, 20, 25].map((thickness) => ({ thickness, pricePerKg: 1.1 })));
+  const COST_FIELDS = { ...BRIEF_FIELDS, objective: "cost", prices: PRICES };
+
+  async function costSweepWithRolledOption() {
+    const s = await starter();
+    const p = await project();
+    const problem: SearchProblemInput = {
+      moment: { sagging: 45 },
+      shear: 40,
+      allowable: { tension: 165, compression: 165, shear: 100 },
+      depth: { min: 100, max: 300, step: 10 },
+      width: { min: 50, max: 150, step: 10 },
+      thicknesses: [6, 8, 10, 12, 15, 20, 25],
+      families: ["channel"],
+      catalogues: [{ name: STARTER_CATALOGUE_NAME, shapes: ["channel"], sections: s.sections as never }],
+      objective: "cost",
+      prices: [6, 8, 10, 12, 15, 20, 25].map((thickness) => ({ thickness, pricePerKg: 1.1 })),
+      // not the team's figures, so a recheck that took the team's would show
+      costs: { rolledPricePerKg: 1.37, weld: [{ throat: 3, perMetre: 5.5 }] },
+    };
+    const sweepId = await recordFinishedSweep(db, { teamId: s.teamId, ownerId: p.engineer.id, projectId: p.id, problem });
+    const rolled = await db("candidates").where({ sweep_id: sweepId, source: "rolled" }).orderBy("rank").first("rank", "designation");
+    const page = await loadRouteModule("routes/sweeps.$sweepId.tsx");
+    const save = await callRoute(page.action, await formPost("engineer", `/sweeps/${sweepId}`, { intent: "saveOption", rank: String(rolled.rank) }), { sweepId: String(sweepId) });
+    expect(save.status).toBe(302);
+    const original = parseJson<SearchProblem>((await db("sweeps").where({ id: sweepId }).first("problem")).problem);
+    return { sweepId, original, designation: rolled.designation as string, teamId: s.teamId };
+  }
+
+  async function recheck(sweepId: number, fields: Record<string, string | string[]>) {
+    const mod = await loadRouteModule("routes/sweeps.$sweepId.recheck.tsx");
+    const res = await callRoute(mod.action, await formPost("reviewer", `/sweeps/${sweepId}/recheck`, fields), { sweepId: String(sweepId) });
+    if (res.status !== 302) return { res, id: null, problem: null };
+    const id = Number(res.location!.split("/").pop());
+    return { res, id, problem: parseJson<SearchProblem>((await db("sweeps").where({ id }).first("problem")).problem) };
+  }
+
+  const made: number[] = [];
+  afterAll(async () => {
+    // the queued rechecks are not run here; no worker should find them later
+    if (made.length) await db("sweeps").whereIn("id", made).update({ status: "cancelled", finished_at: db.fn.now() });
+  });
+
+  test("the recheck page offers the original's catalogues as searched, ticked", async () => {
+    const { sweepId, original } = await costSweepWithRolledOption();
+    const mod = await loadRouteModule("routes/sweeps.$sweepId.recheck.tsx");
+    const res = await callRoute(mod.loader, await requestAs("reviewer", `/sweeps/${sweepId}/recheck`), { sweepId: String(sweepId) });
+    const data = res.data as { catalogues: { kept: { name: string; sections: number }[]; shapes?: string[] } };
+    expect(data.catalogues.kept).toEqual([{ name: STARTER_CATALOGUE_NAME, sections: original.catalogues![0]!.sections.length }]);
+    expect(data.catalogues.shapes).toEqual(["channel"]);
+  });
+
+  test("kept: the same copied sections and the original's costs; the rolled option still fits", async () => {
+    const { sweepId, original, designation, teamId } = await costSweepWithRolledOption();
+    const { res, id, problem } = await recheck(sweepId, { ...COST_FIELDS, "allowable.shear": "95", catalogueChoice: "1", catalogueKeep: "0", catalogueShapes: "channel" });
+    expect(res.status, JSON.stringify(res.data)).toBe(302);
+    made.push(id!);
+    expect(problem!.catalogues).toEqual(original.catalogues);
+    expect(problem!.costs).toEqual({ rolledPricePerKg: 1.37, weld: [{ throat: 3, perMetre: 5.5 }] });
+    const { compareRecheck } = await import("~/lib/recheck.server");
+    const cmp = await compareRecheck(teamId, id!);
+    const o = cmp.options.find((x) => x.candidate.designation === designation)!;
+    expect(o.feasible).toBe(true);
+    expect(o.breaches).toEqual([]);
+    expect(o.utilisation).toBeGreaterThan(0);
+  });
+
+  test("a recheck form without the choice (as the API posts it) keeps the original's catalogues whole", async () => {
+    const { sweepId, original } = await costSweepWithRolledOption();
+    const { res, id, problem } = await recheck(sweepId, COST_FIELDS);
+    expect(res.status, JSON.stringify(res.data)).toBe(302);
+    made.push(id!);
+    expect(problem!.catalogues).toEqual(original.catalogues);
+  });
+
+  test("unticked: no catalogue, and the rolled option is named as no longer among the sections; a heavier moment breaks its checks by the rolled rules", async () => {
+    const { sweepId, designation, teamId } = await costSweepWithRolledOption();
+    const { compareRecheck } = await import("~/lib/recheck.server");
+    const { describeBreach } = await import("~/lib/labels");
+    const none = await recheck(sweepId, { ...BRIEF_FIELDS, catalogueChoice: "1" });
+    expect(none.res.status, JSON.stringify(none.res.data)).toBe(302);
+    made.push(none.id!);
+    expect(none.problem!.catalogues).toBeUndefined();
+    const dropped = (await compareRecheck(teamId, none.id!)).options.find((x) => x.candidate.designation === designation)!;
+    expect(dropped.feasible).toBe(false);
+    expect(dropped.breaches).toEqual([{ kind: "catalogue", limit: "catalogues", designation, catalogue: STARTER_CATALOGUE_NAME }]);
+    expect(describeBreach(dropped.breaches[0]!, "si")).toBe(`${designation} is no longer among the catalogue sections searched (${STARTER_CATALOGUE_NAME})`);
+
+    const heavy = await recheck(sweepId, { ...COST_FIELDS, "moment.sagging": "450", catalogueChoice: "1", catalogueKeep: "0" });
+    expect(heavy.res.status, JSON.stringify(heavy.res.data)).toBe(302);
+    made.push(heavy.id!);
+    const broken = (await compareRecheck(teamId, heavy.id!)).options.find((x) => x.candidate.designation === designation)!;
+    expect(broken.feasible).toBe(false);
+    expect(broken.breaches.every((b) => b.kind === "check")).toBe(true);
+    expect(broken.breaches.map((b) => (b as { check: string }).check)).toContain("bending-compression");
+  });
+
+  test("a catalogue number the original did not search is refused naming catalogueKeep, nothing written", async () => {
+    const { sweepId } = await costSweepWithRolledOption();
+    const before = await tableCounts();
+    for (const keep of ["1", "-1", "x"]) {
+      const { res } = await recheck(sweepId, { ...COST_FIELDS, catalogueChoice: "1", catalogueKeep: keep });
+      expect(res.status).toBe(400);
+      expect(JSON.stringify(res.data)).toMatch(/catalogueKeep/);
+    }
+    expect(await tableCounts()).toEqual(before);
+  });
+});
