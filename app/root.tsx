@@ -1,8 +1,9 @@
-import { Links, Meta, Outlet, Scripts, ScrollRestoration, isRouteErrorResponse } from "react-router";
+import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
 import "./app.css";
 import { z } from "zod";
 import { useNonce } from "./lib/nonce";
+import { ErrorMessage } from "./components/ErrorMessage";
 
 // In the browser zod would probe eval to compile faster parsers; the Content-Security-Policy
 // (server.ts) forbids eval, so the probe would only raise a violation report. The interpreted
@@ -33,18 +34,11 @@ export default function App() {
   return <Outlet />;
 }
 
+// Errors outside the signed-in frame (public pages, or the frame itself failing to render).
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  let title = "Something went wrong";
-  let detail = "An unexpected error occurred. Nothing you saved was lost.";
-  if (isRouteErrorResponse(error)) {
-    title = error.status === 404 ? "Not found" : error.status === 403 ? "Not allowed" : `Error ${error.status}`;
-    detail = typeof error.data === "string" && error.data ? error.data : error.statusText || detail;
-  }
   return (
-    <main className="mx-auto max-w-xl p-8">
-      <h1 className="text-2xl font-bold">{title}</h1>
-      <p className="mt-2">{detail}</p>
-      <a className="mt-4 inline-block text-accent underline" href="/">Back to the dashboard</a>
+    <main className="px-4">
+      <ErrorMessage error={error} />
     </main>
   );
 }

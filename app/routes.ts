@@ -37,6 +37,8 @@ export default [
     route("options/:optionId", "routes/options.$optionId.tsx"),
     route("options/:optionId/record", "routes/options.$optionId.record.tsx"),
     route("stock-lists", "routes/stock-lists.tsx"),
+    // Any other address: a 404 inside the frame (the layout's error boundary draws it).
+    route("*", "routes/not-found.tsx"),
   ]),
 
   // JSON API (session cookie or Authorization: Bearer <token>; guards answer 401/403 JSON).
@@ -47,6 +49,8 @@ export default [
   route("api/v1/sweeps/:id", "routes/api.v1.sweeps.$id.ts"),
   route("api/v1/sweeps/:id/candidates", "routes/api.v1.sweeps.$id.candidates.ts"),
   route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
+  // Any other /api/ address: a JSON 404
+  route("api/*", "routes/api.not-found.ts"),
   // Candidate downloads
   route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
   route("projects/:projectId/schedule.csv", "routes/projects.$projectId.schedule[.]csv.ts"),

@@ -50,7 +50,8 @@ export function AppHeader({ user, unreadNotices }: { user: HeaderUser; unreadNot
           </span>
         )}
 
-        <nav aria-label="Main" className="order-last -mx-1 flex w-full gap-1 overflow-x-auto md:order-none md:w-auto">
+        {/* Wraps rather than scrolls: a sideways-scrolling nav hid "Stock lists" at phone width. */}
+        <nav aria-label="Main" className="order-last -mx-1 flex w-full flex-wrap gap-1 md:order-none md:w-auto">
           {navItems(user.role === "admin").map((item) => (
             <NavLink key={item.to} to={item.to} end={item.end} className={linkClass}>
               {item.label}

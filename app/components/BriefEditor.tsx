@@ -291,7 +291,7 @@ export function BriefEditor({
   };
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
       <Form
         method="post"
         {...getFormProps(form)}

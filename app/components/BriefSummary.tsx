@@ -4,6 +4,7 @@ import type { SearchProblem } from "~/optimizer/search-schema";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { FIELD_QUANTITIES, type NumericField } from "~/lib/brief-form";
+import { TableScroll } from "~/components/DataTable";
 
 const SLENDERNESS_WORDS: Record<string, string> = { outstand: "flange outstand", internal: "internal plate", web: "web", stem: "stem" };
 
@@ -79,6 +80,7 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
     ],
   ];
   return (
+    <TableScroll>
     <table className="w-full border-collapse text-sm" data-testid="brief-summary">
       <tbody>
         {rows.map(([k, v]) => (
@@ -91,5 +93,6 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
         ))}
       </tbody>
     </table>
+    </TableScroll>
   );
 }

@@ -187,7 +187,7 @@ export function CandidateTable({
           rows {from}–{to} of {data.total.toLocaleString("en")} · tick up to {MAX_COMPARE} to compare ({compare.length} ticked)
         </span>
       </div>
-      <div className="max-h-[28rem] overflow-auto rounded-lg border border-ink/15 bg-white">
+      <div className="relative max-h-[28rem] overflow-auto rounded-lg border border-ink/15 bg-white">
         <table className="w-full border-collapse text-sm" data-testid="candidate-table">
           <thead className="sticky top-0 bg-white">
             <tr className="border-b border-ink/30 text-left">

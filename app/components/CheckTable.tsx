@@ -5,6 +5,7 @@ import type { CandidateVerdict, CheckResult } from "~/optimizer/checks";
 import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { STRESSES_ONLY } from "~/lib/caution";
+import { TableScroll } from "~/components/DataTable";
 
 export const CHECK_WORDS: Record<string, string> = {
   "bending-compression": "Bending, compressive fibre stress",
@@ -32,9 +33,14 @@ function unitOf(c: CheckResult, units: UnitSystem): { q: Quantity | null; label:
   return { q, label: q ? unitLabel(q, units) : "ratio" };
 }
 
+/**
+ * `compact` (a column of the four-up comparison, about 250 px): two columns, the check with its
+ * demand, capacity and clause under its name, and the utilisation, so nothing needs to scroll.
+ */
 export function CheckTable({ verdict, units, compact = false }: { verdict: CandidateVerdict; units: UnitSystem; compact?: boolean }) {
   const stressesOnly = !verdict.design;
   return (
+    <TableScroll>
     <table className="w-full border-collapse text-xs sm:text-sm" data-testid="check-table">
       <caption className="text-left font-semibold">
         Checks {verdict.feasible ? "(all pass)" : "(FAILS)"}
@@ -43,9 +49,13 @@ export function CheckTable({ verdict, units, compact = false }: { verdict: Candi
       <thead>
         <tr className="border-b border-ink/30 text-left">
           <th className="py-1 pr-2">Check</th>
-          <th className="py-1 pr-2 text-right">Demand</th>
-          <th className="py-1 pr-2 text-right">Capacity</th>
-          {compact ? null : <th className="py-1 pr-2">Unit</th>}
+          {compact ? null : (
+            <>
+              <th className="py-1 pr-2 text-right">Demand</th>
+              <th className="py-1 pr-2 text-right">Capacity</th>
+              <th className="py-1 pr-2">Unit</th>
+            </>
+          )}
           <th className="py-1 pr-2 text-right">Utilisation</th>
           {compact ? null : <th className="py-1">Clause</th>}
         </tr>
@@ -59,17 +69,20 @@ export function CheckTable({ verdict, units, compact = false }: { verdict: Candi
               <td className="py-1 pr-2">
                 {CHECK_WORDS[c.name] ?? c.name}
                 {c.name === verdict.governing ? " (governs)" : ""}
+                {compact ? (
+                  <span className="block text-xs font-normal tabular-nums" data-demand>
+                    demand {v(c.demand)} {u.label}, capacity {v(c.capacity)} {u.label}
+                  </span>
+                ) : null}
                 {compact && c.clause ? <span className="block text-[0.7rem] font-normal text-ink/70">{c.clause}</span> : null}
               </td>
-              <td className="py-1 pr-2 text-right tabular-nums">
-                {v(c.demand)}
-                {compact ? ` ${u.label}` : ""}
-              </td>
-              <td className="py-1 pr-2 text-right tabular-nums">
-                {v(c.capacity)}
-                {compact ? ` ${u.label}` : ""}
-              </td>
-              {compact ? null : <td className="py-1 pr-2">{u.label}</td>}
+              {compact ? null : (
+                <>
+                  <td className="py-1 pr-2 text-right tabular-nums">{v(c.demand)}</td>
+                  <td className="py-1 pr-2 text-right tabular-nums">{v(c.capacity)}</td>
+                  <td className="py-1 pr-2">{u.label}</td>
+                </>
+              )}
               <td className={`py-1 pr-2 text-right tabular-nums ${c.utilisation > 1 ? "text-red-800" : ""}`}>{c.utilisation.toFixed(3)}</td>
               {compact ? null : <td className="py-1 text-xs font-normal text-ink/80">{c.clause}</td>}
             </tr>
@@ -77,5 +90,6 @@ export function CheckTable({ verdict, units, compact = false }: { verdict: Candi
         })}
       </tbody>
     </table>
+    </TableScroll>
   );
 }

@@ -68,9 +68,7 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
             </dl>
             <DesignFigures verdict={verdict} units={units} />
             <StressDiagram result={stress} moment={M} shearForce={problem.shear ?? 0} units={units} width={W} height={220} />
-            <div className="overflow-x-auto">
-              <CheckTable verdict={verdict} units={units} compact />
-            </div>
+            <CheckTable verdict={verdict} units={units} compact />
             {actions ? actions(c) : null}
           </article>
         );

@@ -11,6 +11,7 @@ import { MOMENT_DIAGRAMS, MOMENT_DIAGRAM_SOURCE, matchMomentDiagram, momentDiagr
 import { STRESSES_ONLY } from "~/lib/caution";
 import type { Basis, En1993Grade } from "~/optimizer/search-schema";
 import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
+import { TableScroll } from "~/components/DataTable";
 
 type Meta = FieldMetadata<unknown>;
 /** The Conform fields of the brief form the panels use (typed loosely: nested fieldsets are read by name). */
@@ -189,6 +190,7 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
           <UnitInput meta={steel.fu} label="Tensile strength fu" quantity="stress" units={units} />
           <UnitInput meta={steel.betaW} label="Weld correlation factor βw" units={units} hint="EN 1993-1-8 Table 4.1" />
         </div>
+        <TableScroll>
         <table className="mt-3 w-full max-w-lg border-collapse text-sm">
           <caption className="text-left font-semibold">Yield strength by plate thickness</caption>
           <thead>
@@ -233,6 +235,7 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
             })}
           </tbody>
         </table>
+        </TableScroll>
         <p className="text-xs text-ink/70">Leave a row empty to drop it. A plate thicker than the last band is refused (name a band that holds it).</p>
         <details className="mt-3">
           <summary className="cursor-pointer text-sm font-semibold">Elastic constants and partial factors</summary>

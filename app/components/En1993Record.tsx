@@ -18,6 +18,7 @@ import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/u
 import { formatNumber } from "~/components/PropertyTable";
 import { CheckTable } from "~/components/CheckTable";
 import { matchMomentDiagram, MOMENT_DIAGRAM_SOURCE } from "~/lib/moment-diagrams";
+import { TableScroll } from "~/components/DataTable";
 
 const n = (x: number, sig = 4) => formatNumber(x, sig);
 /** A factor inside a written-out product: powers of ten in brackets, so "÷ (2.028 × 10⁷)" reads unambiguously. */
@@ -195,6 +196,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
         <h3 id="class-h" className="font-semibold">
           6.1 Cross-section class<Clause>EN 1993-1-1 §5.5, Table 5.2</Clause>
         </h3>
+        <TableScroll>
         <table className="mt-1 w-full border-collapse tabular-nums" data-testid="record-class">
           <thead>
             <tr className="border-b border-ink/30 text-right">
@@ -226,6 +228,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
             ))}
           </tbody>
         </table>
+        </TableScroll>
         <p className="mt-1">
           Limits with ε = {n(d.epsilon, 4)}: outstands 9ε, 10ε, 14ε; internal parts 33ε, 38ε, 42ε; webs 396ε/(13α − 1) or 36ε/α (class 1), 456ε/(13α − 1) or 41.5ε/α (class 2), 42ε/(0.67 + 0.33ψ) or
           62ε·(1 − ψ)·√(−ψ) (class 3). The section takes its worst element's class: <strong data-testid="record-section-class">class {d.sectionClass}</strong>

@@ -7,6 +7,7 @@ import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, fromSI, unitLabel, type Unit
 // here, where the pages have always found it.
 export { formatNumber, formatQuantity } from "~/lib/format";
 import { formatQuantity } from "~/lib/format";
+import { TableScroll } from "~/components/DataTable";
 
 /** A signed stress with its sense: "+123.4 MPa (tension)", "−98.7 MPa (compression)". */
 export function formatStress(sigmaSI: number, units: UnitSystem): string {
@@ -99,6 +100,7 @@ export function PropertyTable({
   className?: string;
 }) {
   return (
+    <TableScroll>
     <table className={`w-full border-collapse text-sm ${className}`}>
       <caption className="mb-2 text-left text-base font-bold">{caption}</caption>
       <thead>
@@ -152,6 +154,7 @@ export function PropertyTable({
         )}
       </tbody>
     </table>
+    </TableScroll>
   );
 }
 

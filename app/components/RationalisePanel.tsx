@@ -6,6 +6,7 @@ import { Form, Link } from "react-router";
 import { formatNumber } from "~/components/PropertyTable";
 import { Caution } from "~/components/Caution";
 import type { ProjectRationalisation } from "~/lib/rationalise.server";
+import { TableScroll } from "~/components/DataTable";
 
 export interface RationalisePanelProps {
   /** what the form shows: the submitted values, or the defaults */
@@ -120,7 +121,7 @@ function RationaliseResultView({ result }: { result: ProjectRationalisation }) {
               {outcome.depths.length}: {mmList(outcome.depths)}
             </dd>
           </dl>
-          <div className="overflow-x-auto">
+          <TableScroll>
             <table className="w-full border-collapse bg-white text-sm">
               <thead>
                 <tr className="border-b border-ink/30 text-left">
@@ -162,7 +163,7 @@ function RationaliseResultView({ result }: { result: ProjectRationalisation }) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
           {anyDefaulted ? (
             <p className="text-sm text-ink/80">
               * The brief has no member length or member count: 1 m and 1 member are assumed for the missing value. Set them in the brief editor for a true job

@@ -7,6 +7,7 @@ import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { describeDimensions } from "~/components/TradeoffChart";
 import type { RestraintStudy } from "~/lib/restraint-study";
+import { TableScroll } from "~/components/DataTable";
 
 export function RestraintStudyChart({ study, units, height = 280 }: { study: RestraintStudy; units: UnitSystem; height?: number }) {
   if (study.error) return <p className="rounded-md border border-ink/30 bg-white p-3 text-sm">The restraint study could not run: {study.error}. The sweep's own results above are unaffected.</p>;
@@ -36,6 +37,7 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
           Computed with the sweep ({formatNumber(study.elapsedMs / 1000, 2)} s).
         </figcaption>
       </figure>
+      <TableScroll>
       <table className="w-full border-collapse bg-white text-sm" data-testid="restraint-study-table">
         <thead>
           <tr className="border-b border-ink/30 text-left">
@@ -63,6 +65,7 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
           })}
         </tbody>
       </table>
+      </TableScroll>
     </div>
   );
 }

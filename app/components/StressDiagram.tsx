@@ -24,6 +24,9 @@ export interface StressDiagramProps {
   className?: string;
 }
 
+/** Narrower than this, the shear panel is drawn under the normal-stress panel (px of the drawing's own width). */
+export const STACK_BELOW = 560;
+
 export function StressDiagram({
   result,
   moment,
@@ -40,11 +43,19 @@ export function StressDiagram({
   const st = result.fibre.top,
     sb = result.fibre.bottom;
   const withShear = showShear && shearForce !== 0 && result.shear.length > 0;
-  const panelW = withShear ? width / 2 : width;
+  // Side by side the two panels share the width; below STACK_BELOW each panel would be too
+  // narrow for its title and fibre labels (a four-up comparison draws at 260), so the shear
+  // panel goes under the normal-stress one and each gets the full width.
+  const stacked = withShear && width < STACK_BELOW;
+  const panelW = withShear && !stacked ? width / 2 : width;
+  const totalH = stacked ? 2 * height : height;
   const mt = 40,
     mb = 40;
   const Hd = height - mt - mb;
   const Yp = (y: number) => mt + ((H - y) / H) * Hd;
+  // the shear panel's origin: right of the normal-stress panel, or under it
+  const shearDx = stacked ? 0 : panelW;
+  const shearDy = stacked ? height : 0;
 
   // ---- normal stress panel
   const x0 = panelW / 2;
@@ -70,7 +81,7 @@ export function StressDiagram({
   let shearPath = "";
   let tauMax = 0,
     tauMaxY = 0;
-  const sx0 = panelW + 16;
+  const sx0 = shearDx + 16;
   if (withShear) {
     for (const s of result.shear)
       if (Math.abs(s.tau) > Math.abs(tauMax)) {
@@ -82,13 +93,13 @@ export function StressDiagram({
     const first = sorted[0]!,
       last = sorted[sorted.length - 1]!;
     // τ is drawn by magnitude to the right; its sign follows V's and is stated in the caption
-    shearPath = pts([[sx0, Yp(first.y)], ...sorted.map((s) => [sx0 + Math.abs(s.tau) * kt, Yp(s.y)] as [number, number]), [sx0, Yp(last.y)]]);
+    shearPath = pts([[sx0, shearDy + Yp(first.y)], ...sorted.map((s) => [sx0 + Math.abs(s.tau) * kt, shearDy + Yp(s.y)] as [number, number]), [sx0, shearDy + Yp(last.y)]]);
   }
   const titleId = `stress-title-${uid}`;
 
   return (
     <figure className={className} data-testid="stress-diagram">
-      <svg viewBox={`0 0 ${width} ${height}`} width="100%" role="img" aria-labelledby={titleId} style={{ maxWidth: width }}>
+      <svg viewBox={`0 0 ${width} ${totalH}`} width="100%" role="img" aria-labelledby={titleId} style={{ maxWidth: width }}>
         <title id={titleId}>
           {`Normal stress across the depth under M = ${Mtext}: top fibre ${formatStress(st, units)}, bottom fibre ${formatStress(sb, units)}` +
             (withShear ? `; shear stress up to ${formatQuantity("stress", Math.abs(tauMax), units)} under V = ${formatQuantity("force", shearForce, units)}` : "")}
@@ -134,12 +145,12 @@ export function StressDiagram({
         </g>
         {withShear ? (
           <g fontSize={12} fill={INK}>
-            <text x={panelW + panelW / 2} y={14} textAnchor="middle" fontWeight={600}>
+            <text x={shearDx + panelW / 2} y={shearDy + 14} textAnchor="middle" fontWeight={600}>
               {`τ under V = ${formatQuantity("force", shearForce, units)}`}
             </text>
             <polygon points={shearPath} fill={TENSION} fillOpacity={0.2} stroke={TENSION} strokeWidth={1.2} />
-            <line x1={sx0} y1={Yp(H)} x2={sx0} y2={Yp(0)} stroke={INK} strokeWidth={1.2} />
-            <text x={width - 6} y={Math.min(Math.max(Yp(tauMaxY) - 6, mt), height - mb)} textAnchor="end" data-testid="tau-max">
+            <line x1={sx0} y1={shearDy + Yp(H)} x2={sx0} y2={shearDy + Yp(0)} stroke={INK} strokeWidth={1.2} />
+            <text x={width - 6} y={shearDy + Math.min(Math.max(Yp(tauMaxY) - 6, mt), height - mb)} textAnchor="end" data-testid="tau-max">
               {`τmax = ${formatQuantity("stress", Math.abs(tauMax), units)}`}
             </text>
           </g>

@@ -23,7 +23,7 @@ export function UnitSwitch({
       <span aria-hidden="true" className="text-sm font-semibold">
         {legend}
       </span>
-      <span className="inline-flex overflow-hidden rounded-md border border-ink/30">
+      <span className="inline-flex max-w-full overflow-hidden rounded-md border border-ink/30">
         {(["si", "us"] as const).map((u) => (
           <label
             key={u}

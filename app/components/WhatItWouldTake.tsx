@@ -9,6 +9,7 @@ import { checkLabel, familyLabel, fieldLabel } from "~/lib/labels";
 import { formatNumber, formatQuantity } from "~/lib/format";
 import { pathQuantity } from "~/lib/brief-form";
 import { describeDimensions } from "~/components/TradeoffChart";
+import { TableScroll } from "~/components/DataTable";
 
 function limitValue(limit: string, v: number | number[] | boolean, units: UnitSystem): string {
   if (typeof v === "boolean") return v ? "on" : "off";
@@ -44,7 +45,7 @@ export function WhatItWouldTake({ advice, units, problem }: { advice: Advice | n
         {advice.nearestMisses.length === 0 ? (
           <p className="text-sm">No family has a valid shape on this grid.</p>
         ) : (
-          <div className="overflow-x-auto">
+          <TableScroll>
             <table className="mt-1 w-full border-collapse bg-white text-sm" data-testid="nearest-misses">
               <thead>
                 <tr className="border-b border-ink/30 text-left">
@@ -67,7 +68,7 @@ export function WhatItWouldTake({ advice, units, problem }: { advice: Advice | n
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
       </section>
       <section aria-labelledby="relax-h">

@@ -8,6 +8,7 @@ import { chooseTeam, MIN_PASSWORD_LENGTH, requireUser, signOut } from "~/lib/aut
 import { commitSession, getSession } from "~/lib/session.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
 import { ROLE_LABELS } from "~/lib/roles";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta() {
   return [{ title: "Account · Sparwise" }];
@@ -128,7 +129,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         {tokens.length === 0 ? (
           <p className="text-sm text-ink/70">No tokens yet.</p>
         ) : (
-          <div className="overflow-x-auto">
+          <TableScroll>
             <table className="min-w-full text-left text-sm">
               <caption className="sr-only">Your API tokens</caption>
               <thead className="border-b border-ink/20">
@@ -160,7 +161,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
       </section>
     </div>

@@ -4,6 +4,7 @@
 import { Form, Link, data } from "react-router";
 import type { Route } from "./+types/admin.catalogues";
 import { Button, Field, FormError, Notice } from "~/components/ui";
+import { DataTable, RowActions, TableScroll } from "~/components/DataTable";
 import { requirePermission } from "~/lib/auth.server";
 import { fieldErrorsFrom, formToObject, readForm, withFieldErrors } from "~/lib/forms.server";
 import {
@@ -106,32 +107,22 @@ function Report({ report, kept }: { report: UploadReport; kept: boolean }) {
         {report.rejectedRows ? `, ${report.rejectedRows} ${report.rejectedRows === 1 ? "row was" : "rows were"} kept out` : ""}.
       </p>
       {report.rejected.length ? (
-        <div className="overflow-x-auto">
-          <table className="min-w-full text-left text-sm" data-testid="rejected-rows">
-            <caption className="text-left font-semibold">Rows kept out until fixed</caption>
-            <thead className="border-b border-ink/20">
-              <tr>
-                <th scope="col" className="py-1 pr-3 text-right">Line</th>
-                <th scope="col" className="py-1 pr-3">Designation</th>
-                <th scope="col" className="py-1 pr-3">Field</th>
-                <th scope="col" className="py-1 pr-3 text-right">Printed</th>
-                <th scope="col" className="py-1 pr-3 text-right">Computed</th>
-                <th scope="col" className="py-1">Problem</th>
-              </tr>
-            </thead>
-            <tbody>
-              {report.rejected.map((r, i) => (
-                <tr key={i} className="border-b border-ink/10 align-top">
-                  <td className="py-1 pr-3 text-right tabular-nums">{r.line}</td>
-                  <td className="py-1 pr-3 font-semibold">{r.designation}</td>
-                  <td className="py-1 pr-3 font-mono text-xs">{r.field}</td>
-                  <td className="py-1 pr-3 text-right tabular-nums">{r.printed ?? "—"}</td>
-                  <td className="py-1 pr-3 text-right tabular-nums">{r.computed ?? "—"}</td>
-                  <td className="py-1">{r.message}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+        <div>
+          <p className="font-semibold">Rows kept out until fixed</p>
+          <DataTable
+            testId="rejected-rows"
+            caption="Rows kept out until fixed"
+            columns={[
+              { key: "line", header: "Line", numeric: true, cell: (r) => r.line },
+              { key: "designation", header: "Designation", rowHeader: true, cell: (r) => r.designation },
+              { key: "field", header: "Field", className: "font-mono text-xs", cell: (r) => r.field },
+              { key: "printed", header: "Printed", numeric: true, cell: (r) => r.printed ?? "—" },
+              { key: "computed", header: "Computed", numeric: true, cell: (r) => r.computed ?? "—" },
+              { key: "problem", header: "Problem", cell: (r) => r.message },
+            ]}
+            rows={report.rejected.map((r, i) => ({ ...r, i }))}
+            rowKey={(r) => r.i}
+          />
           {report.rejected.length < report.rejectedRows ? <p className="text-xs text-ink/70">The first {report.rejected.length} problems are listed.</p> : null}
         </div>
       ) : null}
@@ -168,82 +159,60 @@ export default function AdminCatalogues({ loaderData, actionData }: Route.Compon
         {catalogues.length === 0 ? (
           <p className="text-sm text-ink/70">No catalogues yet. Upload one below.</p>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="min-w-full text-left text-sm">
-              <thead className="border-b border-ink/20">
-                <tr>
-                  <th scope="col" className="py-2 pr-4">Name</th>
-                  <th scope="col" className="py-2 pr-4 text-right">Sections</th>
-                  <th scope="col" className="py-2 pr-4 text-right">Kept out at the last upload</th>
-                  <th scope="col" className="py-2 pr-4">Updated</th>
-                  <th scope="col" className="py-2"><span className="sr-only">Actions</span></th>
-                </tr>
-              </thead>
-              <tbody>
-                {catalogues.map((c) => (
-                  <tr key={c.id} className={`border-b border-ink/10 ${viewing?.id === c.id ? "bg-teal-50" : ""}`}>
-                    <th scope="row" className="py-2 pr-4 font-semibold">{c.name}</th>
-                    <td className="py-2 pr-4 text-right tabular-nums">{c.sections}</td>
-                    <td className="py-2 pr-4 text-right tabular-nums">{c.rejectedRows}</td>
-                    <td className="py-2 pr-4 whitespace-nowrap">
-                      {day(c.updatedAt)}
-                      {c.uploadedBy ? ` · ${c.uploadedBy}` : ""}
-                    </td>
-                    <td className="py-2">
-                      <div className="flex items-center gap-2">
-                        <Link to={`/admin/catalogues?view=${c.id}`} className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold hover:bg-ink/5" aria-label={`Show the sections of ${c.name}`}>
-                          Sections
-                        </Link>
-                        <Form method="post">
-                          <input type="hidden" name="intent" value="delete" />
-                          <input type="hidden" name="id" value={c.id} />
-                          <Button variant="danger" aria-label={`Delete ${c.name}`}>Delete</Button>
-                        </Form>
-                      </div>
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <DataTable
+            caption="Your team's catalogues"
+            columns={[
+              { key: "name", header: "Name", rowHeader: true, cell: (c) => c.name },
+              { key: "sections", header: "Sections", numeric: true, cell: (c) => c.sections },
+              { key: "rejected", header: "Kept out at the last upload", numeric: true, cell: (c) => c.rejectedRows },
+              { key: "updated", header: "Updated", className: "whitespace-nowrap", cell: (c) => `${day(c.updatedAt)}${c.uploadedBy ? ` · ${c.uploadedBy}` : ""}` },
+              {
+                key: "actions",
+                header: <span className="sr-only">Actions</span>,
+                cell: (c) => <RowActions to={`/admin/catalogues?view=${c.id}`} label="Sections" accessibleLabel={`Show the sections of ${c.name}`} deleteId={c.id} deleteLabel={`Delete ${c.name}`} />,
+              },
+            ]}
+            rows={catalogues}
+            rowKey={(c) => c.id}
+            highlighted={(c) => viewing?.id === c.id}
+          />
         )}
       </section>
 
       {viewing ? (
         <section aria-labelledby="view-h" className="space-y-3">
           <h2 id="view-h" className="text-xl font-bold">{viewing.name}: {viewing.sections} sections, lightest first</h2>
-          <div className="max-h-[32rem] overflow-auto rounded border border-ink/15 bg-white">
-            <table className="min-w-full text-left text-sm" data-testid="catalogue-sections">
-              <thead className="sticky top-0 border-b border-ink/20 bg-white">
-                <tr>
-                  <th scope="col" className="px-2 py-1">Designation</th>
-                  <th scope="col" className="px-2 py-1">Shape</th>
-                  <th scope="col" className="px-2 py-1">Dimensions (mm)</th>
-                  <th scope="col" className="px-2 py-1 text-right">Mass (kg/m)</th>
-                  <th scope="col" className="px-2 py-1">Printed values checked</th>
-                </tr>
-              </thead>
-              <tbody>
-                {viewing.sectionRows.map((s) => (
-                  <tr key={s.designation} className="border-b border-ink/10">
-                    <th scope="row" className="px-2 py-1 font-semibold">{s.designation}</th>
-                    <td className="px-2 py-1">{SHAPE_WORDS[s.shape]}</td>
-                    <td className="px-2 py-1 tabular-nums">
-                      {CATALOGUE_DIMENSIONS.filter((k) => s.dims[k] !== undefined)
-                        .map((k) => `${k} ${s.dims[k]}`)
-                        .join(" · ")}
-                    </td>
-                    <td className="px-2 py-1 text-right tabular-nums">{s.massPerMetre.toFixed(2)}</td>
-                    <td className="px-2 py-1 text-xs">
-                      {PRINTED_FIELDS.filter((f) => s.printed[f] !== undefined)
-                        .map((f) => `${f} ${s.printed[f]}`)
-                        .join(" · ") || "none"}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <DataTable
+            testId="catalogue-sections"
+            caption={`The sections of ${viewing.name}`}
+            scrollClassName="max-h-[32rem] overflow-y-auto rounded border border-ink/15 bg-white"
+            stickyHead
+            columns={[
+              { key: "designation", header: "Designation", rowHeader: true, cell: (s) => s.designation },
+              { key: "shape", header: "Shape", cell: (s) => SHAPE_WORDS[s.shape] },
+              {
+                key: "dims",
+                header: "Dimensions (mm)",
+                className: "tabular-nums",
+                cell: (s) =>
+                  CATALOGUE_DIMENSIONS.filter((k) => s.dims[k] !== undefined)
+                    .map((k) => `${k} ${s.dims[k]}`)
+                    .join(" · "),
+              },
+              { key: "mass", header: "Mass (kg/m)", numeric: true, cell: (s) => s.massPerMetre.toFixed(2) },
+              {
+                key: "printed",
+                header: "Printed values checked",
+                className: "text-xs",
+                cell: (s) =>
+                  PRINTED_FIELDS.filter((f) => s.printed[f] !== undefined)
+                    .map((f) => `${f} ${s.printed[f]}`)
+                    .join(" · ") || "none",
+              },
+            ]}
+            rows={viewing.sectionRows}
+            rowKey={(s) => s.designation}
+          />
           {viewing.report && viewing.report.rejectedRows ? <Report report={viewing.report} kept /> : null}
         </section>
       ) : null}
@@ -295,6 +264,7 @@ export default function AdminCatalogues({ loaderData, actionData }: Route.Compon
       <section aria-labelledby="layout-h" className="max-w-4xl space-y-3">
         <h2 id="layout-h" className="text-lg font-bold">The file's layout</h2>
         <p className="text-sm">One section per line, comma-separated, with a header line naming the columns:</p>
+        <TableScroll>
         <table className="text-left text-sm">
           <tbody>
             {CATALOGUE_CSV_HELP.columns.map(([col, words]) => (
@@ -305,6 +275,7 @@ export default function AdminCatalogues({ loaderData, actionData }: Route.Compon
             ))}
           </tbody>
         </table>
+        </TableScroll>
         <ul className="list-disc pl-5 text-sm">
           {CATALOGUE_CSV_HELP.notes.map((n) => (
             <li key={n}>{n}</li>

@@ -4,6 +4,7 @@
 import { Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/admin.materials";
 import { Button, Field, FormError, Notice } from "~/components/ui";
+import { DataTable, RowActions, type Column } from "~/components/DataTable";
 import type { TeamMaterialChoice } from "~/components/BriefEditor";
 import { requirePermission } from "~/lib/auth.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
@@ -61,6 +62,35 @@ function Allowables({ fill }: { fill: PresetFill }) {
       {fill.allowable.tension} / {fill.allowable.compression} / {fill.allowable.shear}
     </span>
   );
+}
+
+interface MaterialValues {
+  name: string;
+  E: number;
+  fy: number;
+  density: number;
+}
+
+/** The columns a team material and a built-in preset share: what each fills in a brief. */
+function materialColumns<M extends MaterialValues>(rules: (m: M) => string, fill: (m: M) => PresetFill, note?: (m: M) => React.ReactNode): Column<M>[] {
+  return [
+    {
+      key: "name",
+      header: "Name",
+      rowHeader: true,
+      cell: (m) => (
+        <>
+          {m.name}
+          {note?.(m)}
+        </>
+      ),
+    },
+    { key: "E", header: "E (MPa)", numeric: true, cell: (m) => mpa(m.E) },
+    { key: "fy", header: "fy (MPa)", numeric: true, cell: (m) => mpa(m.fy) },
+    { key: "density", header: "Density (kg/m³)", numeric: true, cell: (m) => grouped(m.density) },
+    { key: "allowables", header: "Allowables: tension / compression / shear (MPa)", cell: (m) => <Allowables fill={fill(m)} /> },
+    { key: "rules", header: "Slenderness limits", cell: rules },
+  ];
 }
 
 function MaterialForm({ material, errors }: { material: TeamMaterialChoice | null; errors: Record<string, string> }) {
@@ -132,46 +162,17 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
         {materials.length === 0 ? (
           <p className="text-sm text-ink/70">Your team has no materials of its own yet. Add one below; it will appear in every brief's material preset list after the built-in presets.</p>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="min-w-full text-left text-sm">
-              <caption className="sr-only">Your team's materials, with the values they fill</caption>
-              <thead className="border-b border-ink/20">
-                <tr>
-                  <th scope="col" className="py-2 pr-4">Name</th>
-                  <th scope="col" className="py-2 pr-4 text-right">E (MPa)</th>
-                  <th scope="col" className="py-2 pr-4 text-right">fy (MPa)</th>
-                  <th scope="col" className="py-2 pr-4 text-right">Density (kg/m³)</th>
-                  <th scope="col" className="py-2 pr-4">Allowables: tension / compression / shear (MPa)</th>
-                  <th scope="col" className="py-2 pr-4">Slenderness limits</th>
-                  <th scope="col" className="py-2"><span className="sr-only">Actions</span></th>
-                </tr>
-              </thead>
-              <tbody>
-                {materials.map((m) => (
-                  <tr key={m.id} className={`border-b border-ink/10 ${editing?.id === m.id ? "bg-teal-50" : ""}`}>
-                    <th scope="row" className="py-2 pr-4 font-semibold">{m.name}</th>
-                    <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(m.E)}</td>
-                    <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(m.fy)}</td>
-                    <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{grouped(m.density)}</td>
-                    <td className="py-2 pr-4"><Allowables fill={materialFill(m)} /></td>
-                    <td className="py-2 pr-4">{RULES_LABEL[OWN_MATERIAL_RULES]}</td>
-                    <td className="py-2">
-                      <div className="flex items-center gap-2">
-                        <Link to={`/admin/materials?edit=${m.id}`} className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold hover:bg-ink/5" aria-label={`Edit ${m.name}`}>
-                          Edit
-                        </Link>
-                        <Form method="post">
-                          <input type="hidden" name="intent" value="delete" />
-                          <input type="hidden" name="id" value={m.id} />
-                          <Button variant="danger" aria-label={`Delete ${m.name}`}>Delete</Button>
-                        </Form>
-                      </div>
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <DataTable
+            caption="Your team's materials, with the values they fill"
+            columns={[...materialColumns<TeamMaterialChoice>(() => RULES_LABEL[OWN_MATERIAL_RULES], materialFill), {
+              key: "actions",
+              header: <span className="sr-only">Actions</span>,
+              cell: (m) => <RowActions to={`/admin/materials?edit=${m.id}`} label="Edit" accessibleLabel={`Edit ${m.name}`} deleteId={m.id} deleteLabel={`Delete ${m.name}`} />,
+            }]}
+            rows={materials}
+            rowKey={(m) => m.id}
+            highlighted={(m) => editing?.id === m.id}
+          />
         )}
       </section>
 
@@ -190,38 +191,15 @@ export default function AdminMaterials({ loaderData, actionData }: Route.Compone
           Built-in presets
         </h2>
         <p className="text-sm text-ink/70">Read-only; listed first in every brief's material preset list.</p>
-        <div className="overflow-x-auto">
-          <table className="min-w-full text-left text-sm">
-            <caption className="sr-only">Built-in steel presets, with their sources</caption>
-            <thead className="border-b border-ink/20">
-              <tr>
-                <th scope="col" className="py-2 pr-4">Name</th>
-                <th scope="col" className="py-2 pr-4 text-right">E (MPa)</th>
-                <th scope="col" className="py-2 pr-4 text-right">fy (MPa)</th>
-                <th scope="col" className="py-2 pr-4 text-right">Density (kg/m³)</th>
-                <th scope="col" className="py-2 pr-4">Allowables: tension / compression / shear (MPa)</th>
-                <th scope="col" className="py-2 pr-4">Slenderness limits</th>
-                <th scope="col" className="py-2">Source</th>
-              </tr>
-            </thead>
-            <tbody>
-              {STEEL_GRADES.map((g) => (
-                <tr key={g.id} className="border-b border-ink/10 align-top">
-                  <th scope="row" className="py-2 pr-4 font-semibold">
-                    {g.name}
-                    <span className="block text-xs font-normal text-ink/70">{g.note}</span>
-                  </th>
-                  <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(g.E)}</td>
-                  <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{mpa(g.fy)}</td>
-                  <td className="whitespace-nowrap py-2 pr-4 text-right tabular-nums">{grouped(g.density)}</td>
-                  <td className="py-2 pr-4"><Allowables fill={presetFill(g.id)} /></td>
-                  <td className="py-2 pr-4">{RULES_LABEL[g.rules]}</td>
-                  <td className="py-2 text-xs">{g.source}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          caption="Built-in steel presets, with their sources"
+          columns={[
+            ...materialColumns<(typeof STEEL_GRADES)[number]>((g) => RULES_LABEL[g.rules], (g) => presetFill(g.id), (g) => <span className="block text-xs font-normal text-ink/70">{g.note}</span>),
+            { key: "source", header: "Source", cell: (g) => g.source, className: "text-xs" },
+          ]}
+          rows={[...STEEL_GRADES]}
+          rowKey={(g) => g.id}
+        />
       </section>
     </div>
   );

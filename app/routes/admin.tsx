@@ -6,6 +6,7 @@ import { requirePermission } from "~/lib/auth.server";
 import { badRequest, parseForm, readForm, withFieldErrors } from "~/lib/forms.server";
 import { ROLE_LABELS, ROLES } from "~/lib/roles";
 import { adminActionSchema, changeRole, inviteMember, listMembers, listPendingInvitations, removeMember, revokeInvitation } from "~/lib/team.server";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta() {
   return [{ title: "Team admin · Sparwise" }];
@@ -81,7 +82,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
 
       <section aria-labelledby="members-h">
         <h2 id="members-h" className="sr-only">Members</h2>
-        <div className="overflow-x-auto">
+        <TableScroll>
           <table className="min-w-full text-left text-sm">
             <thead className="border-b border-ink/20">
               <tr>
@@ -117,7 +118,7 @@ export default function Admin({ loaderData, actionData }: Route.ComponentProps) 
               ))}
             </tbody>
           </table>
-        </div>
+        </TableScroll>
       </section>
 
       <section aria-labelledby="invite-h" className="max-w-xl space-y-3">

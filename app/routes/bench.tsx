@@ -36,6 +36,7 @@ import { StressDiagram } from "~/components/StressDiagram";
 import { PropertyTable, formatQuantity } from "~/components/PropertyTable";
 import { UnitSwitch } from "~/components/UnitSwitch";
 import { Caution } from "~/components/Caution";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta() {
   return [{ title: "Section bench · Sparwise" }];
@@ -311,6 +312,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
 
           {state.mode === "plates" ? (
             <div className="rounded-lg border border-ink/15 bg-white p-4">
+              <TableScroll>
               <table className="w-full text-sm">
                 <caption className="mb-2 text-left text-ink/80">
                   Each plate is b wide and h high, with its bottom-left corner at (z, y); lengths in {L}. Plates may touch but not overlap. Alt+↑ and Alt+↓ move the row you are typing in.
@@ -399,6 +401,7 @@ export default function Bench({ loaderData }: Route.ComponentProps) {
                   })}
                 </tbody>
               </table>
+              </TableScroll>
               <button
                 ref={addPlateRef}
                 type="button"

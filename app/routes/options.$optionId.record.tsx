@@ -19,6 +19,7 @@ import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Calculation record, option ${data ? optionNo(data.numbers, data.option.id) : ""} · Sparwise` }];
@@ -107,6 +108,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         </div>
         <div>
           <h3 className="font-semibold">Plates (bottom-left corner z, y; width b; height h)</h3>
+          <TableScroll>
           <table className="w-full border-collapse text-sm tabular-nums">
             <thead>
               <tr className="border-b border-ink/30 text-right">
@@ -129,6 +131,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
               ))}
             </tbody>
           </table>
+          </TableScroll>
         </div>
       </section>
 
@@ -136,6 +139,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         <h2 id="composite-h" className="text-lg font-bold">
           3. Centroid and moment of inertia (parallel-axis theorem)
         </h2>
+        <TableScroll>
         <table className="mt-2 w-full border-collapse text-sm tabular-nums" data-testid="composite-table">
           <thead>
             <tr className="border-b border-ink/30 text-right">
@@ -171,6 +175,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
             </tr>
           </tbody>
         </table>
+        </TableScroll>
         <p className="mt-2 text-sm">
           ȳ = ΣA·y ÷ ΣA = {n("modulus", t.totals.Ayc)} ÷ {n("area", t.totals.A)} = <strong>{n("length", t.totals.yBar)} {L}</strong> from the bottom edge.
         </p>

@@ -6,6 +6,7 @@ import { idParam } from "~/lib/route-params";
 import { projectSchedule } from "~/lib/schedule.server";
 import { formatNumber } from "~/lib/format";
 import { ReviewBadge } from "~/components/ReviewBadge";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Member schedule · ${data?.project.name ?? ""} · Sparwise` }];
@@ -40,6 +41,7 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
       {rows.length === 0 ? (
         <p className="text-sm">No options are saved in this project yet.</p>
       ) : (
+        <TableScroll>
         <table className="w-full border-collapse text-sm" data-testid="schedule">
           <thead>
             <tr className="border-b border-ink/40 text-left">
@@ -87,6 +89,7 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
             </tr>
           </tfoot>
         </table>
+        </TableScroll>
       )}
     </div>
   );

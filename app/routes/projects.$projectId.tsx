@@ -22,6 +22,7 @@ import { benchHref } from "~/lib/bench-state";
 import { idParam } from "~/lib/route-params";
 import { parseRationaliseQuery, rationaliseProject, RATIONALISE_CANDIDATES_PER_BRIEF } from "~/lib/rationalise.server";
 import { RationalisePanel } from "~/components/RationalisePanel";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `${data?.project.name ?? "Project"} · Sparwise` }];
@@ -172,6 +173,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
         {options.length === 0 ? (
           <p className="text-ink/70">No options saved yet. Save one from a sweep's results.</p>
         ) : (
+          <TableScroll>
           <table className="mt-2 w-full border-collapse bg-white text-sm">
             <thead>
               <tr className="border-b border-ink/30 text-left">
@@ -220,6 +222,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
               ))}
             </tbody>
           </table>
+          </TableScroll>
         )}
       </section>
 

@@ -3,6 +3,7 @@ import type { Route } from "./+types/projects";
 import { requirePermission } from "~/lib/auth.server";
 import { listProjects } from "~/lib/projects.server";
 import { can } from "~/lib/roles";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta() {
   return [{ title: "Projects · Sparwise" }];
@@ -37,6 +38,7 @@ export default function Projects({ loaderData }: Route.ComponentProps) {
       {projects.length === 0 ? (
         <p className="text-ink/70">No {archived ? "archived " : ""}projects yet.</p>
       ) : (
+        <TableScroll>
         <table className="w-full border-collapse bg-white text-sm">
           <thead>
             <tr className="border-b border-ink/30 text-left">
@@ -63,6 +65,7 @@ export default function Projects({ loaderData }: Route.ComponentProps) {
             ))}
           </tbody>
         </table>
+        </TableScroll>
       )}
     </div>
   );

@@ -9,6 +9,7 @@ import { readForm } from "~/lib/forms.server";
 import { can } from "~/lib/roles";
 import { parseStockCsv, STOCK_CSV_EXAMPLE, STOCK_CSV_MAX_BYTES, type StockCsvError, type StockRow } from "~/lib/stock-csv";
 import { deleteStockList, listStockLists, saveStockList } from "~/lib/stock-lists.server";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta() {
   return [{ title: "Stock lists · Sparwise" }];
@@ -75,6 +76,7 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
         file with any error is not kept.
       </p>
       {lists.length ? (
+        <TableScroll>
         <table className="w-full max-w-3xl border-collapse bg-white text-sm">
           <thead>
             <tr className="border-b border-ink/30 text-left">
@@ -105,6 +107,7 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
             ))}
           </tbody>
         </table>
+        </TableScroll>
       ) : (
         <p className="text-ink/70">No stock lists yet.</p>
       )}
@@ -150,6 +153,7 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
             {result?.errors && !result.lines && !result.errors.name ? <p role="alert" className="font-semibold text-red-800">{Object.values(result.errors).join("; ")}</p> : null}
             {result?.saved ? <p role="status" className="rounded-md border border-accent bg-teal-50 p-2 text-sm">Stock list saved.</p> : null}
             {result?.preview && !result.saved ? (
+              <TableScroll>
               <table className="mt-2 border-collapse text-sm" data-testid="csv-preview">
                 <caption className="text-left font-semibold">Preview ({result.preview.length} lines{intent === "preview" ? "; not yet kept" : ""})</caption>
                 <thead>
@@ -169,6 +173,7 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
                   ))}
                 </tbody>
               </table>
+              </TableScroll>
             ) : null}
           </div>
         </section>

@@ -16,6 +16,7 @@ import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 import { describeBreach, familyLabel, fieldLabel } from "~/lib/labels";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta() {
   return [{ title: "Recheck comparison · Sparwise" }];
@@ -74,6 +75,7 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
         {changes.length === 0 ? (
           <p className="text-ink/70">None: the recheck ran the same problem.</p>
         ) : (
+          <TableScroll>
           <table className="mt-2 w-full max-w-3xl border-collapse bg-white text-sm" data-testid="changes">
             <thead>
               <tr className="border-b border-ink/30 text-left">
@@ -92,6 +94,7 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
               ))}
             </tbody>
           </table>
+          </TableScroll>
         )}
       </section>
       {recheck.status !== "succeeded" ? (
@@ -129,6 +132,7 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
         {options.length === 0 ? (
           <p className="text-ink/70">No option was saved from the original sweep.</p>
         ) : (
+          <TableScroll>
           <table className="mt-2 w-full border-collapse bg-white text-sm" data-testid="option-verdicts">
             <thead>
               <tr className="border-b border-ink/30 text-left">
@@ -171,6 +175,7 @@ export default function Comparison({ loaderData }: Route.ComponentProps) {
               ))}
             </tbody>
           </table>
+          </TableScroll>
         )}
       </section>
     </div>

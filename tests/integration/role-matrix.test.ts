@@ -124,6 +124,12 @@ export const ROWS: Record<string, MatrixRow> = {
   "/options/:optionId/record": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
   "/options/:optionId/section.svg": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
   "/stock-lists": { get: members(200), post: permitted("editBrief", 400) },
+
+  // ---- Layout: unknown addresses (add rows here)
+  // inside the frame: a 404 for every member (drawn by the layout's error boundary); signed out → sign-in
+  "/*": { get: members(404) },
+  // under /api/: a JSON 404 for anyone, any method
+  "/api/*": { get: anyone(404), post: anyone(404), api: true },
 };
 
 const flat = flattenRoutes();
