@@ -2,8 +2,8 @@
 // catalogues is checked under the brief's basis by the engine's own evaluation (checks.ts), through
 // the kernel of the plate family it is shaped like, with its exact properties (root fillets,
 // rounded corners) in place of the plates' and, under EN 1993, the rolled rules where they differ
-// from welded ones (basis/en1993.ts: classification widths from the fillets, rolled shear area,
-// LTB curve b/c, no flange-to-web weld). A catalogue is a short list, so it is simply enumerated;
+// from welded ones (basis/en1993.ts: classification widths from the fillets or between the
+// corner radii, rolled shear areas, LTB curve b/c for rolled I, no flange-to-web weld). A catalogue is a short list, so it is simply enumerated;
 // the plate search (search.ts) is untouched and the two results are put side by side here.
 import { BASIS_MODULES, CHECK_UNITS, Scratch, attachDesign, checkClause, evaluateCandidate, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
 import type { RolledSection } from "./basis/core";
@@ -36,13 +36,25 @@ const KERNEL: Record<CatalogueShape, { family: Family; dims: (d: CatalogueSectio
 };
 
 /**
- * Shapes the EN 1993 basis checks as catalogue sections in this version: the rolled I and H and
- * the rolled channel, whose rolled rules member-checks.md and EN 1993-1-1 §6.2.6(3), Table 5.2 and
- * Table 6.5 give. Rolled tees, angles and hollow sections under EN 1993 are left out with a reason
- * (their classification and shear-area rules are not written here); the allowable-stress basis
- * checks every shape.
+ * Shapes the EN 1993 basis checks as catalogue sections: those whose engine family the basis
+ * defines checks for (member-checks.md §2: i, channel, tee, box), with the rolled rules of
+ * EN 1993-1-1 where they differ from welded ones (basis/en1993.ts): the rolled I and H, the
+ * rolled channel, the rolled tee (widths from the root fillet, §6.2.6(3)(c) shear area) and the
+ * rectangular hollow section (checked as the box: flat widths between the corner radii,
+ * §6.2.6(3)(f) shear area, its own torsion constant). Angles and circular hollow sections are
+ * left out with the reason (EN1993_REFUSALS); the allowable-stress basis checks every shape.
  */
-export const EN1993_CATALOGUE_SHAPES: readonly CatalogueShape[] = ["I", "channel"];
+export const EN1993_CATALOGUE_SHAPES: readonly CatalogueShape[] = ["I", "channel", "tee", "rhs"];
+
+/** Why the EN 1993 basis leaves a shape out (the basis defines no checks for it). */
+const EN1993_REFUSALS: Partial<Record<CatalogueShape, string>> = {
+  // member-checks.md §2: angle is "not covered by the EN 1993 basis" (a problem error for the plate family)
+  angle:
+    "angle: catalogue angles are not checked under the EN 1993 basis (the basis does not cover angles: they bend about inclined principal axes, which its checks do not treat); use the allowable-stress basis",
+  // member-checks.md defines no classification, shear area or LTB rule for a circular tube
+  // (EN 1993-1-1 Table 5.2 sheet 3 and §6.2.6(3)(g) would give them; the basis has not adopted them)
+  chs: "chs: catalogue circular hollow sections are not checked under the EN 1993 basis (the basis defines no classification or shear area for a circular tube); use the allowable-stress basis",
+};
 /**
  * Shapes the AISC 360 basis checks as catalogue sections: rolled I (W), channel and tee (WT), whose
  * rolled rules (Table B4.1b case 10, G2.1(a), h less the fillets, k = tf + r in J10) aisc360.ts
@@ -122,6 +134,8 @@ function prepare(section: CatalogueSection, density: number): Prepared {
   const rolled: RolledSection = {
     shape: section.shape,
     r: section.dims.r ?? 0,
+    ro: section.shape === "rhs" ? (section.dims.ro ?? 0) : 0,
+    J: properties.J,
     A: properties.area,
     Iz: properties.Iz,
     Iy: properties.Iy,
@@ -139,10 +153,7 @@ function prepare(section: CatalogueSection, density: number): Prepared {
 
 /** Why the problem's basis does not check this shape, or null when it does. */
 export function catalogueShapeRefusal(shape: CatalogueShape, problem: Pick<SearchProblem, "basis">): string | null {
-  if (problem.basis === "aisc360" && !AISC360_CATALOGUE_SHAPES.includes(shape))
-    return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the AISC 360 basis in this version (rolled I, channel and tee sections are); use the allowable-stress basis`;
-  if (problem.basis === "en1993" && !EN1993_CATALOGUE_SHAPES.includes(shape))
-    return `${shape}: catalogue ${shape === "rhs" || shape === "chs" ? "hollow sections" : `${shape}s`} are not checked under the EN 1993 basis in this version (rolled I, H and channel sections are); use the allowable-stress basis`;
+  if (problem.basis === "en1993" && !EN1993_CATALOGUE_SHAPES.includes(shape)) return EN1993_REFUSALS[shape] ?? `${shape}: not checked under the EN 1993 basis; use the allowable-stress basis`;
   return null;
 }
 

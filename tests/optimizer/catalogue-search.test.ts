@@ -138,12 +138,15 @@ describe("rolled rules under EN 1993 (where they differ from welded)", () => {
     expect(v.design!.shear!.Av).toBeCloseTo(v.properties.area - 2 * 80 * 11 + (6 + 13) * 11, 9);
   });
 
-  it("hollow, tee and angle catalogue sections are left out under EN 1993 with a reason, and checked under allowable stresses", () => {
+  it("circular hollow sections and angles are left out under EN 1993 with the reason (the basis defines no checks for them), and checked under allowable stresses", () => {
     const tube: CatalogueSection = { designation: "CHS 168.3x10", shape: "chs", dims: { d: 168.3, t: 10 } };
-    const en = parse({ ...EN1993, catalogues: [{ name: "tubes", sections: [tube] }] });
+    const angle: CatalogueSection = { designation: "L 100x100x10", shape: "angle", dims: { d: 100, b: 100, t: 10, r: 12 } };
+    const en = parse({ ...EN1993, catalogues: [{ name: "others", sections: [tube, angle] }] });
     const r = searchCatalogues(en);
-    expect(r.counts).toEqual({ sections: 1, evaluated: 0, feasible: 0 });
-    expect(r.skipped[0]!.reason).toMatch(/not checked under the EN 1993 basis/);
+    expect(r.counts).toEqual({ sections: 2, evaluated: 0, feasible: 0 });
+    expect(r.skipped.map((k) => k.designation)).toEqual(["CHS 168.3x10", "L 100x100x10"]);
+    expect(r.skipped[0]!.reason).toMatch(/circular hollow sections are not checked under the EN 1993 basis \(the basis defines no classification or shear area/);
+    expect(r.skipped[1]!.reason).toMatch(/angles are not checked under the EN 1993 basis \(the basis does not cover angles/);
     const al = parse({ ...ALLOWABLE, moment: { sagging: 20 }, catalogues: [{ name: "tubes", sections: [tube] }] });
     const v = catalogueCandidateChecks(tube, al);
     // σ = M·(D/2)/I with the tube's own I: 20 kN·m / 185.86 cm³
@@ -152,6 +155,100 @@ describe("rolled rules under EN 1993 (where they differ from welded)", () => {
     // τmax = V·Q/(I·b) at the neutral axis, b = 2t, Q = (D³ − Di³)/12
     const shear = v.checks.find((c) => c.name === "shear")!;
     expect(shear.demand).toBeCloseTo((80e3 * ((168.3 ** 3 - 148.3 ** 3) / 12)) / (v.properties.Iz * 20), 6);
+  });
+});
+
+/**
+ * Rolled tees and rectangular hollow sections under EN 1993 (basis/en1993.ts), hand calculations:
+ * - a tee cut from HEB 300 (d 150, b 300, tf 19, tw 11, r 27; EN 10365 dimensions, mem.): area
+ *   b·tf + (d − tf)·tw + 2·(1 − π/4)·r² = 7453.9 mm², half the printed HEB 300 area 149.1 cm²
+ *   (mem.); shear area A − b·tf + (tw + 2r)·tf/2 (EN 1993-1-1 §6.2.6(3)(c), rolled T, mem.);
+ *   flange outstand (b − tw − 2r)/2 and stem d − tf − r (Table 5.2 sheet 2, rolled: from the
+ *   root fillet; the stem as an outstand, member-checks.md §2 item 1); fy 345 MPa for tf 19 mm
+ *   (EN 10025-2 band 16 < t ≤ 40, mem.), ε = √(235/345) = 0.8253;
+ * - RHS 200 × 100 × 8 hot finished (EN 10210-2 radii ro = 1.5·t, ri = t, mem.): area
+ *   2·t·(b + d − 2t) − (4 − π)·(ro² − ri²) = 4475.3 mm², printed 44.8 cm² (mem.); shear area
+ *   A·h/(b + h) (§6.2.6(3)(f), mem.); flats b − 2·ro and d − 2·ro (Table 5.2 sheet 1); Mcr by the
+ *   three-factor formula (member-checks.md §2 item 3) with Cw = 0, zj = 0, zg = d/2 (load on top)
+ *   and the tube's own It.
+ */
+describe("rolled tees and rectangular hollow sections under EN 1993 (added checks)", () => {
+  const problem = parse({ ...EN1993, shear: 150 });
+  const tee: CatalogueSection = { designation: "T from HEB 300", shape: "tee", dims: { d: 150, b: 300, tf: 19, tw: 11, r: 27 } };
+  const rhs: CatalogueSection = { designation: "RHS 200x100x8", shape: "rhs", dims: { d: 200, b: 100, t: 8, ro: 12, ri: 8 } };
+
+  it("the tee's area is half the printed HEB 300 area; shear area A − b·tf + (tw + 2r)·tf/2 (§6.2.6(3)(c)), the welded tee tw·(d − tf/2)", () => {
+    const v = catalogueCandidateChecks(tee, problem);
+    const A = 300 * 19 + (150 - 19) * 11 + 2 * (1 - Math.PI / 4) * 27 ** 2;
+    expect(v.properties.area).toBeCloseTo(A, 6);
+    expect(Math.abs(A / 100 - 149.1 / 2)).toBeLessThan(0.05);
+    expect(v.design!.shear!.Av).toBeCloseTo(A - 300 * 19 + ((11 + 54) * 19) / 2, 9);
+    expect(v.design!.shear!.Av).toBeCloseTo(2371.4, 1);
+    expect(v.design!.shear!.VplRd).toBeCloseTo((v.design!.shear!.Av * 345) / Math.sqrt(3) / 1000, 9);
+    // the welded tee (a 13 mm stem, class 3: the 11 mm one is class 4 and not checked further)
+    expect(candidateChecks("tee", { d: 150, b: 300, tf: 19, tw: 13 }, problem).design!.shear!.Av).toBeCloseTo(13 * (150 - 19 / 2), 9);
+  });
+
+  it("the tee's widths from the root fillet: flange (b − tw − 2r)/2 = 117.5 (class 1), stem d − tf − r = 104, 104/11 = 9.45 between 10ε and 14ε: class 3; the welded twin's stem 131/11 = 11.9 is class 4", () => {
+    const v = catalogueCandidateChecks(tee, problem);
+    const eps = Math.sqrt(235 / 345);
+    const flange = v.design!.elements.find((e) => e.element === "top flange")!;
+    const stem = v.design!.elements.find((e) => e.element === "stem")!;
+    expect(flange.c).toBeCloseTo(117.5, 12);
+    expect(flange.class).toBe(1);
+    expect(stem.c).toBeCloseTo(104, 12);
+    expect(stem.limits[1]).toBeCloseTo(10 * eps, 12);
+    expect(stem.limits[2]).toBeCloseTo(14 * eps, 12);
+    expect(stem.class).toBe(3);
+    expect(v.design!.sectionClass).toBe(3);
+    // class 3: W = Wel,min = Iz ÷ the farther fibre (the stem's tip, below the centroid)
+    const W = Math.min(v.properties.Iz / (150 - v.properties.centroid.y), v.properties.Iz / v.properties.centroid.y);
+    expect(v.design!.W).toBeCloseTo(W, 6);
+    expect(v.design!.McRd).toBeCloseTo((W * 345) / 1e6, 9);
+    // no flange-to-web weld on a rolled tee
+    expect(v.design!.weld).toBeNull();
+    expect(candidateChecks("tee", { d: 150, b: 300, tf: 19, tw: 11 }, problem).design!.sectionClass).toBe(4);
+  });
+
+  it("RHS 200 × 100 × 8: area near the printed 44.8 cm², shear area A·h/(b + h) (§6.2.6(3)(f)), flats b − 2·ro and d − 2·ro, class 1", () => {
+    const v = catalogueCandidateChecks(rhs, problem);
+    const A = 2 * 8 * (100 + 200 - 16) - (4 - Math.PI) * (12 ** 2 - 8 ** 2);
+    expect(v.properties.area).toBeCloseTo(A, 6);
+    expect(Math.abs(A / 100 - 44.8)).toBeLessThanOrEqual(0.05);
+    expect(v.design!.shear!.Av).toBeCloseTo((A * 200) / 300, 9);
+    const flange = v.design!.elements.find((e) => e.element === "top flange")!;
+    const web = v.design!.elements.find((e) => e.element === "web")!;
+    expect(flange.c).toBeCloseTo(100 - 24, 12);
+    expect(web.c).toBeCloseTo(200 - 24, 12);
+    expect(flange.limits).toEqual([33 * Math.sqrt(235 / 355), 38 * Math.sqrt(235 / 355), 42 * Math.sqrt(235 / 355)]);
+    expect(v.design!.sectionClass).toBe(1);
+    expect(v.design!.W).toBeCloseTo(v.properties.Zz, 6);
+    expect(v.design!.weld).toBeNull();
+    expect(v.checks.map((c) => c.name)).not.toContain("weld");
+  });
+
+  it("RHS 200 × 100 × 8: Mcr from the tube's own It (rounded corners), Cw = 0, load on top (zg = d/2), curve d", () => {
+    const v = catalogueCandidateChecks(rhs, problem);
+    const E = 210000,
+      G = 81000,
+      L = 4000,
+      { C1, C2 } = { C1: 1.13, C2: 0.454 };
+    const Iy = v.properties.Iy,
+      J = v.properties.J;
+    const t = C2 * 100;
+    const Mcr = C1 * ((Math.PI ** 2 * E * Iy) / L ** 2) * (Math.sqrt((L ** 2 * G * J) / (Math.PI ** 2 * E * Iy) + t * t) - t);
+    const ltb = v.design!.ltb![0]!;
+    expect(ltb.Mcr).toBeCloseTo(Mcr / 1e6, 6);
+    expect(ltb).toMatchObject({ curve: "d", alphaLT: 0.76 });
+    // the sharp-cornered plates' J would give another Mcr: the tube's own It is the one used
+    const plates = candidateChecks("box", { d: 200, b: 100, tf: 8, tw: 8 }, problem).design!.ltb![0]!;
+    expect(Math.abs(plates.Mcr - ltb.Mcr)).toBeGreaterThan(1e-6);
+  });
+
+  it("a sweep under EN 1993 now checks catalogue tees and rectangular hollow sections (none left out)", () => {
+    const r = searchCatalogues(parse({ ...EN1993, catalogues: [{ name: "mixed", sections: [tee, rhs] }] }));
+    expect(r.counts.evaluated).toBe(2);
+    expect(r.skipped).toEqual([]);
   });
 });
 

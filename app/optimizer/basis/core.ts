@@ -60,10 +60,14 @@ export interface CheckContext {
  * from welded ones. null for every plate-search candidate.
  */
 export interface RolledSection {
-  /** the catalogue shape: "I" and "channel" have rolled rules under EN 1993 */
+  /** the catalogue shape: "I", "channel", "tee" and "rhs" have rolled rules under EN 1993 */
   shape: string;
   /** root radius, mm (0 when none) */
   r: number;
+  /** rhs: the outer corner radius, mm (0 for every other shape) */
+  ro: number;
+  /** the section's own torsion constant (an rhs: with its rounded corners), mm⁴ */
+  J: number;
   A: number;
   Iz: number;
   Iy: number;

@@ -194,10 +194,13 @@ export class En1993Scratch {
   curveC = false;
   /** rolled I with d/b ≤ 2: curve b */
   curveB = false;
-  /** root radius taken off the classified widths (rolled sections, Table 5.2), mm */
+  /** taken off each end of a classified width (Table 5.2), mm: a rolled section's root radius r;
+   *  an rhs the outer corner radius less the wall (ro − t), so c is the flat between the corners */
   rootR = 0;
   /** a rolled catalogue section (no flange-to-web weld, rolled shear area and LTB curve) */
   rolled = false;
+  /** the catalogue shape of a rolled section ("" for plate candidates) */
+  rolledShape = "";
   shearOn = false;
   Av = 0;
   Vpl = 0;
@@ -333,7 +336,9 @@ function classify(family: string, x: En1993Scratch, sag: boolean, hog: boolean, 
   if (family === "rectangle") return; // member-checks.md: class 1
   // Flanges: outstand c/tf ≤ 9ε, 10ε, 14ε (Table 5.2 sheet 2); box internal c/tf ≤ 33ε, 38ε, 42ε (sheet 1)
   if (family === "box") {
-    const c = x.bt - 2 * x.tw;
+    // a rolled rhs: the flat between the corner radii, b − 2·ro (Table 5.2 sheet 1 measures c on
+    // the flat; with ro = 1.5·t it is the b − 3·t often quoted for hot-finished tubes, mem.)
+    const c = x.bt - 2 * x.tw - 2 * x.rootR;
     if (sag) addElement(x, EL_TOP, PART_INTERNAL, 1, c, x.tft, 33 * e, 38 * e, 42 * e, NaN, NaN);
     if (hog) addElement(x, EL_BOTTOM, PART_INTERNAL, 2, c, x.tfb, 33 * e, 38 * e, 42 * e, NaN, NaN);
   } else {
@@ -348,8 +353,10 @@ function classify(family: string, x: En1993Scratch, sag: boolean, hog: boolean, 
   }
   if (family === "tee") {
     // member-checks.md: the stem always, as an outstand c = d − tf whatever its stress gradient
-    // (a conservative simplification, stated in the record)
-    addElement(x, EL_STEM, PART_STEM, (sag ? 1 : 0) | (hog ? 2 : 0), x.d - x.tft, x.tw, 9 * e, 10 * e, 14 * e, NaN, NaN);
+    // (a conservative simplification, stated in the record). A rolled tee measures it from the
+    // root fillet's end, c = d − tf − r, as Table 5.2 sheet 2 measures a rolled outstand (our
+    // reading for the stem, which the basis classifies as an outstand).
+    addElement(x, EL_STEM, PART_STEM, (sag ? 1 : 0) | (hog ? 2 : 0), x.d - x.tft - x.rootR, x.tw, 9 * e, 10 * e, 14 * e, NaN, NaN);
     return;
   }
   // Webs: c = clear depth between flanges, t = tw
@@ -395,7 +402,8 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   geometry(family, v, x);
   const rolled = s.rolled;
   x.rolled = rolled !== null;
-  x.rootR = rolled !== null ? rolled.r : 0;
+  x.rolledShape = rolled !== null ? rolled.shape : "";
+  x.rootR = rolled === null ? 0 : rolled.shape === "rhs" ? Math.max(0, rolled.ro - x.tw) : rolled.r;
   const fy = fyFor(e, x.tMax);
   x.fy = fy;
   x.eps = Math.sqrt(235 / fy);
@@ -445,7 +453,9 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   // (the three-factor formula, member-checks.md §2 item 3; mem.).
   if (e.restraint) {
     const Cw = x.st[ST_CW],
-      J = x.st[ST_J],
+      // an rhs takes its own It (rounded corners, hollow.ts); other rolled shapes keep the plates'
+      // J without the fillets (slightly conservative, stated in the record)
+      J = rolled !== null && rolled.shape === "rhs" ? rolled.J : x.st[ST_J],
       beta = x.st[ST_BETA],
       ysc = x.st[ST_SCY];
     const zg = loadHeight(e, d, ysc);
@@ -509,7 +519,13 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     const hw = x.hw,
       tw = x.tw;
     if (family === "rectangle") x.Av = x.bt * d;
+    // rolled T, load parallel to the web: Av = A − b·tf + (tw + 2r)·tf/2 (EN 1993-1-1 §6.2.6(3)(c)
+    // as corrected, mem.); the welded tee keeps tw·(d − tf/2), the same clause's welded line
+    else if (rolled !== null && family === "tee") x.Av = A - x.bt * x.tft + ((tw + 2 * rolled.r) * x.tft) / 2;
     else if (family === "tee") x.Av = tw * (d - x.tft / 2);
+    // rolled rectangular hollow section of uniform thickness, load parallel to the depth:
+    // Av = A·h/(b + h) (EN 1993-1-1 §6.2.6(3)(f), mem.)
+    else if (rolled !== null && family === "box") x.Av = (A * d) / (x.bt + d);
     // rolled I and H, load parallel to the web: Av = A − 2·b·tf + (tw + 2r)·tf, not less than
     // η·hw·tw (EN 1993-1-1 §6.2.6(3)(a)); rolled channel: A − 2·b·tf + (tw + r)·tf (§6.2.6(3)(b))
     else if (rolled !== null && family === "i") x.Av = Math.max(A - 2 * x.bt * x.tft + (tw + 2 * rolled.r) * x.tft, eta * hw * tw);
@@ -692,9 +708,13 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
   if (x.shearOn && x.buckling) notes.push("Shear buckling: non-rigid end posts; the flanges' contribution to the resistance ignored.");
   if (x.mvOn && x.nw > 0 && (x.cls === 3 || family === "mono-i"))
     notes.push("Bending and shear: the §6.2.8(5) expression for I-sections is used for this class 3 or mono-symmetric section, a stated simplification.");
-  if (x.rolled)
+  if (x.rolled && x.rolledShape === "rhs")
     notes.push(
-      `Rolled section: properties include the root fillets (r = ${x.rootR} mm); classification widths measured from the fillets (Table 5.2); rolled shear area (§6.2.6(3)); no flange-to-web weld; torsion and warping constants from the plates without the fillets (slightly conservative).`,
+      `Rolled rectangular hollow section: properties and torsion constant include the rounded corners; classification widths are the flats between the corner radii (b − 2·ro, d − 2·ro; Table 5.2); shear area A·h/(b + h) (§6.2.6(3)(f)); checked as the box otherwise (patch loading on both walls, the §6.2.8(5) expression for bending and shear); no welds.`,
+    );
+  else if (x.rolled)
+    notes.push(
+      `Rolled section: properties include the root fillets (r = ${x.rootR} mm); classification widths measured from the fillets (Table 5.2${family === "tee" ? "; the stem from the flange's fillet, c = d − tf − r" : ""}); rolled shear area (§6.2.6(3)); no flange-to-web weld; torsion and warping constants from the plates without the fillets (slightly conservative).`,
     );
   if (x.weldOn) notes.push("Flange-to-web welds: two fillet welds per junction (box: one per web per flange), simplified method, throat rounded up to a whole mm and at least 3 mm.");
   const ltb: LtbDesign[] = [];
