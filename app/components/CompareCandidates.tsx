@@ -3,6 +3,8 @@
 // from the engine in the browser (sectionStresses, candidateChecks): nothing re-derived here.
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { candidateChecks } from "~/optimizer/checks";
+import { catalogueCandidateChecks } from "~/optimizer/catalogue-search";
+import { rolledSectionOf } from "~/optimizer/catalogue";
 import { sectionStresses } from "~/optimizer/stress";
 import type { Family } from "~/optimizer/geometry";
 import type { SectionInput } from "~/optimizer/schema";
@@ -31,14 +33,16 @@ export function CompareCandidates({ candidates, problem, units, onRemove, action
       {candidates.map((c) => {
         const section = { family: c.family as Family, ...c.dimensions, density: problem.density } as SectionInput;
         const stress = sectionStresses(section, { Mz: M, V: problem.shear ?? 0 });
-        const verdict = candidateChecks(c.family as Family, c.dimensions, problem);
+        // a rolled section by the catalogue rules (its own properties, the rolled EN 1993 rules)
+        const rolled = rolledSectionOf(c);
+        const verdict = rolled ? catalogueCandidateChecks(rolled, problem) : candidateChecks(c.family as Family, c.dimensions, problem);
         const p = stress.properties;
         const h = Math.max(120, Math.round((220 * (c.dimensions.d ?? maxD)) / maxD));
         return (
           <article key={c.rank} className="space-y-2 rounded-lg border border-ink/15 bg-white p-3 text-sm">
             <header className="flex items-start justify-between gap-2">
               <h3 className="font-bold">
-                #{c.rank} {familyLabel(c.family)}
+                #{c.rank} {rolled ? `${rolled.designation} (rolled ${familyLabel(c.family).toLowerCase()})` : familyLabel(c.family)}
               </h3>
               {onRemove ? (
                 <button type="button" className="text-xs underline" onClick={() => onRemove(c.rank)}>

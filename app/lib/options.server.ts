@@ -11,7 +11,7 @@ import { notFound } from "~/lib/projects.server";
 import type { SessionUser } from "~/lib/auth.server";
 import { reviewRefusal, type ReviewTies } from "~/lib/roles";
 import { candidateChecks, type CandidateVerdict } from "~/optimizer/checks";
-import { SHAPE_FAMILY, type CatalogueSection, type CatalogueShape } from "~/optimizer/catalogue";
+import { SHAPE_FAMILY, rolledSectionOf, type CatalogueSection, type CatalogueShape } from "~/optimizer/catalogue";
 import { catalogueCandidateChecks } from "~/optimizer/catalogue-search";
 import type { Family } from "~/optimizer/geometry";
 import type { SearchProblem } from "~/optimizer/search-schema";
@@ -172,10 +172,9 @@ export function optionVerdict(option: Pick<OptionRecord, "candidate">, problem: 
   return candidateChecks(c.family, c.dimensions, problem);
 }
 
-/** A saved rolled candidate as the catalogue section it was (its dimensions carry the catalogue's names). */
+/** A saved rolled candidate as the catalogue section it was (catalogue.ts rolledSectionOf). */
 export function savedRolledSection(c: SavedCandidate): CatalogueSection | null {
-  if (c.source !== "rolled" || !c.shape) return null;
-  return { designation: c.designation ?? "rolled section", shape: c.shape, dims: c.dimensions };
+  return c.source === "rolled" && c.shape ? rolledSectionOf(c) : null;
 }
 
 function rolledFields(designation: string | null, catalogue: string | null, family: string, problem: unknown): Partial<SavedCandidate> {

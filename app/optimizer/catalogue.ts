@@ -187,3 +187,14 @@ export type CatalogueSection = z.output<typeof catalogueSectionSchema>;
 export function catalogueSectionProperties(s: Pick<CatalogueSection, "shape" | "dims">, density?: number): SectionProperties {
   return sectionProperties(catalogueSectionInput(s.shape, s.dims, density));
 }
+
+/**
+ * A stored rolled candidate or saved option as the catalogue section it is (its dimensions carry
+ * the catalogue's names; its shape as stored, else the one shape drawn as its family), or null
+ * for a welded one. Pages, records and rechecks all read rolled sections back through this.
+ */
+export function rolledSectionOf(c: { source?: string | null; designation?: string | null; family: string; dimensions: Record<string, number>; shape?: CatalogueShape | null }): CatalogueSection | null {
+  if (c.source !== "rolled") return null;
+  const shape = c.shape ?? (Object.keys(SHAPE_FAMILY) as CatalogueShape[]).find((k) => SHAPE_FAMILY[k] === c.family);
+  return shape ? { designation: c.designation ?? "rolled section", shape, dims: c.dimensions } : null;
+}

@@ -7,7 +7,8 @@ import { checkLabel, familyLabel } from "~/lib/labels";
 import { Link } from "react-router";
 import type { Route } from "./+types/options.$optionId.record";
 import { requirePermission } from "~/lib/auth.server";
-import { getOption, listReviews, savedRolledSection } from "~/lib/options.server";
+import { getOption, listReviews } from "~/lib/options.server";
+import { rolledSectionOf } from "~/optimizer/catalogue";
 import { buildRecord } from "~/lib/record";
 import { Caution } from "~/components/Caution";
 import { SectionDrawing } from "~/components/SectionDrawing";
@@ -38,7 +39,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
   const { option, reviews, team, printedAt, numbers } = loaderData;
   const units = option.units;
   const c = option.candidate;
-  const rolled = savedRolledSection(c);
+  const rolled = rolledSectionOf(c);
   const rec = buildRecord(c.family, c.dimensions, option.problem, rolled);
   // The EN 1993 part needs the engine's design block (absent under the allowable basis).
   const en = option.problem.basis === "en1993" ? (rec.verdict.design ?? null) : null;

@@ -138,7 +138,7 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
       {!feasible ? <p className="rounded-md border border-red-800 bg-red-50 p-3 text-sm">This section fails its own brief's checks (the engine may have changed since it was saved). Recheck it.</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
         <section aria-label="Candidate">
-          <CompareCandidates candidates={[{ rank: c.rank, family: c.family, dimensions: c.dimensions, massPerMetre: c.massPerMetre, utilisation: c.utilisation, governing: c.governing, onFront: false }]} problem={option.problem} units={option.units} />
+          <CompareCandidates candidates={[{ rank: c.rank, family: c.family, dimensions: c.dimensions, massPerMetre: c.massPerMetre, utilisation: c.utilisation, governing: c.governing, onFront: false, source: c.source, designation: c.designation, catalogue: c.catalogue }]} problem={option.problem} units={option.units} />
         </section>
         <section aria-labelledby="brief-h" className="space-y-2">
           <h2 id="brief-h" className="text-lg font-bold">
