@@ -126,6 +126,10 @@
 //   Shear, welds and J10 are not used to bound (they only make more points infeasible).
 // - Best mode also cuts each row, and each mono-i box, to the points no heavier than the
 //   incumbent (the objective is affine in each width) before bounding them.
+// - One bound function per kind of node serves both passes (best mode and the grid front, D):
+//   boundRow for a row ((6), the incumbent's cut in best mode, then (1)–(8), (E), (U) in
+//   rowStart), superBound for a mono-i node; every range bound on a row ((5), (8), (E2), (U2))
+//   skips its run of failing points through one bisection, skipOut.
 //
 // (D) The grid's front and the context points (front "grid", the default). One heap holds
 //   every family, so entries pop lightest first across families. An entry (a raw row, a row
@@ -198,6 +202,11 @@ const REL = 1e-9;
 const REKEY = 1e-3;
 /** mono-i super nodes spanning more bt values than this are split in two before expanding. */
 const SUPER_SPLIT = 16;
+/** the range bounds skipOut bisects on: (5), (8), (E2), (U2) */
+const OUT_SHEAR = 0,
+  OUT_RANGE = 1,
+  OUT_LTB_EN = 2,
+  OUT_LTB_US = 3;
 const KIND_READY = 0,
   KIND_RAW = 1,
   KIND_SUPER = 2,
@@ -598,51 +607,68 @@ class FamilySearch {
         return this.dead(k, kHi);
       }
       k = this.enZStart(k, kHi, cap);
-      if (k >= 0 && this.en.restraint) k = this.enLtbStart(k, kHi, cap);
+      if (k >= 0 && this.en.restraint) k = this.skipOut(OUT_LTB_EN, k, kHi, cap);
       // (5), (7) concern the allowable shear stress: not checked under EN 1993
       return k;
     }
     if (this.us) {
       k = this.enZStart(k, kHi, cap);
-      if (k >= 0 && this.us.restraint) k = this.usLtbStart(k, kHi, cap);
+      if (k >= 0 && this.us.restraint && this.fk.family === "i") k = this.skipOut(OUT_LTB_US, k, kHi, cap);
       return k;
     }
     if (ctx.hasShear && ctx.V > 0 && this.sym) {
-      if (!this.shearOk(k, cap)) {
-        this.cause = C_SHEAR;
-        if (k === kHi || !this.shearOk(kHi, cap)) return this.dead(k, kHi);
-        // monotone along the row, (5): bisect for the first passing index
-        let lo = k,
-          hi = kHi; // lo fails, hi passes
-        while (hi - lo > 1) {
-          const m = (lo + hi) >> 1;
-          if (this.shearOk(m, cap)) hi = m;
-          else lo = m;
-        }
-        this.t.ruledOut[C_SHEAR] += hi - k;
-        k = hi;
-      }
+      k = this.skipOut(OUT_SHEAR, k, kHi, cap);
+      if (k < 0) return -1;
     }
     if (ctx.hasShear && ctx.V > 0 && !this.webShearOk(k, kHi, cap)) {
       this.cause = C_SHEAR;
       return this.dead(k, kHi);
     }
-    if (!this.sym && !fk.unsymmetric) {
-      // (8): skip the run of points that the sub-range bound shows failing (bisection)
-      for (let round = 0; round < 64; round++) {
-        this.rangeFrom(k);
-        if (!this.rangeOut(k, cap)) break;
-        if (k === kHi || this.rangeOut(kHi, cap)) return this.dead(k, kHi);
-        let lo = k,
-          hi = kHi;
-        while (hi - lo > 1) {
-          const m = (lo + hi) >> 1;
-          if (this.rangeOut(m, cap)) lo = m;
-          else hi = m;
-        }
-        this.t.ruledOut[this.cause] += hi - k;
-        k = hi;
+    if (!this.sym && !fk.unsymmetric) k = this.skipOut(OUT_RANGE, k, kHi, cap);
+    return k;
+  }
+
+  /**
+   * The range bounds of a row, by `which`: true when no point of [k1, m] can reach utilisation
+   * ≤ cap (sets cause). Each is monotone in m for a fixed k1 (a wider range only loosens it), which
+   * is what skipOut's bisection needs. (5) is pointwise: the shear ratio at the neutral axis is
+   * monotone along the row, so a failing m after a failing k1 means all of [k1, m] fail.
+   */
+  private out(which: number, k1: number, m: number, cap: number): boolean {
+    switch (which) {
+      case OUT_SHEAR:
+        this.cause = C_SHEAR;
+        return !this.shearOk(m, cap);
+      case OUT_RANGE:
+        return this.rangeOut(m, cap); // rangeFrom(k1) was called by skipOut
+      case OUT_LTB_EN:
+        this.cause = C_LTB;
+        return this.ltbOutRow(k1, m, cap);
+      default:
+        this.cause = C_LTB;
+        return this.usLtbOutRow(k1, m, cap);
+    }
+  }
+
+  /**
+   * First index ≥ k (≤ kHi) that the range bound `which` does not exclude at cap, or −1: while
+   * the point k itself fails, bisect for the longest run [k, lo] shown failing as a whole and
+   * continue after it. Every range bound of a row ((5), (8), (E2), (U2)) goes through here.
+   */
+  private skipOut(which: number, k: number, kHi: number, cap: number): number {
+    for (let round = 0; round < 64; round++) {
+      if (which === OUT_RANGE) this.rangeFrom(k);
+      if (!this.out(which, k, k, cap)) return k;
+      if (k === kHi || this.out(which, k, kHi, cap)) return this.dead(k, kHi);
+      let lo = k,
+        hi = kHi; // [k, lo] out; [k, hi] not
+      while (hi - lo > 1) {
+        const m = (lo + hi) >> 1;
+        if (this.out(which, k, m, cap)) lo = m;
+        else hi = m;
       }
+      this.t.ruledOut[this.cause] += hi - k;
+      k = hi;
     }
     return k;
   }
@@ -659,7 +685,25 @@ class FamilySearch {
     fk.fill(v, this.plates);
     compositeKernel(this.plates, fk.nPlates, this.rk);
     this.rkZz = NaN;
+    // the plate holding ȳ(k) strictly inside, with the same total width b just above and below
+    // (found once per low end: rangeOut asks it for every m)
+    const p = this.plates,
+      n = fk.nPlates,
+      y1 = this.rk[K_CY];
+    this.rkBand = -1;
+    const b = plateWidthAt(p, n, y1, 1);
+    if (!(b > 0) || b !== plateWidthAt(p, n, y1, -1)) return;
+    this.rkB = b;
+    for (let i = 0; i < n; i++) {
+      const o = i * PLATE_STRIDE;
+      if (p[o + 3] < y1 && y1 < p[o + 3] + p[o + 1]) {
+        this.rkBand = i;
+        return;
+      }
+    }
   }
+  private rkBand = -1;
+  private rkB = 0;
 
   /**
    * (8) Sections with the centroid moving along the row (tee, channel-down, mono-i rows): true
@@ -698,28 +742,18 @@ class FamilySearch {
       this.cause = C_DEFL;
       return true;
     }
-    if (ctx.hasShear && ctx.V > 0) {
-      const y1 = rk[K_CY],
-        y2 = ko[K_CY];
-      const b = plateWidthAt(p, n, y1, 1);
-      if (b > 0 && b === plateWidthAt(p, n, y1, -1) && b === plateWidthAt(q, n, y2, 1) && b === plateWidthAt(q, n, y2, -1) && this.sameBand(p, q, n, y1, y2)) {
-        if (this.rkZz !== this.rkZz) this.rkZz = plateModulusAbout(p, n, plateNeutralAxis(p, n, rk[K_AREA], y1));
+    if (ctx.hasShear && ctx.V > 0 && this.rkBand >= 0) {
+      const y2 = ko[K_CY],
+        b = this.rkB,
+        o = this.rkBand * PLATE_STRIDE;
+      // ȳ(m) strictly inside the same plate, unchanged along the row, with the same width b
+      if (p[o] === q[o] && p[o + 1] === q[o + 1] && p[o + 3] === q[o + 3] && q[o + 3] < y2 && y2 < q[o + 3] + q[o + 1] && b === plateWidthAt(q, n, y2, 1) && b === plateWidthAt(q, n, y2, -1)) {
+        if (this.rkZz !== this.rkZz) this.rkZz = plateModulusAbout(p, n, plateNeutralAxis(p, n, rk[K_AREA], rk[K_CY]));
         if (ctx.V * this.rkZz > 2 * iz * b * ctx.aS * cap * lim) {
           this.cause = C_SHEAR;
           return true;
         }
       }
-    }
-    return false;
-  }
-
-  /** Both heights y1 (plates p) and y2 (plates q) lie strictly inside the same plate, which does not change along the row. */
-  private sameBand(p: Float64Array, q: Float64Array, n: number, y1: number, y2: number): boolean {
-    for (let i = 0; i < n; i++) {
-      const o = i * PLATE_STRIDE;
-      const bot = p[o + 3],
-        top = bot + p[o + 1];
-      if (bot < y1 && y1 < top && bot < y2 && y2 < top) return p[o] === q[o] && p[o + 1] === q[o + 1] && p[o + 3] === q[o + 3];
     }
     return false;
   }
@@ -791,26 +825,6 @@ class FamilySearch {
     return k;
   }
 
-  /** (U2) First index ≥ k (≤ kHi) not shown to fail LTB at cap, or −1 (bisection on the range bound, as (E2)). */
-  usLtbStart(k: number, kHi: number, cap: number): number {
-    if (this.fk.family !== "i") return k;
-    for (let round = 0; round < 64; round++) {
-      if (!this.usLtbOutRow(k, k, cap)) return k;
-      this.cause = C_LTB;
-      if (k === kHi || this.usLtbOutRow(k, kHi, cap)) return this.dead(k, kHi);
-      let lo = k,
-        hi = kHi;
-      while (hi - lo > 1) {
-        const m = (lo + hi) >> 1;
-        if (this.usLtbOutRow(k, m, cap)) lo = m;
-        else hi = m;
-      }
-      this.t.ruledOut[C_LTB] += hi - k;
-      k = hi;
-    }
-    return k;
-  }
-
   /**
    * (U2) True when no point of an i row's range [k1, k2] (b from W[k1] to W[k2]) can have its LTB
    * utilisation ≤ cap: M·γ > cap·ltbUpperI(properties at both ends), the upper bound on Mn over
@@ -847,25 +861,6 @@ class FamilySearch {
   }
   readonly usLo = new Float64Array(8);
   readonly usHi = new Float64Array(8);
-
-  /** (E2) First index ≥ k (≤ kHi) not shown to fail LTB at cap, or −1 (bisection on the range bound). */
-  enLtbStart(k: number, kHi: number, cap: number): number {
-    for (let round = 0; round < 64; round++) {
-      if (!this.ltbOutRow(k, k, cap)) return k;
-      this.cause = C_LTB;
-      if (k === kHi || this.ltbOutRow(k, kHi, cap)) return this.dead(k, kHi);
-      let lo = k,
-        hi = kHi; // [k, lo] out; [k, hi] not
-      while (hi - lo > 1) {
-        const m = (lo + hi) >> 1;
-        if (this.ltbOutRow(k, m, cap)) lo = m;
-        else hi = m;
-      }
-      this.t.ruledOut[C_LTB] += hi - k;
-      k = hi;
-    }
-    return k;
-  }
 
   /**
    * (E2) True when no point of the row's range [k1, k2] can have every LTB utilisation ≤ cap:
@@ -1114,6 +1109,26 @@ class FamilySearch {
 
   /** Pushes a ready row node at its first index not excluded at utilisation ≤ cap, if it can still matter. */
   pushReady(id: number, k: number, kHi: number, cap: number): void {
+    const k2 = this.boundRow(k, kHi, cap);
+    if (k2 < 0) return;
+    const key = this.objectiveAt(k2);
+    if (key <= this.limit()) this.push(key, id, k2, this.bHi, KIND_READY, this.bHi - k2 + 1);
+  }
+
+  /** the last index boundRow left in the row */
+  bHi = 0;
+
+  /**
+   * The one bound on a row's points [k, kHi] (every family but mono-i's super nodes, best mode and
+   * the grid front alike): the slenderness limits (6) at cap (at cap 1 the seed applied them),
+   * in best mode the incumbent's cut, then rowStart's (1)–(8), (E), (U). Returns the first index
+   * that can still reach utilisation ≤ cap, its row's last in bHi; −1 when none can.
+   */
+  boundRow(k: number, kHi: number, cap: number): number {
+    if (cap < 1) {
+      kHi = this.rowHi(k, kHi, cap);
+      if (kHi < 0) return -1;
+    }
     const lim = this.limit();
     if (lim < Infinity && k < kHi) {
       // best mode: points heavier than the incumbent can never be popped; the objective is affine
@@ -1121,16 +1136,14 @@ class FamilySearch {
       const o0 = this.objectiveAt(k),
         o1 = this.objectiveAt(kHi);
       if (o1 > lim) {
-        if (o0 > lim) return;
+        if (o0 > lim) return -1;
         const bMax = this.W[k] + ((lim - o0) * (this.W[kHi] - this.W[k])) / (o1 - o0);
         kHi = Math.min(kHi, firstAbove(this.W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
-        if (kHi < k) return;
+        if (kHi < k) return -1;
       }
     }
-    const k2 = this.rowStart(k, kHi, cap);
-    if (k2 < 0) return;
-    const key = this.objectiveAt(k2);
-    if (key <= this.limit()) this.push(key, id, k2, kHi, KIND_READY, kHi - k2 + 1);
+    this.bHi = kHi;
+    return this.rowStart(k, kHi, cap);
   }
 
   /** Seeds the family (counting its grid); every seed is pending until the search settles it. */
@@ -1234,21 +1247,10 @@ class FamilySearch {
     // new key in turn (the front only ever lowers it, so the key stays a lower bound), and waits
     // at the last one: the front may have fallen further by the time it pops again.
     if (kind === KIND_SUPER_RAW) {
-      if (cap < 1) {
-        const btLo = W[firstAbove(W, fk.secondMin(this.v))],
-          bbLo = W[firstAbove(W, fk.freeMin(this.v))];
-        let o = key;
-        for (let it = 0; it < 32; it++) {
-          const b = this.superRawKey(btLo, bbLo, cap);
-          if (!(b > o * (1 + REKEY))) break;
-          o = b;
-          cap = this.capAt(o, slot);
-        }
-        if (o > key) {
-          this.push(o, id, k, kHi, KIND_SUPER_RAW, n);
-          return;
-        }
-      }
+      // Straight to the node's full bound at this cap, without re-keying on the cheap seed key:
+      // that key is so loose that each node popped about five times as the front fell (the
+      // all-families fine-grid brief of the bench: 2.7 million pops for 512,000 nodes, 25 % of
+      // its time).
       this.pushSuper(id, 0, W.length - 1, cap);
       return;
     }
@@ -1303,11 +1305,9 @@ class FamilySearch {
       // (D): drop the points that cannot reach utilisation cap; re-queue at the next one that can
       let moved = false;
       for (let it = 0; it < 8; it++) {
-        const hi = this.rowHi(k, kHi, cap);
-        if (hi < 0) return;
-        const k2 = this.rowStart(k, hi, cap);
+        const k2 = this.boundRow(k, kHi, cap);
         if (k2 < 0) return;
-        kHi = hi;
+        kHi = this.bHi;
         if (k2 === k) break;
         k = k2;
         moved = true;
@@ -1492,18 +1492,18 @@ class FamilySearch {
    * A_f ≈ M/(σ·d) − A_web/6 read as a bound). Objective = that flange area at its cheapest
    * price plus the web.
    */
-  superRawKey(btLo: number, bbLo: number, cap = 1): number {
+  superRawKey(btLo: number, bbLo: number): number {
     const v = this.v,
       ctx = this.ctx;
     const d = v[0],
       tft = v[2],
       tfb = v[4],
       tw = v[5];
-    const req = this.baseIreq(d, cap);
+    const req = this.baseIreq(d, 1);
     let afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
     if (this.lim) {
       // (E1) likewise ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4 ≥ Zz
-      const zreq = this.enZreq(this.enFyMax(0, 0), cap);
+      const zreq = this.enZreq(this.enFyMax(0, 0), 1);
       afNeed = Math.max(afNeed, (2 * (zreq - (tw * d * d) / 4)) / d);
     }
     const at0 = btLo * tft,
