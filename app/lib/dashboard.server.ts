@@ -30,7 +30,8 @@ export async function dashboardData(user: SessionUser) {
       status: s.status as string,
       recheckOf: s.recheck_of as number | null,
       brief: (s.brief as string | null) ?? null,
-      percent: Number(s.progress_total) > 0 ? Math.round((100 * Number(s.progress_done)) / Number(s.progress_total)) : 0,
+      /** share of the grid's shapes settled; null before the search has counted its grid */
+      percent: Number(s.progress_total) > 0 ? Math.min(100, Math.floor((100 * Number(s.progress_done)) / Number(s.progress_total))) : null,
     })),
     reviews: (reviews as Record<string, unknown>[]).map((r) => ({ id: r.id as number, project: r.project as string, author: r.author as string | null })),
     queue: { queued: count("queued"), running: count("running") },

@@ -16,9 +16,16 @@ import { CHECK_NAMES, gridValues, type CheckName, type SearchProblem } from "./s
  */
 export const PROGRESS_UNIT = "shapes";
 
+/** What else a progress report can say: the families searched to the end and the candidates evaluated so far. */
+export interface ProgressDetail {
+  familiesDone: number;
+  familiesTotal: number;
+  evaluated: number;
+}
+
 export interface SearchOptions {
-  /** done, total in PROGRESS_UNIT; total stays fixed through one search. */
-  onProgress?: (done: number, total: number) => void;
+  /** done, total in PROGRESS_UNIT; total stays fixed through one search. The detail is optional to callers. */
+  onProgress?: (done: number, total: number, detail?: ProgressDetail) => void;
   /** Checked every few thousand evaluations; an aborted search throws the signal's reason (an AbortError DOMException by default). */
   signal?: AbortSignal;
   /**

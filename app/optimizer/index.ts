@@ -9,7 +9,7 @@ export { findInputViolation, type Violation } from "./validate";
 export * from "./stress";
 export * from "./search-schema";
 export { searchSections } from "./search";
-export { PROGRESS_UNIT, type SearchOptions, type SearchResult, type SearchCandidate, type SearchPoint } from "./grid";
+export { PROGRESS_UNIT, type ProgressDetail, type SearchOptions, type SearchResult, type SearchCandidate, type SearchPoint } from "./grid";
 export { bruteForceSearch } from "./brute-force";
 export { restraintStudy, MAX_STUDY_DIVISIONS, type RestraintStudyPoint, type RestraintStudyResult, type RestraintStudyOptions } from "./restraint-study";
 export { candidateChecks, recordLines, designBasis, CHECK_CLAUSES, CHECK_UNITS, type CheckResult, type CheckUnit, type CandidateVerdict, type DesignBasisModule, type RecordLine } from "./checks";

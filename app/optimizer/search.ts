@@ -1929,9 +1929,14 @@ export function searchWithKnown(input: SearchProblemInput, options: SearchOption
   for (const fs of fams) fs.seed();
   const report = () => {
     if (!options.onProgress) return;
-    let pending = 0;
-    for (const fs of fams) pending += fs.pending;
-    options.onProgress(t.grid - pending, t.grid);
+    let pending = 0,
+      familiesDone = 0;
+    for (const fs of fams) {
+      pending += fs.pending;
+      // a family with nothing pending has been searched to the end (seeded families count their grid)
+      if (fs.pending === 0) familiesDone++;
+    }
+    options.onProgress(t.grid - pending, t.grid, { familiesDone, familiesTotal: fams.length, evaluated: t.evaluated });
   };
   report();
   if (!gridMode) {

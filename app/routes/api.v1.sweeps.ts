@@ -3,7 +3,7 @@ import { readJson } from "~/lib/forms.server";
 import { db } from "~/lib/db.server";
 import { can } from "~/lib/roles";
 import { SWEEP_BODY_LIMIT, createSweepFromRequest } from "~/workers/sweep-api.server";
-import { queueHealth } from "~/workers/queue.server";
+import { progressCountsWords, queueHealth } from "~/workers/queue.server";
 
 // POST /api/v1/sweeps: { briefId } or { problem } (+ projectId, recheckOf); Idempotency-Key
 // header honoured per user. 202 with the sweep's id and URLs (200-series either way: a replay
@@ -27,7 +27,7 @@ export async function loader({ request }: { request: Request }) {
     .where({ team_id: user.teamId })
     .orderBy("id", "desc")
     .limit(50)
-    .select("id", "status", "project_id", "brief_id", "owner_id", "progress_done", "progress_total", "queued_at", "finished_at");
+    .select("id", "status", "project_id", "brief_id", "owner_id", "progress_done", "progress_total", "progress_unit", "queued_at", "finished_at");
   return Response.json({
     health: await queueHealth(user.teamId),
     items: rows.map((r) => ({
@@ -36,7 +36,7 @@ export async function loader({ request }: { request: Request }) {
       projectId: r.project_id,
       briefId: r.brief_id,
       ownerId: r.owner_id,
-      progress: { done: Number(r.progress_done), total: Number(r.progress_total) },
+      progress: { done: Number(r.progress_done), total: Number(r.progress_total), counts: progressCountsWords(r.progress_unit) },
       queuedAt: r.queued_at,
       finishedAt: r.finished_at,
       url: `/api/v1/sweeps/${r.id}`,

@@ -86,7 +86,7 @@ export default function Dashboard({ loaderData }: Route.ComponentProps) {
                   </a>{" "}
                   {s.brief ? `· ${s.brief} ` : ""}
                   {s.recheckOf ? `· recheck of sweep ${sweepNo(numbers, s.recheckOf)} ` : ""}· {s.status}
-                  {s.status === "running" ? ` (${s.percent}%)` : ""}
+                  {s.status === "running" ? (s.percent === null ? " (starting)" : ` (${s.percent}% of the grid's shapes settled)`) : ""}
                 </li>
               ))}
             </ul>

@@ -189,7 +189,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
 
       {running ? (
         <section className="space-y-2 rounded-lg border border-ink/15 bg-white p-4" aria-label="Progress">
-          <ProgressBar done={live.progress.done} total={live.progress.total} counts={live.progress.counts} elapsedMs={live.elapsedMs} etaMs={live.etaMs} status={live.status} />
+          <ProgressBar progress={live.progress} elapsedMs={live.elapsedMs} etaMs={live.etaMs} status={live.status} />
           {may.cancel ? (
             <Form method="post">
               <input type="hidden" name="intent" value="cancel" />

@@ -25,7 +25,7 @@ import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, t
 import { sendEmail } from "~/lib/email.server";
 import { appUrl } from "~/lib/app-url.server";
 import { gridCostProblem, timedOutReason } from "./sweep-budget";
-import type { ProgressUnit } from "./sweep-search.server";
+import type { ProgressUnit, SweepProgress } from "./sweep-search.server";
 import { notify } from "~/lib/notifications.server";
 import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
 import { designRow, type DesignRow } from "~/lib/design-summary";
@@ -353,12 +353,19 @@ function endColumns(trx: Knex | Knex.Transaction, status: SweepStatus, extra: Re
 
 // ───────────────────────────── while running ─────────────────────────────
 
+/** progress_families_done, progress_families_total, progress_evaluated (null where the search gave none) */
+function detailColumns(p: SweepProgress): [number | null, number | null, number | null] {
+  const d = p.detail;
+  const n = (x: number | undefined) => (x === undefined || !Number.isFinite(x) ? null : Math.max(0, Math.round(x)));
+  return [n(d?.familiesDone), n(d?.familiesTotal), n(d?.evaluated)];
+}
+
 /** Extends the lease and records progress; false when the lease is no longer this claim's. */
-export async function heartbeat(claim: Pick<Claim, "id" | "token">, progress?: { done: number; total: number; unit?: ProgressUnit }): Promise<boolean> {
+export async function heartbeat(claim: Pick<Claim, "id" | "token">, progress?: SweepProgress): Promise<boolean> {
   const { leaseMs } = queueSettings();
-  const sets = progress ? ", progress_done = ?, progress_total = ?, progress_unit = ?" : "";
+  const sets = progress ? ", progress_done = ?, progress_total = ?, progress_unit = ?, progress_families_done = ?, progress_families_total = ?, progress_evaluated = ?" : "";
   const params: (string | number | null)[] = [leaseMs * 1000];
-  if (progress) params.push(Math.max(0, Math.round(progress.done)), Math.max(0, Math.round(progress.total)), progress.unit ?? null);
+  if (progress) params.push(Math.max(0, Math.round(progress.done)), Math.max(0, Math.round(progress.total)), progress.unit ?? null, ...detailColumns(progress));
   params.push(claim.id, claim.token);
   const [res] = await db.raw(
     `UPDATE sweeps SET lease_expires_at = NOW(3) + INTERVAL ? MICROSECOND, heartbeat_at = NOW(3)${sets}
@@ -471,7 +478,7 @@ export async function finishSweep(
   claim: Claim,
   result: SweepResult & { advice?: WhatItWouldTake | null },
   budgetMs = 0,
-  progress?: { done: number; total: number; unit?: ProgressUnit },
+  progress?: SweepProgress,
 ): Promise<boolean> {
   // the brief's catalogue sections ranked after the plate candidates (catalogue-sweep.ts)
   const rows = withRolledRows(candidatesToStore(result, claim.problem.objective, claim.problem), result, claim.problem);
@@ -508,7 +515,16 @@ export async function finishSweep(
           // the search's last report (a short sweep ends before any heartbeat wrote one); a stopped
           // search did not finish its families, so its progress stays where it stopped
           ...(progress
-            ? { progress_done: timedOut ? progress.done : progress.total, progress_total: progress.total, progress_unit: progress.unit ?? null }
+            ? {
+                progress_done: timedOut ? progress.done : progress.total,
+                progress_total: progress.total,
+                progress_unit: progress.unit ?? null,
+                ...(() => {
+                  const [familiesDone, familiesTotal, evaluated] = detailColumns(progress);
+                  // a finished search has searched every family, whatever its last report said
+                  return { progress_families_done: timedOut ? familiesDone : familiesTotal, progress_families_total: familiesTotal, progress_evaluated: result.counts?.evaluated ?? evaluated };
+                })(),
+              }
             : timedOut
               ? {}
               : { progress_done: trx.raw("GREATEST(progress_total, 1)"), progress_total: trx.raw("GREATEST(progress_total, 1)") }),
@@ -621,8 +637,12 @@ export interface SweepView {
   ownerId: number;
   status: SweepStatus;
   cancelRequested: boolean;
-  /** done of total, and what they count, in words ("shapes settled …"); null before the search reports */
-  progress: { done: number; total: number; fraction: number; counts: string | null };
+  /**
+   * done of total, and what they count, in words ("shapes settled …"); null before the search
+   * reports. families: searched to the end, of how many; evaluated: candidates evaluated so far
+   * (both null until the search reports them).
+   */
+  progress: { done: number; total: number; fraction: number; counts: string | null; families: { done: number; total: number } | null; evaluated: number | null };
   /**
    * false when the sweep stopped at its time budget (timed_out): `best` is then the lightest
    * found so far, not proven lightest; true when the whole grid was searched; null before it ends.
@@ -652,9 +672,17 @@ export interface SweepView {
   advice: WhatItWouldTake | null;
 }
 
+const ETA_MIN_ELAPSED_MS = 1000;
+const ETA_MIN_FRACTION = 0.01;
+
 const PROGRESS_WORDS: Record<ProgressUnit, string> = {
   shapes: "shapes settled (evaluated, or proven unable to change the answer)",
 };
+
+/** What a stored progress_unit counts, in words; null for sweeps stored without one. */
+export function progressCountsWords(unit: unknown): string | null {
+  return PROGRESS_WORDS[unit as ProgressUnit] ?? null;
+}
 
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d ? new Date(String(d)).toISOString() : null);
 
@@ -669,7 +697,13 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     total = Number(row.progress_total);
   const fraction = WITH_RESULTS.has(row.status) ? 1 : total > 0 ? Math.min(1, done / total) : 0;
   const elapsedMs = row.elapsed_ms === null || row.elapsed_ms === undefined ? null : Number(row.elapsed_ms);
-  const etaMs = row.status === "running" && elapsedMs !== null && fraction > 0 && fraction < 1 ? Math.round((elapsedMs * (1 - fraction)) / fraction) : null;
+  // An estimate only once there is something to go by: a second of searching and 1 % of the grid
+  // settled (before that, the rate is mostly start-up and the guess would swing wildly).
+  const etaMs =
+    row.status === "running" && elapsedMs !== null && elapsedMs >= ETA_MIN_ELAPSED_MS && fraction >= ETA_MIN_FRACTION && fraction < 1
+      ? Math.round((elapsedMs * (1 - fraction)) / fraction)
+      : null;
+  const famTotal = row.progress_families_total === null || row.progress_families_total === undefined ? null : Number(row.progress_families_total);
   return {
     id: row.id,
     teamId: row.team_id,
@@ -679,7 +713,14 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     ownerId: row.owner_id,
     status: row.status,
     cancelRequested: !!row.cancel_requested,
-    progress: { done, total, fraction, counts: PROGRESS_WORDS[row.progress_unit as ProgressUnit] ?? null },
+    progress: {
+      done,
+      total,
+      fraction,
+      counts: progressCountsWords(row.progress_unit),
+      families: famTotal !== null && famTotal > 0 ? { done: Math.min(famTotal, Number(row.progress_families_done ?? 0)), total: famTotal } : null,
+      evaluated: row.progress_evaluated === null || row.progress_evaluated === undefined ? null : Number(row.progress_evaluated),
+    },
     provenLightest: row.status === "succeeded" ? true : row.status === "timed_out" ? false : null,
     counts: row.counts ? parseJson(row.counts) : null,
     best: row.best ? parseJson(row.best) : null,

@@ -30,7 +30,7 @@ import {
   releaseSweep,
   type Claim,
 } from "./queue.server";
-import { runSweepSearch, type ProgressUnit, type SweepSearchOptions } from "./sweep-search.server";
+import { runSweepSearch, type SweepProgress, type SweepSearchOptions } from "./sweep-search.server";
 import { sweepTimeBudgetMs } from "./sweep-budget";
 
 export type SearchFn = (problem: SearchProblem, opts: SweepSearchOptions) => Promise<SearchResult>;
@@ -53,12 +53,12 @@ const PROGRESS_WRITE_MS = 1_000;
 interface Running {
   claim: Claim;
   ac: AbortController;
-  progress: { done: number; total: number; unit?: ProgressUnit } | undefined;
+  progress: SweepProgress | undefined;
   lastBeat: number;
   /** local time of the last heartbeat the database confirmed */
   lastHeld: number;
   /** the progress last sent to the database */
-  written?: { done: number; total: number; unit?: ProgressUnit };
+  written?: SweepProgress;
   done: Promise<void>;
 }
 
@@ -222,7 +222,7 @@ export class SweepRunner {
         signal,
         concurrency: this.concurrency,
         deadline: Date.now() + budgetMs,
-        onProgress: (done, total, unit) => (r.progress = { done, total, unit }),
+        onProgress: (done, total, unit, detail) => (r.progress = { done, total, unit, detail }),
       });
       signal.throwIfAborted();
     } catch (e) {
@@ -303,7 +303,7 @@ export class SweepRunner {
         }
         // Beat when due, and sooner (at most once a second) when the progress moved, so the sweep
         // page's bar follows the search without a write on every control tick.
-        const moved = r.progress !== undefined && (r.progress.done !== r.written?.done || r.progress.total !== r.written?.total || r.progress.unit !== r.written?.unit);
+        const moved = r.progress !== undefined && (r.progress.done !== r.written?.done || r.progress.total !== r.written?.total || r.progress.unit !== r.written?.unit || r.progress.detail?.familiesDone !== r.written?.detail?.familiesDone);
         if (now - r.lastBeat >= heartbeatMs || (moved && now - r.lastBeat >= PROGRESS_WRITE_MS)) {
           r.lastBeat = now;
           r.written = r.progress;

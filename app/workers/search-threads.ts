@@ -17,7 +17,7 @@ import { isMainThread, parentPort, workerData } from "node:worker_threads";
 import * as Comlink from "comlink";
 import { FAMILY_KERNELS } from "../optimizer/family-kernel";
 import { Front, compareAcross, type RawCandidate } from "../optimizer/front";
-import type { SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "../optimizer/grid";
+import type { ProgressDetail, SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "../optimizer/grid";
 import { searchSections } from "../optimizer/search";
 import { axisCount, searchProblemSchema, type SearchProblemInput } from "../optimizer/search-schema";
 import { nodeEndpoint, spawnThread } from "./thread-spawn";
@@ -28,7 +28,7 @@ interface ThreadApi {
     problem: SearchProblemInput,
     range: [number, number],
     options: Pick<SearchOptions, "exhaustive" | "explore" | "front">,
-    onProgress?: (done: number, total: number) => void,
+    onProgress?: (done: number, total: number, detail?: ProgressDetail) => void,
     deadline?: number,
   ): SearchResult;
 }
@@ -39,7 +39,7 @@ if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)
       searchSections(problem, {
         ...options,
         depthIndexRange: range,
-        onProgress: onProgress ? (d, t) => void onProgress(d, t) : undefined,
+        onProgress: onProgress ? (d, t, detail) => void onProgress(d, t, detail) : undefined,
         // threads share the process's wall clock, so one deadline serves them all
         stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline,
       }),
@@ -57,8 +57,8 @@ export interface ThreadSearchOptions {
   explore?: number;
   /** as SearchOptions.front: "grid" (default) combines the parts' exact fronts into the grid's */
   front?: SearchOptions["front"];
-  /** shapes settled and the grid, summed over the threads (SearchOptions.onProgress) */
-  onProgress?: (done: number, total: number) => void;
+  /** shapes settled and the grid, summed over the threads; the detail once every thread gave one (SearchOptions.onProgress) */
+  onProgress?: SearchOptions["onProgress"];
   /** Date.now() after which every thread stops and returns what it has (SearchResult.stoppedEarly) */
   deadline?: number;
 }
@@ -133,12 +133,19 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
   const workers = Array.from({ length: n }, spawn);
   // Each thread reports shapes of its own grid part; the sum is the whole grid's only once every
   // part has counted its grid, so nothing is reported before then (the total never jumps).
-  const progress = new Array<[number, number]>(n).fill([0, -1]);
+  const progress = new Array<[number, number, ProgressDetail | undefined]>(n).fill([0, -1, undefined]);
   const report = () => {
     if (!options.onProgress || progress.some((p) => p[1] < 0)) return;
+    const details = progress.map((p) => p[2]);
+    // Each thread searches every family over its own depths: a family is searched once every
+    // thread has finished it, so the whole search has finished at least the fewest any thread has.
+    const detail = details.every((d) => d !== undefined)
+      ? { familiesDone: Math.min(...details.map((d) => d!.familiesDone)), familiesTotal: details[0]!.familiesTotal, evaluated: details.reduce((s, d) => s + d!.evaluated, 0) }
+      : undefined;
     options.onProgress(
       progress.reduce((s, p) => s + p[0], 0),
       progress.reduce((s, p) => s + p[1], 0),
+      detail,
     );
   };
   let onAbort: (() => void) | undefined;
@@ -153,8 +160,8 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
     const runs = workers.map((w, i) => {
       const api = Comlink.wrap<ThreadApi>(nodeEndpoint(w));
       const cb = options.onProgress
-        ? Comlink.proxy((d: number, t: number) => {
-            progress[i] = [d, t];
+        ? Comlink.proxy((d: number, t: number, detail?: ProgressDetail) => {
+            progress[i] = [d, t, detail];
             report();
           })
         : undefined;

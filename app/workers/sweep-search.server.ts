@@ -13,7 +13,7 @@
 // Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
 // so a runner at full concurrency does not oversubscribe the machine.
 import os from "node:os";
-import { PROGRESS_UNIT, lightestWeldedProblem, rawGridSize, searchSections, whatItWouldTakeSteps, withCatalogues, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
+import { PROGRESS_UNIT, lightestWeldedProblem, rawGridSize, searchSections, whatItWouldTakeSteps, withCatalogues, type ProgressDetail, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
 import { searchInThreads } from "./search-threads";
 import { runRestraintStudy } from "./study-thread";
 import { studyApplies, type SweepResult } from "~/lib/restraint-study";
@@ -30,7 +30,7 @@ export const SWEEP_SEARCH_OPTIONS = { front: "grid" } as const;
 
 export interface SweepSearchOptions {
   signal: AbortSignal;
-  onProgress: (done: number, total: number, unit?: ProgressUnit) => void;
+  onProgress: (done: number, total: number, unit?: ProgressUnit, detail?: ProgressDetail) => void;
   concurrency?: number;
   /** Date.now() at which the search stops and returns its best so far (SearchResult.stoppedEarly) */
   deadline?: number;
@@ -39,13 +39,22 @@ export interface SweepSearchOptions {
 /** What a sweep's progress counts (the engine's PROGRESS_UNIT; the page and the API say it in words). */
 export type ProgressUnit = typeof PROGRESS_UNIT;
 
+/** A running sweep's progress as the runner keeps it and the queue writes it. */
+export interface SweepProgress {
+  done: number;
+  total: number;
+  unit?: ProgressUnit;
+  /** families searched to the end and candidates evaluated, when the search reports them */
+  detail?: ProgressDetail;
+}
+
 export async function runSweepSearch(problem: SearchProblem, opts: SweepSearchOptions): Promise<AdvisedResult> {
   // Let pending timers (a cancel that arrived while the sweep waited for a slot) run first.
   await new Promise((r) => setImmediate(r));
   opts.signal.throwIfAborted();
   const deadline = opts.deadline;
   // the threads' shapes add up to the grid's, so the unit is the same either way
-  const onProgress = (d: number, t: number) => opts.onProgress(d, t, PROGRESS_UNIT);
+  const onProgress = (d: number, t: number, detail?: ProgressDetail) => opts.onProgress(d, t, PROGRESS_UNIT, detail);
   let result: SweepResult;
   const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
   if (rawGridSize(problem) <= IN_THREAD_MAX_GRID)

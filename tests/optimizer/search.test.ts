@@ -215,6 +215,26 @@ describe("progress and abort", () => {
     }
   });
 
+  it("says what it counts besides shapes: families searched to the end and candidates evaluated (issue 11, item 6)", () => {
+    for (const front of ["grid", "evaluated"] as const) {
+      const details: { familiesDone: number; familiesTotal: number; evaluated: number }[] = [];
+      const r = searchSections({ ...base, families: ["i", "mono-i", "tee"] }, { front, onProgress: (_d, _t, detail) => void (detail && details.push(detail)) });
+      expect(details.length).toBeGreaterThan(2);
+      for (const d of details) {
+        expect(d.familiesTotal).toBe(3);
+        expect(d.familiesDone).toBeGreaterThanOrEqual(0);
+        expect(d.familiesDone).toBeLessThanOrEqual(3);
+      }
+      for (let i = 1; i < details.length; i++) {
+        expect(details[i].familiesDone).toBeGreaterThanOrEqual(details[i - 1].familiesDone);
+        expect(details[i].evaluated).toBeGreaterThanOrEqual(details[i - 1].evaluated);
+      }
+      // the first report comes before any family is done; the last after all are, with the result's own count
+      expect(details[0].familiesDone).toBe(0);
+      expect(details.at(-1)).toEqual({ familiesDone: 3, familiesTotal: 3, evaluated: r.counts.evaluated });
+    }
+  });
+
   it("an aborted signal stops the search with an AbortError", () => {
     const ac = new AbortController();
     ac.abort();
