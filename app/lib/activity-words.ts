@@ -15,6 +15,7 @@ export const ACTIVITY_WORDS: Record<string, string> = {
   option_approved: "approved an option",
   option_returned: "returned an option",
   stock_list_saved: "saved a stock list",
+  stock_list_deleted: "deleted a stock list",
   material_added: "added a material",
   material_changed: "changed a material",
   material_deleted: "deleted a material",

@@ -67,9 +67,9 @@ export const saveOptionSchema = z.object({
 export const decisionSchema = z
   .object({
     decision: z.enum(["approved", "returned"], { error: 'decision must be "approved" or "returned"' }),
-    comment: z.string().trim().max(4000, "comment: at most 4000 characters").optional(),
+    comment: z.string().trim().max(4000, "Comment: at most 4000 characters").optional(),
   })
-  .refine((d) => d.decision === "approved" || (d.comment ?? "").length > 0, { path: ["comment"], message: "comment: say why the option is returned" });
+  .refine((d) => d.decision === "approved" || (d.comment ?? "").length > 0, { path: ["comment"], message: "Comment: say why you return the option; the engineer reads it" });
 
 export class WorkflowError extends Error {
   constructor(

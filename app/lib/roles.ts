@@ -32,6 +32,16 @@ export function can(role: Role, permission: Permission): boolean {
   return GRANTS[role]?.has(permission) ?? false;
 }
 
+/**
+ * A stock list is the team's shared supply: an engineer may upload one, but only an admin or the
+ * person who uploaded it may delete it (issue 11, item 8). A list whose uploader left (created_by
+ * cleared) is then the admins' alone.
+ */
+export function mayDeleteStockList(role: Role, userId: number, uploadedBy: number | null): boolean {
+  if (role === "admin") return true;
+  return can(role, "editBrief") && uploadedBy !== null && uploadedBy === userId;
+}
+
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);
 }

@@ -4,9 +4,14 @@ import { db } from "~/lib/db.server";
 import { logActivity } from "~/lib/activity.server";
 import { stockThicknesses, type StockRow } from "~/lib/stock-csv";
 import type { StockListChoice } from "~/components/BriefEditor";
+import { mayDeleteStockList, type Role } from "~/lib/roles";
 
-export async function listStockLists(teamId: number): Promise<(StockListChoice & { items: number; withPrices: boolean })[]> {
-  const lists = await db("stock_lists").where({ team_id: teamId }).orderBy("name").select("id", "name");
+export async function listStockLists(teamId: number): Promise<(StockListChoice & { items: number; withPrices: boolean; uploadedBy: number | null; uploadedByName: string | null })[]> {
+  const lists = await db("stock_lists as l")
+    .leftJoin("users as u", "u.id", "l.created_by")
+    .where({ "l.team_id": teamId })
+    .orderBy("l.name")
+    .select("l.id", "l.name", "l.created_by", "u.name as uploader");
   if (!lists.length) return [];
   const items = await db("stock_list_items").whereIn("stock_list_id", lists.map((l) => l.id)).select("stock_list_id", "thickness_mm", "price_per_kg");
   return lists.map((l) => {
@@ -21,6 +26,8 @@ export async function listStockLists(teamId: number): Promise<(StockListChoice &
       prices: [...prices].sort((a, b) => a[0] - b[0]).map(([thickness, pricePerKg]) => ({ thickness, pricePerKg })),
       items: mine.length,
       withPrices: mine.some((i) => i.price_per_kg != null),
+      uploadedBy: (l.created_by as number | null) ?? null,
+      uploadedByName: (l.uploader as string | null) ?? null,
     };
   });
 }
@@ -34,6 +41,17 @@ export async function saveStockList(teamId: number, userId: number, name: string
   });
 }
 
-export async function deleteStockList(teamId: number, id: number): Promise<boolean> {
-  return (await db("stock_lists").where({ id, team_id: teamId }).delete()) > 0;
+/**
+ * Deletes the team's stock list when this person may (mayDeleteStockList: an admin, or whoever
+ * uploaded it), checked and deleted in one transaction with the row locked, and logged.
+ */
+export async function deleteStockList(user: { teamId: number; id: number; role: Role }, id: number): Promise<"deleted" | "missing" | "refused"> {
+  return db.transaction(async (trx) => {
+    const row = await trx("stock_lists").where({ id, team_id: user.teamId }).forUpdate().first("id", "name", "created_by");
+    if (!row) return "missing";
+    if (!mayDeleteStockList(user.role, user.id, row.created_by ?? null)) return "refused";
+    await trx("stock_lists").where({ id }).delete();
+    await logActivity({ teamId: user.teamId, userId: user.id, action: "stock_list_deleted", subjectType: "stock_list", subjectId: id, detail: { name: row.name } }, trx);
+    return "deleted";
+  });
 }

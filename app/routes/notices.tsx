@@ -58,7 +58,15 @@ export default function Notices({ loaderData }: Route.ComponentProps) {
           </Form>
         )}
       </div>
-      <p className="text-sm text-ink/80">When a sweep you started ends, it is noted here (and e-mailed to you). The newest 100 are shown.</p>
+      <div className="max-w-3xl text-sm text-ink/80" data-testid="notices-about">
+        <p>Noted here for you, and each also e-mailed to you:</p>
+        <ul className="list-disc pl-5">
+          <li>a sweep you started has ended: finished, stopped at its time budget, failed or cancelled;</li>
+          <li>someone asks you to review an option;</li>
+          <li>an option you saved was approved or returned, with the reviewer's comment.</li>
+        </ul>
+        <p>The newest 100 are shown.</p>
+      </div>
       {notices.length === 0 ? (
         <p className="text-sm text-ink/70">No notices yet.</p>
       ) : (

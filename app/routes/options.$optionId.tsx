@@ -44,7 +44,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
-const requestSchema = z.object({ comment: z.string().trim().max(4000, "comment: at most 4000 characters").optional() });
+const requestSchema = z.object({ comment: z.string().trim().max(4000, "Note to the reviewer: at most 4000 characters").optional() });
 
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requirePermission(request, "read");
@@ -57,9 +57,10 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (intent === "requestReview") {
       await requirePermission(request, "requestReview");
       const p = requestSchema.safeParse({ comment: form.get("comment") || undefined });
-      if (!p.success) return data({ errors: { comment: p.error.issues[0].message } }, { status: 400 });
+      if (!p.success) return data({ intent, errors: { comment: p.error.issues[0].message } }, { status: 400 });
       const asked = await requestReview(user, id, p.data.comment, link);
       return {
+        intent,
         errors: null,
         done: asked
           ? "Review requested; the team's reviewers were e-mailed."
@@ -69,20 +70,27 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (intent === "decide") {
       await requirePermission(request, "review");
       const p = decisionSchema.safeParse({ decision: form.get("decision") ?? undefined, comment: form.get("comment") || undefined });
-      if (!p.success) return data({ errors: { [String(p.error.issues[0].path[0] ?? "form")]: p.error.issues[0].message } }, { status: 400 });
+      if (!p.success) return data({ intent, errors: { [String(p.error.issues[0].path[0] ?? "form")]: p.error.issues[0].message } }, { status: 400 });
       await decideReview(user, id, p.data.decision, p.data.comment, link);
-      return { errors: null, done: `Option ${p.data.decision}.` };
+      return { intent, errors: null, done: `Option ${p.data.decision}.` };
     }
   } catch (e) {
-    if (e instanceof WorkflowError) return data({ errors: { [e.field]: e.message } }, { status: e.status });
+    if (e instanceof WorkflowError) return data({ intent, errors: { [e.field]: e.message } }, { status: e.status });
     throw e;
   }
-  return data({ errors: { intent: `intent: unknown action "${intent.slice(0, 30)}"` } }, { status: 400 });
+  return data({ intent, errors: { intent: `intent: unknown action "${intent.slice(0, 30)}"` } }, { status: 400 });
 }
 
 export default function OptionPage({ loaderData, actionData }: Route.ComponentProps) {
   const { option, reviews, may, feasible, notes, reviewRefusal: refusal, numbers } = loaderData;
   const errors = (actionData?.errors ?? null) as Record<string, string> | null;
+  // Each form's errors sit beside its own fields and buttons (issue 11, item 8); only what belongs
+  // to neither form is said at the top.
+  const actedOn = actionData && "intent" in actionData ? actionData.intent : null;
+  const requestErrors = actedOn === "requestReview" ? errors : null;
+  const decideErrors = actedOn === "decide" ? errors : null;
+  const otherErrors = errors && !requestErrors && !decideErrors ? errors : null;
+  const done = actionData && "done" in actionData && actionData.done ? actionData.done : null;
   const c = option.candidate;
   return (
     <div className="space-y-6">
@@ -124,14 +132,9 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           ) : null}
         </div>
       </div>
-      {actionData && "done" in actionData && actionData.done ? (
-        <p role="status" className="rounded-md border border-accent bg-teal-50 px-3 py-2 text-sm">
-          {actionData.done}
-        </p>
-      ) : null}
-      {errors ? (
+      {otherErrors ? (
         <p role="alert" className="rounded-md border border-red-800 bg-red-50 px-3 py-2 text-sm font-semibold text-red-900">
-          {Object.values(errors).join("; ")}
+          {Object.values(otherErrors).join("; ")}
         </p>
       ) : null}
       <Caution problem={option.problem} />
@@ -166,14 +169,26 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
         ) : (
           <p className="text-sm text-ink/70">No review yet.</p>
         )}
+        {done ? (
+          <p role="status" className="rounded-md border border-accent bg-teal-50 px-3 py-2 text-sm">
+            {done}
+          </p>
+        ) : null}
         {may.request ? (
           <Form method="post" className="flex flex-wrap items-end gap-2 text-sm">
             <input type="hidden" name="intent" value="requestReview" />
             <label>
               <span className="block font-semibold">Note to the reviewer (optional)</span>
-              <input name="comment" maxLength={4000} className="w-80 rounded-md border border-ink/30 px-2 py-1" />
+              <input
+                name="comment"
+                maxLength={4000}
+                className="w-80 max-w-full rounded-md border border-ink/30 px-2 py-1"
+                aria-invalid={requestErrors?.comment ? true : undefined}
+                aria-describedby={requestErrors ? "request-error" : undefined}
+              />
             </label>
             <button className="rounded-md bg-accent px-3 py-1.5 font-semibold text-white">Request review</button>
+            <FieldErrors id="request-error" errors={requestErrors} />
           </Form>
         ) : null}
         {refusal ? <p className="rounded-md border border-ink/20 bg-paper p-3 text-sm">{refusal}</p> : null}
@@ -182,8 +197,16 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
             <input type="hidden" name="intent" value="decide" />
             <label className="block">
               <span className="block font-semibold">Comment (required to return)</span>
-              <textarea name="comment" rows={3} maxLength={4000} className="w-full max-w-xl rounded-md border border-ink/30 px-2 py-1" aria-invalid={errors?.comment ? true : undefined} />
+              <textarea
+                name="comment"
+                rows={3}
+                maxLength={4000}
+                className="w-full max-w-xl rounded-md border border-ink/30 px-2 py-1"
+                aria-invalid={decideErrors?.comment ? true : undefined}
+                aria-describedby={decideErrors ? "decide-error" : undefined}
+              />
             </label>
+            <FieldErrors id="decide-error" errors={decideErrors} />
             <div className="flex gap-2">
               <button name="decision" value="approved" className="rounded-md bg-accent px-3 py-1.5 font-semibold text-white">
                 Approve
@@ -196,5 +219,15 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
         ) : null}
       </section>
     </div>
+  );
+}
+
+/** A form's errors, written where its fields and buttons are (announced when they appear). */
+function FieldErrors({ id, errors }: { id: string; errors: Record<string, string> | null }) {
+  if (!errors) return null;
+  return (
+    <p id={id} role="alert" className="basis-full font-semibold text-red-800">
+      {Object.values(errors).join("; ")}
+    </p>
   );
 }

@@ -6,7 +6,7 @@ import { z } from "zod";
 import type { Route } from "./+types/stock-lists";
 import { requirePermission } from "~/lib/auth.server";
 import { readForm } from "~/lib/forms.server";
-import { can } from "~/lib/roles";
+import { can, mayDeleteStockList } from "~/lib/roles";
 import { parseStockCsv, STOCK_CSV_EXAMPLE, STOCK_CSV_MAX_BYTES, type StockCsvError, type StockRow } from "~/lib/stock-csv";
 import { deleteStockList, listStockLists, saveStockList } from "~/lib/stock-lists.server";
 import { TableScroll } from "~/components/DataTable";
@@ -17,7 +17,11 @@ export function meta() {
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
-  return { lists: await listStockLists(user.teamId), mayEdit: can(user.role, "editBrief") };
+  const lists = await listStockLists(user.teamId);
+  return {
+    lists: lists.map((l) => ({ ...l, mayDelete: mayDeleteStockList(user.role, user.id, l.uploadedBy) })),
+    mayEdit: can(user.role, "editBrief"),
+  };
 }
 
 // Room for the multipart envelope and the name around a file at the limit.
@@ -25,7 +29,7 @@ const FORM_LIMIT = STOCK_CSV_MAX_BYTES + 16 * 1024;
 const nameSchema = z.string({ error: "name is required" }).trim().min(1, "name is required").max(120, "name: at most 120 characters");
 
 /** `errors` is { field: message } like every action; `lines` keeps the CSV's line-numbered list for the page. */
-type ActionResult = { errors: Record<string, string> | null; lines?: StockCsvError[]; preview?: StockRow[]; saved?: number };
+type ActionResult = { errors: Record<string, string> | null; lines?: StockCsvError[]; preview?: StockRow[]; saved?: number; deleted?: boolean };
 
 function csvFailure(lines: StockCsvError[], status: number) {
   const text = lines.map((e) => (e.line ? `line ${e.line}: ${e.message}` : e.message)).join("; ");
@@ -47,8 +51,11 @@ export async function action({ request }: Route.ActionArgs) {
   const intent = String(form.get("intent") ?? "");
   if (intent === "delete") {
     const id = Number(form.get("id"));
-    if (!Number.isSafeInteger(id) || !(await deleteStockList(user.teamId, id))) return data<ActionResult>({ errors: { id: "id: no such stock list in your team" } }, { status: 404 });
-    return { errors: null } satisfies ActionResult;
+    const done = Number.isSafeInteger(id) && id > 0 ? await deleteStockList(user, id) : "missing";
+    if (done === "missing") return data<ActionResult>({ errors: { id: "Stock list: no such stock list in your team" } }, { status: 404 });
+    if (done === "refused")
+      return data<ActionResult>({ errors: { id: "Stock list: only an admin or the person who uploaded it may delete it; it is the team's shared list" } }, { status: 403 });
+    return { errors: null, deleted: true } satisfies ActionResult;
   }
   if (intent !== "preview" && intent !== "save") return data<ActionResult>({ errors: { intent: 'intent must be "preview" or "save"' } }, { status: 400 });
   const file = form.get("file");
@@ -75,6 +82,12 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
         The plate thicknesses (mm) your fabricator can supply, optionally with widths (mm) and a price per kg. A brief can fill its thickness list from one. Files up to {STOCK_CSV_MAX_BYTES / 1024 / 1024} MB; a
         file with any error is not kept.
       </p>
+      {result?.errors?.id ? (
+        <p role="alert" className="font-semibold text-red-800">
+          {result.errors.id}
+        </p>
+      ) : null}
+      {result?.deleted ? <p role="status" className="rounded-md border border-accent bg-teal-50 p-2 text-sm">Stock list deleted.</p> : null}
       {lists.length ? (
         <TableScroll>
         <table className="w-full max-w-3xl border-collapse bg-white text-sm">
@@ -84,6 +97,7 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
               <th className="p-2">Thicknesses (mm)</th>
               <th className="p-2 text-right">Lines</th>
               <th className="p-2">Prices</th>
+              <th className="p-2">Uploaded by</th>
               {mayEdit ? <th className="p-2" /> : null}
             </tr>
           </thead>
@@ -94,13 +108,20 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
                 <td className="p-2 tabular-nums">{l.thicknesses.join(", ")}</td>
                 <td className="p-2 text-right tabular-nums">{l.items}</td>
                 <td className="p-2">{l.withPrices ? "yes" : "no"}</td>
+                <td className="p-2">{l.uploadedByName ?? "—"}</td>
                 {mayEdit ? (
                   <td className="p-2">
-                    <Form method="post">
-                      <input type="hidden" name="intent" value="delete" />
-                      <input type="hidden" name="id" value={l.id} />
-                      <button className="text-xs text-red-800 underline">Delete</button>
-                    </Form>
+                    {l.mayDelete ? (
+                      <Form method="post">
+                        <input type="hidden" name="intent" value="delete" />
+                        <input type="hidden" name="id" value={l.id} />
+                        <button className="text-xs text-red-800 underline" aria-label={`Delete ${l.name}`}>
+                          Delete
+                        </button>
+                      </Form>
+                    ) : (
+                      <span className="text-xs text-ink/60">admin or uploader deletes</span>
+                    )}
                   </td>
                 ) : null}
               </tr>
@@ -150,7 +171,7 @@ export default function StockLists({ loaderData, actionData }: Route.ComponentPr
                 </ul>
               </div>
             ) : null}
-            {result?.errors && !result.lines && !result.errors.name ? <p role="alert" className="font-semibold text-red-800">{Object.values(result.errors).join("; ")}</p> : null}
+            {result?.errors && !result.lines && !result.errors.name && !result.errors.id ? <p role="alert" className="font-semibold text-red-800">{Object.values(result.errors).join("; ")}</p> : null}
             {result?.saved ? <p role="status" className="rounded-md border border-accent bg-teal-50 p-2 text-sm">Stock list saved.</p> : null}
             {result?.preview && !result.saved ? (
               <TableScroll>
