@@ -120,5 +120,7 @@ test("the team's stock list: no delete for an engineer who did not upload it (it
   await expect(row.getByRole("button", { name: /Delete/ }).count()).resolves.toBe(0);
   await expect(row.textContent()).resolves.toContain("admin or uploader deletes");
   const admin = await signIn("admin@tallowfield.example", "/stock-lists");
-  await expect(admin.locator("tr").filter({ hasText: "Tallowfield plate stock 2026" }).getByRole("button", { name: /Delete/ }).count()).resolves.toBe(1);
+  const adminRow = admin.locator("tr").filter({ hasText: "Tallowfield plate stock 2026" });
+  await adminRow.waitFor();
+  await expect(adminRow.getByRole("button", { name: /Delete/ }).count()).resolves.toBe(1);
 });
