@@ -8,6 +8,7 @@
 // as sections, not cut), are left out and counted in `skipped`.
 // Prices from stock lists are not applied yet.
 import Papa from "papaparse";
+import { plainNumbers } from "~/lib/plain-numbers";
 import { familyPlates, type Family } from "~/optimizer/geometry";
 
 export interface CuttingInput {
@@ -77,5 +78,5 @@ export function cuttingList(rows: CuttingInput[]): { groups: ThicknessGroup[]; t
 export const CUTTING_CSV_FIELDS = ["thickness_mm", "width_mm", "length_m", "count", "mass_kg"] as const;
 
 export function cuttingListCsv(list: ReturnType<typeof cuttingList>): string {
-  return Papa.unparse({ fields: [...CUTTING_CSV_FIELDS], data: list.groups.flatMap((g) => g.plates.map((p) => [p.thickness, p.width, p.lengthM, p.count, p.mass])) }) + "\n";
+  return Papa.unparse({ fields: [...CUTTING_CSV_FIELDS], data: plainNumbers(list.groups.flatMap((g) => g.plates.map((p) => [p.thickness, p.width, p.lengthM, p.count, p.mass]))) }) + "\n";
 }

@@ -8,6 +8,7 @@
 // (issue 13) is named by its designation, checked by the catalogue rules (no flange-to-web weld,
 // so no throat) and marked rolled, which keeps it off the plate cutting list.
 import Papa from "papaparse";
+import { plainNumbers } from "~/lib/plain-numbers";
 import { db, parseJson } from "~/lib/db.server";
 import { familyLabel } from "~/lib/labels";
 import { optionVerdict, type ReviewState, type SavedCandidate } from "~/lib/options.server";
@@ -83,7 +84,7 @@ export function scheduleCsv(rows: ScheduleRow[]): string {
   return (
     Papa.unparse({
       fields: [...SCHEDULE_CSV_FIELDS],
-      data: rows.map((r) => [r.optionId, r.mark, r.section, r.massPerMetre, blank(r.lengthM), blank(r.count), blank(r.totalMass), blank(r.weldThroat), r.reviewState]),
+      data: plainNumbers(rows.map((r) => [r.optionId, r.mark, r.section, r.massPerMetre, blank(r.lengthM), blank(r.count), blank(r.totalMass), blank(r.weldThroat), r.reviewState])),
     }) + "\n"
   );
 }

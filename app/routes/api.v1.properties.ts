@@ -1,21 +1,13 @@
 // POST /api/v1/properties: a SectionInput in, every section property out (engine contract).
 // `units: "us"` means the lengths sent are inches and the properties come back in in-based
-// units; the response's `units` block says which unit each quantity is in.
+// units; the response's `units` block says which unit each field is in (api-properties.ts).
 import { requireApiUser } from "~/lib/auth.server";
 import { API_ENGINE_COST } from "~/lib/api-rate-limit.server";
 import { DEFAULT_JSON_LIMIT, readJson } from "~/lib/forms.server";
 import { describeFieldError, type FieldError } from "~/lib/bench-state";
-import { PROPERTY_QUANTITIES, STABILITY_QUANTITIES, UNITS, type Quantity, type UnitSystem } from "~/optimizer/units";
+import type { UnitSystem } from "~/optimizer/units";
+import { propertiesAnswer } from "~/lib/api-properties";
 import { runOnEngineThread } from "~/workers/engine-thread.server";
-
-/** Which unit each quantity of the answer is in, so an API client never guesses. */
-function unitsBlock(system: UnitSystem) {
-  const all = { ...PROPERTY_QUANTITIES, ...STABILITY_QUANTITIES };
-  const used = new Set<Quantity>([...Object.values(all), "density"]);
-  const quantities = Object.fromEntries([...used].map((q) => [q, UNITS[q][system]]));
-  const fields = Object.fromEntries(Object.entries(all).map(([k, q]) => [k, UNITS[q][system]]));
-  return { system, quantities, fields };
-}
 
 /** 400 with every issue (path, field, message) and a one-line summary that names the field. */
 function invalid(issues: FieldError[]): Response {
@@ -44,5 +36,5 @@ export async function action({ request }: { request: Request }) {
   // Checking and integrating a polygon section can take tens of milliseconds: off the event loop.
   const answer = await runOnEngineThread("sectionProperties", input, units);
   if (!answer.ok) return invalid(answer.errors);
-  return Response.json({ units: unitsBlock(units), properties: answer.properties });
+  return propertiesAnswer(answer.properties, units);
 }

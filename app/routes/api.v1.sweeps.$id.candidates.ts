@@ -1,4 +1,5 @@
 import { requireApiUser } from "~/lib/auth.server";
+import { plainJson } from "~/lib/plain-numbers";
 import { fieldErrorsFrom } from "~/lib/forms.server";
 import { candidatesQuerySchema } from "~/workers/queue.server";
 import { candidatesPage } from "~/lib/sweep-page.server";
@@ -17,5 +18,5 @@ export async function loader({ request, params }: { request: Request; params: { 
     return Response.json({ error: Object.values(errors)[0], errors }, { status: 400 });
   }
   const page = await candidatesPage(sweep, parsed.data);
-  return Response.json({ sweepId: sweep.id, status: sweep.status, provenLightest: sweep.provenLightest, ...page });
+  return plainJson({ sweepId: sweep.id, status: sweep.status, provenLightest: sweep.provenLightest, ...page });
 }

@@ -1,4 +1,5 @@
 import { requireApiUser } from "~/lib/auth.server";
+import { plainJson } from "~/lib/plain-numbers";
 import { requireTeamSweep, sweepIdParam } from "~/workers/sweep-api.server";
 import { cautionText } from "~/lib/caution";
 
@@ -8,7 +9,7 @@ import { cautionText } from "~/lib/caution";
 export async function loader({ request, params }: { request: Request; params: { id?: string } }) {
   const user = await requireApiUser(request, "read");
   const sweep = await requireTeamSweep(sweepIdParam(params.id), user);
-  return Response.json(
+  return plainJson(
     { ...sweep, url: `/api/v1/sweeps/${sweep.id}`, candidatesUrl: `/api/v1/sweeps/${sweep.id}/candidates`, page: `/sweeps/${sweep.id}`, caution: cautionText(sweep.problem) },
     { headers: { "Cache-Control": "no-store" } },
   );

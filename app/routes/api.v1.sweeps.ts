@@ -1,4 +1,5 @@
 import { requireApiUser } from "~/lib/auth.server";
+import { plainJson } from "~/lib/plain-numbers";
 import { readJson } from "~/lib/forms.server";
 import { db } from "~/lib/db.server";
 import { can } from "~/lib/roles";
@@ -6,8 +7,9 @@ import { SWEEP_BODY_LIMIT, createSweepFromRequest } from "~/workers/sweep-api.se
 import { progressCountsWords, queueHealth } from "~/workers/queue.server";
 
 // POST /api/v1/sweeps: { briefId } or { problem } (+ projectId, recheckOf); Idempotency-Key
-// header honoured per user. 202 with the sweep's id and URLs (200-series either way: a replay
-// of the same key answers 202 with created: false).
+// header honoured per user. 202 with the sweep's id and URLs; a replay of the same key answers
+// as the first request did (202, the same id) with created: false and the sweep's status now
+// ("succeeded" once it has run), so a client that lost the first answer learns where it stands.
 export async function action({ request }: { request: Request }) {
   const user = await requireApiUser(request);
   // Roles that may run no sweep at all are refused before the body is read; which of the two
@@ -15,9 +17,9 @@ export async function action({ request }: { request: Request }) {
   if (!can(user.role, "runSweep") && !can(user.role, "recheck"))
     return Response.json({ error: `role ${user.role} may not run sweeps` }, { status: 403 });
   const body = await readJson(request, SWEEP_BODY_LIMIT);
-  const { id, created } = await createSweepFromRequest(user, body, request.headers.get("idempotency-key"));
+  const { id, created, status } = await createSweepFromRequest(user, body, request.headers.get("idempotency-key"));
   const url = `/api/v1/sweeps/${id}`;
-  return Response.json({ id, created, status: "queued", url, page: `/sweeps/${id}` }, { status: 202, headers: { Location: url } });
+  return Response.json({ id, created, status, url, page: `/sweeps/${id}` }, { status: 202, headers: { Location: url } });
 }
 
 // GET /api/v1/sweeps: the team's latest sweeps and the queue's health (for dashboards and scripts).
@@ -28,7 +30,7 @@ export async function loader({ request }: { request: Request }) {
     .orderBy("id", "desc")
     .limit(50)
     .select("id", "status", "project_id", "brief_id", "owner_id", "progress_done", "progress_total", "progress_unit", "queued_at", "finished_at");
-  return Response.json({
+  return plainJson({
     health: await queueHealth(user.teamId),
     items: rows.map((r) => ({
       id: r.id,

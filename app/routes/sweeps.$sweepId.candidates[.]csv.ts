@@ -6,6 +6,7 @@ import { notFound } from "~/lib/projects.server";
 import { sweepCandidates } from "~/lib/sweep-page.server";
 import { getTeamSweep } from "~/workers/queue.server";
 import { idParam } from "~/lib/route-params";
+import { plainNumbers } from "~/lib/plain-numbers";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
@@ -22,7 +23,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const cat = sweep.catalogueResult != null;
   const csv = Papa.unparse({
     fields: ["rank", "family", ...(cat ? ["source", "designation", "catalogue"] : []), ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front", ...designFields],
-    data: rows.map((r) => [
+    // plain numbers: no float noise (13.624999999999998) in a spreadsheet's cells
+    data: plainNumbers(rows.map((r) => [
       r.rank,
       r.family,
       ...(cat ? [r.source === "rolled" ? "rolled" : "welded", r.designation ?? "", r.catalogue ?? ""] : []),
@@ -34,7 +36,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       ...(en
         ? [r.design?.sectionClass ?? "", blank(r.design?.Mcr), blank(r.design?.chiLT), blank(r.design?.McRd), blank(r.design?.MbRd), blank(r.design?.VRd), blank(r.design?.weldThroat), r.design?.governingClause ?? ""]
         : ["allowable stresses (stresses only: no stability checks)"]),
-    ]),
+    ])),
   });
   return new Response(csv + "\n", {
     headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="sweep-${sweep.id}-candidates.csv"`, "Cache-Control": "no-store" },

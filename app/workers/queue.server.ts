@@ -92,7 +92,7 @@ export const idempotencyKeySchema = z
  * maxQueuedPerUser sweeps waiting. The owner's user row is locked for the check-and-insert, so
  * two simultaneous requests cannot both slip under the limit or both insert one key.
  */
-export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; created: boolean }> {
+export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; created: boolean; status: SweepStatus }> {
   const parsed = searchProblemSchema.safeParse(input.problem);
   if (!parsed.success) {
     const errors = Object.fromEntries(Object.entries(fieldErrorsFrom(parsed.error)).map(([k, v]) => [`problem.${k}`, v]));
@@ -111,7 +111,7 @@ export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; c
   const result = await db.transaction(async (trx) => {
     await trx("users").where({ id: input.ownerId }).forUpdate().first("id");
     if (key !== null) {
-      const prior = await trx("sweeps").where({ owner_id: input.ownerId, idempotency_key: key }).first("id", "problem", "brief_id", "project_id", "recheck_of");
+      const prior = await trx("sweeps").where({ owner_id: input.ownerId, idempotency_key: key }).first("id", "status", "problem", "brief_id", "project_id", "recheck_of");
       if (prior) {
         const same =
           JSON.stringify(parseJson(prior.problem)) === problemJson &&
@@ -119,7 +119,8 @@ export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; c
           (prior.project_id ?? null) === (input.projectId ?? null) &&
           (prior.recheck_of ?? null) === (input.recheckOf ?? null);
         if (!same) throw jsonError(409, `Idempotency-Key "${key}" was already used for sweep ${prior.id} with a different request`);
-        return { id: Number(prior.id), created: false };
+        // a replay answers with the sweep as it is now (it may have run since the first request)
+        return { id: Number(prior.id), created: false, status: prior.status as SweepStatus };
       }
     }
     const [{ n }] = await trx("sweeps").where({ owner_id: input.ownerId, status: "queued" }).count({ n: "*" });
@@ -141,7 +142,7 @@ export async function enqueueSweep(input: EnqueueInput): Promise<{ id: number; c
       member_length_m: input.member?.lengthM ?? null,
       member_count: input.member?.count ?? null,
     });
-    return { id: Number(id), created: true };
+    return { id: Number(id), created: true, status: "queued" as SweepStatus };
   });
   if (result.created) queueEvents.emit("enqueued", result.id);
   return result;

@@ -68,14 +68,21 @@ describe("POST /api/v1/properties", () => {
     expect(r.status).toBe(200);
     const { properties: p, units } = r.data as { properties: Record<string, number> & { Sz: { top: number }; centroid: { y: number } }; units: { system: string; fields: Record<string, string>; quantities: Record<string, string> } };
     expect(units.system).toBe("us");
-    expect(units.fields).toMatchObject({ area: "in²", Iz: "in⁴", "Sz.top": "in³", massPerMetre: "lb/ft", "centroid.y": "in" });
+    // Issue 11, item 13: a field name that carries a unit says so; mass per length is lb/ft here, not "per metre"
+    expect(units.fields).toMatchObject({ area: "in²", Iz: "in⁴", "Sz.top": "in³", massPerLength: "lb/ft", "centroid.y": "in" });
+    expect(units.fields).not.toHaveProperty("massPerMetre");
+    expect(p).not.toHaveProperty("massPerMetre");
+    // and plain numbers: 40 in² is 40, not 40.00000000000001 after the round trip through mm
+    expect(p.area).toBe(40);
+    expect(p.centroid.y).toBe(5);
+    expect(JSON.stringify(r.data)).not.toMatch(/\d\.\d*(?:0{7,}|9{7,})[1-9]/);
     expect(p.area).toBeCloseTo(40, 9);
     expect(p.Iz).toBeCloseTo((4 * 10 ** 3) / 12, 9);
     expect(p.Sz.top).toBeCloseTo((4 * 10 ** 2) / 6, 9);
     expect(p.Zz).toBeCloseTo((4 * 10 ** 2) / 4, 9);
     expect(p.centroid.y).toBeCloseTo(5, 12);
     // 40 in² of steel at 7850 kg/m³ (= 490.06 lb/ft³) weighs 40/144 ft² × 490.06 = 136.1 lb/ft
-    expect(p.massPerMetre).toBeCloseTo((40 / 144) * (7850 / 16.01846337396), 6);
+    expect(p.massPerLength).toBeCloseTo((40 / 144) * (7850 / 16.01846337396), 6);
   });
 
   test("400 names the field: overlapping plates, a bad dimension, a bad units value, not JSON", async () => {

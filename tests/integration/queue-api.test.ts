@@ -74,6 +74,13 @@ describe("POST /api/v1/sweeps", () => {
     expect(b.status).toBe(202);
     expect((b.data as { id: number }).id).toBe((a.data as { id: number }).id);
     expect((b.data as { created: boolean }).created).toBe(false);
+    // Issue 11, item 13: a replay after the sweep ran answers with its status now, not "queued",
+    // and with the HTTP status the first answer had.
+    const id = (a.data as { id: number }).id;
+    await db("sweeps").where({ id }).update({ status: "succeeded", started_at: db.fn.now(), finished_at: db.fn.now() });
+    const c = await post("engineer", { problem: tinyProblem(2) }, h);
+    expect(c.status).toBe(202);
+    expect(c.data).toMatchObject({ id, created: false, status: "succeeded", url: `/api/v1/sweeps/${id}` });
     await rejects(() => post("engineer", { problem: tinyProblem(3) }, h), 409, /Idempotency-Key.*different request/);
     await rejects(() => post("engineer", { problem: tinyProblem(3) }, { "Idempotency-Key": "x".repeat(101) }), 400, /Idempotency-Key.*100/);
   });

@@ -50,7 +50,7 @@ describe("enqueue", () => {
     const a = await enqueueSweep({ ...u, problem: tinyProblem(1), idempotencyKey: "k-1" });
     const b = await enqueueSweep({ ...u, problem: tinyProblem(1), idempotencyKey: "k-1" });
     expect(a.created).toBe(true);
-    expect(b).toEqual({ id: a.id, created: false });
+    expect(b).toEqual({ id: a.id, created: false, status: "queued" });
     await expectResponse(enqueueSweep({ ...u, problem: tinyProblem(2), idempotencyKey: "k-1" }), 409, /different request/);
     // Keys are per owner: another user's same key is a new sweep.
     const other = await teamAndUser("engineer2@tallowfield.example");
