@@ -157,9 +157,28 @@ export async function chartSample(sweepId: number): Promise<ChartSample> {
   return { points, stored, front };
 }
 
+/**
+ * The chart as the page's document carries it: the points as one JSON text, which the page parses
+ * in the browser. The framework encodes loader data value by value in JavaScript (turbo-stream), and
+ * 200 points of a dozen values each were most of a sweep page's encoding time; one string costs it
+ * next to nothing (issue 9, item 8). The chart is never drawn on the server (it measures its box in
+ * the browser first), so the server neither parses nor lays out the points; what the server-drawn
+ * part of the page needs from them comes worked out (drawn, withCost).
+ */
+export interface PageChart {
+  /** JSON of ChartCandidate[], rank order */
+  pointsJson: string;
+  /** how many points pointsJson holds */
+  drawn: number;
+  /** some point carries a cost (the table then shows its cost column) */
+  withCost: boolean;
+  stored: number;
+  front: number;
+}
+
 /** What a finished sweep's page shows of its candidates: never changes once the sweep has ended. */
 interface ResultParts {
-  chart: ChartSample;
+  chart: PageChart;
   table: Awaited<ReturnType<typeof candidatesPage>>;
   families: string[];
 }
@@ -174,7 +193,11 @@ const RESULT_CACHE_SIZE = 200;
 const resultCache = new Map<string, ResultParts>();
 
 async function resultParts(sweep: SweepView): Promise<ResultParts> {
-  const key = `${String((getDb().client.config.connection as { database?: string }).database)}:${sweep.id}`;
+  // The end time and queue time too: should an id ever come back for another sweep (a database
+  // restored from a dump, AUTO_INCREMENT reset), the key differs and the old parts are never served.
+  // The team was checked by the caller (getTeamSweep) on this request; the key holds no team because
+  // the parts belong to the sweep, and a sweep to one team.
+  const key = `${String((getDb().client.config.connection as { database?: string }).database)}:${sweep.id}:${sweep.queuedAt}:${sweep.finishedAt}`;
   const hit = resultCache.get(key);
   if (hit) {
     resultCache.delete(key);
@@ -186,7 +209,11 @@ async function resultParts(sweep: SweepView): Promise<ResultParts> {
     candidatesPage(sweep, { page: 1, pageSize: TABLE_PAGE_SIZE, sort: "rank" }),
     db("candidates").where({ sweep_id: sweep.id }).distinct("family").orderBy("family"),
   ]);
-  const parts = { chart, table, families: (families as { family: string }[]).map((f) => f.family) };
+  const parts = {
+    chart: { pointsJson: JSON.stringify(chart.points), drawn: chart.points.length, withCost: chart.points.some((c) => c.cost != null), stored: chart.stored, front: chart.front },
+    table,
+    families: (families as { family: string }[]).map((f) => f.family),
+  };
   if (TERMINAL.has(sweep.status)) {
     resultCache.set(key, parts);
     if (resultCache.size > RESULT_CACHE_SIZE) resultCache.delete(resultCache.keys().next().value!);
@@ -198,16 +225,20 @@ export async function loadSweepPage(teamId: number, id: number) {
   const sweep = await getTeamSweep(id, { teamId });
   if (!sweep) throw notFound("No such sweep in your team.");
   const done = WITH_RESULTS.has(sweep.status);
-  const [brief, project, rechecks, rechecksN, options, optionsN, parts] = await Promise.all([
+  const [brief, project, rechecks, options, parts] = await Promise.all([
     sweep.briefId ? db("briefs").where({ id: sweep.briefId }).first("id", "name", "units") : null,
     sweep.projectId ? db("projects").where({ id: sweep.projectId }).first("id", "name") : null,
     db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).orderBy("id", "desc").limit(PAGE_LIST_MAX).select("id", "status"),
-    db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).count({ n: "*" }).first(),
     db("options").where({ sweep_id: sweep.id }).orderBy("id").limit(PAGE_LIST_MAX).select("id", "review_state", "candidate"),
-    db("options").where({ sweep_id: sweep.id }).count({ n: "*" }).first(),
     done ? resultParts(sweep) : null,
   ]);
-  const chart = parts?.chart ?? { points: [], stored: 0, front: 0 },
+  // Counted only when the list is full: most sweeps have a few of each, and every query a page
+  // view makes is one more round trip 20 readers queue for on the pool.
+  const [rechecksN, optionsN] = await Promise.all([
+    rechecks.length < PAGE_LIST_MAX ? { n: rechecks.length } : db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).count({ n: "*" }).first(),
+    options.length < PAGE_LIST_MAX ? { n: options.length } : db("options").where({ sweep_id: sweep.id }).count({ n: "*" }).first(),
+  ]);
+  const chart: PageChart = parts?.chart ?? { pointsJson: "[]", drawn: 0, withCost: false, stored: 0, front: 0 },
     table = parts?.table ?? null;
   // the best's design figures for the summary line (rank 1 is on the table's first page)
   const bestRow = table?.items.find((c) => c.rank === 1);

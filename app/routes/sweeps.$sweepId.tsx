@@ -79,9 +79,14 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function SweepPage({ loaderData, actionData }: Route.ComponentProps) {
   const { sweep, chart, table, families, brief, project, rechecks, options, may, numbers } = loaderData;
   const [units, setUnits] = useState<UnitSystem>(loaderData.units);
-  const [selected, setSelected] = useState<number | null>(chart.points[0]?.rank ?? null);
+  // The chart's points: one JSON text in the document, parsed in the browser only, after hydration
+  // (PageChart in sweep-page.server.ts says why); the server and the first render draw none.
+  const [points, setPoints] = useState<ChartCandidate[]>([]);
+  useEffect(() => setPoints(JSON.parse(chart.pointsJson) as ChartCandidate[]), [chart.pointsJson]);
+  // the best (rank 1, first in the table's first page, as in the chart's sample)
+  const [selected, setSelected] = useState<number | null>(table.items[0]?.rank ?? null);
   // Candidates the page has seen (the chart's sample, each table page fetched), by rank: what can be selected and compared.
-  const [known, setKnown] = useState(() => new Map<number, ChartCandidate>([...chart.points, ...table.items].map((c) => [c.rank, c])));
+  const [known, setKnown] = useState(() => new Map<number, ChartCandidate>(table.items.map((c) => [c.rank, c])));
   const learn = (rows: ChartCandidate[]) => setKnown((m) => new Map([...m, ...rows.map((c) => [c.rank, c] as const)]));
   const [compare, setCompare] = useState<number[]>([]);
   const [live, setLive] = useState(sweep);
@@ -94,10 +99,10 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
   useEffect(() => setLive(sweep), [sweep]);
   // Results arrive in place when a running sweep ends: select its best then.
   useEffect(() => {
-    learn([...chart.points, ...table.items]);
-    if (selected === null && chart.points.length) setSelected(chart.points[0].rank);
+    learn([...points, ...table.items]);
+    if (selected === null && points.length) setSelected(points[0].rank);
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [chart, table]);
+  }, [points, table]);
   // Poll the API while the sweep runs; once it ends, reload this route's data (results) in place.
   useEffect(() => {
     if (!running) return;
@@ -134,7 +139,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
   const sel = selected === null ? null : (known.get(selected) ?? null);
   const bestDesign = loaderData.bestDesign;
   const compared = compare.map((r) => known.get(r)).filter((c): c is ChartCandidate => Boolean(c));
-  const withCost = chart.points.some((c) => c.cost != null);
+  const withCost = chart.withCost;
   const errors = actionData?.errors as Record<string, string> | null | undefined;
 
   return (
@@ -296,10 +301,10 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                 <h2 id="chart-h" className="text-lg font-bold">
                   Weight against stress
                 </h2>
-                <TradeoffChart candidates={chart.points} units={units} selected={selected} onSelect={select} />
-                {chart.points.length < chart.stored ? (
+                <TradeoffChart candidates={points} units={units} selected={selected} onSelect={select} />
+                {chart.drawn < chart.stored ? (
                   <p className="text-xs text-ink/70" data-testid="chart-sample">
-                    The chart draws {chart.points.length.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly by rank, with both ends and every family's best. The table below pages through all of them.
+                    The chart draws {chart.drawn.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly by rank, with both ends and every family's best. The table below pages through all of them.
                   </p>
                 ) : null}
               </section>
