@@ -103,7 +103,8 @@ export function TradeoffChart({
           <XAxis type="number" dataKey="x" name="Mass" domain={["auto", "auto"]} label={{ value: `Mass per length (${massUnit})`, position: "bottom", offset: 10 }} tickFormatter={(v: number) => formatNumber(v, 3)} />
           <YAxis type="number" dataKey="y" name="Utilisation" domain={[(min: number) => Math.max(0, Math.floor((min - 0.05) * 10) / 10), (max: number) => Math.max(1.05, Math.ceil(max * 20) / 20)]} label={{ value: "Utilisation", angle: -90, position: "insideLeft" }} tickFormatter={(v: number) => v.toFixed(2)} />
           <Tooltip content={<Tip units={units} />} />
-          <Legend verticalAlign="top" />
+          {/* an outlined (welded) series would print its name in its white fill: name it in its stroke colour */}
+          <Legend verticalAlign="top" formatter={(value: string, entry: { color?: string; payload?: { stroke?: string } }) => <span style={{ color: entry.payload?.stroke ?? entry.color }}>{value}</span>} />
           <ReferenceLine y={1} stroke="#8a4b00" strokeDasharray="6 4" label={{ value: "utilisation 1 (the limit)", position: "insideTopRight", fill: "#8a4b00", fontSize: 12 }} />
           <Scatter name={mixed ? "Front (welded)" : "Front"} data={front} line={{ stroke: "#1d2733", strokeWidth: 1.5 }} shape={() => <g />} legendType="line" isAnimationActive={false} />
           {mixed && rolledFront.length ? (
