@@ -253,18 +253,19 @@ describe("progress and abort", () => {
   it("aborts promptly mid-search", () => {
     const ac = new AbortController();
     const big: SearchProblemInput = { ...base, families: ["mono-i"], depth: { min: 200, max: 1199, step: 1 }, width: { min: 100, max: 400, step: 1 } };
+    // "Promptly" is counted in progress reports, not wall time (a loaded machine makes timings
+    // flaky): the search aborted at its first report gives no second one.
     let calls = 0;
-    const t0 = performance.now();
     expect(() =>
       searchSections(big, {
         signal: ac.signal,
         onProgress: () => {
-          if (++calls === 1) setTimeout(() => ac.abort(), 0);
+          calls++;
           ac.abort();
         },
       }),
     ).toThrow(/abort/i);
-    expect(performance.now() - t0).toBeLessThan(2000);
+    expect(calls).toBe(1);
   });
 });
 
