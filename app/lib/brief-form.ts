@@ -155,9 +155,24 @@ export function siOfShown(q: Quantity, shown: number, remembered: number | undef
   return remembered !== undefined && Number.isFinite(remembered) && shownValue(q, remembered, units) === shown ? remembered : toSI(q, shown, units);
 }
 
-/** The SI thicknesses (mm) of a shown list: each entry takes an exact value it displays as (the memo's, then the stock list's), else is converted. */
+/**
+ * The SI thicknesses (mm) of a shown list: each entry takes an exact value it displays as (the
+ * memo's, then the stock list's), else is converted. Thicknesses closer than the display's six
+ * figures (59.998 and 59.9981 mm both show as 2.36213 in) must not merge, so each known value
+ * is taken once: the one at the entry's own position first (the memo lists the thicknesses in
+ * the order shown), then the first unused one that displays alike. Only when every alike value
+ * is used (the same thickness typed twice) is one taken again.
+ */
 export function thicknessesOfShown(shown: number[], known: number[], units: UnitSystem): number[] {
-  return shown.map((t) => known.find((k) => shownValue("length", k, units) === t) ?? toSI("length", t, units));
+  const used = new Array<boolean>(known.length).fill(false);
+  const alike = (k: number, t: number) => shownValue("length", k, units) === t;
+  return shown.map((t, i) => {
+    let j = i < known.length && !used[i] && alike(known[i], t) ? i : known.findIndex((k, n) => !used[n] && alike(k, t));
+    if (j < 0) j = known.findIndex((k) => alike(k, t));
+    if (j < 0) return toSI("length", t, units);
+    used[j] = true;
+    return known[j];
+  });
 }
 
 /** Parses a plain number the way the form does (blank or text → null). */
