@@ -165,21 +165,28 @@ describe("claim, fencing, finish", () => {
   });
 
   test("queue health: counts by status, the oldest wait, live workers, expired leases", async () => {
-    process.env.SPARWISE_LEASE_MS = "200";
-    try {
-      const u = await teamAndUser();
-      for (let i = 0; i < 3; i++) await enqueueSweep({ ...u, problem: tinyProblem(i) });
-      await claimNextSweeps("W1", 1);
-      const { queueHealth } = await import("~/workers/queue.server");
-      const h = await queueHealth(u.teamId);
-      expect(h.byStatus).toMatchObject({ queued: 2, running: 1 });
-      expect(h.oldestQueuedMs).toBeGreaterThanOrEqual(0);
-      expect(h.activeWorkers).toBe(1);
-      await new Promise((r) => setTimeout(r, 250));
-      expect(await queueHealth(u.teamId)).toMatchObject({ activeWorkers: 0, expiredLeases: 1 });
-    } finally {
-      delete process.env.SPARWISE_LEASE_MS;
-    }
+    // No sleeps against a short lease or a margin on the wait: the times are set in the database
+    // (whose clock the figures use), so the test gives the same answer however slow the machine.
+    const u = await teamAndUser();
+    const ids: number[] = [];
+    for (let i = 0; i < 3; i++) ids.push((await enqueueSweep({ ...u, problem: tinyProblem(i) })).id);
+    const [claim] = await claimNextSweeps("W1", 1);
+    const { queueHealth } = await import("~/workers/queue.server");
+    // the oldest still waiting queued a minute ago: the wait is that minute plus the time this
+    // update took to reach the health query, which the test measures around them
+    const waiting = ids.filter((id) => id !== claim.id);
+    const t0 = Date.now();
+    await db("sweeps").where({ id: waiting[0] }).update({ queued_at: db.raw("NOW(3) - INTERVAL 60 SECOND") });
+    const h = await queueHealth(u.teamId);
+    const elapsed = Date.now() - t0;
+    expect(h.byStatus).toMatchObject({ queued: 2, running: 1 });
+    expect(h.oldestQueuedMs).toBeGreaterThanOrEqual(60_000);
+    expect(h.oldestQueuedMs).toBeLessThanOrEqual(60_000 + elapsed + 1); // + 1: the clocks' millisecond rounding
+    expect(h.activeWorkers).toBe(1); // the default lease (30 s) is far from over
+    expect(h.expiredLeases).toBe(0);
+    // the worker died: its lease ran out a second ago
+    await db("sweeps").where({ id: claim.id }).update({ lease_expires_at: db.raw("NOW(3) - INTERVAL 1 SECOND") });
+    expect(await queueHealth(u.teamId)).toMatchObject({ activeWorkers: 0, expiredLeases: 1 });
   });
 
   test("release hands the sweep back without counting the attempt", async () => {
