@@ -1,5 +1,7 @@
 import { defineConfig } from "vitest/config";
 import { fileURLToPath } from "node:url";
+import os from "node:os";
+import path from "node:path";
 
 // Kept apart from vite.config.ts so the React Router plugin is not loaded in tests.
 const alias = { "~": fileURLToPath(new URL("./app", import.meta.url)) };
@@ -23,7 +25,8 @@ export default defineConfig({
           testTimeout: 60_000,
           hookTimeout: 120_000,
           globalSetup: ["tests/integration/global-setup.ts"],
-          env: { DB_NAME: process.env.TEST_DB_NAME ?? "sparwise_test" },
+          // attachments go to a folder of the run's own, never the demo's data folder
+          env: { DB_NAME: process.env.TEST_DB_NAME ?? "sparwise_test", SPARWISE_ATTACHMENTS_DIR: path.join(os.tmpdir(), `sparwise-attachments-${process.env.TEST_DB_NAME ?? "sparwise_test"}`) },
         },
       },
       {

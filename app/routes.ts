@@ -36,6 +36,8 @@ export default [
     route("sweeps/:sweepId/comparison", "routes/sweeps.$sweepId.comparison.tsx"),
     route("options/:optionId", "routes/options.$optionId.tsx"),
     route("options/:optionId/record", "routes/options.$optionId.record.tsx"),
+    route("options/:optionId/attachments", "routes/options.$optionId.attachments.ts"),
+    route("projects/:projectId/cutting-list", "routes/projects.$projectId.cutting-list.tsx"),
     route("stock-lists", "routes/stock-lists.tsx"),
     // Any other address: a 404 inside the frame (the layout's error boundary draws it).
     route("*", "routes/not-found.tsx"),
@@ -56,4 +58,5 @@ export default [
   route("projects/:projectId/schedule.csv", "routes/projects.$projectId.schedule[.]csv.ts"),
   route("projects/:projectId/cutting-list.csv", "routes/projects.$projectId.cutting-list[.]csv.ts"),
   route("options/:optionId/section.svg", "routes/options.$optionId.section[.]svg.ts"),
+  route("attachments/:attachmentId", "routes/attachments.$attachmentId.ts"),
 ] satisfies RouteConfig;

@@ -9,6 +9,8 @@ export interface ProvenanceFacts {
   recheckOf: number | null;
   briefId: number | null;
   briefName: string | null;
+  /** the record revision shown (1 = A); later ones are checked against the brief as edited */
+  revision?: number;
 }
 
 export function OptionProvenance({ option, numbers = NO_NUMBERS, linked = true }: { option: ProvenanceFacts; numbers?: Numbers; linked?: boolean }) {
@@ -30,8 +32,15 @@ export function OptionProvenance({ option, numbers = NO_NUMBERS, linked = true }
       ) : (
         <>Saved from a sweep that no longer exists</>
       )}
-      {option.briefName ? <> · brief “{option.briefName}”</> : null}. Checked against the limits {option.recheckOf ? "the recheck" : "that sweep"} ran with, listed here
-      {option.recheckOf ? "; they differ from the brief's own" : ""} (a later edit of the brief does not change them).
+      {option.briefName ? <> · brief “{option.briefName}”</> : null}.{" "}
+      {option.revision && option.revision > 1 ? (
+        <>This revision checks the same section against the brief's limits as edited after it was put to review, listed here.</>
+      ) : (
+        <>
+          Checked against the limits {option.recheckOf ? "the recheck" : "that sweep"} ran with, listed here
+          {option.recheckOf ? "; they differ from the brief's own" : ""} (an edit of the brief after the option was put to review makes a new revision of its record).
+        </>
+      )}
     </p>
   );
 }

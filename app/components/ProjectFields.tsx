@@ -1,4 +1,4 @@
-// Project name, client and description, validated by projectFormSchema on both sides (Conform).
+// Project name, client, job number and description, validated by projectFormSchema on both sides (Conform).
 import { Form } from "react-router";
 import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
@@ -33,6 +33,13 @@ export function ProjectFields({ lastResult, defaultValue, submitLabel }: { lastR
         </label>
         <input {...getInputProps(fields.client, { type: "text" })} key={fields.client.key} className="block w-full rounded-md border border-ink/30 bg-white px-2 py-1.5" />
         {err(fields.client)}
+      </div>
+      <div className="space-y-1">
+        <label htmlFor={fields.jobNumber.id} className="block text-sm font-semibold">
+          Job number <span className="font-normal text-ink/70">(printed on every page of the calculation records)</span>
+        </label>
+        <input {...getInputProps(fields.jobNumber, { type: "text" })} key={fields.jobNumber.key} className="block w-full max-w-xs rounded-md border border-ink/30 bg-white px-2 py-1.5" />
+        {err(fields.jobNumber)}
       </div>
       <div className="space-y-1">
         <label htmlFor={fields.description.id} className="block text-sm font-semibold">

@@ -14,6 +14,9 @@ export const ACTIVITY_WORDS: Record<string, string> = {
   review_requested: "requested a review",
   option_approved: "approved an option",
   option_returned: "returned an option",
+  option_revised: "made a new record revision of an option",
+  attachment_added: "attached a file to an option",
+  attachment_deleted: "deleted an option's attachment",
   stock_list_saved: "saved a stock list",
   stock_list_deleted: "deleted a stock list",
   material_added: "added a material",
@@ -25,6 +28,7 @@ export const ACTIVITY_WORDS: Record<string, string> = {
 /** What an activity entry is about, in words ("saved section 3", never "saved_section 3"). */
 export const SUBJECT_WORDS: Record<string, string> = {
   api_token: "API token",
+  attachment: "attachment",
   brief: "brief",
   catalogue: "catalogue",
   invitation: "invitation",

@@ -150,6 +150,7 @@ const PERMISSION_WORDS: Record<Permission, string> = {
   cancelAnySweep: "cancel other members' sweeps",
   manageTeam: "manage the team",
   manageCatalogues: "manage the team's section catalogues",
+  attach: "attach files to options",
 };
 
 /** The user, when a member of teamId whose role grants permission; otherwise a thrown 403 (or sign-in redirect). */

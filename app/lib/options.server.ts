@@ -57,6 +57,8 @@ export interface OptionRecord {
   /** from the brief, for quantities (m; count) */
   memberLengthM: number | null;
   memberCount: number | null;
+  /** the record's current revision (1 = A); problem and member above are this revision's */
+  revision: number;
 }
 
 export const saveOptionSchema = z.object({
@@ -122,11 +124,17 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
         .leftJoin("briefs as b", "b.id", "o.brief_id")
         .leftJoin("users as u", "u.id", "o.created_by")
         .leftJoin("sweeps as s", "s.id", "o.sweep_id")
+        .leftJoin("record_revisions as r", function () {
+          this.on("r.option_id", "o.id").andOn("r.number", "o.revision");
+        })
         .where({ "o.id": id, "p.team_id": teamId })
         .first(
           "o.*",
           "p.team_id",
           "p.name as project_name",
+          "r.problem as rev_problem",
+          "r.member_length_m as rev_member_length_m",
+          "r.member_count as rev_member_count",
           "b.name as brief_name",
           "b.units as brief_units",
           "b.member_length_m",
@@ -140,6 +148,8 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
         )
     : undefined;
   if (!row) throw notFound("No such option in your team.");
+  // A later revision carries its own basis (revisions.server.ts); revision A is the option's own.
+  const revised = row.rev_problem != null;
   return {
     id: row.id,
     projectId: row.project_id,
@@ -151,7 +161,7 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     recheckOf: row.sweep_recheck_of ?? null,
     approvalStale: isStale(row.review_state, row.approved_at, row.problem_changed_at),
     candidate: parseJson(row.candidate),
-    problem: parseJson(row.problem),
+    problem: parseJson(revised ? row.rev_problem : row.problem),
     note: row.note,
     reviewState: row.review_state,
     createdBy: row.author,
@@ -159,8 +169,9 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     createdAt: new Date(row.created_at).toISOString(),
     units: row.brief_units ?? "si",
     // The member the sweep ran for (a recheck may alter it); sweeps older than that column: the brief's.
-    memberLengthM: row.sweep_member_length_m ?? row.member_length_m ?? null,
-    memberCount: row.sweep_member_count ?? row.member_count ?? null,
+    memberLengthM: revised ? (row.rev_member_length_m ?? null) : (row.sweep_member_length_m ?? row.member_length_m ?? null),
+    memberCount: revised ? (row.rev_member_count ?? null) : (row.sweep_member_count ?? row.member_count ?? null),
+    revision: row.revision ?? 1,
   };
 }
 
@@ -189,6 +200,7 @@ export async function listReviews(optionId: number) {
   return rows.map((r: Record<string, unknown>) => ({
     id: r.id as number,
     decision: r.decision as string,
+    revision: (r.revision as number | undefined) ?? 1,
     comment: r.comment as string | null,
     who: (r.user_name as string | null) ?? "someone",
     at: new Date(r.created_at as string).toISOString(),
@@ -268,8 +280,10 @@ export async function requestReview(user: SessionUser, optionId: number, comment
     .map(([k, v]) => `${k} ${v}`)
     .join(", ")} mm (${c.massPerMetre.toFixed(1)} kg/m)`;
   await db.transaction(async (trx) => {
-    await trx("options").where({ id: optionId }).update({ review_state: "in_review", updated_at: trx.fn.now() });
-    await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision: "requested", comment: comment || null });
+    // Conditional on the revision read above: a brief edit in between made a revision nobody asked about.
+    const n = await trx("options").where({ id: optionId, revision: option.revision }).whereIn("review_state", ["draft", "returned"]).update({ review_state: "in_review", updated_at: trx.fn.now() });
+    if (!n) throw new WorkflowError("form", "the option changed meanwhile (a new revision or another request); reload and try again");
+    await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision: "requested", revision: option.revision, comment: comment || null });
     await logActivity({ teamId: user.teamId, projectId: option.projectId, userId: user.id, action: "review_requested", subjectType: "option", subjectId: optionId }, trx);
     for (const r of reviewers) {
       await sendEmail(
@@ -293,10 +307,11 @@ export async function decideReview(user: SessionUser, optionId: number, decision
   const refusal = reviewRefusal(user.role, await reviewTies(option, user.id));
   if (refusal) throw new WorkflowError("decision", refusal, 403);
   await db.transaction(async (trx) => {
-    // Conditional update: two reviewers deciding at once cannot both win.
-    const n = await trx("options").where({ id: optionId, review_state: "in_review" }).update({ review_state: decision, updated_at: trx.fn.now() });
-    if (!n) throw new WorkflowError("decision", "someone else decided this review first");
-    await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision, comment: comment || null });
+    // Conditional update: two reviewers deciding at once cannot both win, and a decision never
+    // lands on a revision made after this request read the option.
+    const n = await trx("options").where({ id: optionId, review_state: "in_review", revision: option.revision }).update({ review_state: decision, updated_at: trx.fn.now() });
+    if (!n) throw new WorkflowError("decision", "someone else decided this review first, or the option has a new revision");
+    await trx("reviews").insert({ option_id: optionId, user_id: user.id, decision, revision: option.revision, comment: comment || null });
     await logActivity({ teamId: user.teamId, projectId: option.projectId, userId: user.id, action: decision === "approved" ? "option_approved" : "option_returned", subjectType: "option", subjectId: optionId, detail: comment ? { comment } : undefined }, trx);
     if (option.createdById && option.createdById !== user.id) {
       const author = await trx("users").where({ id: option.createdById }).first("email");

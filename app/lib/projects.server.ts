@@ -1,6 +1,7 @@
 // Projects, their members and briefs. Every getter takes the caller's team and answers 404
 // for another team's rows, so an id in a URL never leaks whether the row exists.
 import { projectFormSchema } from "~/lib/project-form";
+import { reviseOptionsOfBrief } from "~/lib/revisions.server";
 import type { z } from "zod";
 import { db, parseJson } from "~/lib/db.server";
 import { logActivity } from "~/lib/activity.server";
@@ -20,6 +21,7 @@ export interface ProjectRow {
   team_id: number;
   name: string;
   client: string | null;
+  job_number: string | null;
   description: string | null;
   created_by: number | null;
   archived_at: Date | null;
@@ -67,6 +69,7 @@ export async function createProject(teamId: number, userId: number, form: Projec
       team_id: teamId,
       name: form.name,
       client: form.client || null,
+      job_number: form.jobNumber || null,
       description: form.description || null,
       created_by: userId,
     });
@@ -79,7 +82,7 @@ export async function createProject(teamId: number, userId: number, form: Projec
 export async function updateProject(teamId: number, userId: number, id: number, form: ProjectForm): Promise<void> {
   await getProject(teamId, id);
   await db.transaction(async (trx) => {
-    await trx("projects").where({ id, team_id: teamId }).update({ name: form.name, client: form.client || null, description: form.description || null, updated_at: trx.fn.now() });
+    await trx("projects").where({ id, team_id: teamId }).update({ name: form.name, client: form.client || null, job_number: form.jobNumber || null, description: form.description || null, updated_at: trx.fn.now() });
     await logActivity({ teamId, projectId: id, userId, action: "project_edited", subjectType: "project", subjectId: id, detail: { name: form.name } }, trx);
   });
 }
@@ -241,12 +244,15 @@ export async function saveBrief(
   return db.transaction(async (trx) => {
     let id = target.briefId;
     if (id) {
-      const prior = await trx("briefs").where({ id, project_id: target.projectId }).forUpdate().first("problem");
+      const prior = await trx("briefs").where({ id, project_id: target.projectId }).forUpdate().first("problem", "member_length_m", "member_count");
       // Only a changed problem moves problem_changed_at (approvals given before it go stale).
       const changed = !prior || JSON.stringify(parseJson(prior.problem)) !== row.problem;
       await trx("briefs")
         .where({ id, project_id: target.projectId })
         .update({ ...row, updated_at: trx.fn.now(), ...(changed ? { problem_changed_at: trx.raw("NOW(3)") } : {}) });
+      // The member is part of the record's basis too (its quantity), so a new length or count revises.
+      if (changed || prior.member_length_m !== row.member_length_m || prior.member_count !== row.member_count)
+        await reviseOptionsOfBrief(trx, { teamId, userId, projectId: target.projectId, briefId: id, briefName: meta.name, problem, memberLengthM: row.member_length_m, memberCount: row.member_count });
     } else {
       const [newId] = await trx("briefs").insert({ ...row, project_id: target.projectId, created_by: userId, problem_changed_at: trx.raw("NOW(3)") });
       id = Number(newId);

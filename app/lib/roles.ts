@@ -17,14 +17,17 @@ export const PERMISSIONS = [
   "manageTeam",
   // upload, replace and delete the team's section catalogues (product.md, "Catalogue")
   "manageCatalogues",
+  // attach files (a sketch, a photo of a site measurement) to an option; reviewers too, since a
+  // check on site is theirs as often as the engineer's
+  "attach",
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
 // A reviewer runs sweeps only as rechecks, so it holds "recheck" but not "runSweep".
 const GRANTS: Record<Role, ReadonlySet<Permission>> = {
   admin: new Set(PERMISSIONS),
-  engineer: new Set<Permission>(["read", "createProject", "editBrief", "runSweep", "saveOption", "requestReview", "recheck"]),
-  reviewer: new Set<Permission>(["read", "recheck", "review"]),
+  engineer: new Set<Permission>(["read", "createProject", "editBrief", "runSweep", "saveOption", "requestReview", "recheck", "attach"]),
+  reviewer: new Set<Permission>(["read", "recheck", "review", "attach"]),
   viewer: new Set<Permission>(["read"]),
 };
 

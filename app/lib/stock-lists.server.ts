@@ -55,3 +55,11 @@ export async function deleteStockList(user: { teamId: number; id: number; role: 
     return "deleted";
   });
 }
+
+/** One of the team's stock lists with its items, or null when the team has no such list. */
+export async function stockListItems(teamId: number, id: number): Promise<{ id: number; name: string; items: { thickness: number; width: number | null; pricePerKg: number | null }[] } | null> {
+  const list = Number.isSafeInteger(id) ? await db("stock_lists").where({ id, team_id: teamId }).first("id", "name") : undefined;
+  if (!list) return null;
+  const items = await db("stock_list_items").where({ stock_list_id: list.id }).select("thickness_mm", "width_mm", "price_per_kg");
+  return { id: list.id, name: list.name, items: items.map((i) => ({ thickness: i.thickness_mm, width: i.width_mm ?? null, pricePerKg: i.price_per_kg ?? null })) };
+}

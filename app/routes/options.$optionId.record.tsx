@@ -1,13 +1,11 @@
 // The calculation record: one printable sheet per option. Every number comes from the engine
 // (record.ts gathers them); the composite-area table is the engine's own compositeTable.
 import { StaleApproval } from "~/components/ReviewBadge";
-import { optionNo } from "~/lib/numbering";
-import { projectNumbers } from "~/lib/numbering.server";
+import { optionNo, sweepNo } from "~/lib/numbering";
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { Link } from "react-router";
 import type { Route } from "./+types/options.$optionId.record";
 import { requirePermission } from "~/lib/auth.server";
-import { getOption, listReviews } from "~/lib/options.server";
 import { rolledSectionOf } from "~/optimizer/catalogue";
 import { buildRecord } from "~/lib/record";
 import { Caution } from "~/components/Caution";
@@ -21,22 +19,34 @@ import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 import { TableScroll } from "~/components/DataTable";
+import { z } from "zod";
+import { recordDocument } from "~/lib/record-document.server";
+import { recordPageCss } from "~/lib/record-document";
+import { revisionNumber } from "~/lib/revisions";
+import { RecordTitleBlock, RevisionHistory, RecordAttachments } from "~/components/RecordTitleBlock";
 
 export function meta({ data }: Route.MetaArgs) {
-  return [{ title: `Calculation record, option ${data ? optionNo(data.numbers, data.option.id) : ""} · Sparwise` }];
+  return [{ title: data && "option" in data ? `Calculation record, ${data.mark}, revision ${data.revision.letter} · Sparwise` : "Calculation record · Sparwise" }];
 }
 
+// ?rev=B shows an earlier (or the current) revision; absent, the current one.
+const recordQuery = z.object({
+  rev: z
+    .string()
+    .regex(/^[A-Za-z]{1,3}$/, "rev: a revision letter such as A or B")
+    .optional(),
+});
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
-  const option = await getOption(user.teamId, idParam(params.optionId));
-  const reviews = await listReviews(option.id);
-  const numbers = await projectNumbers({ sweeps: [option.sweepId, option.recheckOf], options: [option.id] });
-  return { option, reviews, numbers, team: user.teamName, printedAt: new Date().toISOString() };
+  const q = recordQuery.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  if (!q.success) throw new Response(q.error.issues[0]!.message, { status: 400, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+  const doc = await recordDocument(user.teamId, idParam(params.optionId), q.data.rev ? revisionNumber(q.data.rev) : undefined);
+  return { ...doc, team: user.teamName, printedAt: new Date().toISOString() };
 }
 
 export default function RecordPage({ loaderData }: Route.ComponentProps) {
-  const { option, reviews, team, printedAt, numbers } = loaderData;
+  const { option, reviews, team, printedAt, jobNumber, mark, revision, revisions, signatures, attachments, numbers } = loaderData;
   const units = option.units;
   const c = option.candidate;
   const rolled = rolledSectionOf(c);
@@ -55,38 +65,63 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
   // Written-out flexure formula: the moment's unit to force × length of the section's length unit.
   const MF = units === "si" ? "× 10⁶ N·mm/kN·m" : "× 12 in/ft";
   const decision = [...reviews].reverse().find((r) => r.decision === "approved" || r.decision === "returned");
+  const css = recordPageCss({ project: option.projectName, jobNumber, mark, revision: revision.letter, title: `Sparwise calculation record · option ${optionNo(numbers, option.id)} · printed ${printedAt.slice(0, 10)}` });
   return (
     <article className="mx-auto max-w-4xl space-y-6 bg-white p-6 print:max-w-none print:p-0" data-testid="record">
-      <header className="flex flex-wrap items-start justify-between gap-2 border-b border-ink/30 pb-3">
-        <div>
-          <p className="text-sm text-ink/70">
-            {team} · {option.projectName}
-          </p>
-          <h1 className="text-2xl font-bold">Calculation record: option {optionNo(numbers, option.id)}
-            {option.approvalStale ? <StaleApproval /> : null}
-          </h1>
-          <p className="text-sm">
-            {rolled ? `${rolled.designation} (rolled, from ${c.catalogue ?? "a catalogue"}; root fillets and corner radii in the properties, not in the table of rectangles): ` : ""}
-            {familyLabel(c.family)} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
-            {option.note ? ` · note: ${option.note}` : ""}
-          </p>
-        </div>
-        <div className="no-print flex gap-2">
-          <Link to={`/options/${option.id}`} className="rounded-md border border-ink/30 px-3 py-1.5 text-sm">
-            Back to the option
-          </Link>
-          <button type="button" onClick={() => window.print()} className="rounded-md bg-accent px-3 py-1.5 text-sm font-semibold text-white">
-            Print or save as PDF
-          </button>
-        </div>
+      {/* the page furniture of the printed sheet; every value in it is escaped by recordPageCss */}
+      <style dangerouslySetInnerHTML={{ __html: css }} />
+      <div className="no-print flex flex-wrap justify-end gap-2">
+        <Link to={`/options/${option.id}`} className="rounded-md border border-ink/30 px-3 py-1.5 text-sm">
+          Back to the option
+        </Link>
+        <button type="button" onClick={() => window.print()} className="rounded-md bg-accent px-3 py-1.5 text-sm font-semibold text-white">
+          Print or save as PDF
+        </button>
+      </div>
+      {!revision.current ? (
+        <p role="status" className="rounded-md border border-ink/40 bg-paper px-3 py-2 text-sm font-semibold" data-testid="superseded">
+          Revision {revision.letter} has been superseded: the current revision is {revisions.find((r) => r.current)?.letter}. This sheet shows revision {revision.letter} as it was.
+        </p>
+      ) : null}
+      {revision.state !== "approved" ? (
+        <p className="rounded-md border-2 border-red-800 px-3 py-2 text-sm font-bold uppercase tracking-wide text-red-900" data-testid="not-approved">
+          Not approved: revision {revision.letter} is {revision.state === "in_review" ? "waiting for review" : revision.state === "returned" ? "returned by the reviewer" : "a draft"}.
+        </p>
+      ) : null}
+      <header className="border-b border-ink/30 pb-3">
+        <p className="text-sm text-ink/70">{team}</p>
+        <h1 className="text-2xl font-bold">
+          Calculation record: {mark}, revision {revision.letter}
+          {option.approvalStale ? <StaleApproval /> : null}
+        </h1>
+        <p className="text-sm">
+          {rolled ? `${rolled.designation} (rolled, from ${c.catalogue ?? "a catalogue"}; root fillets and corner radii in the properties, not in the table of rectangles): ` : ""}
+          {familyLabel(c.family)} section, {Object.entries(c.dimensions).map(([k, v]) => `${k} = ${n("length", v)} ${L}`).join(", ")}
+          {option.note ? ` · note: ${option.note}` : ""}
+        </p>
       </header>
+      <RecordTitleBlock
+        facts={{
+          project: option.projectName,
+          jobNumber,
+          mark,
+          optionNo: optionNo(numbers, option.id),
+          briefName: option.briefName,
+          sweepNo: option.sweepId ? sweepNo(numbers, option.sweepId) : null,
+          recheckOfNo: option.recheckOf ? sweepNo(numbers, option.recheckOf) : null,
+          revision: revision.letter,
+          revisionDate: revision.prepared?.at ?? null,
+          reason: revision.reason,
+        }}
+        signatures={signatures}
+      />
       <Caution problem={option.problem} />
 
       <section aria-labelledby="inputs-h" className="break-inside-avoid">
         <h2 id="inputs-h" className="text-lg font-bold">
           1. Inputs
         </h2>
-        <OptionProvenance option={option} numbers={numbers} linked={false} />
+        <OptionProvenance option={{ ...option, revision: revision.number }} numbers={numbers} linked={false} />
         <BasisNote problem={option.problem} className="mb-1" />
         <BriefSummary problem={option.problem} units={units} />
         {option.memberLengthM && option.memberCount ? (
@@ -262,13 +297,15 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         <p className="text-sm" data-testid="decision">
           {decision
             ? `${decision.decision === "approved" ? "Approved" : "Returned"} by ${decision.who} on ${decision.at.slice(0, 10)}${decision.comment ? `: “${decision.comment}”` : "."}`
-            : option.reviewState === "in_review"
+            : revision.state === "in_review"
               ? "Waiting for review."
               : "Not reviewed."}
         </p>
         <p className="mt-2 text-xs text-ink/70">Printed {printedAt.slice(0, 16).replace("T", " ")} UTC from Sparwise.</p>
       </section>
+      <RecordAttachments attachments={attachments} number={en ? 9 : 8} />
       <Caution problem={option.problem} />
+      <RevisionHistory optionId={option.id} revisions={revisions} shown={revision.number} number={en ? 10 : 9} />
     </article>
   );
 }

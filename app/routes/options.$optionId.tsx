@@ -16,6 +16,9 @@ import { BriefSummary } from "~/components/BriefSummary";
 import { OptionProvenance } from "~/components/OptionProvenance";
 import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import { idParam } from "~/lib/route-params";
+import { listAttachments } from "~/lib/attachments.server";
+import { OptionAttachments } from "~/components/OptionAttachments";
+import { revisionLetter } from "~/lib/revisions";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Option ${data ? optionNo(data.numbers, data.option.id) : ""} · Sparwise` }];
@@ -35,11 +38,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     feasible: verdict.feasible,
     notes: verdict.design?.notes ?? null,
     reviews: await listReviews(option.id),
+    attachments: await listAttachments(user.teamId, option.id),
+    me: { id: user.id, admin: user.role === "admin" },
     reviewRefusal: refusal,
     may: {
       request: can(user.role, "requestReview") && (option.reviewState === "draft" || option.reviewState === "returned"),
       review: can(user.role, "review") && inReview && !refusal,
       recheck: can(user.role, "recheck") && option.sweepId !== null,
+      attach: can(user.role, "attach"),
     },
   };
 }
@@ -82,7 +88,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function OptionPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { option, reviews, may, feasible, notes, reviewRefusal: refusal, numbers } = loaderData;
+  const { option, reviews, may, feasible, notes, reviewRefusal: refusal, numbers, attachments, me } = loaderData;
   const errors = (actionData?.errors ?? null) as Record<string, string> | null;
   // Each form's errors sit beside its own fields and buttons (issue 11, item 8); only what belongs
   // to neither form is said at the top.
@@ -111,7 +117,10 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           </p>
           <h1 className="text-2xl font-bold">
             Option {optionNo(numbers, option.id)} <ReviewBadge state={option.reviewState} />
-            {option.approvalStale ? <StaleApproval /> : null}
+            {option.approvalStale ? <StaleApproval /> : null}{" "}
+            <span className="text-base font-semibold text-ink/70" data-testid="revision">
+              revision {revisionLetter(option.revision)}
+            </span>
           </h1>
           <p className="text-sm text-ink/80">
             Saved by {option.createdBy ?? "—"} on {option.createdAt.slice(0, 10)}
@@ -153,6 +162,13 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           <Assumptions problem={option.problem} units={option.units} notes={notes ?? undefined} />
         </section>
       </div>
+      <OptionAttachments
+        optionId={option.id}
+        attachments={attachments}
+        mayAttach={may.attach}
+        // the server decides (attachments.server.ts); this only hides buttons it would refuse
+        mayDelete={(a) => may.attach && (me.admin || a.createdById === me.id)}
+      />
       <section aria-labelledby="review-h" className="space-y-3">
         <h2 id="review-h" className="text-lg font-bold">
           Review
@@ -161,7 +177,7 @@ export default function OptionPage({ loaderData, actionData }: Route.ComponentPr
           <ol className="space-y-1 text-sm" data-testid="reviews">
             {reviews.map((r) => (
               <li key={r.id}>
-                <time className="text-ink/60 tabular-nums">{r.at.slice(0, 16).replace("T", " ")}</time> {r.who}: <strong>{r.decision}</strong>
+                <time className="text-ink/60 tabular-nums">{r.at.slice(0, 16).replace("T", " ")}</time> {r.who}: <strong>{r.decision}</strong> (revision {revisionLetter(r.revision)})
                 {r.comment ? ` — ${r.comment}` : ""}
               </li>
             ))}

@@ -33,6 +33,9 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
           <a href={`/projects/${project.id}/schedule.csv`} download className="text-accent underline">
             Download CSV
           </a>
+          <Link to={`/projects/${project.id}/cutting-list`} className="text-accent underline">
+            Plate cutting list
+          </Link>
           <a href={`/projects/${project.id}/cutting-list.csv`} download className="text-accent underline">
             Plate cutting list (CSV)
           </a>

@@ -58,7 +58,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
   const numbers = await projectNumbers({ sweeps: briefs.map((b) => b.lastSweepId), options: options.map((o) => o.id) });
   return data({
-    project: { id: project.id, name: project.name, client: project.client, description: project.description, archived: project.archived_at != null },
+    project: { id: project.id, name: project.name, client: project.client, jobNumber: project.job_number, description: project.description, archived: project.archived_at != null },
     briefs,
     options,
     numbers,
@@ -117,10 +117,15 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
             {project.name} {project.archived ? <span className="text-base font-normal text-ink/70">(archived)</span> : null}
           </h1>
           {project.client ? <p className="text-ink/80">Client: {project.client}</p> : null}
+          {project.jobNumber ? <p className="text-ink/80">Job number: {project.jobNumber}</p> : null}
           {project.description ? <p className="mt-1 max-w-2xl text-sm">{project.description}</p> : null}
           <p className="mt-1 text-sm">
             <Link to={`/projects/${project.id}/schedule`} className="text-accent underline">
               Member schedule
+            </Link>
+            {" · "}
+            <Link to={`/projects/${project.id}/cutting-list`} className="text-accent underline">
+              Plate cutting list
             </Link>
           </p>
         </div>
@@ -326,7 +331,7 @@ export default function ProjectPage({ loaderData, actionData }: Route.ComponentP
           <h2 id="edit-h" className="text-lg font-bold">
             Edit project
           </h2>
-          <ProjectFields lastResult={actionData?.result} defaultValue={{ name: project.name, client: project.client, description: project.description }} submitLabel="Save changes" />
+          <ProjectFields lastResult={actionData?.result} defaultValue={{ name: project.name, client: project.client, jobNumber: project.jobNumber, description: project.description }} submitLabel="Save changes" />
           <Form method="post">
             <input type="hidden" name="intent" value={project.archived ? "restore" : "archive"} />
             <button className="rounded-md border border-ink/30 bg-white px-3 py-1.5 text-sm font-semibold">{project.archived ? "Restore project" : "Archive project"}</button>

@@ -101,6 +101,7 @@ export const ROWS: Record<string, BadInputRow> = {
   "/sweeps/:sweepId": { as: "engineer", params: wf("sweepId"), field: "intent", malformed: { intent: "saveOption", rank: "first" }, malformedField: "rank" },
   "/sweeps/:sweepId/recheck": { as: "reviewer", params: wf("sweepId"), field: "name", malformed: { ...briefFields, thicknesses: "6, eight" }, malformedField: "thicknesses" },
   "/options/:optionId": { as: "reviewer", params: wf("optionId"), field: "intent", malformed: { intent: "decide", decision: "maybe" }, malformedField: "decision" },
+  "/options/:optionId/attachments": { as: "engineer", params: wf("optionId"), field: "intent", malformed: { intent: "delete", attachmentId: "twelve" }, malformedField: "attachmentId" },
   "/stock-lists": { as: "engineer", field: "intent", malformed: { intent: "save", file: "thickness_mm\n6\nabc\n", name: "Bad" }, malformedField: "file" },
 };
 

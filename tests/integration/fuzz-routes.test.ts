@@ -115,7 +115,7 @@ async function restoreTeam(): Promise<void> {
 
 const INTENTS = [
   "addMember", "archive", "cancel", "changePassword", "changeRole", "check", "create", "createToken", "decide", "delete", "edit",
-  "invite", "join", "preview", "read", "readAll", "remove", "removeMember", "replace", "requestReview", "restore", "revokeInvitation",
+  "invite", "join", "preview", "upload", "read", "readAll", "remove", "removeMember", "replace", "requestReview", "restore", "revokeInvitation",
   "revokeToken", "run", "save", "saveOption", "signOutEverywhere", "switchTeam", "update",
 ];
 const FIELDS = [
@@ -123,9 +123,9 @@ const FIELDS = [
   "sweepId", "optionId", "rank", "ranks", "decision", "note", "comment", "state", "file", "units", "thicknesses", "families", "client",
   "description", "materialId", "stockListId", "siValues", "next", "k", "m", "depth.min", "depth.max", "depth.step", "width.min",
   "width.max", "width.step", "moment.sagging", "moment.hogging", "shear", "allowable.tension", "allowable.compression", "allowable.shear",
-  "E", "fy", "density", "basis", "grade", "length", "count", "pricePerKg", "platePrice", "weldPrice",
+  "E", "fy", "density", "basis", "grade", "length", "count", "pricePerKg", "platePrice", "weldPrice", "jobNumber", "attachmentId",
 ];
-const QUERY_KEYS = ["next", "s", "k", "m", "units", "saved", "archived", "view", "edit", "page", "pageSize", "sort", "order", "dir", "limit", "offset", "family", "feasible", "cursor", "q", "fields"];
+const QUERY_KEYS = ["next", "s", "k", "m", "units", "saved", "archived", "view", "edit", "page", "pageSize", "sort", "order", "dir", "limit", "offset", "family", "feasible", "cursor", "q", "fields", "rev"];
 const JSON_KEYS = ["plates", "family", "dimensions", "dims", "units", "polygon", "polygons", "holes", "problem", "briefId", "projectId", "recheckOf", "name", "options", "sort", "page"];
 const NASTY = [
   "", " ", "0", "-1", "1.5", "1e309", "-1e309", "NaN", "Infinity", "0x10", "0b1", "9007199254740993", "99999999999999999999", "true", "null",

@@ -12,7 +12,7 @@ import { afterAll, describe, expect, test } from "vitest";
 import { closeDb, db, parseJson } from "~/lib/db.server";
 import { hashToken } from "~/lib/auth.server";
 import { can, PERMISSIONS, reviewRefusal, ROLES, type Role } from "~/lib/roles";
-import { foreignFixture, workflowFixture, type WorkflowFixture } from "./workflow-fixtures";
+import { attachmentFixture, foreignFixture, workflowFixture, type WorkflowFixture } from "./workflow-fixtures";
 import { callRoute, FixtureContext, fillPath, flattenRoutes, loadRouteModule, requestAs, type DemoRole } from "./fixtures";
 
 afterAll(() => closeDb());
@@ -68,6 +68,8 @@ async function resetToken(ctx: FixtureContext): Promise<Record<string, string>> 
 // Workflow fixtures: one project/brief/sweep/recheck/option per run (workflow-fixtures.ts).
 const wf = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await workflowFixture(ctx))[key]) });
 const wfForeign = (key: keyof WorkflowFixture, param: string = key) => async (ctx: FixtureContext) => ({ [param]: String((await foreignFixture(ctx))[key]) });
+const attachment = async (ctx: FixtureContext) => ({ attachmentId: String(await attachmentFixture(ctx)) });
+const foreignAttachment = async (ctx: FixtureContext) => ({ attachmentId: String(await attachmentFixture(ctx, true)) });
 
 export const ROWS: Record<string, MatrixRow> = {
   // ---- Sign-in and team
@@ -123,6 +125,10 @@ export const ROWS: Record<string, MatrixRow> = {
   "/options/:optionId": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200), post: members(400) },
   "/options/:optionId/record": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
   "/options/:optionId/section.svg": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(200) },
+  // the list lives on the option page (redirect); an empty post: the roles that attach get 400
+  "/options/:optionId/attachments": { params: wf("optionId"), foreign: wfForeign("optionId"), get: members(302), post: permitted("attach", 400) },
+  "/attachments/:attachmentId": { params: attachment, foreign: foreignAttachment, get: members(200) },
+  "/projects/:projectId/cutting-list": { params: wf("projectId"), foreign: wfForeign("projectId"), get: members(200) },
   "/stock-lists": { get: members(200), post: permitted("editBrief", 400) },
 
   // ---- Layout: unknown addresses (add rows here)
@@ -203,8 +209,8 @@ for (const r of flat) {
 describe("roles.ts grants (product.md, People and roles)", () => {
   test.each([
     ["admin", PERMISSIONS],
-    ["engineer", ["read", "createProject", "editBrief", "runSweep", "saveOption", "requestReview", "recheck"]],
-    ["reviewer", ["read", "recheck", "review"]],
+    ["engineer", ["read", "createProject", "editBrief", "runSweep", "saveOption", "requestReview", "recheck", "attach"]],
+    ["reviewer", ["read", "recheck", "review", "attach"]],
     ["viewer", ["read"]],
   ] as const)("%s may exactly %j", (role, allowed) => {
     expect(PERMISSIONS.filter((p) => can(role, p))).toEqual([...allowed]);

@@ -68,3 +68,18 @@ export function foreignFixture(ctx: FixtureContext): Promise<WorkflowFixture> {
     return { projectId: Number(projectId), briefId: Number(briefId), sweepId, recheckId, optionId: Number(optionId) };
   });
 }
+
+/** A small PNG's first bytes (the signature and an IHDR chunk): enough for the type check. */
+export const PNG_BYTES = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 1, 0, 0, 0, 1, 8, 6, 0, 0, 0]);
+
+/** An attachment on the workflow option (or the other team's), file and row, made once per run. */
+export function attachmentFixture(ctx: FixtureContext, foreign = false): Promise<number> {
+  return ctx.once(foreign ? "attachmentForeign" : "attachment", async () => {
+    const { addAttachment } = await import("~/lib/attachments.server");
+    const f = foreign ? await foreignFixture(ctx) : await workflowFixture(ctx);
+    const teamId = foreign ? (await ctx.otherTeam()).teamId : await ctx.teamId();
+    const userId = foreign ? (await ctx.otherTeam()).adminId : (await ctx.user("engineer")).id;
+    const user = { id: userId, teamId, role: foreign ? "admin" : "engineer", name: "Fixture", email: "fixture@example.org", teamName: "Fixture" } as never;
+    return addAttachment(user, f.optionId, { name: "site sketch.png", bytes: PNG_BYTES });
+  });
+}
