@@ -23,9 +23,9 @@ const day = (iso: string | null | undefined) => (iso ? iso.slice(0, 10) : "—")
 function Signature({ label, sig, testId }: { label: string; sig: RevisionSignature | null; testId: string }) {
   return (
     <div className="border border-ink/40 p-2" data-testid={testId}>
-      <p className="text-xs font-semibold uppercase tracking-wide text-ink/70">{label}</p>
+      <p className="text-xs font-semibold tracking-wide text-ink/70">{label}</p>
       <p className="min-h-5 text-sm font-semibold">{sig ? sig.who : "—"}</p>
-      <p className="text-xs tabular-nums">{sig ? day(sig.at) : "not signed"}</p>
+      <p className="whitespace-nowrap text-xs tabular-nums">{sig ? day(sig.at) : "not signed"}</p>
     </div>
   );
 }

@@ -117,7 +117,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
       />
       <Caution problem={option.problem} />
 
-      <section aria-labelledby="inputs-h" className="break-inside-avoid">
+      <section aria-labelledby="inputs-h">
         <h2 id="inputs-h" className="text-lg font-bold">
           1. Inputs
         </h2>

@@ -62,11 +62,11 @@ export async function seed(knex: Knex): Promise<void> {
   if (!engineer || !reviewer || !engineer2) return;
 
   const projects = new Map<string, number>();
-  for (const [name, client, description, owner] of [
-    [MEZZANINE, "Kellsbury Fresh Foods (fictional)", "Two-bay storage mezzanine inside the cold store; built-up plate beams from our own stock.", engineer.id],
-    [RUNWAY, "Copperbeck Pumps (fictional)", "Access platform beside the 2 t monorail in the repair workshop.", engineer2.id],
+  for (const [name, client, description, owner, jobNumber] of [
+    [MEZZANINE, "Kellsbury Fresh Foods (fictional)", "Two-bay storage mezzanine inside the cold store; built-up plate beams from our own stock.", engineer.id, "TPB-2611"],
+    [RUNWAY, "Copperbeck Pumps (fictional)", "Access platform beside the 2 t monorail in the repair workshop.", engineer2.id, "TPB-2604"],
   ] as const) {
-    const [id] = await knex("projects").insert({ team_id: team.id, name, client, description, created_by: owner });
+    const [id] = await knex("projects").insert({ team_id: team.id, name, client, description, job_number: jobNumber, created_by: owner });
     projects.set(name, Number(id));
     for (const m of [engineer.id, engineer2.id, reviewer.id]) await knex("project_members").insert({ project_id: id, user_id: m });
     await knex("activity_log").insert({ team_id: team.id, project_id: id, user_id: owner, action: "project_created", subject_type: "project", subject_id: id });

@@ -1,5 +1,7 @@
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import type { TestProject } from "vitest/node";
+import os from "node:os";
+import path from "node:path";
 
 // The browser suite runs the production build against a fresh seeded database of its own.
 let server: ChildProcess | undefined;
@@ -17,7 +19,8 @@ export default async function setup(project: TestProject) {
   server = spawn(process.execPath, ["--import", "tsx", "server.ts"], {
     // VITEST is blanked so the server starts its in-process sweep workers (in-process.server.ts skips them under vitest).
     // APP_URL is this server's own address: links in e-mails must lead back to it, not to .env's.
-    env: { ...process.env, DB_NAME: name, PORT: String(port), APP_URL: base, NODE_ENV: "production", VITEST: "" },
+    // Attachments go to a folder of the run's own, never the demo's data folder.
+    env: { ...process.env, DB_NAME: name, PORT: String(port), APP_URL: base, NODE_ENV: "production", VITEST: "", SPARWISE_ATTACHMENTS_DIR: path.join(os.tmpdir(), `sparwise-attachments-${name}`) },
     stdio: ["ignore", "inherit", "inherit"],
     detached: true,
   });
