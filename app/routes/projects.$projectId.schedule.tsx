@@ -55,7 +55,8 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
               <th className="pr-2 text-right">Length (m) × count</th>
               <th className="pr-2 text-right">Total mass (kg)</th>
               <th className="pr-2 text-right">Weld throat a (mm)</th>
-              <th>Review</th>
+              <th className="pr-2">Review</th>
+              <th>Revision</th>
             </tr>
           </thead>
           <tbody>
@@ -74,8 +75,13 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
                 </td>
                 <td className="pr-2 text-right">{f(r.totalMass)}</td>
                 <td className="pr-2 text-right">{f(r.weldThroat, 3)}</td>
-                <td>
+                <td className="pr-2">
                   <ReviewBadge state={r.reviewState} />
+                </td>
+                <td>
+                  <Link to={`/options/${r.optionId}/record`} className="text-accent underline">
+                    {r.revision}
+                  </Link>
                 </td>
               </tr>
             ))}
@@ -88,7 +94,7 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
               <td className="pr-2 text-right" data-testid="schedule-total">
                 {formatNumber(total, 5)}
               </td>
-              <td colSpan={2} />
+              <td colSpan={3} />
             </tr>
           </tfoot>
         </table>

@@ -43,6 +43,7 @@ describe("member schedule", () => {
     expect(Number(row.total_mass_kg)).toBeCloseTo(1020, 9);
     expect(row.length_m).toBe("6");
     expect(row.count).toBe("4");
+    expect(row.revision).toBe("A");
     expect(parsed.data[2][parsed.data[0].indexOf("total_mass_kg")]).toBe("");
   });
 
