@@ -1,11 +1,13 @@
 // The caution every results page, API answer and calculation record carries (product.md,
 // "Safety"), worded once here so the screen, the API and the printed record never disagree.
-// It changes with the brief's design basis (member-checks.md §2–§3): what the checks cover
-// and, as plainly, what they do not.
+// It changes with the brief's design basis (member-checks.md §2–§3, issue 14): what the checks
+// cover and, as plainly, what they do not. This is the one source of those words: the engine's
+// basis modules (app/optimizer/basis/*.ts) carry none of their own.
 
 /** The part of a problem the caution depends on (a SearchProblem fits; absent fields read as the spec's defaults). */
 export interface CautionBasis {
-  basis?: "allowable" | "en1993" | string;
+  basis?: "allowable" | "en1993" | "aisc360" | string;
+  method?: "ASD" | "LRFD" | string;
   restraint?: unknown;
   supports?: { stiffened?: boolean } | null;
   deflection?: unknown;
@@ -27,7 +29,7 @@ export function cautionText(p?: CautionBasis | null, scope: "bench" | "project" 
   if (!p && scope === "project") {
     return (
       "Sparwise is a sizing aid. Each brief's sections were checked on that brief's design basis only (allowable stresses: " +
-      `${STRESSES_ONLY}; EN 1993: the member checks its sweep page lists); none covers connections, fatigue, fire or load ` +
+      `${STRESSES_ONLY}; EN 1993 and AISC 360: the member checks its sweep page lists); none covers connections, fatigue, fire or load ` +
       `combinations. ${VERIFY}`
     );
   }
@@ -35,6 +37,35 @@ export function cautionText(p?: CautionBasis | null, scope: "bench" | "project" 
     return (
       "Sparwise is a sizing aid. The section bench computes section properties and elastic stresses only; it checks no " +
       `resistance, stability, connection, fatigue or fire. ${VERIFY}`
+    );
+  }
+  if (p.basis === "aisc360") {
+    const stiffened = p.supports?.stiffened !== false;
+    const covers = [
+      "width-to-thickness classification (AISC 360-16 Table B4.1b, welded flanges with kc)",
+      "Chapter F flexure (yielding, flange and web local buckling, tension flange yielding, tee stems)",
+      p.restraint ? "lateral-torsional buckling over the stated unbraced length Lb with Cb" : null,
+      "shear by G2.1 (G3 for tees, G4 for boxes) without tension field action",
+      "the flange-to-web fillet welds (J2, Table J2.4 minimum size)",
+      stiffened ? null : "web local yielding and web crippling at an end support (J10.2, J10.3)",
+      p.deflection ? "deflection" : null,
+      p.slenderness && Object.keys(p.slenderness).length ? "the slenderness limits given" : null,
+    ].filter(Boolean);
+    const notCovered = [
+      p.restraint ? null : "lateral-torsional buckling (the compression flange is taken as braced throughout)",
+      stiffened ? "web local yielding or crippling at supports (bearing stiffeners are assumed there and must be provided)" : null,
+      "box sections with slender webs and channels with noncompact webs (excluded)",
+      "tension field action",
+      "connections",
+      "fatigue",
+      "fire",
+      "load combinations",
+      "torsion",
+    ].filter(Boolean);
+    return (
+      `Sparwise is a sizing aid. On the AISC 360-16 basis (${p.method === "ASD" ? "ASD: available strength Rn/Ω" : p.method === "LRFD" ? "LRFD: available strength φRn" : "ASD or LRFD"}) its checks cover only ${covers.join(", ")}; ` +
+      `they do not cover ${notCovered.join(", ")}, and they make the choices stated in the record ` +
+      `(equations marked "mem." recalled from memory, shear of bars by G2-1's expression, the weld leg at most the thinner part joined). ${VERIFY}`
     );
   }
   if (p.basis === "en1993") {

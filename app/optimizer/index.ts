@@ -14,6 +14,7 @@ export { bruteForceSearch } from "./brute-force";
 export { restraintStudy, MAX_STUDY_DIVISIONS, type RestraintStudyPoint, type RestraintStudyResult, type RestraintStudyOptions } from "./restraint-study";
 export { candidateChecks, recordLines, designBasis, CHECK_CLAUSES, CHECK_UNITS, type CheckResult, type CheckUnit, type CandidateVerdict, type DesignBasisModule, type RecordLine } from "./checks";
 export { chiLT, phiLT } from "./basis/en1993";
+export { cbFromMoments, minFilletLeg, AISC_FACTORS } from "./basis/aisc360";
 export { STABILITY_FAMILIES } from "./stability";
 export type * from "./design-types";
 export * from "./units";

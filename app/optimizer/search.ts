@@ -182,7 +182,7 @@ import { searchProblemSchema, type SearchProblemInput } from "./search-schema";
 import * as en1993 from "./basis/en1993";
 import type { En1993Context, En1993Scratch } from "./basis/en1993";
 import * as aisc from "./basis/aisc360";
-import type { AiscContext } from "./basis/aisc360";
+import type { AiscContext, AiscScratch } from "./basis/aisc360";
 import * as stability from "./stability";
 
 export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
@@ -190,10 +190,10 @@ export type { SearchOptions, SearchResult, SearchCandidate } from "./grid";
 // Local copies of imported bindings: module transforms (tsx, vite-node) turn each access to an
 // imported name into a getter call, which costs more than the arithmetic in these loops.
 const { compositeKernel, plateQAbove, plateWidthAt, plateNeutralAxis, plateModulusAbout, KERNEL_OUT, K_AREA, K_CY, K_IY, K_IZ, K_MAXY, K_MINY, PLATE_STRIDE } = composite;
-const { C_BEND, C_CLASS4, C_COMP, C_DEFL, C_LTB, C_SHEAR, C_TENS, C_VB, C_VPL, C_WELD } = fkm;
+const { C_BEARING, C_BEND, C_CLASS4, C_COMP, C_DEFL, C_LTB, C_SHEAR, C_TENS, C_VB, C_VPL, C_WELD } = fkm;
 const { chiLT, criticalMoment, fyFor, loadHeight, ltbCurveC, ALPHA_LT_C, ALPHA_LT_D, EL_WEB, MIN_WELD_THROAT } = en1993;
 const { stabilityKernel, ST_BETA, ST_CW, ST_H0, ST_J, ST_OUT, ST_SCY } = stability;
-const { flexureGamma, ltbUpperI } = aisc;
+const { bendUpperI, flexureGamma, ltbUpperI } = aisc;
 const evaluate = evaluateCandidate,
   objectiveOf = plateObjective;
 
@@ -613,7 +613,7 @@ class FamilySearch {
     }
     if (this.us) {
       k = this.enZStart(k, kHi, cap);
-      if (k >= 0 && this.us.restraint && this.fk.family === "i") k = this.skipOut(OUT_LTB_US, k, kHi, cap);
+      if (k >= 0 && this.fk.family === "i") k = this.skipOut(OUT_LTB_US, k, kHi, cap);
       return k;
     }
     if (ctx.hasShear && ctx.V > 0 && this.sym) {
@@ -826,37 +826,40 @@ class FamilySearch {
   }
 
   /**
-   * (U2) True when no point of an i row's range [k1, k2] (b from W[k1] to W[k2]) can have its LTB
-   * utilisation ≤ cap: M·γ > cap·ltbUpperI(properties at both ends), the upper bound on Mn over
-   * the range proven in the header.
+   * (U2), (U4) True when no point of an i row's range [k1, k2] (b from W[k1] to W[k2]) can have
+   * its bending-resistance and LTB utilisations ≤ cap: M·γ > cap·min(bendUpperI, ltbUpperI) with
+   * the properties at both ends (upper bounds on Mn over the range, proven in aisc360.ts).
    */
   usLtbOutRow(k1: number, k2: number, cap: number): boolean {
-    const fk = this.fk,
-      v = this.v,
+    const v = this.v,
       W = this.W,
-      f = fk.free,
-      n = fk.nPlates,
-      ko = this.kout,
-      st = this.st,
       lo = this.usLo,
       hi = this.usHi;
+    // family i in closed form (rectangles, engine contract): A, Iz, Iy, J (Σ long·short³/3, as
+    // stability.ts), Cw = tf·b³·h0²/24, Zx about mid-depth
+    const d = v[0],
+      tf = v[2],
+      tw = v[3],
+      h = d - 2 * tf,
+      h0 = d - tf;
     for (let end = 0; end < 2; end++) {
       const o = end === 0 ? lo : hi;
-      v[f] = W[end === 0 ? k1 : k2];
-      fk.fill(v, this.pHi);
-      compositeKernel(this.pHi, n, ko);
-      stabilityKernel(fk.family, v, st);
-      const d = ko[K_MAXY];
-      o[0] = ko[K_AREA];
-      o[1] = ko[K_IZ];
-      o[2] = ko[K_IY];
-      o[3] = st[ST_J];
-      o[4] = st[ST_CW];
-      o[5] = plateModulusAbout(this.pHi, n, 0.5 * d);
-      o[6] = v[f];
+      const b = W[end === 0 ? k1 : k2];
+      o[0] = 2 * b * tf + h * tw;
+      o[1] = (b * d * d * d - (b - tw) * h * h * h) / 12;
+      o[2] = (2 * tf * b * b * b + h * tw * tw * tw) / 12;
+      o[3] = (2 * (b > tf ? b * tf * tf * tf : tf * b * b * b) + (h > tw ? h * tw * tw * tw : tw * h * h * h)) / 3;
+      o[4] = (tf * b * b * b * h0 * h0) / 24;
+      o[5] = b * tf * h0 + (tw * h * h) / 4;
+      o[6] = b;
     }
     const M = Math.max(this.ctx.Ms, this.ctx.Mh);
-    const ub = ltbUpperI(this.us!, v[0], v[2], v[3], lo, hi);
+    const e = this.us!;
+    let ub = bendUpperI(e, d, tf, tw, lo, hi);
+    if (e.restraint) {
+      const l = ltbUpperI(e, d, tf, tw, lo, hi);
+      if (l < ub) ub = l;
+    }
     return M * this.enGamma > ub * cap * (1 + REL);
   }
   readonly usLo = new Float64Array(8);
@@ -1001,6 +1004,31 @@ class FamilySearch {
     for (let i = 0; i < x.nEl; i++) {
       if (x.elClass[i] !== 4) continue;
       if (fam !== "mono-i" || x.elName[i] !== EL_WEB || x.elUnder[i] === 1) return true;
+    }
+    return false;
+  }
+
+  /**
+   * (U3) After a failed evaluation under AISC 360: true when every wider point of the row fails
+   * too. class-4 (aisc360.ts: web h/tw over 260, a channel's noncompact web, a box's slender web)
+   * and J10 (tw, the bottom flange's tf, d, lb, Fy) depend on the row's fixed plates only; so does
+   * shear (Aw = d·tw or 2·h·tw, h/tw, Cv) except for the bar (Aw = b·d). The weld for i, channel
+   * and box: Qf/Iz = c·b/(a·b + e) with a, c, e > 0 fixed along the row rises with b, so q and the
+   * leg needed rise, against the same Table J2.4 minimum and the same thinner part joined.
+   */
+  usFailEndsRow(s: Scratch): boolean {
+    const g = s.governing,
+      fam = this.fk.family;
+    if (g === C_CLASS4 || g === C_BEARING) return true;
+    if (g === C_VPL || g === C_VB) return fam !== "rectangle";
+    if (g === C_WELD) return fam === "i" || fam === "channel" || fam === "box";
+    if (g === C_BEND && fam === "i") {
+      // (U3) a slender flange's local buckling, F3-2 / F4-14: 0.9·E·kc·Sx/λ² with λ = b/(2·tf),
+      // Sx = 2·(a·b + c)/d affine in b and kc fixed (h/tw fixed): Sx/b² falls as b grows
+      // (derivative −(a·b + 2c)/b³), and λ > λr stays so; F5's Rpg rises with b, so not F5
+      const x = s.us as AiscScratch;
+      const w = x.f[0].on ? x.f[0] : x.f[1];
+      return w.fCls === 2 && (w.sec === 1 || w.sec === 2) && w.MnLocal === w.flb;
     }
     return false;
   }
@@ -1335,7 +1363,7 @@ class FamilySearch {
       } else offerFeasible(this.t, c); // the rest of the row is heavier
     } else {
       this.t.ruledOut[s.governing]++;
-      if (k < kHi && !(this.en && this.enFailEndsRow(s))) this.pushReady(id, k + 1, kHi, 1);
+      if (k < kHi && !(this.en ? this.enFailEndsRow(s) : this.us !== null && this.usFailEndsRow(s))) this.pushReady(id, k + 1, kHi, 1);
     }
   }
 

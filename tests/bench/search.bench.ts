@@ -74,6 +74,25 @@ const checksOn: SearchProblemInput = {
   slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
 };
 compare("(2a) same i grid with shear and slenderness limits on", checksOn, 1000, false);
+// (2c) the same i grid under AISC 360-16 (issue 14), Lb = 6 m: target the same best as brute
+// force, under 0.5 s and at most a tenth of brute force's time. The fast search runs in best mode
+// (front "evaluated": best and bestByFamily proven, the front over what it evaluated).
+// Brute force over 10⁷ AISC evaluations takes minutes, so it runs for ASD only; LRFD is timed alone.
+let bruteAsd: [SearchResult, number] | null = null;
+for (const method of ["ASD", "LRFD"] as const) {
+  const aisc: SearchProblemInput = { ...base, allowable: undefined, basis: "aisc360", method, aisc: { grade: "A572 Gr 50" }, shear: 600, restraint: { length: 6, Cb: 1.14 } };
+  const [fast, tf] = timeMedian(() => searchSections(aisc, { front: "evaluated" }), 3);
+  if (method === "LRFD") {
+    console.log(`\n(2c) same i grid under AISC 360-16 LRFD: fast ${tf.toFixed(1)} ms, evaluated ${fast.counts.evaluated.toLocaleString("en")}; best ${desc(fast)}; fast < 500 ms: ${verdict(tf < 500)}`);
+    continue;
+  }
+  bruteAsd = time(() => bruteForceSearch(aisc));
+  const [brute, tb] = bruteAsd;
+  console.log(`\n(2c) same i grid under AISC 360-16 ${method}, A572 Gr 50, Lb = 6 m, Cb = 1.14, shear 600 kN`);
+  console.log(`  fast : ${tf.toFixed(1)} ms, evaluated ${fast.counts.evaluated.toLocaleString("en")}; best ${desc(fast)}`);
+  console.log(`  brute: ${tb.toFixed(0)} ms, evaluated ${brute.counts.evaluated.toLocaleString("en")}; best ${desc(brute)}`);
+  console.log(`  same best: ${same(fast, brute) ? "yes" : "NO"}; fast/brute = ${(tf / tb).toFixed(4)} (target ≤ 0.1: ${verdict(tf <= 0.1 * tb)}); fast < 500 ms: ${verdict(tf < 500)}`);
+}
 {
   const all: SearchProblemInput = { ...checksOn, families: ["i", "channel", "tee", "box", "channel-down", "angle", "rectangle", "mono-i"] };
   const [r, t] = timeMedian(() => searchSections(all, { front: "evaluated" }), 3);

@@ -418,8 +418,7 @@ function flexI(
     const MpC = Math.min(Mp, 1.6 * Myc),
       MpT = Math.min(Mp, 1.6 * Myt);
     const big = Iyc / Iy > 0.23;
-    const rp = (mp: number, my: number) => (!big ? 1 : lamW <= lpw ? mp / my : Math.min(mp / my, mp / my - (mp / my - 1) * ((lamW - lpw) / (lrw - lpw))));
-    w.Rpc = rp(MpC, Myc);
+    w.Rpc = rpOf(big, lamW, lpw, lrw, MpC, Myc);
     const RM = w.Rpc * Myc;
     w.yld = RM; // F4-1 (compression flange yielding)
     // F4.3 FLB: F4-13 (noncompact), F4-14 (slender)
@@ -427,7 +426,7 @@ function flexI(
     else if (w.fCls === 2) w.flb = (0.9 * E * kc * Sxc) / (lamF * lamF);
     // F4.4 tension flange yielding when Sxt < Sxc: F4-15
     if (Sxt < Sxc) {
-      w.Rpt = rp(MpT, Myt);
+      w.Rpt = rpOf(big, lamW, lpw, lrw, MpT, Myt);
       w.tfy = w.Rpt * Myt;
     }
     if (ltbOn) {
@@ -490,6 +489,14 @@ function flexI(
   }
 }
 
+/** F4-9a/b, F4-10 (Rpc) and F4-16a/b, F4-17 (Rpt): 1 when Iyc/Iy ≤ 0.23; else Mp/My, falling linearly to 1 at λrw. */
+function rpOf(big: boolean, lam: number, lpw: number, lrw: number, mp: number, my: number): number {
+  if (!big) return 1;
+  if (lam <= lpw) return mp / my;
+  const r = mp / my - (mp / my - 1) * ((lam - lpw) / (lrw - lpw));
+  return r < mp / my ? r : mp / my;
+}
+
 /** F4-11: rt = bfc/√(12·(h0/d + aw·h²/(6·h0·d))), aw = hc·tw/(bfc·tfc) (F4-12). */
 export function rtOf(bc: number, tc: number, hc: number, tw: number, h: number, h0: number, d: number): number {
   const aw = (hc * tw) / (bc * tc);
@@ -514,6 +521,103 @@ export function rtOf(bc: number, tc: number, hc: number, tw: number, h: number, 
  * and at most the zone's cap (Mp, Rpc·Myc, Rpg·Fy·Sx) at its upper bound. Lr rises with rts (rt)
  * and J/(Sx·h0) (F2-6, F4-8), F5-5 with rt: interval ends give its bounds.
  */
+/**
+ * search.ts (U4): an upper bound on the "bending-resistance" strength (every Chapter F limit state
+ * but LTB) of every welded i of one row, with lo/hi as ltbUpperI's. The web's section is fixed
+ * along the row. Yielding: F2-1 Mp = Fy·Zx; F4-1 Rpc·Myc ≤ Mp·(1 − t) + Myc·t (t fixed by h/tw,
+ * F4-9b, and ≥ Myc for F4-10's Rpc = 1); F5-1 Rpg·Fy·Sx: each rises with b, so at hi. Flange local
+ * buckling, by the classes λ = b/(2tf) (rising in b, against fixed λp, λr) takes in the range:
+ * compact none; noncompact F3-1 / F4-13 / F5-8: Mmax − (Mmax − Mr)·(λ − λp)/(λr − λp) ≤ Mmax at hi
+ * − min over the ends of (Mmax − Mr) (affine in b, or for F4 a least of affine terms, concave: its
+ * least is at an end) × (λ at lo, not below λp, − λp)/(λr − λp); slender F3-2 / F4-14 / F5-9
+ * 0.9·E·kc·Sx/λ² ≤ that with Sx at hi and λ = max(λ at lo, λr). The least of the yielding and
+ * FLB bounds bounds the least of the limit states.
+ */
+/** Rpc·Myc of F4-9b for a doubly symmetric I: min(Fy·Zx, 1.6·My)·(1 − t) + My·t (≥ My, as Zx ≥ Sx). */
+function rpcMyc(Fy: number, t: number, Zx: number, Sx: number): number {
+  const my = Fy * Sx,
+    mp = Math.min(Fy * Zx, 1.6 * my);
+  return mp * (1 - t) + my * t;
+}
+
+export function bendUpperI(e: AiscContext, d: number, tf: number, tw: number, lo: Float64Array, hi: Float64Array): number {
+  const E = e.E,
+    Fy = e.Fy,
+    re = Math.sqrt(E / Fy);
+  const h = d - 2 * tf;
+  const lamW = h / tw;
+  const SxLo = (2 * lo[1]) / d,
+    SxHi = (2 * hi[1]) / d;
+  let kc = 4 / Math.sqrt(h / tw);
+  kc = kc < 0.35 ? 0.35 : kc > 0.76 ? 0.76 : kc;
+  const FL = 0.7 * Fy;
+  const lp = 0.38 * re,
+    lr = 0.95 * Math.sqrt((kc * E) / FL);
+  const lamLo = lo[6] / (2 * tf),
+    lamHi = hi[6] / (2 * tf);
+  // yielding (MaxHi) and the FLB expression's Mmax − Mr at each end
+  let yHi: number, dLo: number, dHi: number, scale: number;
+  let f5 = false;
+  if (lamW <= 3.76 * re) {
+    yHi = Fy * hi[5];
+    dLo = Fy * lo[5] - 0.7 * Fy * SxLo;
+    dHi = Fy * hi[5] - 0.7 * Fy * SxHi;
+    scale = 1;
+  } else if (lamW <= 5.7 * re) {
+    const t = (lamW - 3.76 * re) / (5.7 * re - 3.76 * re);
+    yHi = Math.max(Fy * hi[5] * (1 - t) + Fy * SxHi * t, Fy * SxHi);
+    dLo = rpcMyc(Fy, t, lo[5], SxLo) - FL * SxLo;
+    dHi = rpcMyc(Fy, t, hi[5], SxHi) - FL * SxHi;
+    scale = 1;
+  } else {
+    f5 = true;
+    let aw = (h * tw) / (hi[6] * tf);
+    if (aw > 10) aw = 10;
+    let Rpg = 1 - (aw / (1200 + 300 * aw)) * (h / tw - 5.7 * re);
+    if (Rpg > 1) Rpg = 1;
+    scale = Rpg * SxHi;
+    yHi = scale * Fy;
+    dLo = dHi = 0;
+  }
+  if (lamHi <= lp) return yHi;
+  let flb = -Infinity;
+  if (lamLo <= lr) {
+    const lam = lamLo > lp ? lamLo : lp;
+    const frac = (lam - lp) / (lr - lp);
+    flb = f5 ? scale * (Fy - 0.3 * Fy * frac) : yHi - Math.min(dLo, dHi) * frac;
+  }
+  if (lamHi > lr) {
+    const lam = lamLo > lr ? lamLo : lr;
+    const sl = f5 ? scale * ((0.9 * E * kc) / (lam * lam)) : (0.9 * E * kc * SxHi) / (lam * lam);
+    if (sl > flb) flb = sl;
+  }
+  if (lamLo <= lp) return yHi; // some point of the range is compact: no FLB there
+  return flb < yHi ? flb : yHi;
+}
+
+/** F2-3/F2-4 (F4-3/F4-5) as Cb·π²E/Lb²·√(P² + 0.078·J·Lb²·P/h0), rising in P and J. */
+function elasticUb(E: number, Lb: number, Cb: number, h0: number, P: number, J: number): number {
+  return ((Cb * PI2 * E) / (Lb * Lb)) * Math.sqrt(P * P + (0.078 * J * Lb * Lb * P) / h0);
+}
+
+/** F2-6 / F4-8 with r = rts or rt, j = J·c/(Sx·h0), FL = 0.7·Fy or F4-6's. */
+function lrOf(E: number, r: number, j: number, FL: number): number {
+  const k = FL / E;
+  return 1.95 * r * (E / FL) * Math.sqrt(j + Math.sqrt(j * j + 6.76 * k * k));
+}
+
+/** The larger of the zones' bounds that some point of the range may be in, at most Mmax (ltbUpperI). */
+function combine(Lb: number, Cb: number, Mmax: number, Mr: number, LpHi: number, LrLo: number, LrHi: number, el: number): number {
+  if (Lb <= LpHi) return Infinity;
+  let ub = -Infinity;
+  if (Lb <= LrHi) {
+    const r = (Lb - LpHi) / (LrHi - LpHi);
+    ub = Cb * (Mmax * (1 - r) + Mr * r);
+  }
+  if (Lb > LrLo && el > ub) ub = el;
+  return ub < Mmax ? ub : Mmax;
+}
+
 export function ltbUpperI(e: AiscContext, d: number, tf: number, tw: number, lo: Float64Array, hi: Float64Array): number {
   const E = e.E,
     Fy = e.Fy,
@@ -527,21 +631,6 @@ export function ltbUpperI(e: AiscContext, d: number, tf: number, tw: number, lo:
     SxHi = (2 * hi[1]) / d;
   const JLo = lo[3],
     JHi = hi[3];
-  const elastic = (P: number, J: number) => ((Cb * PI2 * E) / (Lb * Lb)) * Math.sqrt(P * P + (0.078 * J * Lb * Lb * P) / h0);
-  const lrOf = (r: number, j: number, FL: number) => {
-    const k = FL / E;
-    return 1.95 * r * (E / FL) * Math.sqrt(j + Math.sqrt(j * j + 6.76 * k * k));
-  };
-  const combine = (Mmax: number, Mr: number, LpHi: number, LrLo: number, LrHi: number, el: number): number => {
-    if (Lb <= LpHi) return Infinity;
-    let ub = -Infinity;
-    if (Lb <= LrHi) {
-      const r = (Lb - LpHi) / (LrHi - LpHi);
-      ub = Cb * (Mmax * (1 - r) + Mr * r);
-    }
-    if (Lb > LrLo && el > ub) ub = el;
-    return ub < Mmax ? ub : Mmax;
-  };
   if (lamW <= 3.76 * re) {
     // F2 (and F3: the same LTB)
     const MpHi = Fy * hi[5];
@@ -550,13 +639,12 @@ export function ltbUpperI(e: AiscContext, d: number, tf: number, tw: number, lo:
       PHi = Math.sqrt(hi[2] * hi[4]);
     const rtsLo = Math.sqrt(PLo / SxHi),
       rtsHi = Math.sqrt(PHi / SxLo);
-    const LrLo = lrOf(rtsLo, JLo / (SxHi * h0), 0.7 * Fy),
-      LrHi = lrOf(rtsHi, JHi / (SxLo * h0), 0.7 * Fy);
-    return combine(MpHi, 0.7 * Fy * SxHi, LpHi, LrLo, LrHi, elastic(PHi, JHi));
+    const LrLo = lrOf(E, rtsLo, JLo / (SxHi * h0), 0.7 * Fy),
+      LrHi = lrOf(E, rtsHi, JHi / (SxLo * h0), 0.7 * Fy);
+    return combine(Lb, Cb, MpHi, 0.7 * Fy * SxHi, LpHi, LrLo, LrHi, elasticUb(E, Lb, Cb, h0, PHi, JHi));
   }
-  const rtOfB = (b: number) => rtOf(b, tf, h, tw, h, h0, d);
-  const rtLo = rtOfB(lo[6]),
-    rtHi = rtOfB(hi[6]);
+  const rtLo = rtOf(lo[6], tf, h, tw, h, h0, d),
+    rtHi = rtOf(hi[6], tf, h, tw, h, h0, d);
   const LpHi = 1.1 * rtHi * re;
   if (lamW <= 5.7 * re) {
     // F4: Rpc·Myc = Mp(1 − t) + Myc·t with t fixed by the web (F4-9b), rising in Mp and Myc
@@ -567,9 +655,9 @@ export function ltbUpperI(e: AiscContext, d: number, tf: number, tw: number, lo:
     const MpHi = Math.min(Fy * hi[5], 1.6 * MycHi);
     const RM = Math.max(MpHi * (1 - t) + MycHi * t, MycHi);
     const FL = 0.7 * Fy;
-    const LrLo = lrOf(rtLo, JLo / (SxHi * h0), FL),
-      LrHi = lrOf(rtHi, JHi / (SxLo * h0), FL);
-    return combine(RM, FL * SxHi, LpHi, LrLo, LrHi, elastic(SxHi * rtHi * rtHi, JHi));
+    const LrLo = lrOf(E, rtLo, JLo / (SxHi * h0), FL),
+      LrHi = lrOf(E, rtHi, JHi / (SxLo * h0), FL);
+    return combine(Lb, Cb, RM, FL * SxHi, LpHi, LrLo, LrHi, elasticUb(E, Lb, Cb, h0, SxHi * rtHi * rtHi, JHi));
   }
   // F5: Mn = Rpg·Fcr·Sx with Fcr ≤ Fy
   let aw = (h * tw) / (hi[6] * tf);
@@ -1278,10 +1366,4 @@ export const aisc360Basis: DesignBasisModule = {
   design,
   recordLines,
   clauses: AISC_CLAUSES,
-  caution: {
-    checks:
-      "AISC 360-16 member checks (ASD or LRFD) on the brief's required strengths: Table B4.1b classification, Chapter F flexure (yielding, local buckling, lateral-torsional buckling over Lb with Cb), G2 shear without tension field, flange-to-web fillet welds (J2), web local yielding and crippling at unstiffened supports (J10.2, J10.3), deflection and the brief's slenderness limits",
-    notChecked:
-      "box sections with slender webs and channels with noncompact webs (outside this version), tension field action, bearing stiffeners (assumed where the brief says so), torsion, connections, fatigue, fire, load combinations (the actions are taken as given)",
-  },
 };

@@ -110,10 +110,6 @@ export const allowableBasis: DesignBasisModule = {
       lines.push({ clause: c.name, text: `${WORDS[c.name] ?? c.name}: ${fmt(c.demand)} against ${fmt(c.capacity)}, utilisation ${c.utilisation.toFixed(3)}` });
     return lines;
   },
-  caution: {
-    checks: "elastic bending and shear stresses against the brief's allowable stresses, the brief's slenderness limits and the deflection limit",
-    notChecked: "stresses only: no stability checks (lateral-torsional buckling, local and shear buckling), no connections, web crippling, fatigue, fire or load combinations",
-  },
 };
 
 function fmt(x: number): string {

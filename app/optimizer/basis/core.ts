@@ -161,6 +161,4 @@ export interface DesignBasisModule {
   recordLines(verdict: { checks: { name: CheckName; demand: number; capacity: number; utilisation: number }[]; design?: DesignBlock; aisc?: AiscDesign }): RecordLine[];
   /** The clause shown beside a check where this basis's differs from CHECK_CLAUSES (checks.ts). */
   clauses?: Partial<Record<CheckName, string>>;
-  /** What the basis checks and what it does not, for the caution shown with its results. */
-  caution: { checks: string; notChecked: string };
 }

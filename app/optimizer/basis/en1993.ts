@@ -823,10 +823,4 @@ export const en1993Basis: DesignBasisModule = {
   evaluate,
   design,
   recordLines,
-  caution: {
-    checks:
-      "EN 1993-1-1 and EN 1993-1-5 member checks on the brief's design actions: classification, bending, lateral-torsional buckling over the restraint length, shear and shear buckling, bending with shear, the flange-to-web weld throat, patch loading at unstiffened supports, deflection and the brief's slenderness limits",
-    notChecked:
-      "class 4 sections, web crippling at stiffened supports (stiffeners assumed), connections, fatigue, fire, load combinations (the actions are taken as given), torsion from eccentric loads",
-  },
 };
