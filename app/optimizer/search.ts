@@ -123,6 +123,12 @@
 //       point may sit in the plastic zone (no LTB check). The bound grows with the range, so
 //       "every point of [k, m] fails" is monotone in m: bisection as (E2). Precision: compared
 //       with the 1e-9 relative margin, like every other bound.
+//   (U3) After a failed evaluation the rest of the row is dropped when the cause cannot improve as
+//       the free width grows (usFailEndsRow, proof there): class-4 (web only), J10, shear (not the
+//       bar), the weld of i, channel and box, and an i's slender-flange local buckling (F3-2/F4-14).
+//   (U4) Family i's "bending-resistance" over a range of widths: aisc360.ts bendUpperI (yielding
+//       by the row's fixed web section, flange local buckling by the flange classes the range
+//       holds; proof in its comment), combined with (U2) in one bisection.
 //   Shear, welds and J10 are not used to bound (they only make more points infeasible).
 // - Best mode also cuts each row, and each mono-i box, to the points no heavier than the
 //   incumbent (the objective is affine in each width) before bounding them.
