@@ -3,29 +3,10 @@
 // EN 1993 basis; the engineer states the restraint length, runs it, and the sweep page shows
 // the section's class, Mcr and χLT, the restraint study and the EN 1993 caution; the option's
 // calculation record works the checks through. Screenshots go to tests/artifacts/screenshots.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, test } from "vitest";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function signIn(email: string, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
+const { signIn } = browserForFile();
 
 test("EN 1993 floor beam: brief → sweep with class, Mcr, χLT and the restraint study → record", async () => {
   const eng = await signIn("engineer@tallowfield.example", "/projects");

@@ -1,3 +1,4 @@
+import { afterAll, beforeAll, inject } from "vitest";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { mkdirSync } from "node:fs";
 import path from "node:path";
@@ -28,4 +29,33 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const file = path.join(SCREENSHOT_DIR, `${name}.png`);
   await page.screenshot({ path: file, fullPage: true });
   return file;
+}
+
+/**
+ * One browser for the calling test file, launched before its tests and closed after them, and
+ * `signIn(email, next)`: a fresh context (its own cookies) signed in with the demo password through
+ * the sign-in form, waiting until it lands on `next`. Call once at the top of a test file.
+ */
+export function browserForFile(): { signIn: (email: string, next?: string) => Promise<Page> } {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return {
+    async signIn(email: string, next = "/"): Promise<Page> {
+      if (!browser) throw new Error("browserForFile: signIn called before the browser started (call it inside a test)");
+      const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+      const page = await ctx.newPage();
+      page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
+      await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
+      await page.getByLabel("E-mail address").fill(email);
+      await page.getByLabel("Password").fill("sparwise-demo");
+      await page.getByRole("button", { name: "Sign in" }).click();
+      await page.waitForURL((u) => u.pathname === next);
+      return page;
+    },
+  };
 }

@@ -2,29 +2,10 @@
 // in one number field does not hide the others); no field paths or engine names on the pages; a
 // brief with no feasible section shows each family's nearest miss and what it would take, and
 // offers no empty CSV.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, test } from "vitest";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function signIn(email: string, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
+const { signIn } = browserForFile();
 
 /** A field path as the engine writes them ("moment.sagging", "plates[3]"), or an engine family or check name. */
 const RAW = /\b(moment|allowable|depth|width|deflection|slenderness|steel|restraint|supports|fabrication)\.[a-z]|\b[a-z]+\[\d+\]|objective "|\bbending-(compression|tension)\b|\bchannel-down\b|\bmono-i\b/;

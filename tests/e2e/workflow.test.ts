@@ -2,29 +2,11 @@
 // in-process queue workers really search), reads the chart, compares candidates, saves an
 // option and asks for review; the demo reviewer rechecks with lower allowables, compares,
 // approves, and prints the calculation record. Screenshots go to tests/artifacts/screenshots.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, inject, test } from "vitest";
+import type { Page } from "playwright-core";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function signIn(email: string, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
+const { signIn } = browserForFile();
 
 /** Waits for a finished sweep's results on its page (the page polls and reloads its data in place). */
 async function waitForResults(page: Page) {
@@ -46,7 +28,8 @@ test("engineer → sweep → option → review; reviewer → recheck → approve
   // New briefs start on the EN 1993 basis; this story sizes by allowable stresses.
   await eng.getByLabel(/^Allowable stresses/).check();
   await eng.getByLabel("I (equal flanges)").check();
-  await eng.getByLabel("Tee").check();
+  // exact: the catalogue shapes below the families include "tee, parallel flange"
+  await eng.getByRole("checkbox", { name: "Tee", exact: true }).check();
   // The preview is computed in the browser from the same schema and engine.
   await eng.getByTestId("grid-size").waitFor();
   await expect(eng.getByTestId("grid-size").textContent()).resolves.toMatch(/Grid: .* shapes/);
