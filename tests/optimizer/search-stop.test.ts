@@ -4,7 +4,8 @@ import { describe, expect, it } from "vitest";
 import { CONTRACT_EXAMPLE_PROBLEM, searchSections, type SearchProblemInput } from "~/optimizer";
 
 // Fine steps so each family takes many thousand heap steps (the stop is asked every 4096).
-// the options sweeps run with (sweep-search.server.ts): family by family, front over what was evaluated
+// the sweeps' options before they asked for the grid front (sweep-search.server.ts now passes front
+// "grid", the {} case below): family by family, front over what was evaluated
 const SWEEP = { explore: 0.25 };
 const FINE: SearchProblemInput = { ...CONTRACT_EXAMPLE_PROBLEM, depth: { min: 100, max: 600, step: 1 }, width: { min: 50, max: 400, step: 1 } };
 
@@ -41,5 +42,21 @@ describe("searchSections with stopWhen", () => {
     expect(r.best!.utilisation).toBeLessThanOrEqual(1);
     expect(r.best!.area).toBeGreaterThanOrEqual(exact.best!.area * (1 - 1e-12));
     expect(r.counts.evaluated).toBeLessThan(exact.counts.evaluated);
-  });
+  }, 30_000);
+
+  it("stopped part way in the grid front (what sweeps run): no front or context claimed for the grid, any best found is feasible and no lighter than the proven best", () => {
+    const exact = searchSections(FINE);
+    let asked = 0;
+    // one heap over every family: asked before the first step, then every 4096 heap steps
+    const r = searchSections(FINE, { stopWhen: () => ++asked > 2 });
+    expect(r.stoppedEarly).toBe(true);
+    expect(r.frontScope).toBe("evaluated");
+    expect(r.context).toBeUndefined();
+    expect(r.counts.evaluated).toBeLessThan(exact.counts.evaluated);
+    for (const c of r.front) expect(c.utilisation).toBeLessThanOrEqual(1);
+    if (r.best) {
+      expect(r.best.utilisation).toBeLessThanOrEqual(1);
+      expect(r.best.area).toBeGreaterThanOrEqual(exact.best!.area * (1 - 1e-12));
+    } else expect(r.reason).toMatch(/stopped before it found/);
+  }, 30_000);
 });
