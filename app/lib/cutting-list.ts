@@ -8,6 +8,7 @@
 // as sections, not cut), are left out and counted in `skipped`.
 // Widths ordered and prices: orderCuttingList below.
 import Papa from "papaparse";
+import { z } from "zod";
 import { plainNumbers } from "~/lib/plain-numbers";
 import { familyPlates, type Family } from "~/optimizer/geometry";
 
@@ -73,12 +74,6 @@ export function cuttingList(rows: CuttingInput[]): { groups: ThicknessGroup[]; t
   const sorted = [...groups.values()].sort((a, b) => a.thickness - b.thickness);
   for (const g of sorted) g.plates.sort((a, b) => a.width - b.width || a.lengthM - b.lengthM);
   return { groups: sorted, totalMass: sorted.reduce((a, g) => a + g.mass, 0), skipped };
-}
-
-export const CUTTING_CSV_FIELDS = ["thickness_mm", "width_mm", "length_m", "count", "mass_kg"] as const;
-
-export function cuttingListCsv(list: ReturnType<typeof cuttingList>): string {
-  return Papa.unparse({ fields: [...CUTTING_CSV_FIELDS], data: plainNumbers(list.groups.flatMap((g) => g.plates.map((p) => [p.thickness, p.width, p.lengthM, p.count, p.mass]))) }) + "\n";
 }
 
 // ---- Ordering and cost (the printable cutting list) ----
@@ -168,3 +163,23 @@ export function orderCuttingList(list: ReturnType<typeof cuttingList>, stock: St
     skipped: list.skipped,
   };
 }
+
+export const CUTTING_CSV_FIELDS = ["thickness_mm", "width_mm", "length_m", "count", "mass_kg", "order_width_mm", "order_count", "order_mass_kg", "price_per_kg", "cost", "currency"] as const;
+
+/** One line per cut plate; the order columns blank where no width is ordered or no price known. */
+export function cuttingListCsv(list: OrderedList, currency = ""): string {
+  const blank = (x: number | null) => (x == null ? "" : x);
+  const data = list.groups.flatMap((g) =>
+    g.plates.map((p) => [p.thickness, p.width, p.lengthM, p.count, p.mass, blank(p.orderWidth), blank(p.orderCount), p.orderMass, blank(p.pricePerKg), blank(p.cost), p.cost == null ? "" : currency]),
+  );
+  return Papa.unparse({ fields: [...CUTTING_CSV_FIELDS], data: plainNumbers(data) }) + "\n";
+}
+
+/** ?stock=ID: the team's stock list to order widths from (absent or empty: none). */
+export const cuttingListQuery = z.object({
+  stock: z
+    .string()
+    .regex(/^(|[1-9]\d{0,9})$/, "stock: choose one of the team's stock lists")
+    .optional()
+    .transform((v) => (v ? Number(v) : undefined)),
+});

@@ -1,5 +1,5 @@
 import { Form, Link } from "react-router";
-import { z } from "zod";
+import { cuttingListQuery } from "~/lib/cutting-list";
 import type { Route } from "./+types/projects.$projectId.cutting-list";
 import { requirePermission } from "~/lib/auth.server";
 import { idParam } from "~/lib/route-params";
@@ -10,17 +10,9 @@ export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Plate cutting list · ${data?.project.name ?? ""} · Sparwise` }];
 }
 
-const query = z.object({
-  stock: z
-    .string()
-    .regex(/^(|[1-9]\d{0,9})$/, "stock: choose one of the team's stock lists")
-    .optional()
-    .transform((v) => (v ? idParam(v) : undefined)),
-});
-
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
-  const q = query.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  const q = cuttingListQuery.safeParse(Object.fromEntries(new URL(request.url).searchParams));
   if (!q.success) throw new Response(q.error.issues[0]!.message, { status: 400, headers: { "Content-Type": "text/plain; charset=utf-8" } });
   return projectCuttingList(user.teamId, idParam(params.projectId), q.data.stock);
 }
@@ -43,7 +35,7 @@ export default function CuttingList({ loaderData }: Route.ComponentProps) {
           <Link to={`/projects/${project.id}/schedule`} className="text-accent underline">
             Member schedule
           </Link>
-          <a href={`/projects/${project.id}/cutting-list.csv`} download className="text-accent underline">
+          <a href={`/projects/${project.id}/cutting-list.csv${stockList ? `?stock=${stockList.id}` : ""}`} download className="text-accent underline">
             Download CSV
           </a>
           <button type="button" onClick={() => window.print()} className="rounded-md bg-accent px-3 py-1 font-semibold text-white">

@@ -61,7 +61,7 @@ describe("member schedule", () => {
 
 describe("plate cutting list", () => {
   test("a channel's three plates per member, grouped by thickness, masses by hand", async () => {
-    const { cuttingList, cuttingListCsv, CUTTING_CSV_FIELDS } = await import("~/lib/cutting-list");
+    const { cuttingList, cuttingListCsv, orderCuttingList, CUTTING_CSV_FIELDS } = await import("~/lib/cutting-list");
     const f = await scheduleFixture();
     const list = cuttingList(await projectSchedule(f.projectId));
     // channel d 300, b 100, tf 10, tw 8 as the engine lays it out: a full-depth web 8 × 300 and two
@@ -74,8 +74,42 @@ describe("plate cutting list", () => {
     expect(list.groups[1].mass).toBeCloseTo(346.656, 6);
     expect(list.groups[0].plates[0].width).toBe(300);
     expect(list.totalMass).toBeCloseTo(346.656 + 452.16, 6);
-    const csv = Papa.parse<string[]>(cuttingListCsv(list).trim()).data;
+    const csv = Papa.parse<string[]>(cuttingListCsv(orderCuttingList(list, [], [])).trim()).data;
     expect(csv[0]).toEqual([...CUTTING_CSV_FIELDS]);
     expect(csv).toHaveLength(3);
+  });
+});
+
+describe("printable cutting list", () => {
+  test("widths ordered from the team's stock list, priced, through the page and the CSV; another team's list is 404", async () => {
+    const f = await scheduleFixture();
+    const teamId = await ctx.teamId();
+    const engineer = await ctx.user("engineer");
+    const [stockId] = await db("stock_lists").insert({ team_id: teamId, name: "Cutting fixture stock", created_by: engineer.id });
+    await db("stock_list_items").insert([
+      { stock_list_id: stockId, thickness_mm: 10, width_mm: 190, price_per_kg: 1.5 },
+      { stock_list_id: stockId, thickness_mm: 8, width_mm: 1000, price_per_kg: 1.2 },
+    ]);
+    const page = await loadRouteModule("routes/projects.$projectId.cutting-list.tsx");
+    const params = { projectId: String(f.projectId) };
+    const res = await callRoute(page.loader, await requestAs("viewer", `/projects/${f.projectId}/cutting-list?stock=${stockId}`), params);
+    expect(res.status).toBe(200);
+    const { list } = res.data as { list: { totalOrderMass: number; totalCost: number | null } };
+    // flanges: 4 plates 10 × 190 × 6 m = 357.96 kg at 1.5; web: 2 plates 8 × 1000 × 6 m = 753.6 kg at 1.2 (hand calculation, tests/unit/cutting-order.test.ts)
+    expect(list.totalOrderMass).toBeCloseTo(357.96 + 753.6, 6);
+    expect(list.totalCost).toBeCloseTo(357.96 * 1.5 + 753.6 * 1.2, 6);
+
+    const csvMod = await loadRouteModule("routes/projects.$projectId.cutting-list[.]csv.ts");
+    const csv = await callRoute(csvMod.loader, await requestAs("viewer", `/projects/${f.projectId}/cutting-list.csv?stock=${stockId}`), params);
+    const rows = Papa.parse<string[]>(String(csv.data).trim()).data;
+    const web = Object.fromEntries(rows[0]!.map((h, i) => [h, rows[1]![i]]));
+    expect([web.thickness_mm, web.order_width_mm, web.order_count, web.price_per_kg]).toEqual(["8", "1000", "2", "1.2"]);
+    expect(Number(web.cost)).toBeCloseTo(904.32, 6);
+
+    const { teamId: otherTeam, adminId } = await ctx.otherTeam();
+    const [foreignStock] = await db("stock_lists").insert({ team_id: otherTeam, name: "Foreign stock", created_by: adminId });
+    expect((await callRoute(page.loader, await requestAs("viewer", `/projects/${f.projectId}/cutting-list?stock=${foreignStock}`), params)).status).toBe(404);
+    expect((await callRoute(csvMod.loader, await requestAs("viewer", `/projects/${f.projectId}/cutting-list.csv?stock=${foreignStock}`), params)).status).toBe(404);
+    expect((await callRoute(page.loader, await requestAs("viewer", `/projects/${f.projectId}/cutting-list?stock=abc`), params)).status).toBe(400);
   });
 });
