@@ -7,8 +7,7 @@ import { checkLabel, familyLabel } from "~/lib/labels";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { candidateName, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
-import { FAMILY_STYLE } from "~/components/family-style";
-import type { Family } from "~/optimizer/geometry";
+import { FamilyMarker } from "~/components/FamilyMarker";
 import type { DesignRow } from "~/lib/design-summary";
 import { STRESSES_ONLY } from "~/lib/caution";
 
@@ -239,9 +238,8 @@ export function CandidateTable({
                 </td>
                 <td className="p-2 tabular-nums">{c.rank}</td>
                 <td className="p-2">
-                  <span aria-hidden="true" style={{ color: FAMILY_STYLE[c.family as Family]?.colour }}>
-                    {c.source === "rolled" ? "●" : "○"}{" "}
-                  </span>
+                  {/* the chart's own marker for this row's series (FamilyMarker): welded as an outline when the sweep also has rolled sections */}
+                  <FamilyMarker family={c.family} outline={withRolled && c.source !== "rolled"} className="mr-1" />
                   {c.source === "rolled" ? candidateName(c) : familyLabel(c.family)}
                   {c.source === "rolled" ? (
                     <span className="block text-xs text-ink/70">

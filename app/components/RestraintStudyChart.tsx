@@ -6,6 +6,7 @@ import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YA
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { describeDimensions } from "~/components/TradeoffChart";
+import { niceTicks } from "~/lib/nice-ticks";
 import type { RestraintStudy } from "~/lib/restraint-study";
 import { TableScroll } from "~/components/DataTable";
 
@@ -14,6 +15,9 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
   const massUnit = unitLabel("massPerLength", units);
   const data = study.points.map((p) => ({ x: p.restraints, y: p.best ? fromSI("massPerLength", p.best.massPerMetre, units) : null, p }));
   const span = (m: number) => formatQuantity("span", m, units);
+  const masses = data.map((d) => d.y).filter((y): y is number => y !== null);
+  // round ticks (nice-ticks.ts), not the library's 41.37, 43.81 …
+  const yAxis = niceTicks(masses.length ? Math.min(...masses) : 0, masses.length ? Math.max(...masses) : 1, 5);
   return (
     <div className="space-y-2" data-testid="restraint-study">
       <figure className="rounded-lg border border-ink/15 bg-white p-3" aria-label="Restraint study: lightest mass per length against the number of intermediate restraints">
@@ -21,7 +25,7 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
           <LineChart data={data} margin={{ top: 10, right: 20, bottom: 30, left: 24 }}>
             <CartesianGrid stroke="#1d273322" />
             <XAxis type="number" dataKey="x" domain={[0, 5]} ticks={[0, 1, 2, 3, 4, 5]} allowDecimals={false} label={{ value: "Intermediate lateral restraints", position: "bottom", offset: 10 }} />
-            <YAxis type="number" domain={["auto", "auto"]} tickFormatter={(v: number) => formatNumber(v, 3)} label={{ value: `Lightest mass (${massUnit})`, angle: -90, position: "insideLeft" }} />
+            <YAxis type="number" domain={yAxis.domain} ticks={yAxis.ticks} interval={0} allowDataOverflow width={64} tickFormatter={(v: number) => formatNumber(v, 6)} label={{ value: `Lightest mass per length (${massUnit})`, angle: -90, position: "insideLeft", offset: -10, style: { textAnchor: "middle" } }} />
             <Tooltip
               formatter={(v: unknown) => [`${formatNumber(Number(v))} ${massUnit}`, "lightest"]}
               labelFormatter={(x: unknown) => {

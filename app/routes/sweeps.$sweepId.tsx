@@ -15,7 +15,7 @@ import { queueErrorMessage } from "~/lib/brief-actions.server";
 import { Caution } from "~/components/Caution";
 import { WhatItWouldTake } from "~/components/WhatItWouldTake";
 import { ProgressBar } from "~/components/ProgressBar";
-import { TradeoffChart, candidateName, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
+import { TradeoffChart, candidateName, describeDimensions, tradeoffTitle, type ChartCandidate } from "~/components/TradeoffChart";
 import { CandidateTable } from "~/components/CandidateTable";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { UnitSwitch } from "~/components/UnitSwitch";
@@ -140,6 +140,8 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
   const bestDesign = loaderData.bestDesign;
   const compared = compare.map((r) => known.get(r)).filter((c): c is ChartCandidate => Boolean(c));
   const withCost = chart.withCost;
+  // The chart plots what the sweep minimised: cost per metre when the brief asked for the cheapest.
+  const chartObjective = sweep.problem.objective === "cost" && withCost ? "cost" : "mass";
   const errors = actionData?.errors as Record<string, string> | null | undefined;
 
   return (
@@ -299,9 +301,9 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
             <>
               <section aria-labelledby="chart-h" className="space-y-2">
                 <h2 id="chart-h" className="text-lg font-bold">
-                  Weight against stress
+                  {tradeoffTitle(chartObjective)}
                 </h2>
-                <TradeoffChart candidates={points} units={units} selected={selected} onSelect={select} />
+                <TradeoffChart candidates={points} units={units} selected={selected} onSelect={select} objective={chartObjective} mixed={sweep.catalogueResult != null} />
                 {chart.drawn < chart.stored ? (
                   <p className="text-xs text-ink/70" data-testid="chart-sample">
                     The chart draws {chart.drawn.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly by rank, with both ends and every family's best. The table below pages through all of them.
