@@ -96,12 +96,12 @@ function LineSample({ dashed = false }: { dashed?: boolean }) {
 }
 
 /** The legend as HTML above the plot (it wraps on a phone): a line sample for each front, each series' marker, the limit, the selection. */
-function ChartLegend({ series, mixed, rolledFront }: { series: Series[]; mixed: boolean; rolledFront: boolean }) {
+function ChartLegend({ series, mixed, rolledFront, byCost }: { series: Series[]; mixed: boolean; rolledFront: boolean; byCost: boolean }) {
   return (
     <ul className="mb-2 flex flex-wrap gap-x-4 gap-y-1 text-sm" data-testid="chart-legend" aria-label="Legend">
       <li className="flex items-center gap-1.5" data-legend="front">
         <LineSample />
-        {mixed ? "Front, welded" : "Front"} (none lighter and less utilised)
+        {mixed ? "Front, welded" : "Front"} (none {byCost ? "cheaper" : "lighter"} and less utilised)
       </li>
       {rolledFront ? (
         <li className="flex items-center gap-1.5" data-legend="front-rolled">
@@ -184,7 +184,7 @@ export function TradeoffChart({
   };
   return (
     <figure className="rounded-lg border border-ink/15 bg-white p-3" aria-label={`Chart: ${title.toLowerCase()}`} data-testid="tradeoff-chart">
-      <ChartLegend series={series} mixed={mixed} rolledFront={rolledFront.length > 0} />
+      <ChartLegend series={series} mixed={mixed} rolledFront={rolledFront.length > 0} byCost={byCost} />
       <ResponsiveContainer width="100%" height={height}>
         <ScatterChart margin={{ top: 10, right: 20, bottom: 30, left: 20 }}>
           <CartesianGrid stroke="#1d273322" />
@@ -220,7 +220,7 @@ export function TradeoffChart({
         </ScatterChart>
       </ResponsiveContainer>
       <figcaption className="mt-1 text-xs text-ink/70">
-        {title}: the stored candidates, the front (lightest at each utilisation) and each family's lightest{mixed ? "; catalogue (rolled) sections as filled markers, welded plate sections as outlines" : ""}. Click a point to select it; the
+        {title}: the stored candidates, the front ({byCost ? "cheapest" : "lightest"} at each utilisation) and each family's {byCost ? "cheapest" : "lightest"}{mixed ? "; catalogue (rolled) sections as filled markers, welded plate sections as outlines" : ""}. Click a point to select it; the
         table below lists the same candidates with the same markers.
       </figcaption>
     </figure>

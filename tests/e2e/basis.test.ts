@@ -49,7 +49,7 @@ test("EN 1993 floor beam: brief → sweep with class, Mcr, χLT and the restrain
 
   await eng.getByRole("button", { name: "Save and run" }).click();
   await eng.waitForURL(/\/sweeps\/\d+$/);
-  await eng.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 120_000 });
+  await eng.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 120_000 });
 
   // The lightest section with the engine's EN 1993 figures, and the basis-specific caution.
   const bestDesign = await eng.getByTestId("best-design").textContent();

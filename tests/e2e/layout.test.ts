@@ -97,7 +97,7 @@ test("no page of the demo scrolls sideways at 390 px, and the navigation shows e
   await admin.goto(`${base()}/projects`);
   await admin.getByRole("link", { name: /Harbour Street cold store/ }).click();
   await admin.waitForURL(/\/projects\/\d+$/);
-  const sweepPath = await admin.getByRole("link", { name: /^sweep \d+/ }).first().getAttribute("href");
+  const sweepPath = await admin.getByRole("listitem").filter({ hasText: "Primary beam, grid B" }).getByRole("link", { name: /^sweep \d+/ }).getAttribute("href");
   expect(sweepPath).toMatch(/^\/sweeps\/\d+$/);
   await admin.goto(`${base()}${sweepPath}/recheck`);
   await admin.getByLabel(/^Tension/).fill("150");
@@ -172,7 +172,7 @@ test("the four-up comparison at 1440 px clips no diagram title and shows every c
   const eng = await signIn("engineer@tallowfield.example", 1440, "/projects");
   await eng.getByRole("link", { name: /Harbour Street cold store/ }).click();
   await eng.waitForURL(/\/projects\/\d+$/);
-  const sweepPath = await eng.getByRole("link", { name: /^sweep \d+/ }).first().getAttribute("href");
+  const sweepPath = await eng.getByRole("listitem").filter({ hasText: "Primary beam, grid B" }).getByRole("link", { name: /^sweep \d+/ }).getAttribute("href");
   expect(sweepPath).toMatch(/^\/sweeps\/\d+$/);
   await eng.goto(`${base()}${sweepPath}`);
   await compareFour(eng);

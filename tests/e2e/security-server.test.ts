@@ -168,7 +168,7 @@ describe("headers on every response (item 9)", () => {
       }
       expect(withResults).toBeDefined();
       await page.goto(`${base()}/sweeps/${withResults}`);
-      await page.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 60_000 });
+      await page.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 60_000 });
       await collect();
 
       expect(violations).toEqual([]);

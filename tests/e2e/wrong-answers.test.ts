@@ -69,7 +69,7 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   await eng.waitForURL(/\/sweeps\/\d+$/);
   const sweepUrl = eng.url();
   const sweepId = sweepUrl.split("/").pop()!;
-  await eng.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await eng.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 90_000 });
   await eng.getByText(SI).first().click();
   const best = (await eng.getByTestId("best").textContent()) ?? "";
   const depth = Number(/\bd (\d+(?:\.\d+)?)/.exec(best)?.[1]);
@@ -103,7 +103,7 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   await rev.waitForURL((u) => /^\/sweeps\/\d+$/.test(u.pathname) && !u.href.endsWith(`/${sweepId}`));
   const recheckUrl = rev.url();
   const recheckId = recheckUrl.split("/").pop()!;
-  await rev.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await rev.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 90_000 });
   await rev.getByRole("link", { name: "compare with the original" }).click();
   await rev.getByRole("heading", { name: "Recheck comparison" }).waitFor();
   await expect(rev.getByTestId("changes").textContent()).resolves.toMatch(/Depth, m(in|ax)/);
@@ -114,7 +114,7 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
 
   // An option saved from the recheck names it, and the sweep it rechecked.
   await eng.goto(recheckUrl);
-  await eng.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await eng.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 90_000 });
   await eng.getByTestId("candidate-table").locator("tbody tr").first().click();
   await eng.getByRole("button", { name: "Save as option" }).click();
   await eng.waitForURL(/\/options\/\d+$/);
