@@ -51,8 +51,9 @@ export default [
   route("api/v1/sweeps/:id", "routes/api.v1.sweeps.$id.ts"),
   route("api/v1/sweeps/:id/candidates", "routes/api.v1.sweeps.$id.candidates.ts"),
   route("api/v1/sweeps/:id/cancel", "routes/api.v1.sweeps.$id.cancel.ts"),
-  // Any other /api/ address: a JSON 404
+  // Any other /api/ address: a JSON 404; a missing build file: a plain 404
   route("api/*", "routes/api.not-found.ts"),
+  route("assets/*", "routes/file-not-found.ts"),
   // Candidate downloads
   route("sweeps/:sweepId/candidates.csv", "routes/sweeps.$sweepId.candidates[.]csv.ts"),
   route("projects/:projectId/schedule.csv", "routes/projects.$projectId.schedule[.]csv.ts"),

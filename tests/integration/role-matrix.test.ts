@@ -136,6 +136,8 @@ export const ROWS: Record<string, MatrixRow> = {
   "/*": { get: members(404) },
   // under /api/: a JSON 404 for anyone, any method
   "/api/*": { get: anyone(404), post: anyone(404), api: true },
+  // a build file that does not exist: a plain 404 for anyone
+  "/assets/*": { get: anyone(404) },
 };
 
 const flat = flattenRoutes();
