@@ -56,7 +56,7 @@ test("a brief with the starter catalogue: sweep, rolled and welded apart, a roll
 
   await eng.getByRole("button", { name: "Save and run" }).click();
   await eng.waitForURL(/\/sweeps\/\d+$/);
-  await eng.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await eng.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 90_000 });
 
   // Rolled and welded side by side: the lightest of each.
   const panel = eng.getByTestId("rolled-and-welded");
@@ -66,7 +66,7 @@ test("a brief with the starter catalogue: sweep, rolled and welded apart, a roll
   await expect(panel.textContent()).resolves.toMatch(/Lightest overall: (rolled|welded)\./);
 
   // The chart: welded and rolled as their own series (outlined and filled markers).
-  const legend = eng.locator(".recharts-legend-wrapper");
+  const legend = eng.getByTestId("chart-legend");
   await expect(legend.textContent()).resolves.toMatch(/Channel \(welded\)/);
   await expect(legend.textContent()).resolves.toMatch(/Channel \(rolled\)/);
   // the outlined series' name is readable (not printed in its white fill)

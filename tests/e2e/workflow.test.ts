@@ -10,7 +10,7 @@ const { signIn } = browserForFile();
 
 /** Waits for a finished sweep's results on its page (the page polls and reloads its data in place). */
 async function waitForResults(page: Page) {
-  await page.getByRole("heading", { name: "Weight against stress" }).waitFor({ timeout: 90_000 });
+  await page.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 90_000 });
 }
 
 test("engineer → sweep → option → review; reviewer → recheck → approve → record", async () => {
