@@ -13,7 +13,7 @@ import { designRow } from "~/lib/design-summary";
 
 /** The basis in a few words, for headings beside results. */
 export function basisWords(problem: Pick<SearchProblem, "basis">): string {
-  return problem.basis === "en1993" ? "EN 1993 limit states" : `allowable stresses — ${STRESSES_ONLY}`;
+  return problem.basis === "en1993" ? "EN 1993 limit states" : problem.basis === "aisc360" ? `AISC 360-16 ${(problem as { method?: string }).method ?? ""}`.trimEnd() : `allowable stresses — ${STRESSES_ONLY}`;
 }
 
 const LOAD_WORDS = { top: "on the top flange", shearCentre: "at the shear centre", bottom: "on the bottom flange" } as const;
@@ -24,6 +24,17 @@ const LOAD_WORDS = { top: "on the top flange", shearCentre: "at the shear centre
  * notes on each candidate (DesignBlock.notes), listed beside the candidate.
  */
 export function assumptionsInWords(problem: SearchProblem, units: UnitSystem): string[] {
+  if (problem.basis === "aisc360") {
+    const r = problem.restraint;
+    const a = problem.aisc;
+    return [
+      `Design basis: AISC 360-16, ${problem.method === "LRFD" ? "LRFD (available strength φ·Rn; the moments and shear are factored required strengths)" : "ASD (available strength Rn/Ω; the moments and shear are ASD required strengths)"}.`,
+      a ? `Steel${a.grade ? ` ${a.grade}` : ""}: Fy ${formatQuantity("stress", a.Fy, units)}, Fu ${formatQuantity("stress", a.Fu, units)}, E ${formatQuantity("stress", a.E, units)}; catalogue sections ${a.rolledGrade}.` : "",
+      r ? `Unbraced length Lb ${formatQuantity("length", r.length * 1000, units)}, Cb ${r.Cb ?? 1}.` : "Compression flange braced throughout: no lateral-torsional buckling check.",
+      problem.supports?.stiffened === false ? "No bearing stiffeners: web local yielding and crippling checked at an end support (J10.2, J10.3)." : "Bearing stiffeners at both supports (assumed, not designed).",
+      ...fabricationWords(problem, units),
+    ].filter(Boolean);
+  }
   if (problem.basis !== "en1993") {
     return [
       `Design basis: allowable stresses (${STRESSES_ONLY}). The elastic fibre stresses and the shear stress are compared with the typed allowables; no buckling of any kind and no resistance to EN 1993 or any other code is checked.`,
@@ -71,9 +82,9 @@ function fabricationWords(problem: SearchProblem, units: UnitSystem): string[] {
 
 /** One line naming the basis; under "allowable" it says "stresses only: no stability checks". */
 export function BasisNote({ problem, className = "" }: { problem: Pick<SearchProblem, "basis">; className?: string }) {
-  const en = problem.basis === "en1993";
+  const en = problem.basis === "en1993" || problem.basis === "aisc360";
   return (
-    <p data-testid="basis-note" data-basis={en ? "en1993" : "allowable"} className={`text-sm ${en ? "" : "font-semibold text-caution"} ${className}`}>
+    <p data-testid="basis-note" data-basis={problem.basis ?? "allowable"} className={`text-sm ${en ? "" : "font-semibold text-caution"} ${className}`}>
       Design basis: {basisWords(problem)}
     </p>
   );
@@ -105,6 +116,26 @@ export function Assumptions({ problem, units, notes, heading = "Assumptions" }: 
 
 /** One candidate's EN 1993 figures (a definition list); under the allowable basis, the basis note. */
 export function DesignFigures({ verdict, units }: { verdict: CandidateVerdict; units: UnitSystem }) {
+  const us = verdict.aisc;
+  if (us) {
+    const f = us.flexure[0];
+    return (
+      <dl className="grid grid-cols-2 gap-x-2 tabular-nums" data-testid="design-figures-aisc">
+        <dt>Method</dt>
+        <dd>{us.method}</dd>
+        <dt>Chapter F</dt>
+        <dd>{f ? `§${f.section}` : "—"}</dd>
+        <dt>LTB zone</dt>
+        <dd>{f?.ltb ? f.ltb.zone : "braced"}</dd>
+        <dt>Lp, Lr</dt>
+        <dd>{f?.ltb && f.ltb.Lp !== null ? `${formatQuantity("length", f.ltb.Lp, units)}, ${f.ltb.Lr !== null ? formatQuantity("length", f.ltb.Lr, units) : "—"}` : "—"}</dd>
+        <dt>{us.method === "ASD" ? "Mn/Ω" : "φMn"}</dt>
+        <dd>{f ? formatQuantity("moment", Math.min(f.availableLocal, f.ltb?.available ?? Infinity), units) : "—"}</dd>
+        <dt>{us.method === "ASD" ? "Vn/Ω" : "φVn"}</dt>
+        <dd>{us.shear ? formatQuantity("force", us.shear.available, units) : "—"}</dd>
+      </dl>
+    );
+  }
   const row = designRow(verdict);
   if (!row) return <p className="text-sm font-semibold text-caution">Design basis: allowable stresses — {STRESSES_ONLY}</p>;
   const M = (x: number | null) => (x === null ? "—" : formatQuantity("moment", x, units));

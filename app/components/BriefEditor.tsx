@@ -161,7 +161,7 @@ export function BriefEditor({
   const defl = fields.deflection.getFieldset();
   const [prices, setPrices] = useState(String(defaultValue.prices ?? ""));
   const [sampleFamily, setSampleFamily] = useState<Family>(((defaultValue.families as string[] | undefined)?.[0] as Family) ?? "channel");
-  const [basis, setBasis] = useState<Basis>(defaultValue.basis === "en1993" ? "en1993" : "allowable");
+  const [basis, setBasis] = useState<Basis>(defaultValue.basis === "en1993" || defaultValue.basis === "aisc360" ? defaultValue.basis : "allowable");
   // The basis decides which panels are enabled (and so sent): re-read the preview once they have re-rendered.
   useEffect(() => {
     if (formRef.current) setProblem(previewProblem(formRef.current));
@@ -359,14 +359,14 @@ export function BriefEditor({
 
         <Group
           title="Loads"
-          note={`Design moments about the horizontal axis; sagging compresses the top fibre.${basis === "en1993" ? " Factored values (ultimate limit state)." : ""}`}
+          note={`Design moments about the horizontal axis; sagging compresses the top fibre.${basis === "en1993" ? " Factored values (ultimate limit state)." : basis === "aisc360" ? " Required strengths of the chosen method (LRFD: factored; ASD: ASD load combinations)." : ""}`}
         >
           <NumberInput meta={moment.sagging} label="Sagging moment" field="moment.sagging" units={units} />
           <NumberInput meta={moment.hogging} label="Hogging moment" field="moment.hogging" units={units} />
           <NumberInput meta={fields.shear} label="Shear force" field="shear" units={units} hint="optional" />
         </Group>
 
-        <Group title="Allowable stresses" hidden={basis === "en1993"}>
+        <Group title="Allowable stresses" hidden={basis !== "allowable"}>
           <NumberInput meta={allowable.tension} label="Tension" field="allowable.tension" units={units} />
           <NumberInput meta={allowable.compression} label="Compression" field="allowable.compression" units={units} />
           <NumberInput meta={allowable.shear} label="Shear" field="allowable.shear" units={units} hint="required when a shear force is given" />

@@ -6,8 +6,8 @@
 // their fields (Conform, aria-describedby). Field names are the SearchProblem's own paths.
 import { useEffect, useRef, useState, type ReactNode } from "react";
 import { getInputProps, type FieldMetadata } from "@conform-to/react";
-import { DEFAULT_GRADE, EN1993_GRADE_NAMES, FY_BAND_ROWS, gradeFill } from "~/lib/brief-form-basis";
-import { MOMENT_DIAGRAMS, MOMENT_DIAGRAM_SOURCE, matchMomentDiagram, momentDiagram } from "~/lib/moment-diagrams";
+import { AISC_GRADE_NAMES, DEFAULT_AISC_GRADE, DEFAULT_GRADE, EN1993_GRADE_NAMES, FY_BAND_ROWS, aiscGradeFill, gradeFill } from "~/lib/brief-form-basis";
+import { MOMENT_DIAGRAMS, MOMENT_DIAGRAM_SOURCE, cbOf, matchMomentDiagram, momentDiagram } from "~/lib/moment-diagrams";
 import { STRESSES_ONLY } from "~/lib/caution";
 import type { Basis, En1993Grade } from "~/optimizer/search-schema";
 import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
@@ -17,6 +17,8 @@ type Meta = FieldMetadata<unknown>;
 /** The Conform fields of the brief form the panels use (typed loosely: nested fieldsets are read by name). */
 export interface BasisFields {
   basis: Meta;
+  method: Meta;
+  aisc: { getFieldset(): Record<string, Meta> };
   steel: { getFieldset(): Record<string, Meta> & { fy: { getFieldList(): { getFieldset(): Record<string, Meta> }[] } } };
   restraintThroughout: Meta;
   momentDiagram: Meta;
@@ -97,7 +99,7 @@ export function BasisSwitch({ meta, basis, onChange }: { meta: Meta; basis: Basi
     <fieldset className="rounded-lg border border-ink/15 bg-white p-4" aria-describedby={meta.errors ? meta.errorId : undefined}>
       <legend className="px-1 text-base font-bold">Design basis</legend>
       <div className="space-y-1">
-        {(["en1993", "allowable"] as const).map((b) => (
+        {(["en1993", "aisc360", "allowable"] as const).map((b) => (
           <label key={b} className="flex items-start gap-2 text-sm">
             <input type="radio" name={meta.name} value={b} checked={basis === b} onChange={() => onChange(b)} className="mt-1" />
             <span>{BASIS_LABELS[b]}</span>
@@ -107,7 +109,9 @@ export function BasisSwitch({ meta, basis, onChange }: { meta: Meta; basis: Basi
       <p className="mt-1 text-xs text-ink/70">
         {basis === "en1993"
           ? "Moments and shear are factored design values (ultimate limit state); resistances per EN 1993-1-1, EN 1993-1-5 and EN 1993-1-8."
-          : "Typed allowable stresses against elastic fibre and shear stresses; no buckling of any kind is checked."}
+          : basis === "aisc360"
+            ? "Moments and shear are required strengths of the chosen method (ASD or LRFD); available strengths per AISC 360-16 Chapters B, F, G and J."
+            : "Typed allowable stresses against elastic fibre and shear stresses; no buckling of any kind is checked."}
       </p>
       <Errors meta={meta} />
     </fieldset>
@@ -121,6 +125,9 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
   const supports = fields.supports.getFieldset();
   const fab = fields.fabrication.getFieldset();
   const en = basis === "en1993";
+  const us = basis === "aisc360";
+  const aisc = fields.aisc.getFieldset();
+  const [cbDiagram, setCbDiagram] = useState("");
   const dv = defaultValue as { restraintThroughout?: boolean; momentDiagram?: string; steel?: { grade?: string }; supports?: { stiffened?: string }; restraint?: { loadAt?: string } };
   const [throughout, setThroughout] = useState(Boolean(dv.restraintThroughout));
   const [diagram, setDiagram] = useState(String(dv.momentDiagram ?? ""));
@@ -152,6 +159,26 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
     const val = (k: string) => Number(form.querySelector<HTMLInputElement>(`input[name="restraint.${k}"]`)?.value);
     setDiagram(matchMomentDiagram(val("C1"), val("C2"), val("C3"))?.id ?? "");
   }
+  function chooseAiscGrade(el: HTMLSelectElement) {
+    const form = formOf(el);
+    if (form && (AISC_GRADE_NAMES as readonly string[]).includes(el.value)) {
+      const fill = aiscGradeFill(el.value as (typeof AISC_GRADE_NAMES)[number]);
+      const show = (x: number) => String(Number(fromSI("stress", x, units).toPrecision(6)));
+      for (const [k, x] of [["Fy", fill.Fy], ["Fu", fill.Fu]] as const) {
+        const input = form.querySelector<HTMLInputElement>(`input[name="aisc.${k}"]`);
+        if (input) input.value = show(x);
+      }
+    }
+    onChange();
+  }
+  // Cb offered from the moment diagram by AISC 360-16 Eq. F1-1 (moment-diagrams.ts), or typed
+  function chooseCb(el: HTMLSelectElement) {
+    setCbDiagram(el.value);
+    const d = momentDiagram(el.value);
+    const input = formOf(el)?.querySelector<HTMLInputElement>('input[name="restraint.Cb"]');
+    if (d && input) input.value = String(cbOf(d));
+    onChange();
+  }
   function chooseGrade(el: HTMLSelectElement) {
     const form = formOf(el);
     if (form && (EN1993_GRADE_NAMES as string[]).includes(el.value)) fillGrade(form, el.value as En1993Grade, units);
@@ -160,6 +187,60 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
 
   return (
     <>
+      <Panel
+        title="Method and steel (AISC 360-16)"
+        hidden={!us}
+        note="ASD compares required strengths with Rn/Ω, LRFD with φ·Rn (AISC 360-16 §B3). Plate presets A36 and A572 Gr 50 fill Fy and Fu; A992 is a rolled-shape specification, used for catalogue sections only."
+      >
+        <fieldset className="space-y-1" aria-describedby={fields.method.errors ? fields.method.errorId : undefined}>
+          <legend className="text-sm font-semibold">Method</legend>
+          {(
+            [
+              ["ASD", "ASD: allowable strength design (Rn/Ω)"],
+              ["LRFD", "LRFD: load and resistance factor design (φ·Rn)"],
+            ] as const
+          ).map(([m, words]) => (
+            <label key={m} className="flex items-start gap-2 text-sm">
+              <input type="radio" name={fields.method.name} value={m} defaultChecked={(fields.method.initialValue ?? "ASD") === m} onChange={onChange} className="mt-1" />
+              <span>{words}</span>
+            </label>
+          ))}
+          <Errors meta={fields.method} />
+        </fieldset>
+        <div className="mt-3 grid grid-cols-1 gap-3 sm:grid-cols-3">
+          <div className="space-y-1">
+            <label htmlFor={aisc.grade.id} className="block text-sm font-semibold">
+              Plate grade (preset)
+            </label>
+            <select
+              id={aisc.grade.id}
+              name={aisc.grade.name}
+              defaultValue={String(aisc.grade.initialValue || DEFAULT_AISC_GRADE)}
+              onChange={(e) => chooseAiscGrade(e.currentTarget)}
+              className="block w-full rounded-md border border-ink/30 bg-white px-2 py-1.5"
+            >
+              {AISC_GRADE_NAMES.map((g) => (
+                <option key={g} value={g}>
+                  ASTM {g}
+                </option>
+              ))}
+              <option value="">Own values (no preset)</option>
+            </select>
+            <Errors meta={aisc.grade} />
+          </div>
+          <UnitInput meta={aisc.Fy} label="Yield stress Fy" quantity="stress" units={units} />
+          <UnitInput meta={aisc.Fu} label="Tensile strength Fu" quantity="stress" units={units} />
+        </div>
+        <details className="mt-3">
+          <summary className="cursor-pointer text-sm font-semibold">Elastic constants and weld metal</summary>
+          <div className="mt-2 grid grid-cols-1 gap-3 sm:grid-cols-3">
+            <UnitInput meta={aisc.E} label="Elastic modulus E" quantity="stress" units={units} hint="29,000 ksi" />
+            <UnitInput meta={aisc.G} label="Shear modulus G" quantity="stress" units={units} hint="11,200 ksi" />
+            <UnitInput meta={aisc.FEXX} label="Electrode strength FEXX" quantity="stress" units={units} hint="E70: 70 ksi" />
+          </div>
+        </details>
+      </Panel>
+
       <Panel
         title="Steel (EN 1993)"
         hidden={!en}
@@ -251,9 +332,13 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
       </Panel>
 
       <Panel
-        title="Lateral-torsional restraint"
-        hidden={!en}
-        note="The longest length of compression flange between lateral restraints (bracing, a deck fixed to it, or the supports). The moment diagram over that length sets C1, C2, C3."
+        title={us ? "Unbraced length and Cb" : "Lateral-torsional restraint"}
+        hidden={!en && !us}
+        note={
+          us
+            ? "Lb: the length of compression flange between points braced against lateral movement or twist (AISC 360-16 §F1). Cb from the moment diagram over that length by Eq. F1-1, or typed."
+            : "The longest length of compression flange between lateral restraints (bracing, a deck fixed to it, or the supports). The moment diagram over that length sets C1, C2, C3."
+        }
       >
         <label className="flex items-center gap-2 text-sm">
           <input
@@ -261,12 +346,30 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
             key={fields.restraintThroughout.key}
             onChange={(e) => setThroughout(e.currentTarget.checked)}
           />
-          Restrained throughout: the compression flange is held sideways along its whole length (no lateral-torsional buckling check)
+          {us ? "Braced throughout" : "Restrained throughout"}: the compression flange is held sideways along its whole length (no lateral-torsional buckling check)
         </label>
         <Errors meta={fields.restraintThroughout} />
         {/* Disabled while restrained throughout: the restraint block is then left out of the brief. */}
         <fieldset disabled={throughout} className="mt-3 grid grid-cols-1 gap-3 disabled:opacity-60 sm:grid-cols-3">
-          <UnitInput meta={restraint.length} label="Restraint length" quantity="span" units={units} hint="longest segment between restraints" />
+          <UnitInput meta={restraint.length} label={us ? "Unbraced length Lb" : "Restraint length"} quantity="span" units={units} hint="longest segment between restraints" />
+          <fieldset disabled={!us} hidden={!us} className="contents">
+            <div className="space-y-1">
+              <label htmlFor="cb-diagram" className="block text-sm font-semibold">
+                Cb from the moment diagram
+              </label>
+              <select id="cb-diagram" value={cbDiagram} onChange={(e) => chooseCb(e.currentTarget)} className="block w-full rounded-md border border-ink/30 bg-white px-2 py-1.5">
+                <option value="">Typed (below)</option>
+                {MOMENT_DIAGRAMS.map((d) => (
+                  <option key={d.id} value={d.id}>
+                    {d.label} — Cb {cbOf(d)}
+                  </option>
+                ))}
+              </select>
+              <p className="text-xs text-ink/70">Cb = 12.5·Mmax/(2.5·Mmax + 3·MA + 4·MB + 3·MC), AISC 360-16 Eq. F1-1</p>
+            </div>
+            <UnitInput meta={restraint.Cb} label="Cb" units={units} hint="1.0 is always conservative" />
+          </fieldset>
+          <fieldset disabled={us} hidden={us} className="contents">
           <div className="space-y-1 sm:col-span-2">
             <label htmlFor={fields.momentDiagram.id} className="block text-sm font-semibold">
               Moment diagram over that length
@@ -320,16 +423,17 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
             </p>
             <Errors meta={restraint.loadAt} />
           </div>
+          </fieldset>
         </fieldset>
       </Panel>
 
-      <Panel title="Supports" hidden={!en} note="At each end support the web carries the reaction (taken as the design shear).">
+      <Panel title="Supports" hidden={!en && !us} note="At each end support the web carries the reaction (taken as the design shear).">
         <fieldset className="space-y-1" aria-describedby={supports.stiffened.errors ? supports.stiffened.errorId : undefined}>
           <legend className="text-sm font-semibold">Bearing stiffeners at the supports</legend>
           {(
             [
               ["yes", "Yes, provided (the record lists them as required; web crippling is not checked)"],
-              ["no", "No: check the unstiffened web for patch loading at an end support (EN 1993-1-5 §6)"],
+              ["no", us ? "No: check web local yielding and crippling at an end support (AISC 360-16 §J10.2, §J10.3)" : "No: check the unstiffened web for patch loading at an end support (EN 1993-1-5 §6)"],
             ] as const
           ).map(([v, words]) => (
             <label key={v} className="flex items-start gap-2 text-sm">
@@ -350,7 +454,7 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
           <Errors meta={supports.stiffened} />
         </fieldset>
         <div className="mt-3 grid grid-cols-1 gap-3 sm:grid-cols-3">
-          <UnitInput meta={supports.bearingLength} label="Stiff bearing length" quantity="length" units={units} hint={stiffened === "no" ? "required without stiffeners" : "used only without stiffeners"} />
+          <UnitInput meta={supports.bearingLength} label={us ? "Bearing length lb" : "Stiff bearing length"} quantity="length" units={units} hint={stiffened === "no" ? "required without stiffeners" : "used only without stiffeners"} />
         </div>
       </Panel>
 

@@ -5,7 +5,7 @@
 // the form's words (a "restrained throughout" tick, a yes/no for stiffeners) into the
 // problem's values. The rules stay in searchProblemSchema. brief-form.ts wires it in.
 import { z } from "zod";
-import { BASES, EN1993_DEFAULTS, EN1993_GRADES, LOAD_POSITIONS, type En1993Grade, type SearchProblem } from "~/optimizer/search-schema";
+import { AISC360_DEFAULTS, AISC360_GRADES, AISC360_METHODS, AISC360_PLATE_GRADES, BASES, EN1993_DEFAULTS, EN1993_GRADES, LOAD_POSITIONS, type En1993Grade, type SearchProblem } from "~/optimizer/search-schema";
 import type { Quantity } from "~/optimizer/units";
 import { matchMomentDiagram, momentDiagram } from "~/lib/moment-diagrams";
 
@@ -17,6 +17,11 @@ export const BASIS_FIELD_QUANTITIES = {
   "steel.fu": "stress",
   "steel.E": "stress",
   "steel.G": "stress",
+  "aisc.Fy": "stress",
+  "aisc.Fu": "stress",
+  "aisc.E": "stress",
+  "aisc.G": "stress",
+  "aisc.FEXX": "stress",
   "restraint.length": "span",
   "supports.bearingLength": "length",
   "fabrication.minThickness": "length",
@@ -41,6 +46,15 @@ export function gradeFill(grade: En1993Grade): { fy: { maxThickness: number; fy:
   return { fy: g.fy.map((b) => ({ maxThickness: b.maxThickness, fy: b.fy })), fu: g.fu, betaW: g.betaW };
 }
 
+/** The AISC 360 plate presets the engine defines (A992 is for catalogue sections only). */
+export const AISC_GRADE_NAMES = AISC360_PLATE_GRADES;
+export const DEFAULT_AISC_GRADE = "A572 Gr 50" as const;
+/** What an AISC plate preset writes into the form, in SI (the engine's own values). */
+export function aiscGradeFill(grade: (typeof AISC360_PLATE_GRADES)[number]): { Fy: number; Fu: number } {
+  const g = AISC360_GRADES[grade];
+  return { Fy: g.Fy, Fu: g.Fu };
+}
+
 /**
  * The moment diagram a new brief starts from: a simply supported floor beam under uniform load,
  * loaded on its top flange (the destabilising position, so the default errs on the safe side).
@@ -52,7 +66,18 @@ const num = (name: string) => z.number({ error: `${name} must be a number` }).op
 
 /** Spread into the brief form's zod object (brief-form.ts). */
 export const basisFormShape = {
-  basis: z.enum(BASES, { error: 'basis must be "allowable" or "en1993"' }).default("allowable"),
+  basis: z.enum(BASES, { error: 'basis must be "allowable", "en1993" or "aisc360"' }).default("allowable"),
+  method: z.enum(AISC360_METHODS, { error: 'method must be "ASD" or "LRFD"' }).optional(),
+  aisc: z
+    .object({
+      grade: z.string().max(40, "aisc.grade: at most 40 characters").optional(),
+      Fy: num("aisc.Fy"),
+      Fu: num("aisc.Fu"),
+      E: num("aisc.E"),
+      G: num("aisc.G"),
+      FEXX: num("aisc.FEXX"),
+    })
+    .default({}),
   steel: z
     .object({
       grade: z.string().max(40, "steel.grade: at most 40 characters").optional(),
@@ -80,6 +105,7 @@ export const basisFormShape = {
       C1: num("restraint.C1"),
       C2: num("restraint.C2"),
       C3: num("restraint.C3"),
+      Cb: num("restraint.Cb"),
       loadAt: z.enum(LOAD_POSITIONS, { error: "restraint.loadAt: choose top flange, shear centre or bottom flange" }).optional(),
     })
     .default({}),
@@ -119,6 +145,21 @@ export function basisToProblemInput(f: BasisFormValues, si: ToSI): { fields: Rec
     minBoxClear: si("fabrication.minBoxClear", "length", f.fabrication.minBoxClear),
   });
   if (Object.keys(fab).length) out.fabrication = fab;
+  if (f.basis === "aisc360") {
+    const a = f.aisc;
+    if (f.method) out.method = f.method;
+    out.aisc = defined({
+      grade: a.grade?.trim() ? a.grade.trim() : undefined,
+      Fy: si("aisc.Fy", "stress", a.Fy),
+      Fu: si("aisc.Fu", "stress", a.Fu),
+      E: si("aisc.E", "stress", a.E),
+      G: si("aisc.G", "stress", a.G),
+      FEXX: si("aisc.FEXX", "stress", a.FEXX),
+    });
+    if (!f.restraintThroughout) out.restraint = { length: si("restraint.length", "span", f.restraint.length), ...defined({ Cb: f.restraint.Cb }) };
+    out.supports = defined({ stiffened: f.supports.stiffened !== "no", bearingLength: si("supports.bearingLength", "length", f.supports.bearingLength) });
+    return { fields: out, bandRows };
+  }
   if (f.basis !== "en1993") return { fields: out, bandRows };
   const s = f.steel;
   const bands: { maxThickness?: number; fy?: number }[] = [];
@@ -152,11 +193,15 @@ export function basisToProblemInput(f: BasisFormValues, si: ToSI): { fields: Rec
 /** The form's own plain-word messages, checked before the engine's (which would name only the path). */
 export function basisIssues(f: BasisFormValues): { path: string[]; message: string }[] {
   const issues: { path: string[]; message: string }[] = [];
-  if (f.basis !== "en1993") return issues;
+  if (f.basis === "allowable") return issues;
+  if (f.basis === "aisc360" && !f.method) issues.push({ path: ["method"], message: "method: choose ASD or LRFD" });
   if (!f.restraintThroughout && f.restraint.length === undefined)
     issues.push({
       path: ["restraint", "length"],
-      message: "restraint.length: enter the longest distance between lateral restraints of the compression flange, or tick “restrained throughout”",
+      message:
+        f.basis === "aisc360"
+          ? "restraint.length: enter the unbraced length Lb of the compression flange, or tick “braced throughout”"
+          : "restraint.length: enter the longest distance between lateral restraints of the compression flange, or tick “restrained throughout”",
     });
   if (f.supports.stiffened === "no" && f.supports.bearingLength === undefined)
     issues.push({ path: ["supports", "bearingLength"], message: "supports.bearingLength: without bearing stiffeners, enter the stiff bearing length at the support" });
@@ -183,7 +228,13 @@ export function basisFormDefaults(problem: SearchProblem, v: FromSI): { values: 
   const r = problem.restraint;
   const C = r ? { C1: r.C1, C2: r.C2, C3: r.C3 } : { C1: dflt.C1, C2: dflt.C2, C3: dflt.C3 };
   const fab = problem.fabrication ?? {};
+  const aisc = problem.aisc ?? { grade: DEFAULT_AISC_GRADE, ...aiscGradeFill(DEFAULT_AISC_GRADE), E: AISC360_DEFAULTS.E, G: AISC360_DEFAULTS.G, FEXX: AISC360_DEFAULTS.FEXX };
   const si: Record<string, unknown> = {
+    "aisc.Fy": aisc.Fy,
+    "aisc.Fu": aisc.Fu,
+    "aisc.E": aisc.E,
+    "aisc.G": aisc.G,
+    "aisc.FEXX": aisc.FEXX,
     "steel.fu": steel.fu,
     "steel.E": steel.E,
     "steel.G": steel.G,
@@ -212,10 +263,12 @@ export function basisFormDefaults(problem: SearchProblem, v: FromSI): { values: 
         eta: steel.eta,
         betaW: steel.betaW,
       },
-      // An EN 1993 brief without a restraint block states the flange restrained throughout.
-      restraintThroughout: basis === "en1993" && !r,
+      method: problem.method ?? "ASD",
+      aisc: { grade: aisc.grade ?? "", Fy: v("stress", aisc.Fy), Fu: v("stress", aisc.Fu), E: v("stress", aisc.E), G: v("stress", aisc.G), FEXX: v("stress", aisc.FEXX) },
+      // A limit-state brief without a restraint block states the flange restrained throughout.
+      restraintThroughout: (basis === "en1993" || basis === "aisc360") && !r,
       momentDiagram: matchMomentDiagram(C.C1, C.C2, C.C3)?.id ?? "",
-      restraint: { length: v("span", r?.length), C1: C.C1, C2: C.C2, C3: C.C3, loadAt: r?.loadAt ?? (r ? "shearCentre" : "top") },
+      restraint: { length: v("span", r?.length), C1: C.C1, C2: C.C2, C3: C.C3, Cb: r?.Cb ?? 1, loadAt: r?.loadAt ?? (r ? "shearCentre" : "top") },
       supports: { stiffened: problem.supports?.stiffened === false ? "no" : "yes", bearingLength: v("length", problem.supports?.bearingLength) },
       fabrication: { minThickness: v("length", fab.minThickness), flangeAtLeastWeb: fab.flangeAtLeastWeb ?? false, minBoxClear: v("length", fab.minBoxClear) },
     },

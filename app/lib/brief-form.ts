@@ -254,7 +254,7 @@ export function formToProblemInput(f: BriefFormValues): Record<string, unknown> 
     moment: { sagging: si("moment.sagging", f.moment.sagging) ?? 0, hogging: si("moment.hogging", f.moment.hogging) ?? 0 },
     // The EN 1993 basis uses no allowable stresses: a brief on it stores none.
     allowable:
-      f.basis === "en1993"
+      f.basis !== "allowable"
         ? undefined
         : {
             tension: si("allowable.tension", f.allowable.tension),

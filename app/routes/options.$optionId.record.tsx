@@ -15,6 +15,7 @@ import { BriefSummary } from "~/components/BriefSummary";
 import { OptionProvenance } from "~/components/OptionProvenance";
 import { BasisNote } from "~/components/BasisAssumptions";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
+import { Aisc360Checks } from "~/components/Aisc360Record";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
@@ -252,7 +253,19 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         ))}
       </section>
 
-      {en ? (
+      {option.problem.basis === "aisc360" && rec.verdict.aisc ? (
+        <section aria-labelledby="checks-h">
+          <h2 id="checks-h" className="text-lg font-bold">
+            5. AISC 360-16 checks worked through ({option.problem.method})
+          </h2>
+          <CheckTable verdict={rec.verdict} units={units} />
+          <p className="mt-1 text-sm">
+            Utilisation = required ÷ available strength; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {checkLabel(rec.verdict.governing)}. Worked in SI units, the
+            engine's own; section and equation numbers of AISC 360-16 beside each line.
+          </p>
+          <Aisc360Checks problem={option.problem} verdict={rec.verdict} />
+        </section>
+      ) : en ? (
         <>
           <section aria-labelledby="basis-h" className="break-inside-avoid">
             <h2 id="basis-h" className="text-lg font-bold">
