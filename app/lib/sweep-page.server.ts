@@ -210,7 +210,9 @@ async function resultParts(sweep: SweepView): Promise<ResultParts> {
     db("candidates").where({ sweep_id: sweep.id }).distinct("family").orderBy("family"),
   ]);
   const parts = {
-    chart: { pointsJson: JSON.stringify(chart.points), drawn: chart.points.length, withCost: chart.points.some((c) => c.cost != null), stored: chart.stored, front: chart.front },
+    // null fields left out (every ChartCandidate field that may be null is optional): most of a
+    // welded sweep's catalogue and cost fields are null, and each one cost the document bytes
+    chart: { pointsJson: JSON.stringify(chart.points, (_k, v: unknown) => (v === null ? undefined : v)), drawn: chart.points.length, withCost: chart.points.some((c) => c.cost != null), stored: chart.stored, front: chart.front },
     table,
     families: (families as { family: string }[]).map((f) => f.family),
   };

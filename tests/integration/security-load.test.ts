@@ -12,7 +12,7 @@ import { SweepRunner } from "~/workers/runner.server";
 import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
 import { searchSections } from "~/optimizer";
 import * as sweepApi from "~/routes/api.v1.sweeps.$id";
-import { BASE, FixtureContext, callRoute, demoUser, loadRouteModule, requestAs, tableCounts } from "./fixtures";
+import { BASE, FixtureContext, callRoute, cookieForUser, demoUser, loadRouteModule, requestAs, tableCounts } from "./fixtures";
 import { insertBigSweep } from "./big-sweep";
 import { CHART_MAX_POINTS, TABLE_PAGE_SIZE } from "~/lib/sweep-page.server";
 import * as candidatesApi from "~/routes/api.v1.sweeps.$id.candidates";
@@ -291,6 +291,25 @@ describe("item 8: the sweep page stays small whatever the sweep", () => {
     expect(data.table.items).toHaveLength(TABLE_PAGE_SIZE);
     expect(data.table.total).toBe(2_000);
     expect(data.families).toEqual(["box", "channel", "i", "tee"].filter((f) => data.families.includes(f)));
+  });
+
+  test("the per-process result cache never crosses teams: a sweep another team's view has cached is still 404 to this team, and each sweep gets its own parts", async () => {
+    const engineer = await demoUser("engineer");
+    const id = await insertBigSweep(db, { teamId: engineer.teamId, ownerId: engineer.id, candidates: 120 });
+    const mod = await loadRouteModule("routes/sweeps.$sweepId.tsx");
+    // the owner's team views it first: its chart, first page and families are now cached
+    expect((await callRoute(mod.loader, await requestAs("engineer", `/sweeps/${id}`), { sweepId: String(id) })).status).toBe(200);
+    const { teamId: otherTeam, adminId } = await ctx.otherTeam();
+    const asOther = async (sweepId: number) =>
+      callRoute(mod.loader, new Request(new URL(`/sweeps/${sweepId}`, BASE), { headers: { Cookie: await cookieForUser(adminId) } }), { sweepId: String(sweepId) });
+    const foreign = await asOther(id);
+    expect(foreign.status).toBe(404);
+    expect(JSON.stringify(foreign.data ?? null)).not.toMatch(/pointsJson|massPerMetre/);
+    const theirs = await insertBigSweep(db, { teamId: otherTeam, ownerId: adminId, candidates: 60 });
+    const own = await asOther(theirs);
+    expect(own.status).toBe(200);
+    expect((own.data as { chart: { stored: number } }).chart.stored).toBe(60);
+    expect((own.data as { table: { total: number } }).table.total).toBe(60);
   });
 
   test("the table's pages, sorts and filters come from the API, sorted on the server by any column (was: family and governing could not be sorted there)", async () => {
