@@ -72,7 +72,7 @@ export function RolledAndWelded({ summary, units, cost }: { summary: CatalogueSu
       ) : null}
       {summary.skipped.length ? (
         <details className="text-xs">
-          <summary className="cursor-pointer">{summary.skipped.length} catalogue sections left out (each with its reason: a shape the brief does not take, or one this basis does not check)</summary>
+          <summary className="cursor-pointer">{summary.skipped.length} catalogue sections left out (each with its reason: a shape the brief does not take, one this basis does not check, or a size outside the brief's depth or width limits)</summary>
           <ul className="list-disc pl-5">
             {summary.skipped.map((k, i) => (
               <li key={i}>

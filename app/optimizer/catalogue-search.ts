@@ -100,7 +100,7 @@ export interface CatalogueResult {
   /** every feasible section, by objective, then area, then utilisation, then catalogue order */
   feasible: RolledCandidate[];
   counts: { sections: number; evaluated: number; feasible: number };
-  /** sections the basis does not cover, or whose shape the catalogue entry filtered out, with why (at most MAX_SKIPPED listed) */
+  /** sections the basis does not cover, whose shape the catalogue entry filtered out, or outside the brief's depth and width limits, with why (at most MAX_SKIPPED listed) */
   skipped: SkippedSection[];
 }
 
@@ -157,6 +157,35 @@ export function catalogueShapeRefusal(shape: CatalogueShape, problem: Pick<Searc
   return null;
 }
 
+/**
+ * The brief's depth and width limits a catalogue section breaks: d against depth.min and
+ * depth.max, the overall width (b; a circular tube's diameter) against width.max. An engineer's
+ * headroom or a wall's thickness bounds a section bought rolled as much as one welded from
+ * plate. Choice (the contract defines the axes for the plate grid only): width.min is not applied,
+ * since its role in a brief is the plate grid's narrowest plate, which says nothing against a
+ * narrow rolled section; the steps do not apply either (a catalogue has its own sizes). The same
+ * relative tolerance as the plate grid's (limits.ts), so a printed 300 counts as within 300.
+ */
+export function catalogueLimitBreaches(section: Pick<CatalogueSection, "shape" | "dims">, problem: Pick<SearchProblem, "depth" | "width">): LimitBreach[] {
+  const out: LimitBreach[] = [];
+  const d = section.dims.d;
+  const b = section.shape === "chs" ? section.dims.d : section.dims.b;
+  const tol = (step: number) => 1e-9 * step;
+  if (d !== undefined) {
+    if (d < problem.depth.min - tol(problem.depth.step)) out.push({ kind: "below", limit: "depth.min", dim: "d", value: d, bound: problem.depth.min });
+    if (d > problem.depth.max + tol(problem.depth.step)) out.push({ kind: "above", limit: "depth.max", dim: "d", value: d, bound: problem.depth.max });
+  }
+  if (b !== undefined && b > problem.width.max + tol(problem.width.step)) out.push({ kind: "above", limit: "width.max", dim: section.shape === "chs" ? "d" : "b", value: b, bound: problem.width.max });
+  return out;
+}
+
+/** The skipped-section reason for one depth or width breach (the engine's own words, as the basis refusals). */
+function limitReason(b: LimitBreach): string {
+  if (b.kind !== "below" && b.kind !== "above") return b.limit;
+  const what = b.limit.startsWith("depth") ? "depth" : b.dim === "d" ? "diameter" : "width";
+  return `${what} ${b.value} mm is ${b.kind} the brief's ${b.limit} of ${b.bound} mm`;
+}
+
 /** Every applicable check of one catalogue section under the problem (results, records, tests). Throws on a shape the basis refuses. */
 export function catalogueCandidateChecks(section: CatalogueSection, problem: SearchProblem): CandidateVerdict & { properties: SectionProperties; dimensions: Record<string, number> } {
   const refusal = catalogueShapeRefusal(section.shape, problem);
@@ -191,7 +220,8 @@ export function catalogueCandidateChecks(section: CatalogueSection, problem: Sea
  * A rolled section (a saved option) against every limit of a problem, as sectionLimits does for a
  * welded one: is it still among the problem's catalogue sections (same catalogue name, same
  * designation and dimensions, its shape taken), does the basis check its shape, and does it pass
- * every check by the rolled rules. The plate grid (depth, width, thicknesses, families) does not
+ * every check by the rolled rules. The brief's depth and width limits apply
+ * (catalogueLimitBreaches); the rest of the plate grid (steps, thicknesses, families) does not
  * apply to a section bought rolled.
  */
 export function rolledSectionLimits(section: CatalogueSection, catalogue: string | null, problem: SearchProblem): SectionLimits {
@@ -199,6 +229,7 @@ export function rolledSectionLimits(section: CatalogueSection, catalogue: string
   const same = (x: CatalogueSection) => x.designation === section.designation && x.shape === section.shape && Object.entries(section.dims).every(([k, v]) => (x.dims as Record<string, number | undefined>)[k] === v);
   const listed = (problem.catalogues ?? []).some((c) => c.name === catalogue && (!c.shapes || c.shapes.includes(section.shape)) && c.sections.some(same));
   if (!listed) breaches.push({ kind: "catalogue", limit: "catalogues", designation: section.designation, catalogue });
+  breaches.push(...catalogueLimitBreaches(section, problem));
   const refusal = catalogueShapeRefusal(section.shape, problem);
   if (refusal) return { breaches: [...breaches, { kind: "basis", limit: "basis", reason: refusal }], verdict: null };
   const verdict = catalogueCandidateChecks(section, problem);
@@ -235,6 +266,11 @@ export function searchCatalogues(problem: SearchProblem, options: Pick<SearchOpt
       const refusal = catalogueShapeRefusal(section.shape, problem);
       if (refusal) {
         skip(refusal);
+        continue;
+      }
+      const outside = catalogueLimitBreaches(section, problem);
+      if (outside.length) {
+        skip(outside.map(limitReason).join("; "));
         continue;
       }
       const pr = prepare(section, problem.density);

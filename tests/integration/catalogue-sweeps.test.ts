@@ -149,10 +149,11 @@ describe("a finished sweep over catalogue and plates", () => {
     const page = await loadRouteModule("routes/sweeps.$sweepId.tsx");
     const res = await callRoute(page.loader, await requestAs("engineer", `/sweeps/${sweepId}`), { sweepId: String(sweepId) });
     type Row = { rank: number; source?: string; designation?: string | null; costMaterial?: number | null; onFront: boolean };
-    const data = res.data as { sweep: { catalogueResult: CatalogueSummary | null }; chart: { points: Row[] }; table: { items: Row[]; total: number } };
+    const data = res.data as { sweep: { catalogueResult: CatalogueSummary | null }; chart: { pointsJson: string }; table: { items: Row[]; total: number } };
     expect(data.sweep.catalogueResult?.sideBySide.rolled.cheapest).toBeTruthy();
     // the chart draws both sides, each with its own front
-    const points = data.chart.points;
+    // the page sends the chart's points as one JSON text, parsed in the browser
+    const points = JSON.parse(data.chart.pointsJson) as Row[];
     expect(points.some((c) => c.source === "rolled" && c.onFront)).toBe(true);
     expect(points.some((c) => c.source !== "rolled" && c.onFront)).toBe(true);
     const rolled = points.find((c) => c.source === "rolled")!;

@@ -13,6 +13,7 @@ import {
   bruteForceSearch,
   candidateChecks,
   catalogueCandidateChecks,
+  rolledSectionLimits,
   searchCatalogues,
   searchProblemSchema,
   searchSections,
@@ -71,6 +72,8 @@ describe("a sweep over a catalogue and plates returns the lightest of both, equa
     for (const cat of problem.catalogues!)
       for (const s of cat.sections) {
         if (cat.shapes && !cat.shapes.includes(s.shape)) continue;
+        // the brief's depth range and greatest width hold for rolled sections too
+        if (s.dims.d! > problem.depth.max || s.dims.d! < problem.depth.min || s.dims.b! > problem.width.max) continue;
         const v = catalogueCandidateChecks(s, problem);
         if (v.feasible && (!refRolled || v.area < refRolled.area)) refRolled = { name: s.designation, area: v.area };
       }
@@ -246,7 +249,8 @@ describe("rolled tees and rectangular hollow sections under EN 1993 (added check
   });
 
   it("a sweep under EN 1993 now checks catalogue tees and rectangular hollow sections (none left out)", () => {
-    const r = searchCatalogues(parse({ ...EN1993, catalogues: [{ name: "mixed", sections: [tee, rhs] }] }));
+    // width.max 300 takes the 300 mm wide tee (the base brief's 260 would leave it out)
+    const r = searchCatalogues(parse({ ...EN1993, width: { min: 60, max: 300, step: 20 }, catalogues: [{ name: "mixed", sections: [tee, rhs] }] }));
     expect(r.counts.evaluated).toBe(2);
     expect(r.skipped).toEqual([]);
   });
@@ -307,5 +311,41 @@ describe("the shear stress of a rolled I is largest at its neutral axis (the sho
     const input = { family: s.shape === "I" ? "i" : "channel", ...s.dims } as Parameters<typeof sectionStresses>[0];
     const sampled = sectionStresses(input, { V: 80 }).maxShear;
     expect(v.checks.find((c) => c.name === "shear")!.demand).toBeCloseTo(sampled, 9);
+  });
+});
+
+describe("the brief's depth and width limits hold for catalogue sections (a headroom limit binds a rolled section too)", () => {
+  // UPE 400 (d 400) and UPE 240 (d 240) from the starter catalogue; the moment is small enough
+  // that both pass every check, so only the depth limit can keep one out.
+  const upe400 = section("UPE 400"),
+    upe240 = section("UPE 240");
+  const brief = (depthMax: number, widthMax = 260) =>
+    parse({ ...ALLOWABLE, moment: { sagging: 20 }, shear: 20, depth: { min: 150, max: depthMax, step: 25 }, width: { min: 60, max: widthMax, step: 20 }, catalogues: [{ name: "starter", sections: [upe400, upe240] }] });
+
+  it("a section deeper than depth.max is not returned, one inside is; the one left out is listed with its reason", () => {
+    expect(upe400.dims.d).toBe(400);
+    expect(upe240.dims.d).toBe(240);
+    const open = searchCatalogues(brief(450));
+    expect(open.feasible.map((c) => c.designation).sort()).toEqual(["UPE 240", "UPE 400"]);
+    const r = searchCatalogues(brief(300));
+    expect(r.feasible.map((c) => c.designation)).toEqual(["UPE 240"]);
+    expect(r.counts).toEqual({ sections: 2, evaluated: 1, feasible: 1 });
+    expect(r.skipped).toEqual([{ catalogue: "starter", designation: "UPE 400", reason: "depth 400 mm is above the brief's depth.max of 300 mm" }]);
+  });
+
+  it("depth.min and width.max likewise; a section exactly at the limit is inside", () => {
+    const shallow = parse({ ...ALLOWABLE, moment: { sagging: 20 }, shear: 20, depth: { min: 250, max: 450, step: 25 }, catalogues: [{ name: "starter", sections: [upe400, upe240] }] });
+    expect(searchCatalogues(shallow).feasible.map((c) => c.designation)).toEqual(["UPE 400"]);
+    expect(searchCatalogues(brief(400)).feasible.map((c) => c.designation).sort()).toEqual(["UPE 240", "UPE 400"]);
+    // UPE 400 is 115 mm wide, UPE 240 90 mm (EN 10365, mem.)
+    const narrow = searchCatalogues(brief(450, 100));
+    expect(narrow.feasible.map((c) => c.designation)).toEqual(["UPE 240"]);
+    expect(narrow.skipped[0]!.reason).toBe(`width ${upe400.dims.b} mm is above the brief's width.max of 100 mm`);
+  });
+
+  it("a saved rolled option rechecked against a brief with a lower headroom is flagged depth.max", () => {
+    const r = rolledSectionLimits(upe400, "starter", brief(300));
+    expect(r.breaches).toEqual([{ kind: "above", limit: "depth.max", dim: "d", value: 400, bound: 300 }]);
+    expect(rolledSectionLimits(upe240, "starter", brief(300)).breaches).toEqual([]);
   });
 });
