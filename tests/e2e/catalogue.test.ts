@@ -84,6 +84,10 @@ test("a brief with the starter catalogue: sweep, rolled and welded apart, a roll
   await first.filter({ hasText: /UPE \d+/ }).waitFor();
   await expect(first.textContent()).resolves.toMatch(/UPE \d+.*rolled channel/);
   const designation = (await first.textContent())!.match(/UPE \d+/)![0];
+  // the brief's 300 mm depth limit holds for rolled sections too (a UPE's number is its depth)
+  expect(Number(designation.slice(4))).toBeLessThanOrEqual(300);
+  const panelRolled = (await panel.getByTestId("rolled-row").textContent())!.match(/UPE (\d+)/)![1];
+  expect(Number(panelRolled)).toBeLessThanOrEqual(300);
   await first.click();
   await expect(eng.getByTestId("selected").textContent()).resolves.toMatch(new RegExp(`${designation} \\(rolled channel\\)`));
   await screenshot(eng, "catalogue-sweep");
