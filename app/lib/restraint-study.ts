@@ -2,7 +2,7 @@
 // restrained at L, L/2 … L/6, so the engineer can weigh bracing against steel. What a sweep
 // stores (sweeps.restraint_study, written with its results) and the sweep page charts.
 import type { SearchProblem } from "~/optimizer/search-schema";
-import type { SearchResult } from "~/optimizer/grid";
+import type { SearchPoint, SearchResult } from "~/optimizer/grid";
 
 /** Segments between restraints: 1 (restrained at the ends only) to 6 (five intermediate restraints). */
 export const STUDY_SEGMENTS = [1, 2, 3, 4, 5, 6] as const;
@@ -34,4 +34,8 @@ export function studyApplies(problem: Pick<SearchProblem, "basis" | "restraint">
 }
 
 /** A sweep's run: the search's result and, for EN 1993 briefs with a restraint length, the study. */
-export type SweepResult = SearchResult & { restraintStudy?: RestraintStudy };
+export type SweepResult = SearchResult & {
+  restraintStudy?: RestraintStudy;
+  /** each family's lightest feasible section at every depth (engine's depthBests), stored with the candidates */
+  depthBests?: SearchPoint[];
+};

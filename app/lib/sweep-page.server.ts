@@ -95,7 +95,7 @@ export interface ChartSample {
   front: number;
 }
 
-const CHART_COLUMNS = ["rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "source", "designation", "catalogue", "cost_material", "cost_fabrication"];
+const CHART_COLUMNS = ["rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "depth_best", "source", "designation", "catalogue", "cost_material", "cost_fabrication"];
 /** Most rolled front rows the chart draws (a catalogue's front is short: rarely more than a dozen). */
 const ROLLED_CHART_MAX = 20;
 
@@ -146,6 +146,7 @@ export async function chartSample(sweepId: number): Promise<ChartSample> {
         governing: String(r.governing),
         onFront: !!r.on_front,
         familyBest: !!r.family_best,
+        depthBest: !!r.depth_best,
         source: r.source === "rolled" ? "rolled" : "plate",
         designation: (r.designation as string | null) ?? null,
         catalogue: (r.catalogue as string | null) ?? null,

@@ -25,3 +25,4 @@ export * from "./cost";
 export { sectionLimits, CHECK_LIMIT, type LimitBreach, type SectionLimits } from "./limits";
 export { whatItWouldTake, whatItWouldTakeSteps, nearestMisses, relaxLimits, easedProblem, PLATE_SERIES, type WhatItWouldTake, type NearestMiss, type Relaxation, type Unreachable, type RelaxOptions } from "./relax";
 export * from "./catalogue-search";
+export { depthBests, geometryKey, type DepthBests, type DepthBestsOptions } from "./depth-bests";

@@ -21,7 +21,7 @@ import { z } from "zod";
 import { db, parseJson } from "~/lib/db.server";
 import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
-import { searchProblemSchema, FAMILIES, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
+import { searchProblemSchema, FAMILIES, geometryKey, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
 import { appUrl } from "~/lib/app-url.server";
 import { gridCostProblem, timedOutReason } from "./sweep-budget";
@@ -415,20 +415,33 @@ async function lockHeld(trx: Knex.Transaction, claim: Pick<Claim, "id" | "token"
  * utilisation, with the overall best always rank 1. The front is capped at STORED_FRONT_CAP rows
  * (lightest first) so one pathological sweep cannot write an unbounded number of rows.
  */
-export function candidatesToStore(result: SearchResult, objective: "mass" | "cost", problem?: SearchProblem) {
-  const keyOf = (c: SearchPoint) => `${c.family}|${JSON.stringify(c.dimensions)}`;
+export function candidatesToStore(result: SweepResult, objective: "mass" | "cost", problem?: SearchProblem) {
+  // One row per section: a shape two families describe (a mono-symmetric I with equal flanges and
+  // the I) is the same welded section (geometryKey: the same plates), kept once under the family
+  // the problem lists first, with every flag any of its finders earned.
+  const order = (f: string) => {
+    const i = problem?.families.indexOf(f as never) ?? -1;
+    return i < 0 ? Number.MAX_SAFE_INTEGER : i;
+  };
+  const keyOf = (c: SearchPoint) => geometryKey(c.family, c.dimensions) ?? `${c.family}|${JSON.stringify(c.dimensions)}`;
   const familyBest = new Set<string>();
   for (const c of Object.values(result.bestByFamily)) if (c) familyBest.add(keyOf(c));
   const front = new Set(result.front.slice(0, STORED_FRONT_CAP).map(keyOf));
+  const depthBest = new Set((result.depthBests ?? []).map(keyOf));
   const all = new Map<string, SearchPoint>();
-  for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily)])
-    if (c && !all.has(keyOf(c))) all.set(keyOf(c), c);
+  for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily), ...(result.depthBests ?? [])]) {
+    if (!c) continue;
+    const k = keyOf(c);
+    const had = all.get(k);
+    // (a replaced row's design figures are worked out again from its own family by storedDesign)
+    if (!had || order(c.family) < order(had.family)) all.set(k, c);
+  }
   const bestKey = result.best ? keyOf(result.best) : null;
   const obj = (c: SearchPoint) => (objective === "cost" && c.cost !== undefined ? c.cost : c.area);
   const list = [...all.values()].sort((a, b) => {
     if (bestKey && keyOf(a) === bestKey) return -1;
     if (bestKey && keyOf(b) === bestKey) return 1;
-    return obj(a) - obj(b) || a.area - b.area || a.utilisation - b.utilisation;
+    return obj(a) - obj(b) || a.area - b.area || a.utilisation - b.utilisation || order(a.family) - order(b.family);
   });
   return list.map((c, i) => ({
     rank: i + 1,
@@ -441,6 +454,7 @@ export function candidatesToStore(result: SearchResult, objective: "mass" | "cos
     governing: c.governing,
     on_front: front.has(keyOf(c)),
     family_best: familyBest.has(keyOf(c)),
+    depth_best: depthBest.has(keyOf(c)),
     design: problem?.basis === "en1993" ? storedDesign(c, problem) : null,
   }));
 }
@@ -774,6 +788,8 @@ export const candidatesQuerySchema = z
       .enum(["true", "false", "1", "0"], { error: "frontOnly must be true or false" })
       .optional()
       .transform((v) => v === "true" || v === "1"),
+    /** only sections of this depth d (mm): with the stored depth bests, each family's lightest there */
+    depth: z.coerce.number({ error: "depth must be a number of mm" }).positive({ message: "depth must be a positive number of mm" }).max(100_000, { message: "depth: at most 100000 mm" }).optional(),
   })
   .strict();
 export type CandidatesQuery = z.output<typeof candidatesQuerySchema>;
@@ -789,6 +805,8 @@ export interface CandidateRow {
   governing: string;
   onFront: boolean;
   familyBest: boolean;
+  /** its family's lightest feasible section at its depth (issue 11, item 9) */
+  depthBest: boolean;
   /** EN 1993 sweeps: the design figures stored with the row (null under the allowable basis) */
   design: DesignRow | null;
   /** "rolled": a catalogue section (its designation and catalogue below); "plate": welded from plate */
@@ -810,6 +828,8 @@ export async function listCandidates(
   const base = db("candidates").where({ sweep_id: sweepId });
   if (q.family) base.andWhere({ family: q.family });
   if (q.frontOnly) base.andWhere({ on_front: true });
+  // grid depths are exact sums of steps; the tolerance only absorbs their float noise
+  if (q.depth !== undefined) base.andWhereRaw("ABS(JSON_VALUE(dimensions, '$.d') - ?) < 1e-6", [q.depth]);
   const [{ n }] = await base.clone().count({ n: "*" });
   const desc = sort.startsWith("-");
   const col = { rank: "rank", area: "area", mass: "mass_per_metre", utilisation: "utilisation", cost: "cost", family: "family", governing: "governing" }[sort.replace(/^-/, "") as "rank"];
@@ -821,7 +841,7 @@ export async function listCandidates(
     ])
     .limit(pageSize)
     .offset((page - 1) * pageSize)
-    .select("rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "design", "source", "designation", "catalogue", "cost_material", "cost_fabrication");
+    .select("rank", "family", "dimensions", "area", "mass_per_metre", "cost", "utilisation", "governing", "on_front", "family_best", "depth_best", "design", "source", "designation", "catalogue", "cost_material", "cost_fabrication");
   return {
     total: Number(n),
     page,
@@ -837,6 +857,7 @@ export async function listCandidates(
       governing: r.governing,
       onFront: !!r.on_front,
       familyBest: !!r.family_best,
+      depthBest: !!r.depth_best,
       design: r.design ? parseJson<DesignRow>(r.design) : null,
       source: r.source === "rolled" ? "rolled" : "plate",
       designation: r.designation ?? null,

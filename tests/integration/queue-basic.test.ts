@@ -3,7 +3,7 @@
 // running), notification.
 import { afterAll, beforeEach, describe, expect, test } from "vitest";
 import { db, closeDb } from "~/lib/db.server";
-import { searchSections } from "~/optimizer";
+import { depthBests, searchProblemSchema, searchSections } from "~/optimizer";
 import {
   cancelSweep,
   candidatesToStore,
@@ -217,7 +217,10 @@ describe("runner", () => {
       expect(s.best?.dimensions).toEqual(expected.best?.dimensions);
       expect(s.counts).toEqual(expected.counts);
       const all = await listCandidates(id, { pageSize: 500 });
-      expect(all.total).toBe(candidatesToStore(expected, "mass").length);
+      // with each family's lightest at every depth (issue 11, item 9)
+      const problem = searchProblemSchema.parse(tinyProblem(i * 7));
+      expect(all.total).toBe(candidatesToStore({ ...expected, depthBests: depthBests(problem).points }, "mass", problem).length);
+      expect(all.items.filter((c) => c.depthBest).length).toBe(depthBests(problem).points.length);
       expect(all.items[0].dimensions).toEqual(expected.best!.dimensions);
       expect(all.items.filter((c) => c.onFront)).toHaveLength(expected.front.length);
       const fam = await listCandidates(id, { family: "tee", pageSize: 500 });
