@@ -3,6 +3,7 @@
 import { Link } from "react-router";
 import type { RecordRevision, RevisionSignature } from "~/lib/revisions";
 import { sizeInWords, type AttachmentRow } from "~/lib/attachments";
+import { TableScroll } from "~/components/DataTable";
 
 export interface TitleFacts {
   project: string;
@@ -88,6 +89,7 @@ export function RevisionHistory({ optionId, revisions, shown, number }: { option
       <h2 id="revisions-h" className="text-lg font-bold">
         {number}. Revision history
       </h2>
+      <TableScroll>
       <table className="w-full border-collapse text-sm" data-testid="revision-history">
         <thead>
           <tr className="border-b border-ink/40 text-left">
@@ -119,6 +121,7 @@ export function RevisionHistory({ optionId, revisions, shown, number }: { option
           ))}
         </tbody>
       </table>
+      </TableScroll>
     </section>
   );
 }

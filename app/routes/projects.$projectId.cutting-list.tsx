@@ -5,6 +5,7 @@ import { requirePermission } from "~/lib/auth.server";
 import { idParam } from "~/lib/route-params";
 import { projectCuttingList } from "~/lib/cutting-list.server";
 import { formatNumber } from "~/lib/format";
+import { TableScroll } from "~/components/DataTable";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Plate cutting list · ${data?.project.name ?? ""} · Sparwise` }];
@@ -65,6 +66,7 @@ export default function CuttingList({ loaderData }: Route.ComponentProps) {
       {list.groups.length === 0 ? (
         <p className="text-sm">Nothing to cut yet.</p>
       ) : (
+        <TableScroll>
         <table className="w-full border-collapse text-sm tabular-nums" data-testid="cutting-table">
           <thead>
             <tr className="border-b border-ink/40 text-right">
@@ -123,6 +125,7 @@ export default function CuttingList({ loaderData }: Route.ComponentProps) {
             </tr>
           </tfoot>
         </table>
+        </TableScroll>
       )}
     </article>
   );
