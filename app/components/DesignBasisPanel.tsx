@@ -210,7 +210,7 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
         <div className="mt-3 grid grid-cols-1 gap-3 sm:grid-cols-3">
           <div className="space-y-1">
             <label htmlFor={aisc.grade.id} className="block text-sm font-semibold">
-              Plate grade (preset)
+              ASTM plate grade
             </label>
             <select
               id={aisc.grade.id}

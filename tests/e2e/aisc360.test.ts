@@ -18,7 +18,7 @@ test("AISC 360 ASD, US units, 20 ft unbraced: record shows the Chapter F zone, L
   await eng.getByText("US customary (in, kip·ft, ksi)").first().click();
   await eng.getByLabel(/^AISC 360-16/).check();
   await eng.getByLabel(/^ASD: allowable strength design/).check();
-  await expect(eng.getByLabel("Plate grade (preset)").inputValue()).resolves.toBe("A572 Gr 50");
+  await expect(eng.getByLabel("ASTM plate grade").inputValue()).resolves.toBe("A572 Gr 50");
   await expect(eng.getByLabel(/^Yield stress Fy/).inputValue()).resolves.toBe("50");
   await expect(eng.getByLabel(/^Tension/).isVisible()).resolves.toBe(false);
 
