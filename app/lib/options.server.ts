@@ -44,7 +44,7 @@ export interface OptionRecord {
   sweepId: number | null;
   /** the sweep that sweep rechecked, when the option was saved from a recheck */
   recheckOf: number | null;
-  /** approved, and its brief's problem has changed since the approval: the approval may no longer hold */
+  /** its last approval is older than its brief's last change of problem: the approval may no longer hold */
   approvalStale: boolean;
   candidate: SavedCandidate;
   problem: SearchProblem;
@@ -159,7 +159,7 @@ export async function getOption(teamId: number, id: number): Promise<OptionRecor
     briefName: row.brief_name,
     sweepId: row.sweep_id,
     recheckOf: row.sweep_recheck_of ?? null,
-    approvalStale: isStale(row.review_state, row.approved_at, row.problem_changed_at),
+    approvalStale: isStale(row.approved_at, row.problem_changed_at),
     candidate: parseJson(row.candidate),
     problem: parseJson(revised ? row.rev_problem : row.problem),
     note: row.note,
@@ -211,8 +211,11 @@ export async function listReviews(optionId: number) {
  * An approval goes stale when its brief's problem changes after it (a rename does not count:
  * briefs.problem_changed_at moves only with the problem). Compared in the database's clock.
  */
-function isStale(state: unknown, approvedAt: unknown, changedAt: unknown): boolean {
-  if (state !== "approved" || !approvedAt || !changedAt) return false;
+// The option's state is not consulted: a brief edit revises an approved option back to draft
+// (revisions.server.ts), and its last approval, given on the earlier revision, is exactly the one
+// the flag warns about until a reviewer approves again.
+function isStale(approvedAt: unknown, changedAt: unknown): boolean {
+  if (!approvedAt || !changedAt) return false;
   return new Date(changedAt as string).getTime() > new Date(approvedAt as string).getTime();
 }
 
@@ -241,7 +244,7 @@ export async function listProjectOptions(projectId: number) {
       /** the member the option's sweep was run for (m, count) */
       memberLengthM: (r.member_length_m as number | null) ?? null,
       memberCount: (r.member_count as number | null) ?? null,
-      approvalStale: isStale(r.review_state, r.approved_at, r.problem_changed_at),
+      approvalStale: isStale(r.approved_at, r.problem_changed_at),
       family: c.family,
       dimensions: c.dimensions,
       massPerMetre: c.massPerMetre,
