@@ -39,7 +39,19 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
             : "bearing stiffeners at both supports",
         ],
       ]
-    : [
+    : problem.basis === "aisc360"
+      ? [
+          ["Design basis", `AISC 360-16, ${problem.method ?? "—"} (${problem.method === "LRFD" ? "factored required strengths, φ·Rn" : "ASD required strengths, Rn/Ω"})`],
+          ["Steel", problem.aisc ? `${problem.aisc.grade ? `${problem.aisc.grade}: ` : ""}Fy ${S(problem.aisc.Fy)}; Fu ${S(problem.aisc.Fu)}; E ${S(problem.aisc.E)}; G ${S(problem.aisc.G)}; FEXX ${S(problem.aisc.FEXX)}` : "—"],
+          ["Unbraced length", r ? `Lb ${q("restraint.length", r.length)}, Cb ${r.Cb ?? 1}` : "compression flange braced throughout"],
+          [
+            "Supports",
+            problem.supports?.stiffened === false
+              ? `no bearing stiffeners (J10.2, J10.3 checked${problem.supports.bearingLength !== undefined ? `, bearing length ${q("supports.bearingLength", problem.supports.bearingLength)}` : ""})`
+              : "bearing stiffeners at both supports",
+          ],
+        ]
+      : [
         ["Design basis", "allowable stresses (stresses only: no stability checks)"],
         ["Allowable tension", q("allowable.tension", problem.allowable?.tension)],
         ["Allowable compression", q("allowable.compression", problem.allowable?.compression)],
