@@ -3,7 +3,9 @@ import { spawn, type ChildProcess } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { db } from "~/lib/db.server";
-import type { SearchProblemInput } from "~/optimizer";
+import { depthBests, searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
+import { candidatesToStore } from "~/workers/queue.server";
+import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 
@@ -73,4 +75,12 @@ export async function waitFor<T>(what: string, f: () => Promise<T | null | undef
 
 export async function sweepRow(id: number) {
   return db("sweeps").where({ id }).first();
+}
+
+/** How many candidate rows the runner stores for tinyProblem(i): the engine's answer with each
+ *  family's lightest at every depth, through the runner's own candidatesToStore. */
+export function storedCandidateCount(i: number): number {
+  const problem = searchProblemSchema.parse(tinyProblem(i));
+  const result = searchSections(tinyProblem(i), SWEEP_SEARCH_OPTIONS);
+  return candidatesToStore({ ...result, depthBests: depthBests(problem).points }, "mass", problem).length;
 }

@@ -3,10 +3,8 @@
 // Short leases through the environment keep each test to seconds.
 import { afterAll, afterEach, beforeEach, describe, expect, test } from "vitest";
 import { db, closeDb } from "~/lib/db.server";
-import { searchSections } from "~/optimizer";
-import { candidatesToStore, enqueueSweep } from "~/workers/queue.server";
-import { startWorker, stopWorker, sweepRow, teamAndUser, tinyProblem, waitFor, type WorkerProc } from "./queue-helpers";
-import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
+import { enqueueSweep } from "~/workers/queue.server";
+import { startWorker, stopWorker, storedCandidateCount, sweepRow, teamAndUser, tinyProblem, waitFor, type WorkerProc } from "./queue-helpers";
 
 let workers: WorkerProc[] = [];
 afterEach(async () => {
@@ -50,7 +48,7 @@ describe("worker processes", () => {
 
     // Candidates: exactly what the engine's answer stores, once each, from the finishing attempt.
     const expectedCount = new Map<number, number>();
-    ids.forEach((id, i) => expectedCount.set(id, candidatesToStore(searchSections(tinyProblem(i), SWEEP_SEARCH_OPTIONS), "mass").length));
+    ids.forEach((id, i) => expectedCount.set(id, storedCandidateCount(i)));
     const counts = await db("candidates").whereIn("sweep_id", ids).groupBy("sweep_id").select("sweep_id", db.raw("COUNT(*) AS n"), db.raw("COUNT(DISTINCT family, dimensions) AS d"));
     expect(counts).toHaveLength(200);
     for (const c of counts) {
@@ -86,7 +84,7 @@ describe("worker processes", () => {
     });
     expect(done).toMatchObject({ attempts: 2, finished_attempt: 2, finished_by: "crash-b" });
     const cands = await db("candidates").where({ sweep_id: id }).select("attempt");
-    expect(cands.length).toBe(candidatesToStore(searchSections(tinyProblem(3), SWEEP_SEARCH_OPTIONS), "mass").length);
+    expect(cands.length).toBe(storedCandidateCount(3));
     expect(new Set(cands.map((c) => c.attempt))).toEqual(new Set([2]));
     expect(await db("notifications").where({ link: `/sweeps/${id}` }).count({ n: "*" }).first()).toEqual({ n: 1 });
   }, 60_000);

@@ -11,10 +11,8 @@ import path from "node:path";
 import knex, { type Knex } from "knex";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { knexConfig } from "../../knexfile";
-import { searchProblemSchema, searchSections } from "~/optimizer";
-import { candidatesToStore } from "~/workers/queue.server";
-import { ROOT, startWorker, stopWorker, tinyProblem, waitFor, type WorkerProc } from "./queue-helpers";
-import { SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
+import { searchProblemSchema } from "~/optimizer";
+import { ROOT, startWorker, stopWorker, storedCandidateCount, tinyProblem, waitFor, type WorkerProc } from "./queue-helpers";
 
 const DIR = path.join(ROOT, ".data/test-restart");
 const SOCK = path.join(DIR, "mysqld.sock");
@@ -125,7 +123,7 @@ test("database restart mid-run: the worker reconnects and every sweep finishes e
     }
   }, 90_000, 250);
   for (const [i, id] of ids.entries()) {
-    const expected = candidatesToStore(searchSections(tinyProblem(i), SWEEP_SEARCH_OPTIONS), "mass").length;
+    const expected = storedCandidateCount(i);
     const row = await db("sweeps").where({ id }).first("finished_attempt");
     const c = await db("candidates").where({ sweep_id: id }).select("attempt");
     expect(c.length).toBe(expected);
