@@ -138,7 +138,9 @@ test("unit switches leave the brief exact; recheck names the limit an option bre
   const text = (await row.textContent()) ?? "";
   expect(text).toContain("Canopy edge beam");
   expect(text).toContain("4 × 5.4 m");
-  expect(text).toContain("Approved");
+  // The edit made revision B of the option's record, back in draft until approved again
+  // (revisions.server.ts); the badge says why its earlier approval no longer stands.
+  expect(text).toContain("Draft");
   expect(text).toContain("Brief changed since approval");
   await screenshot(eng, "units-project-options-stale");
 });
