@@ -20,6 +20,64 @@ export const STRESSES_ONLY = "stresses only: no stability checks";
 const VERIFY =
   "Verify every result against the governing local design code and have it approved by a licensed engineer before fabrication.";
 
+/** What a code basis's caution says; one sentence shape serves both codes so their cautions cannot drift apart. */
+interface CodeCaution {
+  basisName: (method: string | undefined) => string;
+  /** Checks always made, listed before lateral-torsional buckling. */
+  strength: string[];
+  /** Covered when the brief states a restraint length. */
+  ltb: string;
+  /** Not covered when it does not. */
+  noLtb: string;
+  /** Checks always made, listed after lateral-torsional buckling. */
+  shearAndWeld: string[];
+  /** Covered at unstiffened supports. */
+  unstiffenedSupport: string;
+  /** Not covered where supports are stiffened (the default). */
+  stiffenedSupport: string;
+  /** Sections or mechanisms the basis leaves out, before the list every code basis leaves out. */
+  excluded: string[];
+  /** What the record calls its departures from the full code ("choices", "simplifications")... */
+  choicesWord: string;
+  /** ...and their list, as the record states them. */
+  choices: string;
+}
+
+const CODE_CAUTIONS: Record<"aisc360" | "en1993", CodeCaution> = {
+  aisc360: {
+    basisName: (method) =>
+      `AISC 360-16 basis (${method === "ASD" ? "ASD: available strength Rn/Ω" : method === "LRFD" ? "LRFD: available strength φRn" : "ASD or LRFD"})`,
+    strength: [
+      "width-to-thickness classification (AISC 360-16 Table B4.1b, welded flanges with kc)",
+      "Chapter F flexure (yielding, flange and web local buckling, tension flange yielding, tee stems)",
+    ],
+    ltb: "lateral-torsional buckling over the stated unbraced length Lb with Cb",
+    noLtb: "lateral-torsional buckling (the compression flange is taken as braced throughout)",
+    shearAndWeld: [
+      "shear by G2.1 (G3 for tees, G4 for boxes) without tension field action",
+      "the flange-to-web fillet welds (J2, Table J2.4 minimum size)",
+    ],
+    unstiffenedSupport: "web local yielding and web crippling at an end support (J10.2, J10.3)",
+    stiffenedSupport: "web local yielding or crippling at supports (bearing stiffeners are assumed there and must be provided)",
+    excluded: ["box sections with slender webs and channels with noncompact webs (excluded)", "tension field action"],
+    choicesWord: "choices",
+    choices:
+      'equations marked "mem." recalled from memory, shear of bars by G2-1\'s expression, the weld leg at most the thinner part joined',
+  },
+  en1993: {
+    basisName: () => "EN 1993 basis",
+    strength: ["cross-section class (EN 1993-1-1 Table 5.2)", "bending resistance"],
+    ltb: "lateral-torsional buckling over the stated restraint length",
+    noLtb: "lateral-torsional buckling (the compression flange is taken as restrained throughout)",
+    shearAndWeld: ["shear with shear buckling", "bending with shear", "the flange-to-web weld throat"],
+    unstiffenedSupport: "web crippling (patch loading) at an end support",
+    stiffenedSupport: "web crippling or bearing at supports (bearing stiffeners are assumed there and must be provided)",
+    excluded: [],
+    choicesWord: "simplifications",
+    choices: "class 4 excluded, tee stems as outstands, the general lateral-torsional buckling case, web-only shear buckling",
+  },
+};
+
 /**
  * The caution's text for a problem's basis. Without a problem: on the section bench ("bench") it
  * speaks of properties alone; on a project-wide page ("project", briefs of either basis) it
@@ -39,23 +97,21 @@ export function cautionText(p?: CautionBasis | null, scope: "bench" | "project" 
       `resistance, stability, connection, fatigue or fire. ${VERIFY}`
     );
   }
-  if (p.basis === "aisc360") {
+  const code = p.basis === "aisc360" || p.basis === "en1993" ? CODE_CAUTIONS[p.basis] : null;
+  if (code) {
     const stiffened = p.supports?.stiffened !== false;
     const covers = [
-      "width-to-thickness classification (AISC 360-16 Table B4.1b, welded flanges with kc)",
-      "Chapter F flexure (yielding, flange and web local buckling, tension flange yielding, tee stems)",
-      p.restraint ? "lateral-torsional buckling over the stated unbraced length Lb with Cb" : null,
-      "shear by G2.1 (G3 for tees, G4 for boxes) without tension field action",
-      "the flange-to-web fillet welds (J2, Table J2.4 minimum size)",
-      stiffened ? null : "web local yielding and web crippling at an end support (J10.2, J10.3)",
+      ...code.strength,
+      p.restraint ? code.ltb : null,
+      ...code.shearAndWeld,
+      stiffened ? null : code.unstiffenedSupport,
       p.deflection ? "deflection" : null,
       p.slenderness && Object.keys(p.slenderness).length ? "the slenderness limits given" : null,
     ].filter(Boolean);
     const notCovered = [
-      p.restraint ? null : "lateral-torsional buckling (the compression flange is taken as braced throughout)",
-      stiffened ? "web local yielding or crippling at supports (bearing stiffeners are assumed there and must be provided)" : null,
-      "box sections with slender webs and channels with noncompact webs (excluded)",
-      "tension field action",
+      p.restraint ? null : code.noLtb,
+      stiffened ? code.stiffenedSupport : null,
+      ...code.excluded,
       "connections",
       "fatigue",
       "fire",
@@ -63,37 +119,8 @@ export function cautionText(p?: CautionBasis | null, scope: "bench" | "project" 
       "torsion",
     ].filter(Boolean);
     return (
-      `Sparwise is a sizing aid. On the AISC 360-16 basis (${p.method === "ASD" ? "ASD: available strength Rn/Ω" : p.method === "LRFD" ? "LRFD: available strength φRn" : "ASD or LRFD"}) its checks cover only ${covers.join(", ")}; ` +
-      `they do not cover ${notCovered.join(", ")}, and they make the choices stated in the record ` +
-      `(equations marked "mem." recalled from memory, shear of bars by G2-1's expression, the weld leg at most the thinner part joined). ${VERIFY}`
-    );
-  }
-  if (p.basis === "en1993") {
-    const stiffened = p.supports?.stiffened !== false;
-    const covers = [
-      "cross-section class (EN 1993-1-1 Table 5.2)",
-      "bending resistance",
-      p.restraint ? "lateral-torsional buckling over the stated restraint length" : null,
-      "shear with shear buckling",
-      "bending with shear",
-      "the flange-to-web weld throat",
-      stiffened ? null : "web crippling (patch loading) at an end support",
-      p.deflection ? "deflection" : null,
-      p.slenderness && Object.keys(p.slenderness).length ? "the slenderness limits given" : null,
-    ].filter(Boolean);
-    const notCovered = [
-      p.restraint ? null : "lateral-torsional buckling (the compression flange is taken as restrained throughout)",
-      stiffened ? "web crippling or bearing at supports (bearing stiffeners are assumed there and must be provided)" : null,
-      "connections",
-      "fatigue",
-      "fire",
-      "load combinations",
-      "torsion",
-    ].filter(Boolean);
-    return (
-      `Sparwise is a sizing aid. On the EN 1993 basis its checks cover only ${covers.join(", ")}; ` +
-      `they do not cover ${notCovered.join(", ")}, and they make the simplifications stated in the record ` +
-      `(class 4 excluded, tee stems as outstands, the general lateral-torsional buckling case, web-only shear buckling). ${VERIFY}`
+      `Sparwise is a sizing aid. On the ${code.basisName(p.method)} its checks cover only ${covers.join(", ")}; ` +
+      `they do not cover ${notCovered.join(", ")}, and they make the ${code.choicesWord} stated in the record (${code.choices}). ${VERIFY}`
     );
   }
   return (
