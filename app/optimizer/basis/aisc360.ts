@@ -24,11 +24,12 @@ import * as fkm from "../family-kernel";
 import type { SearchProblem } from "../search-schema";
 import * as st from "../stability";
 import type { CheckContext, DesignBasisModule, RecordLine, Scratch } from "./core";
-import { finish } from "./core";
+import { finish, flangeShearFlow, plasticAxis, readPlateTerms, symmetricAboutMidDepth, weldSizeBuilt } from "./core";
+import type { FlangeShearFlow, PlateTerms } from "./core";
 import type { AiscDesign, AiscElement, AiscFlexure, AiscLimitState, MomentSign } from "../design-types";
 import { fromSI } from "../units";
 
-const { plateNeutralAxis, plateModulusAbout, K_AREA, K_CY, K_IY, K_IZ, K_MAXY } = composite;
+const { plateModulusAbout, K_AREA, K_CY, K_IY, K_IZ, K_MAXY } = composite;
 const { C_BEARING, C_BEND, C_CLASS4, C_DEFL, C_INTERNAL, C_LTB, C_OUTSTAND, C_STEM, C_VB, C_VPL, C_WEB, C_WELD } = fkm;
 const { stabilityKernel, ST_CW, ST_H0, ST_J } = st;
 
@@ -188,7 +189,7 @@ export class FlexWork {
 }
 
 /** The AISC intermediates of the last evaluation. */
-export class AiscScratch {
+export class AiscScratch implements PlateTerms, FlangeShearFlow {
   st = new Float64Array(st.ST_OUT);
   f = [new FlexWork(), new FlexWork()];
   d = 0;
@@ -198,7 +199,8 @@ export class AiscScratch {
   tfb = 0;
   tw = 0;
   nw = 0;
-  h = 0;
+  /** clear distance between the flanges, mm */
+  hw = 0;
   tMax = 0;
   Fy = 0;
   rolled = false;
@@ -229,49 +231,6 @@ export class AiscScratch {
   Rn3 = 0;
   Ra = 0;
   bearEq = "";
-}
-
-function geometry(family: string, v: Float64Array, x: AiscScratch): void {
-  switch (family) {
-    case "mono-i":
-      x.d = v[0];
-      x.bt = v[1];
-      x.tft = v[2];
-      x.bb = v[3];
-      x.tfb = v[4];
-      x.tw = v[5];
-      x.nw = 1;
-      x.h = x.d - x.tft - x.tfb;
-      x.tMax = Math.max(x.tft, x.tfb, x.tw);
-      return;
-    case "rectangle":
-      x.bt = x.bb = v[0];
-      x.d = v[1];
-      x.tft = x.tfb = x.tw = 0;
-      x.nw = 0;
-      x.h = 0;
-      x.tMax = Math.min(v[0], v[1]);
-      return;
-    case "tee":
-      x.d = v[0];
-      x.bt = v[1];
-      x.tft = v[2];
-      x.bb = 0;
-      x.tfb = 0;
-      x.tw = v[3];
-      x.nw = 0;
-      x.h = x.d - x.tft;
-      x.tMax = Math.max(x.tft, x.tw);
-      return;
-    default:
-      x.d = v[0];
-      x.bt = x.bb = v[1];
-      x.tft = x.tfb = v[2];
-      x.tw = v[3];
-      x.nw = family === "box" ? 2 : 1;
-      x.h = x.d - 2 * x.tft;
-      x.tMax = Math.max(x.tft, x.tw);
-  }
 }
 
 /** LTB zone and strength of the F2/F4/F7 pattern: Cb[Mmax − (Mmax − Mr)(Lb − Lp)/(Lr − Lp)] ≤ Mmax, elastic given. */
@@ -311,7 +270,7 @@ function flexI(
     tw = x.tw,
     rolled = x.rolled;
   // h: clear distance between flanges (welded); rolled shapes less the fillet at each flange (B4.1b(b))
-  const h = rolled ? x.h - 2 * x.r : x.h;
+  const h = rolled ? x.hw - 2 * x.r : x.hw;
   const Sxc = Iz / yc,
     Sxt = Iz / (d - yc);
   w.Sxc = Sxc;
@@ -694,7 +653,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     k = s.k,
     p = s.plates;
   const family = fk.family;
-  geometry(family, v, x);
+  readPlateTerms(family, v, x);
   const rolled = s.rolled;
   x.rolled = rolled !== null;
   x.r = rolled !== null ? rolled.r : 0;
@@ -709,8 +668,8 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     Iz = k[K_IZ],
     Iy = k[K_IY],
     d = k[K_MAXY];
-  const symmetric = family === "i" || family === "channel" || family === "box" || family === "rectangle";
-  const yp = symmetric ? 0.5 * d : plateNeutralAxis(p, fk.nPlates, A, cy);
+  const symmetric = symmetricAboutMidDepth(family);
+  const yp = plasticAxis(family, p, fk.nPlates, A, cy, d);
   x.Zx = rolled !== null ? rolled.Zz : plateModulusAbout(p, fk.nPlates, yp);
   stabilityKernel(family, v, x.st);
   const J = x.st[ST_J],
@@ -828,10 +787,10 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     } else if (family === "box") {
       // G4 (mem.): Vn = 0.6·Fy·Aw·Cv2 (G4-1), Aw = 2·h·t, kv = 5, Cv2 by G2.2
       x.shearClause = "G4";
-      x.hv = x.h;
-      x.Aw = 2 * x.h * x.tw;
+      x.hv = x.hw;
+      x.Aw = 2 * x.hw * x.tw;
       x.kv = 5;
-      x.Cv = cv2(x.h / x.tw, x.kv, E, Fy);
+      x.Cv = cv2(x.hw / x.tw, x.kv, E, Fy);
       f = AISC_FACTORS.shear;
     } else if (family === "rectangle") {
       // no Chapter G section for solid bars: G2-1's 0.6·Fy·Aw with Aw = b·d and Cv = 1 (a stated choice)
@@ -844,7 +803,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     } else {
       // G2.1: Vn = 0.6·Fy·Aw·Cv1 (G2-1), Aw = d·tw; kv = 5.34 (no transverse stiffeners, G2-5 mem.)
       x.shearClause = "G2.1";
-      const h = rolled !== null ? x.h - 2 * x.r : x.h;
+      const h = rolled !== null ? x.hw - 2 * x.r : x.hw;
       x.hv = h;
       x.Aw = d * x.tw;
       x.kv = 5.34;
@@ -881,20 +840,13 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   // thinner part joined. It fails when larger than the thinner part joined (a stated choice).
   if (family !== "rectangle" && rolled === null) {
     x.weldOn = true;
-    const bT = family === "channel" ? x.bt - x.tw : x.bt;
-    const bB = family === "channel" ? x.bb - x.tw : x.bb;
-    const qTop = bT * x.tft * (d - x.tft / 2 - cy);
-    const qBot = x.tfb > 0 ? bB * x.tfb * (cy - x.tfb / 2) : -Infinity;
-    const top = qTop >= qBot;
-    x.Qf = top ? qTop : qBot;
-    x.q = (V * x.Qf) / Iz;
+    const top = flangeShearFlow(family, x, V, cy, Iz, x);
     const perLeg = available(e, 0.6 * e.FEXX * 0.707, AISC_FACTORS.weld);
     x.wExact = x.q / (2 * perLeg);
     const tf = top ? x.tft : x.tfb;
     const thin = tf < x.tw ? tf : x.tw;
     x.wMin = minFilletLeg(thin);
-    const wr = Math.ceil(x.wExact - 1e-9);
-    x.w = wr > x.wMin ? wr : x.wMin;
+    x.w = weldSizeBuilt(x.wExact, x.wMin);
     x.wMax = thin;
     dem[C_WELD] = x.w;
     cap[C_WELD] = x.wMax;
@@ -976,7 +928,7 @@ function flexBox(w: FlexWork, e: AiscContext, x: AiscScratch, Fy: number, re: nu
   w.fCls = cls(lamF, w.fLp, w.fLr);
   w.fCase = "Table B4.1b case 21 (mem.)";
   // case 19 (webs of box sections): λp = 2.42√(E/Fy), λr = 5.70√(E/Fy)
-  const lamW = x.h / x.tw;
+  const lamW = x.hw / x.tw;
   w.wLam = lamW;
   w.wLp = 2.42 * re;
   w.wLr = 5.7 * re;
@@ -1197,7 +1149,7 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
   const fx = AISC_FACTORS.flexure;
   const elements: AiscElement[] = [];
   const flexure: AiscFlexure[] = [];
-  const symmetric = family === "i" || family === "channel" || family === "box" || family === "rectangle";
+  const symmetric = symmetricAboutMidDepth(family);
   for (let sgn = 0; sgn < 2; sgn++) {
     const w = x.f[sgn];
     if (!w.on) continue;

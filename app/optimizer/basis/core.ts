@@ -12,7 +12,7 @@ import type { AiscContext, AiscScratch } from "./aisc360";
 import { WELD_RUNS } from "../cost";
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
-const { KERNEL_OUT, PLATE_STRIDE } = composite;
+const { KERNEL_OUT, PLATE_STRIDE, plateNeutralAxis } = composite;
 const { N_CHECKS } = fkm;
 
 export interface CheckContext {
@@ -161,4 +161,118 @@ export interface DesignBasisModule {
   recordLines(verdict: { checks: { name: CheckName; demand: number; capacity: number; utilisation: number }[]; design?: DesignBlock; aisc?: AiscDesign }): RecordLine[];
   /** The clause shown beside a check where this basis's differs from CHECK_CLAUSES (checks.ts). */
   clauses?: Partial<Record<CheckName, string>>;
+}
+
+/**
+ * The flange and web terms of a plate family's dimension vector (FAMILY_DIMENSIONS order) that
+ * every code basis reads: depth d, top flange bt × tft, bottom flange bb × tfb (0 for the tee),
+ * web thickness tw and number of webs nw (0 for the tee stem and the bar), the clear depth
+ * between the flanges hw, and the thickest plate tMax (the rectangle: its smaller side, the one
+ * that sets its steel's strength band, member-checks.md's pinned reading). Each basis's scratch
+ * carries these fields.
+ */
+export interface PlateTerms {
+  d: number;
+  bt: number;
+  tft: number;
+  bb: number;
+  tfb: number;
+  tw: number;
+  nw: number;
+  hw: number;
+  tMax: number;
+}
+
+export function readPlateTerms(family: string, v: Float64Array, x: PlateTerms): void {
+  switch (family) {
+    case "mono-i":
+      x.d = v[0];
+      x.bt = v[1];
+      x.tft = v[2];
+      x.bb = v[3];
+      x.tfb = v[4];
+      x.tw = v[5];
+      x.nw = 1;
+      x.hw = x.d - x.tft - x.tfb;
+      x.tMax = Math.max(x.tft, x.tfb, x.tw);
+      return;
+    case "rectangle":
+      x.bt = x.bb = v[0];
+      x.d = v[1];
+      x.tft = x.tfb = x.tw = 0;
+      x.nw = 0;
+      x.hw = 0;
+      x.tMax = Math.min(v[0], v[1]);
+      return;
+    case "tee":
+      x.d = v[0];
+      x.bt = v[1];
+      x.tft = v[2];
+      x.bb = 0;
+      x.tfb = 0;
+      x.tw = v[3];
+      x.nw = 0;
+      x.hw = x.d - x.tft;
+      x.tMax = Math.max(x.tft, x.tw);
+      return;
+    default:
+      // i, channel, box: [d, b, tf, tw]
+      x.d = v[0];
+      x.bt = x.bb = v[1];
+      x.tft = x.tfb = v[2];
+      x.tw = v[3];
+      x.nw = family === "box" ? 2 : 1;
+      x.hw = x.d - 2 * x.tft;
+      x.tMax = Math.max(x.tft, x.tw);
+  }
+}
+
+/** Families whose plates are symmetric about mid-depth (so hogging works out exactly as sagging). */
+export function symmetricAboutMidDepth(family: string): boolean {
+  return family === "i" || family === "channel" || family === "box" || family === "rectangle";
+}
+
+/**
+ * The plastic neutral axis's height above the bottom fibre, mm: mid-depth exactly for the
+ * families symmetric about it, otherwise the equal-area axis of the plates.
+ */
+export function plasticAxis(family: string, plates: Float64Array, nPlates: number, A: number, cy: number, d: number): number {
+  return symmetricAboutMidDepth(family) ? 0.5 * d : plateNeutralAxis(plates, nPlates, A, cy);
+}
+
+/** Where the flange-to-web weld sizing of a basis keeps its longitudinal shear. */
+export interface FlangeShearFlow {
+  /** first moment of the flange about the elastic neutral axis, mm³ */
+  Qf: number;
+  /** longitudinal shear per unit length at that flange's junction, N/mm */
+  q: number;
+}
+
+/**
+ * The longitudinal shear a flange-to-web junction carries, q = V·Qf/Iz (the shear flow of a
+ * built-up beam, Jourawski's formula; any mechanics of materials text, e.g. Gere & Goodno,
+ * Mechanics of Materials, the section on built-up beams and shear flow; mem.), Qf of the flange
+ * with the larger first moment about the elastic neutral axis (a channel's flange measured clear
+ * of the web). Both code bases size their welds on it (EN 1993-1-8 §4.5.3.3, AISC 360-16 §J2.4);
+ * each keeps its own weld strength. Returns whether the top flange governs.
+ */
+export function flangeShearFlow(family: string, x: PlateTerms, V: number, cy: number, Iz: number, out: FlangeShearFlow): boolean {
+  const bT = family === "channel" ? x.bt - x.tw : x.bt;
+  const bB = family === "channel" ? x.bb - x.tw : x.bb;
+  const qTop = bT * x.tft * (x.d - x.tft / 2 - cy);
+  const qBot = x.tfb > 0 ? bB * x.tfb * (cy - x.tfb / 2) : -Infinity;
+  const top = qTop >= qBot;
+  out.Qf = top ? qTop : qBot;
+  out.q = (V * out.Qf) / Iz;
+  return top;
+}
+
+/**
+ * A weld size (throat or leg) as built: the size needed rounded up to a whole mm, and at least
+ * the basis's minimum. The 1e-9 keeps a size that is whole but for rounding noise from going up
+ * a millimetre (a stated choice, common practice to the nearest mm).
+ */
+export function weldSizeBuilt(exact: number, least: number): number {
+  const r = Math.ceil(exact - 1e-9);
+  return r > least ? r : least;
 }

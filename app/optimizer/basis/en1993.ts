@@ -23,10 +23,11 @@ import * as fkm from "../family-kernel";
 import type { SearchProblem } from "../search-schema";
 import * as st from "../stability";
 import type { CheckContext, DesignBasisModule, RecordLine, Scratch } from "./core";
-import { finish } from "./core";
+import { finish, flangeShearFlow, plasticAxis, readPlateTerms, weldSizeBuilt } from "./core";
+import type { FlangeShearFlow, PlateTerms } from "./core";
 
 // Local copies of imported bindings (module transforms make each imported-name access a getter call).
-const { plateNeutralAxis, plateModulusAbout, K_AREA, K_CY, K_IY, K_IZ, K_MAXY } = composite;
+const { plateModulusAbout, K_AREA, K_CY, K_IY, K_IZ, K_MAXY } = composite;
 const { C_BEARING, C_BEND, C_CLASS4, C_DEFL, C_INTERNAL, C_LTB, C_MV, C_OUTSTAND, C_STEM, C_VB, C_VPL, C_WEB, C_WELD } = fkm;
 const { stabilityKernel, ST_BETA, ST_CW, ST_J, ST_SCY } = st;
 
@@ -146,7 +147,7 @@ const EL_NAMES = ["top flange", "bottom flange", "web", "stem"];
 const MAX_EL = 6;
 
 /** The EN 1993 intermediates of the last evaluation (allocation-free; read back by design()). */
-export class En1993Scratch {
+export class En1993Scratch implements PlateTerms, FlangeShearFlow {
   st = new Float64Array(st.ST_OUT);
   // geometry read from the dimension vector
   d = 0;
@@ -230,52 +231,6 @@ export class En1993Scratch {
   chiF = 0;
   Leff = 0;
   FRd = 0;
-}
-
-/** Reads the dimension vector (FAMILY_DIMENSIONS order) into flange/web terms. */
-function geometry(family: string, v: Float64Array, x: En1993Scratch): void {
-  switch (family) {
-    case "mono-i":
-      x.d = v[0];
-      x.bt = v[1];
-      x.tft = v[2];
-      x.bb = v[3];
-      x.tfb = v[4];
-      x.tw = v[5];
-      x.nw = 1;
-      x.hw = x.d - x.tft - x.tfb;
-      x.tMax = Math.max(x.tft, x.tfb, x.tw);
-      return;
-    case "rectangle":
-      x.bt = x.bb = v[0];
-      x.d = v[1];
-      x.tft = x.tfb = x.tw = 0;
-      x.nw = 0;
-      x.hw = 0;
-      // member-checks.md, readings pinned: a rectangle's fy band is that of its smaller side
-      x.tMax = Math.min(v[0], v[1]);
-      return;
-    case "tee":
-      x.d = v[0];
-      x.bt = v[1];
-      x.tft = v[2];
-      x.bb = 0;
-      x.tfb = 0;
-      x.tw = v[3];
-      x.nw = 0;
-      x.hw = x.d - x.tft;
-      x.tMax = Math.max(x.tft, x.tw);
-      return;
-    default:
-      // i, channel, box: [d, b, tf, tw]
-      x.d = v[0];
-      x.bt = x.bb = v[1];
-      x.tft = x.tfb = v[2];
-      x.tw = v[3];
-      x.nw = family === "box" ? 2 : 1;
-      x.hw = x.d - 2 * x.tft;
-      x.tMax = Math.max(x.tft, x.tw);
-  }
 }
 
 function addElement(x: En1993Scratch, name: number, part: number, under: number, c: number, t: number, l1: number, l2: number, l3: number, alpha: number, psi: number): void {
@@ -399,7 +354,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     k = s.k,
     p = s.plates;
   const family = fk.family;
-  geometry(family, v, x);
+  readPlateTerms(family, v, x);
   const rolled = s.rolled;
   x.rolled = rolled !== null;
   x.rolledShape = rolled !== null ? rolled.shape : "";
@@ -418,9 +373,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     Iz = k[K_IZ],
     Iy = k[K_IY],
     d = k[K_MAXY];
-  const symmetric = family === "i" || family === "channel" || family === "box" || family === "rectangle";
-  // plastic neutral axis: mid-depth exactly for sections symmetric about it
-  const yp = symmetric ? 0.5 * d : plateNeutralAxis(p, fk.nPlates, A, cy);
+  const yp = plasticAxis(family, p, fk.nPlates, A, cy, d);
 
   // 1. Classification (EN 1993-1-1 §5.5, Table 5.2)
   classify(family, x, sag, hog, yp, cy);
@@ -578,17 +531,10 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   // a rolled section has no flange-to-web weld
   if (family !== "rectangle" && rolled === null) {
     x.weldOn = true;
-    const bT = family === "channel" ? x.bt - x.tw : x.bt;
-    const bB = family === "channel" ? x.bb - x.tw : x.bb;
-    const qTop = bT * x.tft * (d - x.tft / 2 - cy);
-    const qBot = x.tfb > 0 ? bB * x.tfb * (cy - x.tfb / 2) : -Infinity;
-    const top = qTop >= qBot;
-    x.Qf = top ? qTop : qBot;
-    x.q = (V * x.Qf) / Iz;
+    const top = flangeShearFlow(family, x, V, cy, Iz, x);
     x.fvwd = e.fu / (SQRT3 * e.betaW * e.gM2);
     x.aExact = x.q / (2 * x.fvwd);
-    const a = Math.ceil(x.aExact);
-    x.a = a > MIN_WELD_THROAT ? a : MIN_WELD_THROAT;
+    x.a = weldSizeBuilt(x.aExact, MIN_WELD_THROAT);
     const tf = top ? x.tft : x.tfb;
     x.aMax = 0.7 * (tf < x.tw ? tf : x.tw);
     dem[C_WELD] = x.a;
