@@ -137,23 +137,40 @@ export const ZONES = ["plastic", "inelastic", "elastic"] as const;
 const CLS = ["compact", "noncompact", "slender"] as const;
 const cls = (lam: number, lp: number, lr: number) => (lam <= lp ? 0 : lam <= lr ? 1 : 2);
 
+/** One element's Table B4.1b working: λ, λp, λr, its class (0 compact, 1 noncompact, 2 slender) and the table's case. */
+export class ElementWork {
+  lam = NaN;
+  lp = NaN;
+  lr = NaN;
+  cls = 0;
+  case = "";
+  set(lam: number, lp: number, lr: number, tableCase: string): void {
+    this.lam = lam;
+    this.lp = lp;
+    this.lr = lr;
+    this.cls = cls(lam, lp, lr);
+    this.case = tableCase;
+  }
+  clear(): void {
+    this.lam = this.lp = this.lr = NaN;
+    this.cls = 0;
+    this.case = "";
+  }
+}
+
 /** One moment sign's Chapter F working (allocation-free; read back by design()). */
 export class FlexWork {
   on = false;
   sec = 0;
-  /** compression flange: λ, λp, λr, class; kc (welded I flanges, F3-2, F4-14, F5-9) */
-  fLam = NaN;
-  fLp = NaN;
-  fLr = NaN;
-  fCls = 0;
-  fCase = "";
+  /** compression flange; kc (welded I flanges, F3-2, F4-14, F5-9) */
+  flange = new ElementWork();
   kc = NaN;
-  /** web (or tee stem): λ, λp, λr, class */
-  wLam = NaN;
-  wLp = NaN;
-  wLr = NaN;
-  wCls = 0;
-  wCase = "";
+  /** web (or tee stem) */
+  web = new ElementWork();
+  /** the compression flange's class, read by search.ts's (U3) */
+  get fCls(): number {
+    return this.flange.cls;
+  }
   Mp = NaN;
   My = NaN;
   Sxc = NaN;
@@ -184,7 +201,12 @@ export class FlexWork {
   outLimit = 1;
   outWhat = "";
   copy(o: FlexWork): void {
+    // the elements are this FlexWork's own (allocation-free), so they are copied into, not shared
+    const flange = this.flange,
+      web = this.web;
     Object.assign(this, o);
+    this.flange = Object.assign(flange, o.flange);
+    this.web = Object.assign(web, o.web);
   }
 }
 
@@ -292,11 +314,7 @@ function flexI(
   const lpf = 0.38 * re;
   // case 10 (rolled I, channels): λr = 1.0√(E/Fy); case 11 (built-up I): 0.95√(kc·E/FL)
   const lrf = rolled || family === "channel" ? 1.0 * re : 0.95 * Math.sqrt((kc * E) / FL);
-  w.fLam = lamF;
-  w.fLp = lpf;
-  w.fLr = lrf;
-  w.fCls = cls(lamF, lpf, lrf);
-  w.fCase = rolled || family === "channel" ? "Table B4.1b case 10" : "Table B4.1b case 11";
+  w.flange.set(lamF, lpf, lrf, rolled || family === "channel" ? "Table B4.1b case 10" : "Table B4.1b case 11");
   // web: hc = twice the distance from the elastic neutral axis to the compression flange's inside face,
   // hp the same from the plastic neutral axis (B4.1b(b)); doubly symmetric hc = hp = h
   const hc = doubly ? h : Math.max(0, 2 * (yc - tc));
@@ -311,11 +329,7 @@ function flexI(
     lpw = hp > 0 ? ((hc / hp) * re) / (den * den) : lrw;
     if (lpw > lrw) lpw = lrw;
   }
-  w.wLam = lamW;
-  w.wLp = lpw;
-  w.wLr = lrw;
-  w.wCls = cls(lamW, lpw, lrw);
-  w.wCase = doubly ? "Table B4.1b case 15" : "Table B4.1b case 16";
+  w.web.set(lamW, lpw, lrw, doubly ? "Table B4.1b case 15" : "Table B4.1b case 16");
   // §F13.2 (mem.): unstiffened webs h/tw ≤ 260
   if (h / tw > 260) {
     w.outRatio = h / tw;
@@ -329,7 +343,7 @@ function flexI(
   const Lb = e.Lb,
     Cb = e.Cb,
     ltbOn = e.restraint;
-  if (family === "channel" && w.wCls > 0) {
+  if (family === "channel" && w.web.cls > 0) {
     // F2 covers channels with compact webs only; F4 and F5 are for I-shaped members
     if (lamW / lpw > w.outRatio / w.outLimit) {
       w.outRatio = lamW;
@@ -337,12 +351,12 @@ function flexI(
       w.outWhat = "channel web not compact (Chapter F covers channels by F2 only)";
     }
   }
-  if (doubly && w.wCls === 0) {
+  if (doubly && w.web.cls === 0) {
     // F2 (compact flanges) or F3 (noncompact or slender flanges); channels take F3's FLB by analogy
-    w.sec = w.fCls === 0 ? S_F2 : S_F3;
+    w.sec = w.flange.cls === 0 ? S_F2 : S_F3;
     w.yld = Mp; // F2-1
-    if (w.fCls === 1) w.flb = Mp - (Mp - 0.7 * Fy * Sxc) * ((lamF - lpf) / (lrf - lpf)); // F3-1
-    else if (w.fCls === 2) w.flb = (0.9 * E * kc * Sxc) / (lamF * lamF); // F3-2
+    if (w.flange.cls === 1) w.flb = Mp - (Mp - 0.7 * Fy * Sxc) * ((lamF - lpf) / (lrf - lpf)); // F3-1
+    else if (w.flange.cls === 2) w.flb = (0.9 * E * kc * Sxc) / (lamF * lamF); // F3-2
     if (ltbOn) {
       // F2-5, F2-7, F2-8a/b, F2-6, F2-2, F2-3, F2-4
       const ry = Math.sqrt(Iy / A);
@@ -367,7 +381,7 @@ function flexI(
         w.ltb = m < Mp ? m : Mp;
       }
     }
-  } else if (w.wCls <= 1) {
+  } else if (w.web.cls <= 1) {
     // F4: compact or noncompact webs (doubly symmetric with noncompact web; singly symmetric)
     w.sec = S_F4;
     const Iyc = (tc * bc * bc * bc) / 12;
@@ -381,8 +395,8 @@ function flexI(
     const RM = w.Rpc * Myc;
     w.yld = RM; // F4-1 (compression flange yielding)
     // F4.3 FLB: F4-13 (noncompact), F4-14 (slender)
-    if (w.fCls === 1) w.flb = RM - (RM - FL * Sxc) * ((lamF - lpf) / (lrf - lpf));
-    else if (w.fCls === 2) w.flb = (0.9 * E * kc * Sxc) / (lamF * lamF);
+    if (w.flange.cls === 1) w.flb = RM - (RM - FL * Sxc) * ((lamF - lpf) / (lrf - lpf));
+    else if (w.flange.cls === 2) w.flb = (0.9 * E * kc * Sxc) / (lamF * lamF);
     // F4.4 tension flange yielding when Sxt < Sxc: F4-15
     if (Sxt < Sxc) {
       w.Rpt = rpOf(big, lamW, lpw, lrw, MpT, Myt);
@@ -419,8 +433,8 @@ function flexI(
     if (Rpg > 1) Rpg = 1;
     w.Rpg = Rpg;
     w.yld = Rpg * Fy * Sxc; // F5-1
-    if (w.fCls === 1) w.flb = Rpg * (Fy - 0.3 * Fy * ((lamF - lpf) / (lrf - lpf))) * Sxc; // F5-7, F5-8
-    else if (w.fCls === 2) w.flb = Rpg * ((0.9 * E * kc) / (lamF * lamF)) * Sxc; // F5-7, F5-9
+    if (w.flange.cls === 1) w.flb = Rpg * (Fy - 0.3 * Fy * ((lamF - lpf) / (lrf - lpf))) * Sxc; // F5-7, F5-8
+    else if (w.flange.cls === 2) w.flb = Rpg * ((0.9 * E * kc) / (lamF * lamF)) * Sxc; // F5-7, F5-9
     if (Sxt < Sxc) w.tfy = Fy * Sxt; // F5-10
     if (ltbOn) {
       const rt = rtOf(bc, tc, hc, tw, h, h0, d);
@@ -922,22 +936,14 @@ function flexBox(w: FlexWork, e: AiscContext, x: AiscScratch, Fy: number, re: nu
     tf = x.tft;
   // Table B4.1b case 21 (box flanges; mem.): λp = 1.12√(E/Fy), λr = 1.49√(E/Fy)
   const lamF = b / tf;
-  w.fLam = lamF;
-  w.fLp = 1.12 * re;
-  w.fLr = 1.49 * re;
-  w.fCls = cls(lamF, w.fLp, w.fLr);
-  w.fCase = "Table B4.1b case 21 (mem.)";
+  w.flange.set(lamF, 1.12 * re, 1.49 * re, "Table B4.1b case 21 (mem.)");
   // case 19 (webs of box sections): λp = 2.42√(E/Fy), λr = 5.70√(E/Fy)
   const lamW = x.hw / x.tw;
-  w.wLam = lamW;
-  w.wLp = 2.42 * re;
-  w.wLr = 5.7 * re;
-  w.wCls = cls(lamW, w.wLp, w.wLr);
-  w.wCase = "Table B4.1b case 19";
-  if (w.fCls === 1) {
+  w.web.set(lamW, 2.42 * re, 5.7 * re, "Table B4.1b case 19");
+  if (w.flange.cls === 1) {
     const m = Mp - (Mp - Fy * S) * (3.57 * lamF * Math.sqrt(Fy / E) - 4.0); // F7-2
     w.flb = m < Mp ? m : Mp;
-  } else if (w.fCls === 2) {
+  } else if (w.flange.cls === 2) {
     // F7-3: Mn = Fy·Se, Se with the compression flange's effective width be = 1.92·tf·√(E/Fy)·[1 −
     // 0.34/(b/tf)·√(E/Fy)] ≤ b (F7-5, box sections; mem.): the clear part reduced to be, the
     // section's least elastic modulus after the loss
@@ -951,12 +957,12 @@ function flexBox(w: FlexWork, e: AiscContext, x: AiscScratch, Fy: number, re: nu
     const Se = I2 / Math.max(d - c2, c2);
     w.flb = Fy * Se;
   }
-  if (w.wCls === 1) {
+  if (w.web.cls === 1) {
     const m = Mp - (Mp - Fy * S) * (0.305 * lamW * Math.sqrt(Fy / E) - 0.738); // F7-6
     w.wlb = m < Mp ? m : Mp;
-  } else if (w.wCls === 2) {
+  } else if (w.web.cls === 2) {
     w.outRatio = lamW;
-    w.outLimit = w.wLr;
+    w.outLimit = w.web.lr;
     w.outWhat = "box web slender (F7.3(b) is outside this version)";
   }
   if (e.restraint) {
@@ -999,29 +1005,21 @@ function flexTee(w: FlexWork, e: AiscContext, x: AiscScratch, Fy: number, re: nu
   w.Lp = w.Lr = w.r = w.Fcr = w.Mcr = w.B = NaN;
   // flange: Table B4.1b case 10, λ = bf/2tf; stem: case 14, λ = d/tw (λp 0.84, λr 1.52 √(E/Fy))
   const lamF = x.bt / (2 * x.tft);
-  w.fLam = lamF;
-  w.fLp = 0.38 * re;
-  w.fLr = 1.0 * re;
-  w.fCls = cls(lamF, w.fLp, w.fLr);
-  w.fCase = "Table B4.1b case 10";
+  w.flange.set(lamF, 0.38 * re, 1.0 * re, "Table B4.1b case 10");
   const lamS = d / x.tw;
-  w.wLam = lamS;
-  w.wLp = 0.84 * re;
-  w.wLr = 1.52 * re;
-  w.wCls = cls(lamS, w.wLp, w.wLr);
-  w.wCase = "Table B4.1b case 14";
+  w.web.set(lamS, 0.84 * re, 1.52 * re, "Table B4.1b case 14");
   // F9.1 yielding: stem in tension Mp = Fy·Zx ≤ 1.6·My (F9-2); stem in compression Mp = My (F9-4)
   const Mp = stemTension ? Math.min(Fy * x.Zx, 1.6 * My) : My;
   w.Mp = Mp;
   w.yld = Mp;
   if (stemTension) {
     // F9.3 FLB (flange in compression): F9-14 (noncompact, ≤ 1.6·My), F9-15 (slender)
-    if (w.fCls === 1) w.flb = Math.min(Mp - (Mp - 0.7 * Fy * w.Sxc) * ((lamF - w.fLp) / (w.fLr - w.fLp)), 1.6 * My);
-    else if (w.fCls === 2) w.flb = (0.7 * E * w.Sxc) / (lamF * lamF);
+    if (w.flange.cls === 1) w.flb = Math.min(Mp - (Mp - 0.7 * Fy * w.Sxc) * ((lamF - w.flange.lp) / (w.flange.lr - w.flange.lp)), 1.6 * My);
+    else if (w.flange.cls === 2) w.flb = (0.7 * E * w.Sxc) / (lamF * lamF);
   } else {
     // F9.4 local buckling of the stem in compression (mem.): Mn = Fcr·Sx (F9-16) with Sx to the stem
     // tip; Fcr = Fy (F9-17), (1.43 − 0.515(d/tw)√(Fy/E))·Fy (F9-18), 1.52·E/(d/tw)² (F9-19)
-    const Fcr = w.wCls === 0 ? Fy : w.wCls === 1 ? (1.43 - 0.515 * lamS * Math.sqrt(Fy / E)) * Fy : (1.52 * E) / (lamS * lamS);
+    const Fcr = w.web.cls === 0 ? Fy : w.web.cls === 1 ? (1.43 - 0.515 * lamS * Math.sqrt(Fy / E)) * Fy : (1.52 * E) / (lamS * lamS);
     w.stem = Fcr * Stip;
   }
   if (e.restraint) {
@@ -1068,9 +1066,8 @@ function flexBar(w: FlexWork, e: AiscContext, x: AiscScratch, Fy: number, Iz: nu
   w.My = My;
   w.Sxc = w.Sxt = Sx;
   w.kc = w.Rpc = w.Rpt = w.Rpg = w.FL = NaN;
-  w.fLam = w.fLp = w.fLr = w.wLam = w.wLp = w.wLr = NaN;
-  w.fCls = w.wCls = 0;
-  w.fCase = w.wCase = "";
+  w.flange.clear();
+  w.web.clear();
   w.yld = Mp;
   w.flb = w.wlb = w.tfy = w.stem = w.ltb = NaN;
   w.zone = -1;
@@ -1114,12 +1111,12 @@ function limitStates(w: FlexWork, section: ChapterFSection, stemTension: boolean
   out.push({ name: yn, equation: section === "F9" && !stemTension ? "F9-4" : ye, Mn: w.yld * 1e-6 });
   if (w.flb === w.flb) {
     const eq =
-      section === "F3" ? (w.fCls === 1 ? "F3-1" : "F3-2") : section === "F4" ? (w.fCls === 1 ? "F4-13" : "F4-14") : section === "F5" ? (w.fCls === 1 ? "F5-7, F5-8" : "F5-7, F5-9") : section === "F7" ? (w.fCls === 1 ? "F7-2" : "F7-3, F7-5") : w.fCls === 1 ? "F9-14" : "F9-15";
+      section === "F3" ? (w.flange.cls === 1 ? "F3-1" : "F3-2") : section === "F4" ? (w.flange.cls === 1 ? "F4-13" : "F4-14") : section === "F5" ? (w.flange.cls === 1 ? "F5-7, F5-8" : "F5-7, F5-9") : section === "F7" ? (w.flange.cls === 1 ? "F7-2" : "F7-3, F7-5") : w.flange.cls === 1 ? "F9-14" : "F9-15";
     out.push({ name: "flange local buckling", equation: eq, Mn: w.flb * 1e-6 });
   }
   if (w.wlb === w.wlb) out.push({ name: "web local buckling", equation: "F7-6", Mn: w.wlb * 1e-6 });
   if (w.tfy === w.tfy) out.push({ name: "tension flange yielding", equation: section === "F5" ? "F5-10" : "F4-15", Mn: w.tfy * 1e-6 });
-  if (w.stem === w.stem) out.push({ name: "local buckling of the tee stem", equation: w.wCls === 0 ? "F9-16, F9-17" : w.wCls === 1 ? "F9-16, F9-18" : "F9-16, F9-19", Mn: w.stem * 1e-6 });
+  if (w.stem === w.stem) out.push({ name: "local buckling of the tee stem", equation: w.web.cls === 0 ? "F9-16, F9-17" : w.web.cls === 1 ? "F9-16, F9-18" : "F9-16, F9-19", Mn: w.stem * 1e-6 });
   return out;
 }
 
@@ -1159,8 +1156,8 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
     if (!(symmetric && sgn === 1 && x.f[0].on) && family !== "rectangle") {
       const flangeName = family === "tee" ? "flange" : sgn === 0 ? "top flange" : "bottom flange";
       if (!(family === "tee" && !stemTension))
-        elements.push({ element: flangeName, under: [moment], case: w.fCase, ratio: w.fLam, lambdaP: w.fLp, lambdaR: w.fLr, class: CLS[w.fCls], ...(w.kc === w.kc && w.fCase.endsWith("11") ? { kc: w.kc } : {}) });
-      elements.push({ element: family === "tee" ? "stem" : "web", under: [moment], case: w.wCase, ratio: w.wLam, lambdaP: w.wLp, lambdaR: w.wLr, class: CLS[w.wCls] });
+        elements.push({ element: flangeName, under: [moment], case: w.flange.case, ratio: w.flange.lam, lambdaP: w.flange.lp, lambdaR: w.flange.lr, class: CLS[w.flange.cls], ...(w.kc === w.kc && w.flange.case.endsWith("11") ? { kc: w.kc } : {}) });
+      elements.push({ element: family === "tee" ? "stem" : "web", under: [moment], case: w.web.case, ratio: w.web.lam, lambdaP: w.web.lp, lambdaR: w.web.lr, class: CLS[w.web.cls] });
     } else if (symmetric && sgn === 1) for (const el of elements) el.under.push("hogging");
     const M = (sgn === 0 ? ctx.Ms : ctx.Mh) * 1e-6;
     const out: AiscFlexure = {
