@@ -2,10 +2,10 @@
 // (candidatesToStore, the same columns): for the demo seed and test fixtures, which need real
 // results without waiting for a worker.
 import type { Knex } from "knex";
-import { depthBests, rawGridSize, searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
+import { searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
 import { candidatesToStore } from "~/workers/queue.server";
 import { catalogueSummary, withRolledRows } from "~/lib/catalogue-sweep";
-import { IN_THREAD_MAX_GRID, SWEEP_SEARCH_OPTIONS, sweepCatalogues, sweepRestraintStudy, withAdvice } from "~/workers/sweep-search.server";
+import { SWEEP_SEARCH_OPTIONS, sweepCatalogues, sweepRestraintStudy, withAdvice } from "~/workers/sweep-search.server";
 import { studyApplies } from "~/lib/restraint-study";
 
 export interface FinishedSweepInput {
@@ -24,8 +24,7 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
   const result = await withAdvice(problem, await sweepCatalogues(problem, await searchSections(problem, SWEEP_SEARCH_OPTIONS)));
   // and the restraint study a queued EN 1993 sweep stores with its results
   const study = studyApplies(problem) ? await sweepRestraintStudy(problem) : null;
-  // and each family's lightest at every depth, as a queued sweep of a grid this size stores
-  if (rawGridSize(problem) <= IN_THREAD_MAX_GRID) (result as { depthBests?: unknown }).depthBests = depthBests(problem).points;
+  // (each family's lightest at every depth come with it: the grid front's context points)
   const ms = Date.now() - t0;
   const rows = withRolledRows(candidatesToStore(result, problem.objective, problem), result, problem);
   const catalogue = catalogueSummary(result, problem);
@@ -40,7 +39,7 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
       status: "succeeded",
       progress_done: 1,
       progress_total: 1,
-      counts: JSON.stringify(result.counts),
+      counts: JSON.stringify({ ...result.counts, front: result.front.length }),
       best: result.best ? JSON.stringify(result.best) : null,
       reason: result.reason ?? null,
       restraint_study: study ? JSON.stringify(study) : null,

@@ -2,14 +2,15 @@
 // for the chart and the first page of the table, the brief and project it belongs to, its
 // rechecks and the options saved from it.
 //
-// Why bounded (issue 9, item 8): a sweep stores up to 2,000 front candidates, and sending them all
+// Why bounded (issue 9, item 8): a sweep stores its whole front (up to 20,000 members) and each
+// family's lightest at every depth, and sending them all
 // (each worked through the EN 1993 checks again) made a 1.5 MB page that took 650 ms. The page's
 // document now stays small whatever the sweep: the table's other pages, sorts and filters come
 // from GET /api/v1/sweeps/:id/candidates (candidatesPage, which the table fetches), and the chart
 // draws the front sampled evenly plus every family's best.
 import { db, getDb, parseJson } from "~/lib/db.server";
 import { notFound } from "~/lib/projects.server";
-import { listCandidates, getTeamSweep, TERMINAL, WITH_RESULTS, type CandidateRow, type CandidatesQuery, type SweepView } from "~/workers/queue.server";
+import { listCandidates, getTeamSweep, STORED_FRONT_CAP, TERMINAL, WITH_RESULTS, type CandidateRow, type CandidatesQuery, type SweepView } from "~/workers/queue.server";
 import { runOnEngineThread } from "~/workers/engine-thread.server";
 import type { ChartCandidate } from "~/components/TradeoffChart";
 import type { UnitSystem } from "~/optimizer/units";
@@ -26,8 +27,11 @@ export const CHART_MAX_POINTS = 200;
 /** Most rechecks and saved options listed by name on the page (the rest are counted). */
 export const PAGE_LIST_MAX = 30;
 
-/** The CSV export's cap: every candidate the queue stores (its front cap plus the family bests). */
-const MAX_EXPORT_CANDIDATES = 2_500;
+/**
+ * The CSV export's cap: what the queue stores, the front (up to STORED_FRONT_CAP) plus each family's
+ * lightest at every depth and the family bests (the walkthrough's fine-grid brief: about 18,000 rows).
+ */
+const MAX_EXPORT_CANDIDATES = 2 * STORED_FRONT_CAP;
 
 export const toChartCandidate = (c: CandidateRow): ChartCandidate => ({
   rank: c.rank,
@@ -251,6 +255,8 @@ export async function loadSweepPage(teamId: number, id: number) {
     table: table ? { items: table.items.map((c) => ({ ...toChartCandidate(c), design: c.design ?? null })), total: table.total, page: table.page, pageSize: table.pageSize } : { items: [], total: 0, page: 1, pageSize: TABLE_PAGE_SIZE },
     bestDesign: bestRow?.design ?? null,
     families: parts?.families ?? [],
+    /** most front members a sweep stores (the page says so when a front was longer) */
+    frontCap: STORED_FRONT_CAP,
     brief: brief ? { id: brief.id as number, name: brief.name as string } : null,
     project: project ? { id: project.id as number, name: project.name as string } : null,
     units: ((brief?.units as UnitSystem | undefined) ?? "si") as UnitSystem,

@@ -77,7 +77,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function SweepPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweep, chart, table, families, brief, project, rechecks, options, may, numbers } = loaderData;
+  const { sweep, chart, table, families, frontCap, brief, project, rechecks, options, may, numbers } = loaderData;
   const [units, setUnits] = useState<UnitSystem>(loaderData.units);
   // The chart's points: one JSON text in the document, parsed in the browser only, after hydration
   // (PageChart in sweep-page.server.ts says why); the server and the first render draw none.
@@ -244,8 +244,14 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
             <BasisNote problem={sweep.problem} className="mt-1" />
             {sweep.counts ? (
               <p className="mt-1 text-ink/80 tabular-nums">
-                Grid {sweep.counts.grid.toLocaleString("en")} shapes · evaluated {sweep.counts.evaluated.toLocaleString("en")} · feasible among them {sweep.counts.feasible.toLocaleString("en")} · stored {chart.stored.toLocaleString("en")} · time{" "}
+                Grid {sweep.counts.grid.toLocaleString("en")} shapes · evaluated {sweep.counts.evaluated.toLocaleString("en")} · feasible among them {sweep.counts.feasible.toLocaleString("en")}
+                {sweep.counts.front !== undefined ? ` · front ${sweep.counts.front.toLocaleString("en")}` : ""} · stored {chart.stored.toLocaleString("en")} · time{" "}
                 {sweep.elapsedMs !== null ? `${(sweep.elapsedMs / 1000).toFixed(1)} s` : "—"}
+              </p>
+            ) : null}
+            {sweep.counts?.front !== undefined && sweep.counts.front > frontCap ? (
+              <p className="mt-1 text-ink/80" data-testid="front-cut">
+                The front has {sweep.counts.front.toLocaleString("en")} members; only its lightest {frontCap.toLocaleString("en")} were stored, so the chart, the table and the CSV stop there.
               </p>
             ) : null}
             <p className="mt-1">

@@ -62,8 +62,14 @@ function jsonError(status: number, error: string, extra: Record<string, unknown>
   return Response.json({ error, ...extra }, { status });
 }
 
-/** How many candidates of a sweep are stored at most besides the front and the family bests. */
-export const STORED_FRONT_CAP = 2_000;
+/**
+ * Most front members a sweep stores (lightest first). The grid's front is stored whole up to this:
+ * the walkthrough's all-families fine-grid brief has 10,250 members, so the cap is twice that. It
+ * stays as a bound on what one sweep can write (a pathological brief, say a 0.1 mm width step, could
+ * have a front of hundreds of thousands of shapes); when it cuts, the sweep's stored counts keep the
+ * front's full size (counts.front) and the page says that only the lightest part was stored.
+ */
+export const STORED_FRONT_CAP = 20_000;
 
 // ───────────────────────────── enqueue ─────────────────────────────
 
@@ -408,6 +414,17 @@ async function lockHeld(trx: Knex.Transaction, claim: Pick<Claim, "id" | "token"
 }
 
 /**
+ * Each family's lightest feasible section at every depth, as a sweep stores them: the grid-front
+ * search's context points, proven in the same pass as the front (search.ts (D)), whatever the grid's
+ * size; a result without them (a search stopped at its budget, whose context is not proven, or one
+ * run for the best alone) stores what depthBests found, if anything was run.
+ */
+export function storedDepthBests(result: SweepResult): SearchPoint[] {
+  if (result.depthBests) return result.depthBests;
+  return result.frontScope === "grid" && !result.stoppedEarly ? (result.context ?? []) : [];
+}
+
+/**
  * Which candidates a sweep stores (the search returns no more than these): the front (the
  * contract's front is over the feasible candidates the search evaluated, so a best-first search
  * reports a subset of the exhaustive front), every family's best, and the overall best; duplicates
@@ -427,9 +444,10 @@ export function candidatesToStore(result: SweepResult, objective: "mass" | "cost
   const familyBest = new Set<string>();
   for (const c of Object.values(result.bestByFamily)) if (c) familyBest.add(keyOf(c));
   const front = new Set(result.front.slice(0, STORED_FRONT_CAP).map(keyOf));
-  const depthBest = new Set((result.depthBests ?? []).map(keyOf));
+  const perDepth = storedDepthBests(result);
+  const depthBest = new Set(perDepth.map(keyOf));
   const all = new Map<string, SearchPoint>();
-  for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily), ...(result.depthBests ?? [])]) {
+  for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily), ...perDepth]) {
     if (!c) continue;
     const k = keyOf(c);
     const had = all.get(k);
@@ -521,7 +539,8 @@ export async function finishSweep(
       .where({ id: claim.id })
       .update(
         endColumns(trx, timedOut ? "timed_out" : "succeeded", {
-          counts: JSON.stringify(result.counts),
+          // the front's full size beside the grid's counts (the page says when STORED_FRONT_CAP cut it)
+          counts: JSON.stringify({ ...result.counts, front: result.front.length }),
           best: result.best ? JSON.stringify(result.best) : null,
           reason,
           restraint_study: result.restraintStudy ? JSON.stringify(result.restraintStudy) : null,
@@ -663,7 +682,8 @@ export interface SweepView {
    * found so far, not proven lightest; true when the whole grid was searched; null before it ends.
    */
   provenLightest: boolean | null;
-  counts: SearchResult["counts"] | null;
+  /** the search's counts; front: the front's members (stored up to STORED_FRONT_CAP), absent on sweeps stored before it */
+  counts: (SearchResult["counts"] & { front?: number }) | null;
   best: SearchCandidate | null;
   /** EN 1993 sweeps with a restraint length: the lightest section at L … L/6 */
   restraintStudy: RestraintStudy | null;

@@ -13,7 +13,7 @@
 // Threads per sweep: the cores divided among the sweeps this process runs at once (at least 1),
 // so a runner at full concurrency does not oversubscribe the machine.
 import os from "node:os";
-import { PROGRESS_UNIT, depthBests, lightestWeldedProblem, rawGridSize, searchSections, whatItWouldTakeSteps, withCatalogues, type ProgressDetail, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
+import { PROGRESS_UNIT, lightestWeldedProblem, rawGridSize, searchSections, whatItWouldTakeSteps, withCatalogues, type ProgressDetail, type SearchProblem, type SearchResult, type WhatItWouldTake } from "~/optimizer";
 import { searchInThreads } from "./search-threads";
 import { runRestraintStudy } from "./study-thread";
 import { studyApplies, type SweepResult } from "~/lib/restraint-study";
@@ -61,14 +61,9 @@ export async function runSweepSearch(problem: SearchProblem, opts: SweepSearchOp
     result = searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress, stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline });
   else result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, deadline, onProgress });
   result = await sweepCatalogues(problem, result, { signal: opts.signal, threads, deadline });
-  // Each family's lightest at every depth, stored so the results filter by depth with no rerun.
-  // Grids small enough to search in this thread only: there each depth's search takes
-  // milliseconds; a bigger grid's would hold the runner's event loop (its heartbeats) too long,
-  // so those sweeps store the front and family bests alone (a choice, said on the page).
-  if (!result.stoppedEarly && rawGridSize(problem) <= IN_THREAD_MAX_GRID) {
-    const d = depthBests(problem, { signal: opts.signal, stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline });
-    result.depthBests = d.points;
-  }
+  // Each family's lightest at every depth (stored so the results filter by depth with no rerun) are
+  // the grid-front search's context points, proven in the same pass, on every grid size
+  // (queue.server.ts storedDepthBests): no search per depth any more.
   if (studyApplies(problem))
     // the study belongs to the sweep's time budget too: none once the search used it up
     result.restraintStudy = result.stoppedEarly

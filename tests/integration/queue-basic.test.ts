@@ -215,7 +215,8 @@ describe("runner", () => {
       const expected = searchSections(tinyProblem(i * 7), SWEEP_SEARCH_OPTIONS);
       const s = (await getSweep(id))!;
       expect(s.best?.dimensions).toEqual(expected.best?.dimensions);
-      expect(s.counts).toEqual(expected.counts);
+      // with the front's full size (the page says when the stored front was cut)
+      expect(s.counts).toEqual({ ...expected.counts, front: expected.front.length });
       const all = await listCandidates(id, { pageSize: 500 });
       // with each family's lightest at every depth (issue 11, item 9)
       const problem = searchProblemSchema.parse(tinyProblem(i * 7));
