@@ -128,12 +128,13 @@ function LtbWorked({ l, design, problem, props, family, dims, units }: { l: LtbD
   const st = problem.steel!;
   const r = problem.restraint!;
   const s = props.stability;
-  const Lmm = r.length * 1000;
-  const a = r.C2 * l.zg - r.C3 * l.zj;
+  // L, Iz, Iw, It, C2·zg − C3·zj, h/b and the ratio are the engine's (LtbDesign), the values Mcr
+  // was worked with: the page converts and computes none of them (issue 12, one source of truth).
+  const a = l.zTerm;
   const narrow = family === "mono-i" ? Math.min(dims.bt, dims.bb) : dims.b;
   const curveWhy =
-    family === "i" || family === "mono-i"
-      ? `h/b = ${n(dims.d)}/${n(narrow)} = ${n(dims.d / narrow, 3)} ${dims.d / narrow <= 2 ? "≤" : ">"} 2${family === "mono-i" ? " (b the narrower flange)" : ""}`
+    l.hOverB !== null
+      ? `h/b = ${n(dims.d)}/${n(narrow)} = ${n(l.hOverB, 3)} ${l.hOverB <= 2 ? "≤" : ">"} 2${family === "mono-i" ? " (b the narrower flange)" : ""}`
       : `${family}: every family but the I`;
   return (
     <div className="mt-2 space-y-0.5" data-testid={`record-ltb-${l.moment}`}>
@@ -145,10 +146,10 @@ function LtbWorked({ l, design, problem, props, family, dims, units }: { l: LtbD
         {s ? n(l.moment === "sagging" ? s.betaX : -s.betaX) : "—"} mm, zj = <strong>{n(l.zj)} mm</strong>
       </Step>
       <Step testid="record-mcr">
-        Mcr = C1·(π²·E·Iz/L²)·[√(Iw/Iz + L²·G·It/(π²·E·Iz) + (C2·zg − C3·zj)²) − (C2·zg − C3·zj)] with Iz (minor axis) = {n(props.Iy)} mm⁴, Iw = Cw = {s ? n(s.Cw) : "—"} mm⁶, It = J ={" "}
-        {s ? n(s.J) : "—"} mm⁴, L = {n(Lmm)} mm, C2·zg − C3·zj = {r.C2}·{n(l.zg)} − {r.C3}·{n(l.zj)} = {n(a)} mm:
+        Mcr = C1·(π²·E·Iz/L²)·[√(Iw/Iz + L²·G·It/(π²·E·Iz) + (C2·zg − C3·zj)²) − (C2·zg − C3·zj)] with Iz (minor axis) = {n(l.Iz)} mm⁴, Iw = Cw = {n(l.Iw)} mm⁶, It = J = {n(l.It)} mm⁴, L ={" "}
+        {n(l.L)} mm, C2·zg − C3·zj = {r.C2}·{n(l.zg)} − {r.C3}·{n(l.zj)} = {n(a)} mm:
         <br />
-        Mcr = {r.C1} × π² × {f(st.E)} × {f(props.Iy)} ÷ {f(Lmm)}² × [√({s ? f(s.Cw) : "—"}/{f(props.Iy)} + {f(Lmm)}² × {f(st.G)} × {s ? f(s.J) : "—"}/(π² × {f(st.E)} × {f(props.Iy)}) + ({n(a)})²) − ({n(a)})] ={" "}
+        Mcr = {r.C1} × π² × {f(st.E)} × {f(l.Iz)} ÷ {f(l.L)}² × [√({f(l.Iw)}/{f(l.Iz)} + {f(l.L)}² × {f(st.G)} × {f(l.It)}/(π² × {f(st.E)} × {f(l.Iz)}) + ({n(a)})²) − ({n(a)})] ={" "}
         <strong>{n(l.Mcr)} kN·m</strong>
         <Also q="moment" x={l.Mcr} units={units} />
         <Clause>EN 1993-1-1 §6.3.2.2; three-factor formula (ENV 1993-1-1 Annex F)</Clause>
@@ -167,7 +168,7 @@ function LtbWorked({ l, design, problem, props, family, dims, units }: { l: LtbD
       </Step>
       <Step>
         Mb,Rd = χLT·W·fy/γM1 = {n(l.chiLT, 4)} × {n(design.W ?? NaN)} mm³ × {n(design.fy)} MPa ÷ {st.gammaM1} = <strong>{n(l.MbRd)} kN·m</strong>
-        <Also q="moment" x={l.MbRd} units={units} />; MEd/Mb,Rd = {n(l.MEd)}/{n(l.MbRd)} = <strong>{(l.MEd / l.MbRd).toFixed(3)}</strong>
+        <Also q="moment" x={l.MbRd} units={units} />; MEd/Mb,Rd = {n(l.MEd)}/{n(l.MbRd)} = <strong>{l.utilisation.toFixed(3)}</strong>
         <Clause>EN 1993-1-1 §6.3.2.1</Clause>
       </Step>
     </div>
@@ -179,7 +180,9 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
   const d = verdict.design!;
   const st = problem.steel!;
   const V = problem.shear ?? 0;
-  const MEd = Math.max(problem.moment.sagging, problem.moment.hogging);
+  // ratios are the engine's utilisations (candidateChecks), printed as the check table prints them
+  const util = (name: string) => verdict.checks.find((c) => c.name === name)?.utilisation.toFixed(3) ?? "—";
+  const MEd = verdict.checks.find((c) => c.name === "bending-resistance")?.demand ?? NaN;
   const sh = d.shear;
   const nWebs = family === "box" ? 2 : 1;
   const avExpr: Record<string, string> = {
@@ -246,7 +249,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
           </Step>
           <Step testid="record-mcrd">
             Mc,Rd = W·fy/γM0 = {n(d.W)} mm³ × {n(d.fy)} MPa ÷ {st.gammaM0} = <strong>{n(d.McRd)} kN·m</strong>
-            <Also q="moment" x={d.McRd} units={units} />; MEd = {n(MEd)} kN·m, MEd/Mc,Rd = <strong>{(MEd / d.McRd).toFixed(3)}</strong>
+            <Also q="moment" x={d.McRd} units={units} />; MEd = {n(MEd)} kN·m, MEd/Mc,Rd = <strong>{util("bending-resistance")}</strong>
           </Step>
         </section>
       ) : null}
@@ -276,7 +279,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
           {sh.bucklingLimit !== null ? (
             sh.buckling ? (
               <Step>
-                hw/tw = {n(sh.hw)}/{n(sh.tw)} = {n(sh.hw / sh.tw)} &gt; 72ε/η = <strong>{n(sh.bucklingLimit)}</strong>: shear buckling applies. λw = hw/(86.4·tw·ε) = {n(sh.hw)}/(86.4 × {n(sh.tw)} × {n(d.epsilon, 4)}) ={" "}
+                hw/tw = {n(sh.hw)}/{n(sh.tw)} = {n(sh.hwOverTw ?? NaN)} &gt; 72ε/η = <strong>{n(sh.bucklingLimit)}</strong>: shear buckling applies. λw = hw/(86.4·tw·ε) = {n(sh.hw)}/(86.4 × {n(sh.tw)} × {n(d.epsilon, 4)}) ={" "}
                 <strong>{n(sh.lambdaW!, 4)}</strong>; χw = {sh.lambdaW! < 0.83 / st.eta ? "η (λw < 0.83/η)" : "0.83/λw (non-rigid end post)"} = <strong>{n(sh.chiW!, 4)}</strong>; Vb,Rd = {nWebs > 1 ? "2 × " : ""}
                 χw·fy·hw·tw/(√3·γM1) = {nWebs > 1 ? "2 × " : ""}
                 {n(sh.chiW!, 4)} × {n(d.fy)} × {n(sh.hw)} × {n(sh.tw)} ÷ (√3 × {st.gammaM1}) = <strong>{n(sh.VbRd!)} kN</strong> (the flanges' share ignored)
@@ -284,13 +287,13 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
               </Step>
             ) : (
               <Step>
-                hw/tw = {n(sh.hw)}/{n(sh.tw)} = {n(sh.hw / sh.tw)} ≤ 72ε/η = {n(sh.bucklingLimit)}: no shear buckling check needed<Clause>EN 1993-1-1 §6.2.6(6)</Clause>
+                hw/tw = {n(sh.hw)}/{n(sh.tw)} = {n(sh.hwOverTw ?? NaN)} ≤ 72ε/η = {n(sh.bucklingLimit)}: no shear buckling check needed<Clause>EN 1993-1-1 §6.2.6(6)</Clause>
               </Step>
             )
           ) : null}
           <Step testid="record-vrd">
             VRd = <strong>{n(sh.VRd)} kN</strong>
-            <Also q="force" x={sh.VRd} units={units} /> ({sh.governing === "shear-buckling" ? "min(Vpl,Rd, Vb,Rd)" : "Vpl,Rd"}); VEd/VRd = {n(V)}/{n(sh.VRd)} = <strong>{(V / sh.VRd).toFixed(3)}</strong>
+            <Also q="force" x={sh.VRd} units={units} /> ({sh.governing === "shear-buckling" ? "min(Vpl,Rd, Vb,Rd)" : "Vpl,Rd"}); VEd/VRd = {n(V)}/{n(sh.VRd)} = <strong>{util(sh.governing)}</strong>
           </Step>
         </section>
       ) : null}
@@ -302,13 +305,13 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
           </h3>
           {d.bendingShear ? (
             <Step>
-              VEd = {n(V)} kN &gt; 0.5·VRd = {n(0.5 * sh.VRd)} kN: ρ = (2·VEd/VRd − 1)² = (2 × {n(V)}/{n(sh.VRd)} − 1)² = <strong>{n(d.bendingShear.rho, 4)}</strong>;{" "}
+              VEd = {n(V)} kN &gt; 0.5·VRd = 0.5 × {n(sh.VRd)} kN: ρ = (2·VEd/VRd − 1)² = (2 × {n(V)}/{n(sh.VRd)} − 1)² = <strong>{n(d.bendingShear.rho, 4)}</strong>;{" "}
               {family === "tee" || family === "rectangle" ? "MV,Rd = (1 − ρ)·Mc,Rd" : `MV,Rd = (W − ρ·Σhw²·tw/4)·fy/γM0 (§6.2.8(5)${nWebs > 1 ? ", both webs" : ""})`} = <strong>{n(d.bendingShear.MVRd)} kN·m</strong>; MEd/MV,Rd ={" "}
-              <strong>{(MEd / d.bendingShear.MVRd).toFixed(3)}</strong>
+              <strong>{util("bending-shear")}</strong>
             </Step>
           ) : (
             <Step>
-              VEd = {n(V)} kN ≤ 0.5·VRd = {n(0.5 * sh.VRd)} kN: no reduction of the bending resistance<Clause>EN 1993-1-1 §6.2.8(2)</Clause>
+              VEd = {n(V)} kN ≤ 0.5·VRd = 0.5 × {n(sh.VRd)} kN: no reduction of the bending resistance<Clause>EN 1993-1-1 §6.2.8(2)</Clause>
             </Step>
           )}
         </section>
@@ -340,7 +343,7 @@ export function En1993Checks({ problem, verdict, props, family, dims, units }: {
           <Step>
             ss = {n(d.bearing.ss)} mm; kF = {n(d.bearing.kF, 4)}; m1 = {n(d.bearing.m1, 4)}; m2 = {n(d.bearing.m2, 4)}; ly = <strong>{n(d.bearing.ly)} mm</strong>; Fcr = {n(d.bearing.Fcr)} kN (per web); λF ={" "}
             {n(d.bearing.lambdaF, 4)}; χF = {n(d.bearing.chiF, 4)}; Leff = χF·ly = {n(d.bearing.Leff)} mm; FRd = fy·Leff·tw/γM1 = <strong>{n(d.bearing.FRd)} kN</strong>
-            {nWebs > 1 ? " (both webs)" : ""}; VEd/FRd = {(V / d.bearing.FRd).toFixed(3)}
+            {nWebs > 1 ? " (both webs)" : ""}; VEd/FRd = {util("bearing")}
           </Step>
         </section>
       ) : null}

@@ -52,6 +52,19 @@ export interface LtbDesign {
   zg: number;
   /** βc/2 (βc = betaX sagging, −betaX hogging), mm */
   zj: number;
+  /** the segment length between restraints Mcr was worked with, mm */
+  L: number;
+  /** the section constants Mcr was worked with, in EN 1993's names: Iz the minor-axis second
+   *  moment (properties.Iy), mm⁴; Iw the warping constant, mm⁶; It the torsion constant, mm⁴ */
+  Iz: number;
+  Iw: number;
+  It: number;
+  /** C2·zg − C3·zj, mm */
+  zTerm: number;
+  /** MEd / Mb,Rd of this moment sign */
+  utilisation: number;
+  /** I and mono-I: depth over the narrower flange, the ratio that chose the curve; null for the other families */
+  hOverB: number | null;
   /** elastic critical moment, kN·m */
   Mcr: number;
   lambdaLT: number;
@@ -75,6 +88,8 @@ export interface ShearDesign {
   VplRd: number;
   /** 72ε/η, the web slenderness above which shear buckling is checked (families with webs) */
   bucklingLimit: number | null;
+  /** hw/tw, compared with bucklingLimit (families with webs) */
+  hwOverTw: number | null;
   /** hw/tw > 72ε/η */
   buckling: boolean;
   lambdaW?: number;
@@ -241,6 +256,8 @@ export interface AiscShear {
   /** web depth used in h/tw, mm */
   h: number;
   tw: number;
+  /** h/tw, the web slenderness Cv is worked from */
+  hOverTw: number;
   /** mm² */
   Aw: number;
   kv: number | null;
@@ -263,6 +280,8 @@ export interface AiscWeld {
   q: number;
   /** MPa */
   FEXX: number;
+  /** nominal weld stress 0.60·FEXX (Table J2.5), MPa */
+  Fnw: number;
   /** leg size needed, mm, before rounding */
   wExact: number;
   /** leg size, mm */

@@ -855,7 +855,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   if (family !== "rectangle" && rolled === null) {
     x.weldOn = true;
     const top = flangeShearFlow(family, x, V, cy, Iz, x);
-    const perLeg = available(e, 0.6 * e.FEXX * 0.707, AISC_FACTORS.weld);
+    const perLeg = available(e, fnw(e.FEXX) * 0.707, AISC_FACTORS.weld);
     x.wExact = x.q / (2 * perLeg);
     const tf = top ? x.tft : x.tfb;
     const thin = tf < x.tw ? tf : x.tw;
@@ -1208,7 +1208,7 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
   if (family === "mono-i") notes.push("Singly symmetric I: F4 (compact or noncompact web) or F5 (slender web) for each moment sign with its compression flange; Mp ≤ 1.6·Fy·Sxc in Rpc (1.6·Fy·Sxt in Rpt).");
   if (family === "rectangle") notes.push("Solid bar: shear by G2-1's 0.6·Fy·Aw with Aw = b·d and Cv = 1 (Chapter G has no section for bars; a stated choice).");
   if (e.stiffened) notes.push("Bearing stiffeners are required at the supports (assumed present, not designed here); J10.2 and J10.3 are therefore not checked.");
-  else if (x.nw > 0) notes.push(`No bearing stiffeners: J10.2 web local yielding and J10.3 web crippling at an end support, lb = ${fmtLen(e.lb)}, reaction = the design shear, k = tf${x.rolled ? " + r" : " (the weld leg left out)"}, Qf = 1.0.`);
+  else if (x.nw > 0) notes.push(`No bearing stiffeners: J10.2 web local yielding and J10.3 web crippling at an end support, lb = ${fmtMm(e.lb)}, reaction = the design shear, k = tf${x.rolled ? " + r" : " (the weld leg left out)"}, Qf = 1.0.`);
   else notes.push("No bearing stiffeners: J10.2 and J10.3 cover webs between flanges, not this section; the bearing at the supports is not checked.");
   if (x.weldOn) notes.push("Flange-to-web welds: two equal-leg fillet welds per junction (box: one per web per flange), E70 unless the brief types FEXX; leg rounded up to a whole mm, at least the Table J2.4 minimum, at most the thinner part joined (a stated choice).");
   if (x.shearOn && x.shearClause !== "bar") notes.push("Shear without tension field action (no intermediate stiffeners): kv = 5.34 for I webs and channels (G2.1), 5 for box webs (G4), 1.2 for tee stems (G3).");
@@ -1229,10 +1229,12 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
   if (g !== undefined) out.grade = g;
   if (!outside && x.shearOn) {
     const f = x.shearClause === "G2.1" && x.vRolledA ? AISC_FACTORS.shearRolled : AISC_FACTORS.shear;
+    const twv = x.shearClause === "bar" ? x.bt : x.tw;
     out.shear = {
       clause: x.shearClause as "G2.1" | "G3" | "G4" | "bar",
       h: x.hv,
-      tw: x.shearClause === "bar" ? x.bt : x.tw,
+      tw: twv,
+      hOverTw: x.hv / twv,
       Aw: x.Aw,
       kv: x.kv === x.kv ? x.kv : null,
       Cv: x.Cv,
@@ -1243,7 +1245,7 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
       rolledA: x.vRolledA,
     };
   }
-  if (!outside && x.weldOn) out.weld = { Qf: x.Qf, q: x.q, FEXX: e.FEXX, wExact: x.wExact, w: x.w, wMin: x.wMin, wMax: x.wMax };
+  if (!outside && x.weldOn) out.weld = { Qf: x.Qf, q: x.q, FEXX: e.FEXX, Fnw: fnw(e.FEXX), wExact: x.wExact, w: x.w, wMin: x.wMin, wMax: x.wMax };
   if (!outside && x.bearOn)
     out.bearing = { lb: e.lb, k: x.kDist, RnYielding: x.Rn2 * 1e-3, RnCrippling: x.Rn3 * 1e-3, cripplingEquation: x.bearEq as "J10-5a" | "J10-5b", available: x.Ra * 1e-3 };
   void problem;
@@ -1251,6 +1253,13 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
 }
 
 const fmtStress = (mpa: number) => `${mpa.toFixed(1)} MPa (${fromSI("stress", mpa, "us").toFixed(1)} ksi)`;
+/** Table J2.5: nominal stress of a fillet weld's throat, Fnw = 0.60·FEXX (one place: the check and the record). */
+function fnw(FEXX: number): number {
+  return 0.6 * FEXX;
+}
+
+// a bearing length is stated in mm (the brief's unit for it), a restraint length in m
+const fmtMm = (mm: number) => `${mm.toFixed(1)} mm (${fromSI("length", mm, "us").toFixed(2)} in)`;
 const fmtLen = (mm: number) => `${(mm / 1000).toFixed(3)} m (${fromSI("span", mm / 1000, "us").toFixed(2)} ft)`;
 const f3 = (x: number) => (Math.abs(x) >= 1000 ? x.toFixed(0) : Math.abs(x) >= 10 ? x.toFixed(1) : x.toFixed(3));
 
@@ -1283,11 +1292,11 @@ function recordLines(verdict: Parameters<DesignBasisModule["recordLines"]>[0]): 
     const s = d.shear;
     const avail = asd ? `Vn/Ω (Ωv = ${s.omega})` : `φVn (φv = ${s.phi})`;
     const clause = s.clause === "bar" ? "AISC 360-16 Eq. G2-1 (by analogy)" : s.clause === "G2.1" ? (s.rolledA ? "AISC 360-16 §G2.1(a), Eq. G2-1" : `AISC 360-16 §G2.1(b), Eq. G2-1, ${s.Cv < 1 ? "G2-4" : "G2-3"}`) : `AISC 360-16 §${s.clause}, G2.2`;
-    add(clause, `Aw = ${f3(s.Aw)} mm², h/tw = ${f3(s.h / s.tw)}${s.kv !== null ? `, kv = ${s.kv}` : ""}, Cv = ${f3(s.Cv)}; Vn = 0.6·Fy·Aw·Cv = ${f3(s.Vn)} kN, ${avail} = ${f3(s.available)} kN`);
+    add(clause, `Aw = ${f3(s.Aw)} mm², h/tw = ${f3(s.hOverTw)}${s.kv !== null ? `, kv = ${s.kv}` : ""}, Cv = ${f3(s.Cv)}; Vn = 0.6·Fy·Aw·Cv = ${f3(s.Vn)} kN, ${avail} = ${f3(s.available)} kN`);
   }
   if (d.weld) {
     const w = d.weld;
-    add("AISC 360-16 §J2.4, Table J2.5, Table J2.4", `q = V·Qf/Iz = ${f3(w.q)} N/mm (Qf = ${f3(w.Qf)} mm³), Fnw = 0.60·FEXX = ${f3(0.6 * w.FEXX)} MPa on the throat 0.707·w: two welds need w = ${f3(w.wExact)} mm → ${w.w} mm (Table J2.4 minimum ${w.wMin} mm, at most ${f3(w.wMax)} mm)`);
+    add("AISC 360-16 §J2.4, Table J2.5, Table J2.4", `q = V·Qf/Iz = ${f3(w.q)} N/mm (Qf = ${f3(w.Qf)} mm³), Fnw = 0.60·FEXX = ${f3(w.Fnw)} MPa on the throat 0.707·w: two welds need w = ${f3(w.wExact)} mm → ${w.w} mm (Table J2.4 minimum ${w.wMin} mm, at most ${f3(w.wMax)} mm)`);
   }
   if (d.bearing) {
     const b = d.bearing;

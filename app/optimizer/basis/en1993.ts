@@ -192,6 +192,14 @@ export class En1993Scratch implements PlateTerms, FlangeShearFlow {
   phiLT = new Float64Array(2);
   chiLT = new Float64Array(2);
   MbRd = new Float64Array(2);
+  /** per sign: C2·zg − C3·zj, mm */
+  zt = new Float64Array(2);
+  /** the constants Mcr was worked with: minor-axis Iy (EN's Iz), Cw (Iw), J (It) */
+  ltbIz = 0;
+  ltbIw = 0;
+  ltbIt = 0;
+  /** I and mono-I: depth over the narrower flange, the ratio that chose the curve; NaN otherwise */
+  hb = NaN;
   curveC = false;
   /** rolled I with d/b ≤ 2: curve b */
   curveB = false;
@@ -419,6 +427,10 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     x.curveB = rolled !== null && family === "i" && d / bNarrow <= 2;
     x.curveC = rolled !== null ? family === "i" && !x.curveB : ltbCurveC(family, d, bNarrow);
     const aLT = x.curveB ? 0.34 : x.curveC ? ALPHA_LT_C : ALPHA_LT_D;
+    x.hb = family === "i" || family === "mono-i" ? d / bNarrow : NaN;
+    x.ltbIz = Iy;
+    x.ltbIw = Cw;
+    x.ltbIt = J;
     const WfY = W * fy;
     let worst = -1,
       wr = -Infinity;
@@ -438,6 +450,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
       x.ltbM[sgn] = M;
       x.zg[sgn] = zg;
       x.zj[sgn] = zj;
+      x.zt[sgn] = t;
       x.Mcr[sgn] = Mcr;
       x.lamLT[sgn] = lam;
       x.phiLT[sgn] = phi;
@@ -671,6 +684,11 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
         MEd: x.ltbM[sgn] * 1e-6,
         zg: x.zg[sgn],
         zj: x.zj[sgn],
+        L: e.L,
+        Iz: x.ltbIz,
+        Iw: x.ltbIw,
+        It: x.ltbIt,
+        zTerm: x.zt[sgn],
         Mcr: x.Mcr[sgn] * 1e-6,
         lambdaLT: x.lamLT[sgn],
         curve: x.curveB ? "b" : x.curveC ? "c" : "d",
@@ -678,6 +696,8 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
         phiLT: x.phiLT[sgn],
         chiLT: x.chiLT[sgn],
         MbRd: x.MbRd[sgn] * 1e-6,
+        utilisation: x.ltbM[sgn] / x.MbRd[sgn],
+        hOverB: Number.isNaN(x.hb) ? null : x.hb,
       });
   let shear: ShearDesign | null = null;
   if (!c4 && x.shearOn) {
@@ -687,6 +707,7 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
       Av: x.Av,
       VplRd: x.Vpl * 1e-3,
       bucklingLimit: x.nw > 0 ? x.vLimit : null,
+      hwOverTw: x.nw > 0 ? x.hw / x.tw : null,
       buckling: x.buckling,
       VRd: x.VRd * 1e-3,
       governing: x.buckling ? "shear-buckling" : "shear-resistance",
