@@ -1,28 +1,9 @@
 // Attaching a file in the browser: the engineer attaches a sketch to the demo option, a file of
 // the wrong type is refused with the field named, and the record lists the attachment.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser } from "./browser";
+import { expect, inject, test } from "vitest";
+import { browserForFile } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function signIn(email: string, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
+const { signIn } = browserForFile();
 
 // a PNG signature and IHDR chunk: the server tells the type by these first bytes
 const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 1, 0, 0, 0, 1, 8, 6, 0, 0, 0]);

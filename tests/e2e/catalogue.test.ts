@@ -3,29 +3,10 @@
 // answers (the side-by-side panel, filled and outlined chart series, the table marking each row),
 // and saves a rolled channel as an option, whose page and record name it by its designation and
 // check it by the rolled rules. Screenshots go to tests/artifacts/screenshots.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, test } from "vitest";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function signIn(email: string, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
+const { signIn } = browserForFile();
 
 test("a brief with the starter catalogue: sweep, rolled and welded apart, a rolled channel saved as an option", async () => {
   const eng = await signIn("engineer@tallowfield.example", "/projects");

@@ -2,16 +2,14 @@
 // gives no blank estimate; Return without a comment shows its error beside the buttons, not far
 // above them; the notices and outbox pages describe every kind of message they list; an engineer
 // is not offered the delete of a stock list someone else uploaded.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, expect, test } from "vitest";
 import type { Knex } from "knex";
-import { launchBrowser, screenshot } from "./browser";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
 let db: Knex;
+const { signIn } = browserForFile();
 const made: { sweeps: number[]; options: number[] } = { sweeps: [], options: [] };
 beforeAll(async () => {
-  browser = await launchBrowser();
   process.env.DB_NAME = process.env.E2E_DB_NAME ?? "sparwise_e2e";
   const { knexConfig } = await import("../../knexfile");
   db = (await import("knex")).default(knexConfig());
@@ -23,20 +21,7 @@ afterAll(async () => {
     if (made.sweeps.length) await db("sweeps").whereIn("id", made.sweeps).delete();
     await db.destroy();
   }
-  await browser?.close();
 });
-
-async function signIn(email: string, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
 
 test("a running sweep's progress names what it counts and gives an estimate only when there is one (item 6)", async () => {
   const engineer = await db("users").where({ email: "engineer@tallowfield.example" }).first("id");
