@@ -19,6 +19,8 @@ export interface ChartCandidate {
   utilisation: number;
   governing: string;
   onFront: boolean;
+  /** its family's lightest feasible section at its depth (a context point: the chart's family and depth filter draws these) */
+  depthBest?: boolean;
   /** per metre, in the stock list's currency (cost objective only) */
   cost?: number | null;
   /** EN 1993 basis: the engine's class, Mcr, χLT, resistances and weld throat (null under the allowable basis) */
@@ -139,6 +141,8 @@ export function TradeoffChart({
   objective = "mass",
   mixed: mixedProp,
   height = 380,
+  frontLine,
+  caption,
 }: {
   candidates: ChartCandidate[];
   units: UnitSystem;
@@ -149,6 +153,10 @@ export function TradeoffChart({
   /** the sweep also searched catalogues: welded sections as outlines (the table is told the same) */
   mixed?: boolean;
   height?: number;
+  /** the points the front's line is drawn through, when they are not among `candidates` (a filtered chart keeps the whole grid's front) */
+  frontLine?: ChartCandidate[];
+  /** what the markers are, when not the stored candidates (a filtered chart) */
+  caption?: string;
 }) {
   const byCost = objective === "cost";
   const value = (c: ChartCandidate) => (byCost ? (c.cost ?? NaN) : fromSI("massPerLength", c.massPerMetre, units));
@@ -166,15 +174,16 @@ export function TradeoffChart({
       )
     : families.map((f) => ({ key: f, name: familyLabel(f), family: f, list: plotted.filter((c) => c.family === f), outline: false }));
   // each side's own front (the rolled rows' front is worked out among them: catalogue-sweep.ts)
-  const front = plotted.filter((c) => c.onFront && c.source !== "rolled").map(toPoint).sort((a, b) => a.x - b.x);
-  const rolledFront = plotted.filter((c) => c.onFront && c.source === "rolled").map(toPoint).sort((a, b) => a.x - b.x);
+  const lined = frontLine ? frontLine.filter((c) => Number.isFinite(value(c))) : plotted;
+  const front = lined.filter((c) => c.onFront && c.source !== "rolled").map(toPoint).sort((a, b) => a.x - b.x);
+  const rolledFront = lined.filter((c) => c.onFront && c.source === "rolled").map(toPoint).sort((a, b) => a.x - b.x);
   const sel = plotted.find((c) => c.rank === selected);
   const massUnit = unitLabel("massPerLength", units);
   const yLabel = byCost ? "Cost per metre (prices' currency per m)" : `Mass per length (${massUnit})`;
   const xLabel = "Utilisation (demand ÷ capacity)";
   // Round ticks; the utilisation axis always reaches 1, so the limit is on the chart.
-  const us = plotted.map((c) => c.utilisation);
-  const vs = plotted.map(value);
+  const us = [...plotted, ...(frontLine ?? [])].map((c) => c.utilisation);
+  const vs = [...plotted, ...(frontLine ?? [])].map(value).filter(Number.isFinite);
   const xAxis = niceTicks(us.length ? Math.min(...us) : 0, Math.max(1, ...us), 6);
   const yAxis = niceTicks(vs.length ? Math.min(...vs) : 0, vs.length ? Math.max(...vs) : 1, 6);
   const title = tradeoffTitle(objective);
@@ -220,8 +229,17 @@ export function TradeoffChart({
         </ScatterChart>
       </ResponsiveContainer>
       <figcaption className="mt-1 text-xs text-ink/70">
-        {title}: the stored candidates, the front ({byCost ? "cheapest" : "lightest"} at each utilisation) and each family's {byCost ? "cheapest" : "lightest"}{mixed ? "; catalogue (rolled) sections as filled markers, welded plate sections as outlines" : ""}. Click a point to select it; the
-        table below lists the same candidates with the same markers.
+        {caption ? (
+          <>
+            {title}: {caption}, with the whole grid's front as the line. Click a point to select it.
+          </>
+        ) : (
+          <>
+            {title}: the stored candidates, the front ({byCost ? "cheapest" : "lightest"} at each utilisation) and each family's {byCost ? "cheapest" : "lightest"}
+            {mixed ? "; catalogue (rolled) sections as filled markers, welded plate sections as outlines" : ""}. Click a point to select it; the table below lists the same candidates with the
+            same markers.
+          </>
+        )}
       </figcaption>
     </figure>
   );

@@ -41,6 +41,8 @@ export const toChartCandidate = (c: CandidateRow): ChartCandidate => ({
   utilisation: c.utilisation,
   governing: c.governing,
   onFront: c.onFront,
+  // only when set: most stored rows are not, and the chart's JSON stays small
+  depthBest: c.depthBest || undefined,
   cost: c.cost,
   source: c.source,
   designation: c.designation,

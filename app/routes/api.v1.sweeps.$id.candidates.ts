@@ -5,8 +5,8 @@ import { candidatesQuerySchema } from "~/workers/queue.server";
 import { candidatesPage } from "~/lib/sweep-page.server";
 import { requireTeamSweep, sweepIdParam } from "~/workers/sweep-api.server";
 
-// GET /api/v1/sweeps/:id/candidates?page=&pageSize=&sort=&family=&frontOnly= : the stored
-// candidates (front, family bests, best; see candidatesToStore), paged, sorted and filtered here (the
+// GET /api/v1/sweeps/:id/candidates?page=&pageSize=&sort=&family=&frontOnly=&depth=&depthBest=&depthMin=&depthMax= :
+// the stored candidates (front, family bests, each family's lightest at every depth, best; see candidatesToStore), paged, sorted and filtered here (the
 // sweep page's table reads its pages from this); under the EN 1993 basis each with its design figures.
 export async function loader({ request, params }: { request: Request; params: { id?: string } }) {
   const user = await requireApiUser(request, "read");

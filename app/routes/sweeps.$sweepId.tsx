@@ -17,6 +17,7 @@ import { WhatItWouldTake } from "~/components/WhatItWouldTake";
 import { ProgressBar } from "~/components/ProgressBar";
 import { TradeoffChart, candidateName, describeDimensions, tradeoffTitle, type ChartCandidate } from "~/components/TradeoffChart";
 import { CandidateTable } from "~/components/CandidateTable";
+import { ChartFilter, type FilteredChart } from "~/components/ChartFilter";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { UnitSwitch } from "~/components/UnitSwitch";
 import { ReviewBadge } from "~/components/ReviewBadge";
@@ -132,6 +133,12 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [running, sweep.id]);
 
+  // The chart's family and depth filter: each family's lightest at every depth that matches (ChartFilter)
+  const [filtered, setFiltered] = useState<FilteredChart | null>(null);
+  const filterChart = (f: FilteredChart | null) => {
+    setFiltered(f);
+    if (f) learn(f.points);
+  };
   const select = (rank: number) => {
     setSelected(rank);
     document.querySelector(`tr[data-rank="${rank}"]`)?.scrollIntoView({ block: "nearest" });
@@ -309,10 +316,20 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                 <h2 id="chart-h" className="text-lg font-bold">
                   {tradeoffTitle(chartObjective)}
                 </h2>
-                <TradeoffChart candidates={points} units={units} selected={selected} onSelect={select} objective={chartObjective} mixed={sweep.catalogueResult != null} />
-                {chart.drawn < chart.stored ? (
+                <ChartFilter sweepId={sweep.id} families={families} units={units} onChange={filterChart} />
+                <TradeoffChart
+                  candidates={filtered ? filtered.points : points}
+                  frontLine={filtered ? points : undefined}
+                  caption={filtered?.caption}
+                  units={units}
+                  selected={selected}
+                  onSelect={select}
+                  objective={chartObjective}
+                  mixed={sweep.catalogueResult != null}
+                />
+                {!filtered && chart.drawn < chart.stored ? (
                   <p className="text-xs text-ink/70" data-testid="chart-sample">
-                    The chart draws {chart.drawn.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) sampled evenly by rank, with both ends and every family's best. The table below pages through all of them.
+                    The chart draws {chart.drawn.toLocaleString("en")} of the {chart.stored.toLocaleString("en")} stored candidates: the front ({chart.front.toLocaleString("en")} candidates) and each family's lightest at every depth, sampled evenly by rank, with both ends and every family's best. The filter above draws every lightest-per-depth point of a family or depth range; the table below pages through all of them.
                   </p>
                 ) : null}
               </section>

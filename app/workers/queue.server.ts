@@ -810,6 +810,14 @@ export const candidatesQuerySchema = z
       .transform((v) => v === "true" || v === "1"),
     /** only sections of this depth d (mm): with the stored depth bests, each family's lightest there */
     depth: z.coerce.number({ error: "depth must be a number of mm" }).positive({ message: "depth must be a positive number of mm" }).max(100_000, { message: "depth: at most 100000 mm" }).optional(),
+    /** only each family's lightest at its depth (the chart's context points) */
+    depthBest: z
+      .enum(["true", "false", "1", "0"], { error: "depthBest must be true or false" })
+      .optional()
+      .transform((v) => v === "true" || v === "1"),
+    /** only sections at least / at most this deep (mm, both ends included): the chart's depth filter */
+    depthMin: z.coerce.number({ error: "depthMin must be a number of mm" }).min(0, { message: "depthMin must be 0 mm or more" }).max(100_000, { message: "depthMin: at most 100000 mm" }).optional(),
+    depthMax: z.coerce.number({ error: "depthMax must be a number of mm" }).min(0, { message: "depthMax must be 0 mm or more" }).max(100_000, { message: "depthMax: at most 100000 mm" }).optional(),
   })
   .strict();
 export type CandidatesQuery = z.output<typeof candidatesQuerySchema>;
@@ -850,6 +858,9 @@ export async function listCandidates(
   if (q.frontOnly) base.andWhere({ on_front: true });
   // grid depths are exact sums of steps; the tolerance only absorbs their float noise
   if (q.depth !== undefined) base.andWhereRaw("ABS(JSON_VALUE(dimensions, '$.d') - ?) < 1e-6", [q.depth]);
+  if (q.depthBest) base.andWhere({ depth_best: true });
+  if (q.depthMin !== undefined) base.andWhereRaw("JSON_VALUE(dimensions, '$.d') >= ? - 1e-6", [q.depthMin]);
+  if (q.depthMax !== undefined) base.andWhereRaw("JSON_VALUE(dimensions, '$.d') <= ? + 1e-6", [q.depthMax]);
   const [{ n }] = await base.clone().count({ n: "*" });
   const desc = sort.startsWith("-");
   const col = { rank: "rank", area: "area", mass: "mass_per_metre", utilisation: "utilisation", cost: "cost", family: "family", governing: "governing" }[sort.replace(/^-/, "") as "rank"];

@@ -132,3 +132,44 @@ test("the trade-off chart: title matching its axes, units, round ticks, a legend
   for (const m of all(costTable)) expect(all(costChart).has(m), `the table's marker ${m} is on the chart`).toBe(true);
   await screenshot(eng, "chart-cost");
 });
+
+// Issue 15: the chart's context points. The filter draws each family's lightest at every depth of a
+// chosen family and depth range (the sweep stored them from the search's own pass), every one of
+// them, with the whole grid's front kept as the line; "All stored candidates" brings the sample back.
+test("the chart's family and depth filter draws every lightest-per-depth point that matches", async () => {
+  const eng = await signIn("engineer@tallowfield.example", "/projects");
+  await eng.getByRole("link", { name: /Harbour Street cold store/ }).click();
+  await eng.waitForURL(/\/projects\/\d+$/);
+  const href = await eng.getByRole("listitem").filter({ hasText: "Primary beam, grid B" }).getByRole("link", { name: /^sweep \d+/ }).getAttribute("href");
+  await eng.goto(`${base()}${href}`);
+  const chart = eng.getByTestId("tradeoff-chart");
+  await chart.locator(".recharts-scatter path.recharts-symbols").first().waitFor();
+  const id = href!.split("/").pop();
+  // what the API holds for the filter (the same session's cookies)
+  const families = await eng.getByTestId("chart-filter").locator('select[name="chartFamily"] option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value).filter(Boolean));
+  expect(families.length).toBeGreaterThanOrEqual(1);
+  const family = families[0]!;
+  const all = (await (await eng.request.get(`${base()}/api/v1/sweeps/${id}/candidates?depthBest=true&family=${family}&pageSize=500`)).json()) as { total: number; items: { dimensions: { d: number } }[] };
+  expect(all.total).toBeGreaterThan(2);
+  const ds = all.items.map((c) => c.dimensions.d).sort((a, b) => a - b);
+  const lo = ds[1]!,
+    hi = ds[ds.length - 2]!;
+  const want = ds.filter((d) => d >= lo && d <= hi).length;
+
+  const filter = eng.getByTestId("chart-filter");
+  await filter.locator('select[name="chartFamily"]').selectOption(family);
+  await filter.locator('input[name="chartDepthFrom"]').fill(String(lo));
+  await filter.locator('input[name="chartDepthTo"]').fill(String(hi));
+  await filter.getByRole("button", { name: "Show the lightest at each depth" }).click();
+  await expect.poll(async () => (await chart.locator("figcaption").textContent()) ?? "").toContain(`lightest section at every depth of the grid from ${lo} to ${hi} mm deep (${want} points)`);
+  // every marker drawn is that family's, one per depth in the range, and the front's line stays
+  const drawn = await chart.locator("svg.recharts-surface g[data-family]").evaluateAll((gs) => gs.map((g) => g.getAttribute("data-family")));
+  expect(drawn).toHaveLength(want);
+  expect(new Set(drawn)).toEqual(new Set([family]));
+  await expect(chart.locator(".recharts-scatter .recharts-curve").count()).resolves.toBeGreaterThanOrEqual(1);
+  await screenshot(eng, "chart-filter");
+
+  // back to the stored candidates
+  await filter.getByRole("button", { name: "All stored candidates" }).click();
+  await expect.poll(async () => (await chart.locator("figcaption").textContent()) ?? "").toContain("the stored candidates");
+});
