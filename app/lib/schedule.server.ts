@@ -30,7 +30,10 @@ export interface ScheduleRow {
   count: number | null;
   /** kg; null when length or count is unknown */
   totalMass: number | null;
+  /** EN 1993: the flange-to-web fillet's throat a, mm (EN 1993-1-8 §4.5.3.3) */
   weldThroat: number | null;
+  /** AISC 360: the flange-to-web fillet's leg size w, mm (AISC 360-16 §J2.4); the basis sizes legs, not throats */
+  weldLeg: number | null;
   reviewState: ReviewState;
   /** a catalogue (rolled) section, not cut from plate */
   rolled?: boolean;
@@ -76,8 +79,11 @@ export async function projectSchedule(projectId: number): Promise<ScheduleRow[]>
     const lengthM = revised ? ((r.rev_member_length_m as number | null) ?? null) : ((r.sweep_member_length_m as number | null) ?? (r.member_length_m as number | null) ?? null);
     const count = revised ? ((r.rev_member_count as number | null) ?? null) : ((r.sweep_member_count as number | null) ?? (r.member_count as number | null) ?? null);
     let weldThroat: number | null = null;
+    let weldLeg: number | null = null;
     try {
-      weldThroat = optionVerdict({ candidate: c }, problem).design?.weld?.a ?? null;
+      const v = optionVerdict({ candidate: c }, problem);
+      weldThroat = v.design?.weld?.a ?? null;
+      weldLeg = v.aisc?.weld?.w ?? null;
     } catch {
       // a saved section the engine no longer accepts: the schedule still lists it, without a throat
     }
@@ -94,6 +100,7 @@ export async function projectSchedule(projectId: number): Promise<ScheduleRow[]>
       count,
       totalMass: lengthM != null && count != null ? c.massPerMetre * lengthM * count : null,
       weldThroat,
+      weldLeg,
       reviewState: r.review_state as ReviewState,
       ...(c.source === "rolled" ? { rolled: true } : {}),
       revision: revisionLetter((r.revision as number | undefined) ?? 1),
@@ -101,14 +108,14 @@ export async function projectSchedule(projectId: number): Promise<ScheduleRow[]>
   });
 }
 
-export const SCHEDULE_CSV_FIELDS = ["option", "mark", "section", "mass_kg_per_m", "length_m", "count", "total_mass_kg", "weld_throat_mm", "review_state", "revision"] as const;
+export const SCHEDULE_CSV_FIELDS = ["option", "mark", "section", "mass_kg_per_m", "length_m", "count", "total_mass_kg", "weld_throat_mm", "weld_leg_mm", "review_state", "revision"] as const;
 
 export function scheduleCsv(rows: ScheduleRow[]): string {
   const blank = (x: number | null) => (x == null ? "" : x);
   return (
     Papa.unparse({
       fields: [...SCHEDULE_CSV_FIELDS],
-      data: plainNumbers(rows.map((r) => [r.optionId, r.mark, r.section, r.massPerMetre, blank(r.lengthM), blank(r.count), blank(r.totalMass), blank(r.weldThroat), r.reviewState, r.revision])),
+      data: plainNumbers(rows.map((r) => [r.optionId, r.mark, r.section, r.massPerMetre, blank(r.lengthM), blank(r.count), blank(r.totalMass), blank(r.weldThroat), blank(r.weldLeg), r.reviewState, r.revision])),
     }) + "\n"
   );
 }

@@ -55,6 +55,7 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
               <th className="pr-2 text-right">Length (m) × count</th>
               <th className="pr-2 text-right">Total mass (kg)</th>
               <th className="pr-2 text-right">Weld throat a (mm)</th>
+              <th className="pr-2 text-right">Fillet leg w (mm)</th>
               <th className="pr-2">Review</th>
               <th>Revision</th>
             </tr>
@@ -75,6 +76,7 @@ export default function Schedule({ loaderData }: Route.ComponentProps) {
                 </td>
                 <td className="pr-2 text-right">{f(r.totalMass)}</td>
                 <td className="pr-2 text-right">{f(r.weldThroat, 3)}</td>
+                <td className="pr-2 text-right">{f(r.weldLeg, 3)}</td>
                 <td className="pr-2">
                   <ReviewBadge state={r.reviewState} />
                 </td>

@@ -5,6 +5,7 @@ import Papa from "papaparse";
 import { closeDb, db } from "~/lib/db.server";
 import { projectSchedule, scheduleCsv, SCHEDULE_CSV_FIELDS } from "~/lib/schedule.server";
 import { CHANNEL_PROBLEM } from "./workflow-fixtures";
+import { candidateChecks, parseSearchProblem } from "~/optimizer/index";
 import { callRoute, FixtureContext, loadRouteModule, requestAs } from "./fixtures";
 
 afterAll(() => closeDb());
@@ -45,6 +46,37 @@ describe("member schedule", () => {
     expect(row.count).toBe("4");
     expect(row.revision).toBe("A");
     expect(parsed.data[2][parsed.data[0].indexOf("total_mass_kg")]).toBe("");
+  });
+
+  test("the weld column of each basis: EN 1993 the throat a, AISC 360 the fillet leg w, both the engine's; allowable neither", async () => {
+    const teamId = await ctx.teamId();
+    const engineer = await ctx.user("engineer");
+    const [projectId] = await db("projects").insert({ team_id: teamId, name: "Schedule weld fixture", created_by: engineer.id });
+    const dims = { d: 300, b: 100, tf: 10, tw: 8 };
+    const base = { ...CHANNEL_PROBLEM, allowable: undefined, moment: { sagging: 60, hogging: 0 }, shear: 120 };
+    const en = parseSearchProblem({ ...base, basis: "en1993", steel: { grade: "S355" } });
+    const us = parseSearchProblem({ ...base, basis: "aisc360", method: "LRFD", aisc: { grade: "A572 Gr 50" } });
+    const cand = JSON.stringify({ family: "channel", dimensions: dims, area: 1, massPerMetre: 30, utilisation: 0.5, governing: "weld", rank: 1 });
+    const ids: number[] = [];
+    for (const problem of [en, us, CHANNEL_PROBLEM]) {
+      const [id] = await db("options").insert({ project_id: projectId, candidate: cand, problem: JSON.stringify(problem), created_by: engineer.id });
+      ids.push(Number(id));
+    }
+    const rows = await projectSchedule(Number(projectId));
+    const [rEn, rUs, rAllow] = ids.map((id) => rows.find((r) => r.optionId === id)!);
+    expect(rEn.weldThroat).toBe(candidateChecks("channel", dims, en).design!.weld!.a);
+    expect(rEn.weldLeg).toBeNull();
+    expect(rUs.weldLeg).toBe(candidateChecks("channel", dims, us).aisc!.weld!.w);
+    expect(rUs.weldLeg).toBeGreaterThanOrEqual(5); // AISC 360-16 Table J2.4: the thinner part 8 mm (over 6 to 13 mm) takes at least a 5 mm leg (mem.)
+    expect(rUs.weldThroat).toBeNull();
+    expect(rAllow.weldThroat).toBeNull();
+    expect(rAllow.weldLeg).toBeNull();
+    const parsed = Papa.parse<string[]>(scheduleCsv([rEn, rUs]).trim());
+    const col = (h: string) => parsed.data[0].indexOf(h);
+    expect(parsed.data[1][col("weld_throat_mm")]).toBe(String(rEn.weldThroat));
+    expect(parsed.data[1][col("weld_leg_mm")]).toBe("");
+    expect(parsed.data[2][col("weld_leg_mm")]).toBe(String(rUs.weldLeg));
+    expect(parsed.data[2][col("weld_throat_mm")]).toBe("");
   });
 
   test("the CSV route answers the viewer with the same rows, and another team gets 404", async () => {
