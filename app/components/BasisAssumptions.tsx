@@ -9,7 +9,7 @@ import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { STRESSES_ONLY } from "~/lib/caution";
 import { matchMomentDiagram, MOMENT_DIAGRAM_SOURCE } from "~/lib/moment-diagrams";
-import { designRow } from "~/lib/design-summary";
+import { designRow, isAiscRow, isEnRow } from "~/lib/design-summary";
 
 /** The basis in a few words, for headings beside results. */
 export function basisWords(problem: Pick<SearchProblem, "basis">): string {
@@ -114,30 +114,41 @@ export function Assumptions({ problem, units, notes, heading = "Assumptions" }: 
   );
 }
 
-/** One candidate's EN 1993 figures (a definition list); under the allowable basis, the basis note. */
+/** One candidate's design figures under its basis (a definition list); under the allowable basis, the basis note. */
 export function DesignFigures({ verdict, units }: { verdict: CandidateVerdict; units: UnitSystem }) {
-  const us = verdict.aisc;
-  if (us) {
-    const f = us.flexure[0];
+  const row = designRow(verdict);
+  if (isAiscRow(row)) {
+    const asd = row.method === "ASD";
+    // Lp and Lr as spans (m, ft), as AISC tables give them
+    const len = (x: number | null) => (x === null ? "—" : formatQuantity("span", x / 1000, units));
     return (
       <dl className="grid grid-cols-2 gap-x-2 tabular-nums" data-testid="design-figures-aisc">
         <dt>Method</dt>
-        <dd>{us.method}</dd>
+        <dd>{row.method}</dd>
         <dt>Chapter F</dt>
-        <dd>{f ? `§${f.section}` : "—"}</dd>
+        <dd>{row.section ? `§${row.section}` : "—"}</dd>
+        <dt>Mn</dt>
+        <dd>{row.Mn === null ? "—" : formatQuantity("moment", row.Mn, units)}</dd>
+        <dt>{asd ? "Mn/Ωb" : "φbMn"}</dt>
+        <dd>{row.MnAvailable === null ? "—" : formatQuantity("moment", row.MnAvailable, units)}</dd>
         <dt>LTB zone</dt>
-        <dd>{f?.ltb ? f.ltb.zone : "braced"}</dd>
+        <dd>{row.zone ?? "braced throughout"}</dd>
         <dt>Lp, Lr</dt>
-        <dd>{f?.ltb && f.ltb.Lp !== null ? `${formatQuantity("length", f.ltb.Lp, units)}, ${f.ltb.Lr !== null ? formatQuantity("length", f.ltb.Lr, units) : "—"}` : "—"}</dd>
-        <dt>{us.method === "ASD" ? "Mn/Ω" : "φMn"}</dt>
-        <dd>{f ? formatQuantity("moment", Math.min(f.availableLocal, f.ltb?.available ?? Infinity), units) : "—"}</dd>
-        <dt>{us.method === "ASD" ? "Vn/Ω" : "φVn"}</dt>
-        <dd>{us.shear ? formatQuantity("force", us.shear.available, units) : "—"}</dd>
+        <dd>{row.Lp === null && row.Lr === null ? "—" : `${len(row.Lp)}, ${len(row.Lr)}`}</dd>
+        <dt>Cb</dt>
+        <dd>{row.Cb === null ? "—" : formatNumber(row.Cb, 4)}</dd>
+        <dt>{asd ? "Vn/Ωv" : "φvVn"}</dt>
+        <dd>{row.VnAvailable === null ? "—" : formatQuantity("force", row.VnAvailable, units)}</dd>
+        <dt>Weld leg w</dt>
+        <dd>{row.weldLeg === null ? "— (no welds)" : formatQuantity("length", row.weldLeg, units)}</dd>
+        <dt>Governs</dt>
+        <dd>
+          {row.limitState} <span className="text-xs text-ink/70">({row.governingClause})</span>
+        </dd>
       </dl>
     );
   }
-  const row = designRow(verdict);
-  if (!row) return <p className="text-sm font-semibold text-caution">Design basis: allowable stresses — {STRESSES_ONLY}</p>;
+  if (!isEnRow(row)) return <p className="text-sm font-semibold text-caution">Design basis: allowable stresses — {STRESSES_ONLY}</p>;
   const M = (x: number | null) => (x === null ? "—" : formatQuantity("moment", x, units));
   const V = (x: number | null) => (x === null ? "—" : formatQuantity("force", x, units));
   return (

@@ -8,11 +8,11 @@ import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { candidateName, describeDimensions, type ChartCandidate } from "~/components/TradeoffChart";
 import { FamilyMarker } from "~/components/FamilyMarker";
-import type { DesignRow } from "~/lib/design-summary";
+import { isAiscRow, isEnRow, type AiscRow, type En1993Row } from "~/lib/design-summary";
 import { STRESSES_ONLY } from "~/lib/caution";
 
 /** The EN 1993 columns of one row; Mb,Rd where lateral-torsional buckling is checked, else Mc,Rd (marked). */
-function DesignCells({ d, units }: { d: DesignRow | null; units: UnitSystem }) {
+function DesignCells({ d, units }: { d: En1993Row | null; units: UnitSystem }) {
   const n = (q: "moment" | "force" | "length", x: number | null | undefined) => (x == null ? "—" : formatNumber(fromSI(q, x, units)));
   return (
     <>
@@ -34,10 +34,57 @@ function DesignCells({ d, units }: { d: DesignRow | null; units: UnitSystem }) {
   );
 }
 
+/** The AISC 360-16 column heads (issue 14), with the method's symbols and the page's units. */
+export function aiscHeads(method: "ASD" | "LRFD", units: UnitSystem): { key: string; label: string }[] {
+  const asd = method === "ASD";
+  const M = unitLabel("moment", units),
+    V = unitLabel("force", units),
+    L = unitLabel("span", units);
+  return [
+    { key: "section", label: "Chapter F" },
+    { key: "mn", label: `Mn (${M})` },
+    { key: "mn-available", label: `${asd ? "Mn/Ωb" : "φbMn"} (${M})` },
+    { key: "zone", label: "LTB zone" },
+    { key: "lp", label: `Lp (${L})` },
+    { key: "lr", label: `Lr (${L})` },
+    { key: "cb", label: "Cb" },
+    { key: "vn", label: `Vn (${V})` },
+    { key: "vn-available", label: `${asd ? "Vn/Ωv" : "φvVn"} (${V})` },
+    { key: "weld", label: `Weld w (${unitLabel("length", units)})` },
+  ];
+}
+
+/** The AISC 360-16 columns of one row, in aiscHeads' order (Lp and Lr as spans: m or ft). */
+function AiscCells({ d, units }: { d: AiscRow | null; units: UnitSystem }) {
+  const n = (q: "moment" | "force" | "length", x: number | null | undefined) => (x == null ? "—" : formatNumber(fromSI(q, x, units)));
+  const span = (mm: number | null | undefined) => (mm == null ? "—" : formatNumber(fromSI("span", mm / 1000, units)));
+  const cells: [string, string][] = [
+    ["section", d?.section ?? "—"],
+    ["mn", n("moment", d?.Mn)],
+    ["mn-available", n("moment", d?.MnAvailable)],
+    ["zone", d ? (d.zone ?? "braced") : "—"],
+    ["lp", span(d?.Lp)],
+    ["lr", span(d?.Lr)],
+    ["cb", d?.Cb == null ? "—" : formatNumber(d.Cb, 4)],
+    ["vn", n("force", d?.Vn)],
+    ["vn-available", n("force", d?.VnAvailable)],
+    ["weld", n("length", d?.weldLeg)],
+  ];
+  return (
+    <>
+      {cells.map(([key, text]) => (
+        <td key={key} className={`p-2 tabular-nums ${key === "zone" || key === "section" ? "" : "text-right"}`} data-col={`aisc-${key}`}>
+          {text}
+        </td>
+      ))}
+    </>
+  );
+}
+
 /**
- * The columns the server sorts by (stored with each candidate). The EN 1993 figures are worked
- * out per page shown, not stored, so their columns do not sort: sorting them would mean working
- * every stored candidate through the checks for each click.
+ * The columns the server sorts by (stored with each candidate). The design figures (EN 1993 or
+ * AISC 360) are kept as one JSON block per row, not as columns, so they do not sort: sorting
+ * them would mean reading and parsing every stored candidate for each click.
  */
 type SortKey = "rank" | "family" | "massPerMetre" | "utilisation" | "governing" | "cost";
 export const MAX_COMPARE = 4;
@@ -65,7 +112,8 @@ export function CandidateTable({
   initial,
   families,
   withCost,
-  withDesign,
+  basis,
+  method = "LRFD",
   withRolled = false,
   units,
   selected,
@@ -80,8 +128,10 @@ export function CandidateTable({
   /** the families present in the sweep (the filter's choices) */
   families: string[];
   withCost: boolean;
-  /** EN 1993 basis: the rows carry the engine's design figures; allowable: the table says it checks stresses only */
-  withDesign: boolean;
+  /** the brief's basis: EN 1993 and AISC 360 rows carry the engine's design figures in that code's terms; allowable: the table says it checks stresses only */
+  basis: string | undefined;
+  /** AISC 360: ASD (Ω) or LRFD (φ), which names the available-strength columns */
+  method?: "ASD" | "LRFD";
   /** the sweep searched catalogues: rows say rolled (with designation) or welded */
   withRolled?: boolean;
   units: UnitSystem;
@@ -138,6 +188,9 @@ export function CandidateTable({
   }, [query, sweepId, initial.pageSize]);
 
   const pages = Math.max(1, Math.ceil(data.total / data.pageSize));
+  const en = basis === "en1993",
+    us = basis === "aisc360",
+    withDesign = en || us;
   const head = (key: SortKey, label: string, right = false) => (
     <th scope="col" className={`p-2 ${right ? "text-right" : ""}`} aria-sort={query.key === key ? (query.dir === 1 ? "ascending" : "descending") : "none"}>
       <button
@@ -201,7 +254,8 @@ export function CandidateTable({
               {head("massPerMetre", `Mass (${unitLabel("massPerLength", units)})`, true)}
               {withCost ? head("cost", "Cost per m", true) : null}
               {head("utilisation", "Utilisation", true)}
-              {withDesign ? (
+              {us ? aiscHeads(method, units).map((h) => <th key={h.key} scope="col" className="p-2 text-right">{h.label}</th>) : null}
+              {en ? (
                 <>
                   {plain("Class")}
                   {plain(`Mcr (${unitLabel("moment", units)})`)}
@@ -263,9 +317,12 @@ export function CandidateTable({
                   </td>
                 ) : null}
                 <td className="p-2 text-right tabular-nums">{c.utilisation.toFixed(3)}</td>
-                {withDesign ? <DesignCells d={c.design ?? null} units={units} /> : null}
+                {en ? <DesignCells d={isEnRow(c.design) ? c.design : null} units={units} /> : null}
+                {us ? <AiscCells d={isAiscRow(c.design) ? c.design : null} units={units} /> : null}
                 <td className="p-2">
                   {checkLabel(c.governing)}
+                  {/* AISC 360: the governing limit state in words and its equation (e.g. lateral-torsional buckling, Eq. F2-2) */}
+                  {isAiscRow(c.design) ? <span className="block text-xs" data-col="limit-state">{c.design.limitState}</span> : null}
                   {c.design?.governingClause ? <span className="block text-xs text-ink/70">{c.design.governingClause}</span> : null}
                 </td>
                 <td className="p-2">{c.onFront ? "yes" : ""}</td>
@@ -287,9 +344,14 @@ export function CandidateTable({
           </button>
         </nav>
       ) : null}
-      {withDesign ? (
+      {en ? (
         <p className="text-xs text-ink/70">
           Moment resistance: Mb,Rd where lateral-torsional buckling is checked; “(c)” marks Mc,Rd where the compression flange is restrained throughout. Figures from the engine's EN 1993 checks.
+        </p>
+      ) : null}
+      {us ? (
+        <p className="text-xs text-ink/70" data-testid="aisc-table-note">
+          AISC 360-16 {method}: Mn is the least nominal flexural strength of the Chapter F section's limit states, lateral-torsional buckling included, for the governing moment sign; {method === "ASD" ? "Mn/Ωb and Vn/Ωv are the allowable strengths (Ωb = Ωv = 1.67; 1.50 for rolled I webs under G2.1(a))" : "φbMn and φvVn are the design strengths (φb = φv = 0.90; 1.00 for rolled I webs under G2.1(a))"}. LTB zone, Lp and Lr over the unbraced length Lb with Cb (Chapter F; “braced” where no Lb is given). Weld w: the flange-to-web fillet weld leg (J2.4, Table J2.4). Figures from the engine's AISC 360 checks.
         </p>
       ) : null}
     </div>

@@ -18,6 +18,8 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
   const masses = data.map((d) => d.y).filter((y): y is number => y !== null);
   // round ticks (nice-ticks.ts), not the library's 41.37, 43.81 …
   const yAxis = niceTicks(masses.length ? Math.min(...masses) : 0, masses.length ? Math.max(...masses) : 1, 5);
+  // AISC 360 studies carry the Cb each spacing was searched with (engine restraint-study.ts)
+  const aisc = study.points.some((p) => p.Cb !== undefined);
   return (
     <div className="space-y-2" data-testid="restraint-study">
       <figure className="rounded-lg border border-ink/15 bg-white p-3" aria-label="Restraint study: lightest mass per length against the number of intermediate restraints">
@@ -38,6 +40,9 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
         </ResponsiveContainer>
         <figcaption className="mt-1 text-xs text-ink/70">
           The same brief searched with the compression flange braced at L = {span(study.lengthM)} and at L/2 … L/6 (0 to 5 intermediate restraints); each point is the exact lightest section at that spacing.
+          {aisc
+            ? ` AISC 360-16: the unbraced length Lb is the spacing; Cb is the brief's at L (${formatNumber(study.points[0]?.Cb ?? 1, 4)}) and 1.0 between intermediate braces, the conservative value §F1 permits, since the brief's Cb belongs to the moment diagram over the whole of L.`
+            : ""}
           Computed with the sweep ({formatNumber(study.elapsedMs / 1000, 2)} s).
         </figcaption>
       </figure>
@@ -46,7 +51,8 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
         <thead>
           <tr className="border-b border-ink/30 text-left">
             <th className="p-2 text-right">Intermediate restraints</th>
-            <th className="p-2 text-right">Spacing</th>
+            <th className="p-2 text-right">{aisc ? "Spacing Lb" : "Spacing"}</th>
+            {aisc ? <th className="p-2 text-right">Cb</th> : null}
             <th className="p-2">Lightest section</th>
             <th className="p-2 text-right">Mass ({massUnit})</th>
             <th className="p-2 text-right">Saving against none</th>
@@ -60,6 +66,7 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
               <tr key={p.restraints} className="border-b border-ink/10">
                 <td className="p-2 text-right tabular-nums">{p.restraints}</td>
                 <td className="p-2 text-right tabular-nums">{span(p.lengthM)}</td>
+                {aisc ? <td className="p-2 text-right tabular-nums" data-col="cb">{p.Cb === undefined ? "—" : formatNumber(p.Cb, 4)}</td> : null}
                 <td className="p-2">{p.best ? `${familyLabel(p.best.family)} ${describeDimensions(p.best.dimensions, units)}` : `none passes${p.reason ? `: ${p.reason}` : ""}`}</td>
                 <td className="p-2 text-right tabular-nums">{p.best ? formatNumber(fromSI("massPerLength", p.best.massPerMetre, units)) : "—"}</td>
                 <td className="p-2 text-right tabular-nums">{p.best && none ? `${formatNumber((100 * (none - p.best.massPerMetre)) / none, 3)} %` : "—"}</td>

@@ -2,7 +2,7 @@
 // and the seed's recordFinishedSweep both call these): rolled candidates as rows ranked after the
 // plate ones, the cost parts of every costed row, and the side-by-side summary for the sweep row.
 // Pure (no database): returns what to write.
-import { designRow } from "~/lib/design-summary";
+import { designRow, isCodeBasis } from "~/lib/design-summary";
 import { MIN_WELD_THROAT, WELD_RUNS, weldCostPerMetre, type CatalogueResult, type CostParts, type Family, type RolledCandidate, type SearchProblem, type SideBySide } from "~/optimizer";
 
 /** At most this many rolled candidates are stored per sweep (the lightest, or cheapest, first). */
@@ -24,7 +24,7 @@ export interface StoredRow {
   catalogue?: string | null;
   cost_material?: number | null;
   cost_fabrication?: number | null;
-  /** EN 1993: the design figures as JSON (lib/design-summary.ts), null otherwise */
+  /** EN 1993 or AISC 360: the design figures as JSON (lib/design-summary.ts), null under the allowable basis */
   design?: string | null;
 }
 
@@ -73,14 +73,14 @@ export function withRolledRows(rows: StoredRow[], sweepResult: object, problem: 
       catalogue: c.catalogue,
       cost_material: c.costParts?.material ?? null,
       cost_fabrication: c.costParts?.fabrication ?? null,
-      design: problem.basis === "en1993" ? rolledDesign(c) : null,
+      design: isCodeBasis(problem.basis) ? rolledDesign(c) : null,
     });
   return out;
 }
 
 /** A rolled row's design figures from the evaluation the catalogue search ran (nothing re-checked). */
 function rolledDesign(c: RolledCandidate): string | null {
-  const row = designRow({ design: c.design, checks: c.checks, governing: c.governing });
+  const row = designRow({ design: c.design, aisc: c.aisc, checks: c.checks, governing: c.governing });
   return row ? JSON.stringify(row) : null;
 }
 

@@ -12,6 +12,8 @@ export interface StudyPoint {
   restraints: number;
   /** restraint spacing, m */
   lengthM: number;
+  /** AISC 360 only: the Cb searched with at this spacing (the brief's at L, 1.0 at L/2 … L/6; engine restraint-study.ts says why) */
+  Cb?: number;
   /** the lightest (or cheapest, objective "cost") section at that spacing; null when none passes */
   best: { family: string; dimensions: Record<string, number>; massPerMetre: number; utilisation: number; governing: string; cost?: number } | null;
   /** why nothing passed, in the engine's words */
@@ -28,12 +30,12 @@ export interface RestraintStudy {
   error?: string;
 }
 
-/** A study is run for EN 1993 briefs with a restraint length (an allowable brief checks no buckling; "restrained throughout" has no length to divide). */
+/** A study is run for EN 1993 and AISC 360 briefs with a restraint length (an allowable brief checks no buckling; "restrained throughout" has no length to divide). */
 export function studyApplies(problem: Pick<SearchProblem, "basis" | "restraint">): boolean {
-  return problem.basis === "en1993" && problem.restraint !== undefined;
+  return (problem.basis === "en1993" || problem.basis === "aisc360") && problem.restraint !== undefined;
 }
 
-/** A sweep's run: the search's result and, for EN 1993 briefs with a restraint length, the study. */
+/** A sweep's run: the search's result and, for code-basis briefs with a restraint length, the study. */
 export type SweepResult = SearchResult & {
   restraintStudy?: RestraintStudy;
   /** each family's lightest feasible section at every depth (engine's depthBests), stored with the candidates */

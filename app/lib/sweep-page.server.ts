@@ -15,7 +15,7 @@ import { runOnEngineThread } from "~/workers/engine-thread.server";
 import type { ChartCandidate } from "~/components/TradeoffChart";
 import type { UnitSystem } from "~/optimizer/units";
 import type { SearchProblem } from "~/optimizer";
-import type { DesignRow } from "~/lib/design-summary";
+import { isCodeBasis, type DesignRow } from "~/lib/design-summary";
 
 /** Rows of the candidate table per page (the page's first page, and each page the table fetches). */
 export const TABLE_PAGE_SIZE = 50;
@@ -52,8 +52,9 @@ export const toChartCandidate = (c: CandidateRow): ChartCandidate => ({
 });
 
 /**
- * Under the EN 1993 basis, each row with the engine's design figures (class, Mcr, χLT,
- * resistances, weld throat): the ones the sweep stored with its results (candidates.design);
+ * Under a code basis, each row with the engine's design figures (EN 1993: class, Mcr, χLT,
+ * resistances, weld throat; AISC 360: Chapter F section, Mn, zone, Lp, Lr, Cb, Vn, weld leg,
+ * the governing limit state): the ones the sweep stored with its results (candidates.design);
  * rows stored before that column get them from candidateChecks, the one evaluation the search
  * itself ran, worked out on the engine thread. Under the allowable basis, none. A rolled row always
  * stored its figures with the sweep (catalogue-sweep.ts); worked out again through its family's
@@ -63,7 +64,7 @@ export async function withDesign<T extends { family: string; dimensions: Record<
   rows: T[],
   problem: SearchProblem,
 ): Promise<(T & { design: DesignRow | null })[]> {
-  if (problem.basis !== "en1993" || rows.length === 0) return rows.map((r) => ({ ...r, design: null }));
+  if (!isCodeBasis(problem.basis) || rows.length === 0) return rows.map((r) => ({ ...r, design: null }));
   const missing = rows.flatMap((r, i) => (r.design || r.source === "rolled" ? [] : [i]));
   const computed = missing.length
     ? await runOnEngineThread(
@@ -88,7 +89,7 @@ export async function sweepCandidates(sweepId: number, problem?: SearchProblem):
   return out;
 }
 
-/** One page of the table (GET /api/v1/sweeps/:id/candidates): the stored rows, with design figures under EN 1993. */
+/** One page of the table (GET /api/v1/sweeps/:id/candidates): the stored rows, with design figures under a code basis. */
 export async function candidatesPage(sweep: Pick<SweepView, "id" | "problem">, q: Partial<CandidatesQuery>) {
   const page = await listCandidates(sweep.id, q);
   return { ...page, items: await withDesign(page.items, sweep.problem) };
@@ -288,8 +289,8 @@ function publicSweep(s: SweepView) {
           utilisation: s.best.utilisation,
           governing: s.best.governing,
           cost: s.best.cost ?? null,
-          // the engine's stated simplifications for the section it found (EN 1993 basis)
-          notes: s.best.design?.notes ?? null,
+          // the engine's stated simplifications for the section it found (a code basis)
+          notes: s.best.design?.notes ?? s.best.aisc?.notes ?? null,
         }
       : null,
     restraintStudy: s.restraintStudy,

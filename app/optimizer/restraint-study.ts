@@ -7,8 +7,17 @@
 // P = π²E·Iy/L² and U = π²E·Cw/L² + G·J, search.ts (E2), and both fall as L grows), hence
 // Mb,Rd (χLT does not rise with λLT), and no other check depends on L; so every candidate
 // feasible at L/k is feasible at L/(k + 1), and each spacing's bests are handed to the next
-// search as known feasible candidates (searchWithKnown): an incumbent from the start, the same
-// exact answer.
+// search as known candidates (searchWithKnown, which evaluates them again, so the answer stays
+// exact even where that monotony does not hold): an incumbent from the start, the same answer.
+//
+// Under AISC 360-16 (issue 14) L is the unbraced length Lb, and Chapter F's LTB strength does
+// not fall as Lb shortens (Lp, Lr do not depend on Lb; F2-2, F2-3 and their F4, F5, F7, F9, F11
+// counterparts fall with Lb). Cb is the one input that does not carry over: the brief's Cb
+// (F1-1) belongs to the moment diagram over the whole of L, and the segments between
+// intermediate braces have diagrams of their own (a uniform load's middle segments are nearly
+// uniform moment, Cb ≈ 1). The study has no diagram to work theirs from, so a choice: L keeps
+// the brief's Cb (the sweep's own answer), and L/2 … L/divisions take Cb = 1.0, which §F1
+// permits as a conservative value for any segment (mem.). Each point reports the Cb it used.
 import { EngineInputError } from "./errors";
 import type { Family } from "./geometry";
 import type { SearchCandidate, SearchOptions, SearchPoint } from "./grid";
@@ -25,6 +34,8 @@ export interface RestraintStudyPoint {
   intermediateRestraints: number;
   /** the restraint spacing, m: restraint.length ÷ segments */
   spacing: number;
+  /** AISC 360 only: the Cb this spacing was searched with (the brief's at L, 1.0 at L/2 … ) */
+  Cb?: number;
   /** the lightest (objective "cost": cheapest) feasible section at this spacing, or null */
   best: SearchCandidate | null;
   bestByFamily: Partial<Record<Family, SearchCandidate | null>>;
@@ -54,16 +65,19 @@ export function restraintStudy(input: SearchProblemInput, options: RestraintStud
   if (!(Number.isInteger(divisions) && divisions >= 1 && divisions <= MAX_STUDY_DIVISIONS))
     throw new EngineInputError("divisions", `divisions must be a whole number from 1 to ${MAX_STUDY_DIVISIONS} (the spacings L, L/2 … L/divisions)`);
   const problem = searchProblemSchema.parse(input);
-  if (problem.basis !== "en1993")
-    throw new EngineInputError("basis", 'basis: the restraint study needs the "en1993" basis (the allowable-stress basis checks no lateral-torsional buckling)');
+  if (problem.basis !== "en1993" && problem.basis !== "aisc360")
+    throw new EngineInputError("basis", 'basis: the restraint study needs the "en1993" or "aisc360" basis (the allowable-stress basis checks no lateral-torsional buckling)');
+  const aisc = problem.basis === "aisc360";
   if (!problem.restraint)
     throw new EngineInputError("restraint", "restraint: the restraint study needs restraint.length (without it the compression flange is restrained throughout)");
   const L = problem.restraint.length;
   const points: RestraintStudyPoint[] = [];
   let known: SearchPoint[] = [];
   for (let k = 1; k <= divisions; k++) {
+    // AISC: Cb = 1.0 between intermediate braces (the header says why)
+    const Cb = aisc ? (k === 1 ? (problem.restraint.Cb ?? 1) : 1) : undefined;
     const r = searchWithKnown(
-      { ...problem, restraint: { ...problem.restraint, length: L / k } },
+      { ...problem, restraint: { ...problem.restraint, length: L / k, ...(Cb !== undefined ? { Cb } : {}) } },
       {
         front: "evaluated",
         signal: options.signal,
@@ -71,7 +85,7 @@ export function restraintStudy(input: SearchProblemInput, options: RestraintStud
       },
       known,
     );
-    const point: RestraintStudyPoint = { segments: k, intermediateRestraints: k - 1, spacing: L / k, best: r.best, bestByFamily: r.bestByFamily, counts: r.counts };
+    const point: RestraintStudyPoint = { segments: k, intermediateRestraints: k - 1, spacing: L / k, best: r.best, bestByFamily: r.bestByFamily, counts: r.counts, ...(Cb !== undefined ? { Cb } : {}) };
     if (!r.best && r.reason) point.reason = r.reason;
     points.push(point);
     known = Object.values(r.bestByFamily).filter((c): c is SearchCandidate => !!c);

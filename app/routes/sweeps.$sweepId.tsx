@@ -25,6 +25,7 @@ import { formatNumber, formatQuantity } from "~/components/PropertyTable";
 import { Assumptions, BasisNote } from "~/components/BasisAssumptions";
 import { RestraintStudyChart } from "~/components/RestraintStudyChart";
 import { RolledAndWelded } from "~/components/RolledAndWelded";
+import { isAiscRow, isEnRow } from "~/lib/design-summary";
 import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
 
@@ -230,13 +231,32 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
               <p data-testid="best">
                 <strong>{timedOut ? "Best found so far (not proven lightest):" : sweep.best.cost != null ? "Best section:" : "Lightest section:"}</strong> {familyLabel(sweep.best.family)} {describeDimensions(sweep.best.dimensions, units)}, {formatQuantity("massPerLength", sweep.best.massPerMetre, units)}, utilisation{" "}
                 {sweep.best.utilisation.toFixed(3)} ({checkLabel(sweep.best.governing)}){sweep.best.cost != null ? `, cost ${sweep.best.cost.toFixed(2)} per m (the cheapest, as the brief asks)` : ""}.
-                {bestDesign ? (
+                {isEnRow(bestDesign) ? (
                   <span data-testid="best-design">
                     {" "}
                     Class {bestDesign.sectionClass}
                     {bestDesign.Mcr !== null ? `, Mcr ${formatQuantity("moment", bestDesign.Mcr, units)}, χLT ${formatNumber(bestDesign.chiLT!, 3)}, Mb,Rd ${formatQuantity("moment", bestDesign.MbRd!, units)}` : bestDesign.McRd !== null ? `, Mc,Rd ${formatQuantity("moment", bestDesign.McRd, units)} (no lateral-torsional buckling check: restrained throughout)` : ""}
                     {bestDesign.VRd !== null ? `, VRd ${formatQuantity("force", bestDesign.VRd, units)}` : ""}
                     {bestDesign.weldThroat !== null ? `, weld throat a = ${formatQuantity("length", bestDesign.weldThroat, units)}` : ""}; governing clause {bestDesign.governingClause}.
+                  </span>
+                ) : isAiscRow(bestDesign) ? (
+                  <span data-testid="best-design">
+                    {" "}
+                    {bestDesign.section ? `AISC 360-16 §${bestDesign.section}` : "AISC 360-16"}
+                    {bestDesign.Mn !== null ? `, Mn ${formatQuantity("moment", bestDesign.Mn, units)}, ${bestDesign.method === "ASD" ? "Mn/Ωb" : "φbMn"} ${formatQuantity("moment", bestDesign.MnAvailable!, units)}` : ""}
+                    {bestDesign.zone !== null
+                      ? `, LTB zone ${bestDesign.zone} (${[
+                          bestDesign.Lp !== null ? `Lp ${formatQuantity("span", bestDesign.Lp / 1000, units)}` : null,
+                          bestDesign.Lr !== null ? `Lr ${formatQuantity("span", bestDesign.Lr / 1000, units)}` : null,
+                          `Cb ${formatNumber(bestDesign.Cb ?? 1, 4)}`,
+                        ]
+                          .filter(Boolean)
+                          .join(", ")})`
+                      : bestDesign.Mn !== null
+                        ? " (no lateral-torsional buckling check: braced throughout)"
+                        : ""}
+                    {bestDesign.VnAvailable !== null ? `, ${bestDesign.method === "ASD" ? "Vn/Ωv" : "φvVn"} ${formatQuantity("force", bestDesign.VnAvailable, units)}` : ""}
+                    {bestDesign.weldLeg !== null ? `, weld leg w = ${formatQuantity("length", bestDesign.weldLeg, units)}` : ""}; governing limit state {bestDesign.limitState} ({bestDesign.governingClause}).
                   </span>
                 ) : null}
               </p>
@@ -304,7 +324,7 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
           </section>
           {sweep.catalogueResult ? <RolledAndWelded summary={sweep.catalogueResult} units={units} cost={sweep.problem.objective === "cost"} /> : null}
           <Caution problem={sweep.problem} />
-          <details className="rounded-lg border border-ink/15 bg-white p-4" open={sweep.problem.basis === "en1993"}>
+          <details className="rounded-lg border border-ink/15 bg-white p-4" open={sweep.problem.basis === "en1993" || sweep.problem.basis === "aisc360"}>
             <summary className="cursor-pointer font-semibold">Basis and assumptions</summary>
             <div className="mt-2">
               <Assumptions problem={sweep.problem} units={units} notes={sweep.best?.notes ?? undefined} heading="What this sweep assumed" />
@@ -377,7 +397,8 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                   initial={table}
                   families={families}
                   withCost={withCost}
-                  withDesign={sweep.problem.basis === "en1993"}
+                  basis={sweep.problem.basis}
+                  method={sweep.problem.method}
                   withRolled={sweep.catalogueResult != null}
                   units={units}
                   selected={selected}

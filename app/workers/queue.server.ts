@@ -28,7 +28,7 @@ import { gridCostProblem, timedOutReason } from "./sweep-budget";
 import type { ProgressUnit, SweepProgress } from "./sweep-search.server";
 import { notify } from "~/lib/notifications.server";
 import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
-import { designRow, type DesignRow } from "~/lib/design-summary";
+import { designRow, isCodeBasis, type DesignRow } from "~/lib/design-summary";
 import { candidateChecks } from "~/optimizer/checks";
 
 export type SweepStatus = "queued" | "running" | "succeeded" | "failed" | "cancelled" | "timed_out";
@@ -473,19 +473,20 @@ export function candidatesToStore(result: SweepResult, objective: "mass" | "cost
     on_front: front.has(keyOf(c)),
     family_best: familyBest.has(keyOf(c)),
     depth_best: depthBest.has(keyOf(c)),
-    design: problem?.basis === "en1993" ? storedDesign(c, problem) : null,
+    // the code bases' figures (EN 1993 or AISC 360); the allowable basis has none
+    design: problem && isCodeBasis(problem.basis) ? storedDesign(c, problem) : null,
   }));
 }
 
 /**
- * An EN 1993 row's design figures (lib/design-summary.ts), stored so no page view re-runs the
+ * A code basis row's design figures (lib/design-summary.ts: EN 1993 or AISC 360), stored so no page view re-runs the
  * checks. The best and family bests carry the search's design block; front points are light, so
  * theirs comes from candidateChecks, the evaluation the search itself ran (≈ 50 µs each, once per
  * sweep, before the results transaction).
  */
-function storedDesign(c: SearchPoint & { design?: SearchCandidate["design"]; checks?: SearchCandidate["checks"] }, problem: SearchProblem): string | null {
+function storedDesign(c: SearchPoint & { design?: SearchCandidate["design"]; aisc?: SearchCandidate["aisc"]; checks?: SearchCandidate["checks"] }, problem: SearchProblem): string | null {
   try {
-    const row = c.design && c.checks ? designRow({ design: c.design, checks: c.checks, governing: c.governing }) : designRow(candidateChecks(c.family, c.dimensions, problem));
+    const row = (c.design || c.aisc) && c.checks ? designRow({ design: c.design, aisc: c.aisc, checks: c.checks, governing: c.governing }) : designRow(candidateChecks(c.family, c.dimensions, problem));
     return row ? JSON.stringify(row) : null;
   } catch {
     return null;
@@ -835,7 +836,7 @@ export interface CandidateRow {
   familyBest: boolean;
   /** its family's lightest feasible section at its depth (issue 11, item 9) */
   depthBest: boolean;
-  /** EN 1993 sweeps: the design figures stored with the row (null under the allowable basis) */
+  /** EN 1993 and AISC 360 sweeps: the design figures stored with the row (null under the allowable basis) */
   design: DesignRow | null;
   /** "rolled": a catalogue section (its designation and catalogue below); "plate": welded from plate */
   source: "plate" | "rolled";

@@ -24,7 +24,7 @@ const KIND = "sparwise-study-thread";
  */
 export function restraintStudyJob(input: SearchProblemInput): RestraintStudy {
   const problem = searchProblemSchema.parse(input);
-  if (!studyApplies(problem)) throw new Error("the restraint study needs an EN 1993 brief with a restraint length");
+  if (!studyApplies(problem)) throw new Error("the restraint study needs an EN 1993 or AISC 360 brief with a restraint length");
   const t0 = Date.now();
   const study = restraintStudy(problem, { divisions: STUDY_SEGMENTS.length });
   const points: StudyPoint[] = study.points.map((q) => {
@@ -32,6 +32,7 @@ export function restraintStudyJob(input: SearchProblemInput): RestraintStudy {
     const point: StudyPoint = {
       restraints: q.intermediateRestraints,
       lengthM: q.spacing,
+      ...(q.Cb !== undefined ? { Cb: q.Cb } : {}),
       best: b ? { family: b.family, dimensions: b.dimensions, massPerMetre: b.massPerMetre, utilisation: b.utilisation, governing: b.governing, ...(b.cost !== undefined ? { cost: b.cost } : {}) } : null,
     };
     if (!b && q.reason) point.reason = q.reason;

@@ -9,7 +9,7 @@ import type { Family } from "~/optimizer/geometry";
 import { restraintStudy } from "~/optimizer/restraint-study";
 import { searchSections } from "~/optimizer/search";
 import { CONTRACT_EXAMPLE_PROBLEM, type SearchProblemInput } from "~/optimizer/search-schema";
-import { en1993Arb } from "./search-arbitraries";
+import { aisc360Arb, en1993Arb } from "./search-arbitraries";
 
 const RUNS = Number(process.env.SEARCH_PROPERTY_RUNS ?? 0) || undefined;
 const dims = (c: { family: string; dimensions: Record<string, number> } | null | undefined) => (c ? `${c.family} ${JSON.stringify(c.dimensions)}` : "none");
@@ -65,6 +65,49 @@ describe("restraint study against independent searches", () => {
     expect(i6.governing).toBe("ltb");
     expect(i6.massPerMetre).toBeGreaterThan(i1.massPerMetre * 1.5);
     expect(study.points[0].bestByFamily.box!.massPerMetre).toBeLessThan(i6.massPerMetre);
+  });
+});
+
+// AISC 360-16 (issue 14): Lb = L/k; the brief's Cb at L, Cb = 1.0 between intermediate braces
+// (§F1 permits 1.0 as a conservative value, mem.; restraint-study.ts says why).
+const aiscWithRestraint = aisc360Arb.filter((p) => p.restraint !== undefined);
+
+describe("restraint study under AISC 360", () => {
+  it("every spacing's best equals brute force at Lb = L/k with the Cb the point reports", () => {
+    fc.assert(
+      fc.property(aiscWithRestraint, fc.integer({ min: 1, max: 4 }), (p, divisions) => {
+        const study = restraintStudy(p, { divisions });
+        for (const q of study.points) {
+          expect(q.Cb).toBe(q.segments === 1 ? (p.restraint!.Cb ?? 1) : 1);
+          const brute = bruteForceSearch({ ...p, restraint: { ...p.restraint!, length: p.restraint!.length / q.segments, Cb: q.Cb } });
+          expect(dims(q.best)).toBe(dims(brute.best));
+          for (const f of Object.keys(brute.bestByFamily) as Family[]) expect(dims(q.bestByFamily[f])).toBe(dims(brute.bestByFamily[f]));
+        }
+      }),
+      { numRuns: RUNS ?? 20, seed: 3601 },
+    );
+  }, 600_000);
+
+  it("a 20 ft ASD beam: L keeps the brief's Cb and is the search's own answer; bracing at L/6 saves steel", () => {
+    // 60 kip·ft = 81.35 kN·m, 25 kips = 111.2 kN, Lb 20 ft = 6.096 m, Cb 1.136 (F1-1, uniform load on a simple span)
+    const p: SearchProblemInput = {
+      basis: "aisc360",
+      method: "ASD",
+      aisc: { grade: "A572 Gr 50" },
+      restraint: { length: 6.096, Cb: 1.136 },
+      moment: { sagging: 81.35 },
+      shear: 111.2,
+      depth: { min: 200, max: 500, step: 20 },
+      width: { min: 100, max: 300, step: 20 },
+      thicknesses: [6, 8, 10, 12, 16, 20],
+      families: ["i"],
+    };
+    const study = restraintStudy(p);
+    expect(study.points.map((q) => q.Cb)).toEqual([1.136, 1, 1, 1, 1, 1]);
+    expect(dims(study.points[0].best)).toBe(dims(searchSections(p, { front: "evaluated" }).best));
+    // unbraced over 20 ft lateral-torsional buckling is checked and near its limit (F2-2 or F2-3 applies); at 1 m spacing the I is far lighter
+    expect(study.points[0].best!.checks.find((c) => c.name === "ltb")!.utilisation).toBeGreaterThan(0.8);
+    expect(study.points[5].best!.massPerMetre).toBeLessThan(study.points[0].best!.massPerMetre * 0.8);
   });
 });
 
