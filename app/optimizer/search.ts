@@ -102,6 +102,10 @@
 //       limit, 42ε/(0.67 + 0.33ψ) or 62ε(1 − ψ)√(−ψ), does not rise with ψ).
 //   (E4) Every welded point's throat is at least 3 mm against at most 0.7 × (the web; for i,
 //       channel, tee, box the thinner of flange and web), fixed along the row.
+//   (E5) Class 4 is excluded (member-checks.md §2 item 1): a compressed welded outstand (the
+//       top flange under sagging, the bottom under hogging) needs (b − tw)/2 ≤ 14ε·t (Table 5.2
+//       sheet 2, no root radius on plates), ε from the thickest plate's fy, fixed with the
+//       thicknesses: a last width for that flange whatever the other dimensions (enFlangeHi; mono-i).
 //   Classification makes feasibility non-monotone along a row (a wider flange can turn class 3
 //   or 4), so nothing above assumes monotone feasibility: points are only ever excluded by
 //   these necessary conditions, and the row's first feasible point is still its lightest.
@@ -130,6 +134,45 @@
 //       by the row's fixed web section, flange local buckling by the flange classes the range
 //       holds; proof in its comment), combined with (U2) in one bisection.
 //   Shear, welds and J10 are not used to bound (they only make more points infeasible).
+// (R) mono-i in best mode: one node per (tft, tfb, tw) and run of consecutive valid depths (the
+//   width minima, tw, do not involve d), over every bt and bb: 10^6 per-depth super nodes were
+//   each bounded on their own. dBound bounds the box d ∈ [d1, d2] × bt × bb:
+//   - (6) the web's (d − tft − tfb)/tw rises with d: a last depth; the outstands bound bt, bb.
+//   - The objective is affine in d, bt, bb with positive slopes (plate areas, prices > 0): its
+//     value at (d1, bt1, bb1) is a lower bound, and the incumbent bounds each coordinate at the
+//     others' least (as the rows' cut).
+//   - Depth monotonicity: the section at d + Δ is the one at d cut across the web, its upper part
+//     raised by Δ, the gap filled with web. So Iz, Iy (web added), Cw (h0 rises), J (longer web),
+//     and Zz never fall with d: ∫|y − a′| dA at d + Δ is at least ∫|y − a| dA at d with a = a′
+//     below the cut, a = the cut inside the gap, a = a′ − Δ above (every |y − a| there is at
+//     least its old value), plus the web's share ≥ 0. The centroid ȳ rises with d (cut at the top
+//     of the web: ȳ′ − ȳ has the sign of A_top + tw·(d − tft − ȳ + Δ/2) ≥ tft·(bt − tw) > 0), and
+//     so does c = d − ȳ (cut at the web's bottom, the mirror argument with bb > tw). The shear
+//     centre ysc = tfb/2 + h0·It/(It + Ib) rises with d and bt and falls with bb; zg (top:
+//     d − ysc = tft/2 + h0·Ib/(It + Ib); bottom: −ysc; centre: 0) is monotone in each
+//     coordinate, so its least and greatest values are at box corners (ltbOut3).
+//   - (4), (E1), (U1) over the box: every point's Iz (Zz) is at most its value at d2, at most I
+//     about any y0 (∫|y − a| dA about any a) at d2, affine in (bt, bb); the bending requirement
+//     M·d/(σc + σt) rises with d (its value at d1 holds) and the Zz requirement is fixed; the
+//     objective at d1 is affine in (bt, bb): the same fractional knapsack (lpRange) gives a lower
+//     bound on the objective of every point that can pass.
+//   - (E2) over the box (ltbOut3): Iy, Cw, J, Zz at (d2, bt2, bb2); curve c if d1/min(bt2, bb2) ≤ 2;
+//     betaX = N/Iz − 2(ȳ − ysc) with N = Σ (B³/12)·S1 + B·S3 per plate (enTRange's terms): the
+//     bottom flange's S1 = tfb·ȳ − tfb²/2 and S3 (derivative ȳ³ − (ȳ − tfb)³ > 0) rise with ȳ;
+//     the top flange's S1 = tft²/2 − tft·c and S3 (derivative −((tft − c)³ + c³) < 0) fall with c;
+//     the web's term is g(ȳ − tfb) − g(tft − c) with g(x) = (tw³/12)·x²/2 + tw·x⁴/4, even and
+//     rising in |x|; interval products over B, then ÷ Iz ∈ [Iz(d1, bt1, bb1), Iz(d2, bt2, bb2)],
+//     ȳ ∈ [ȳ(d1, bt1, bb2), ȳ(d2, bt2, bb1)], c ∈ [c(d1, bt2, bb1), c(d2, bt1, bb2)]. The bound
+//     grows with the box, so "every point of the box with axis x in [x1, m] fails" is monotone in
+//     m: bisection raises the least depth, bt and bb (raise3).
+//   - (E4) and (E5) as for the super nodes.
+//   A popped range is halved; at DRANGE_LEAF depths or fewer each depth becomes its super node.
+// (S) mono-i in best mode with a restraint (LTB checked), before the search: a local search from the heaviest grid point (and
+//   the same at ¾ and ½ of the depth axis) steps each dimension down, then one down and another
+//   up, keeping the lightest feasible point it meets (SEED_EVALS evaluations at most). It only
+//   offers grid points it evaluated by checks.ts, so, as searchWithKnown's known candidates, it
+//   changes no answer; it gives the incumbent's cut an early, near-best incumbent, which is what
+//   narrows the boxes before (E2) bounds them.
 // - Best mode also cuts each row, and each mono-i box, to the points no heavier than the
 //   incumbent (the objective is affine in each width) before bounding them.
 // - One bound function per kind of node serves both passes (best mode and the grid front, D):
@@ -216,7 +259,12 @@ const OUT_SHEAR = 0,
 const KIND_READY = 0,
   KIND_RAW = 1,
   KIND_SUPER = 2,
-  KIND_SUPER_RAW = 3;
+  KIND_SUPER_RAW = 3,
+  KIND_DRANGE = 4;
+/** mono-i depth-range nodes (R) this short or shorter are expanded into one super node per depth. */
+const DRANGE_LEAF = 2;
+/** (S) the most candidates the mono-i seed's local search evaluates. */
+const SEED_EVALS = 4000;
 
 /**
  * Binary min-heap on typed arrays: key, row id, k (next free-width index), kHi, kind, the
@@ -340,6 +388,20 @@ function fyMaxOver(e: En1993Context, t1: number, t2: number): number {
     prev = hi;
   }
   return m;
+}
+
+/** (R) The web's term of betaX's integral (enTRange) at |v| = x at one end: (tw³/12)·x²/2 + tw·x⁴/4, rising in x ≥ 0. */
+function webWagner(tw: number, x: number): number {
+  const x2 = x * x;
+  return (tw * tw * tw * x2) / 24 + (tw * x2 * x2) / 4;
+}
+
+/** (R) mono-i's shear-centre height, stability.ts's closed form: tfb/2 + h0·It/(It + Ib). */
+function monoShearCentre(d: number, bt: number, tft: number, bb: number, tfb: number): number {
+  const h0 = d - tft / 2 - tfb / 2;
+  const It = (tft * bt * bt * bt) / 12,
+    Ib = (tfb * bb * bb * bb) / 12;
+  return tfb / 2 + (h0 * It) / (It + Ib);
 }
 
 /** First index k with a[k] > x (a ascending). */
@@ -1183,8 +1245,10 @@ class FamilySearch {
   /** Seeds the family (counting its grid); every seed is pending until the search settles it. */
   seed(): void {
     if (this.pf.axes.some((a) => a.length === 0)) return;
-    if (this.fk.second >= 0) this.seedSupers();
-    else this.seedRows();
+    if (this.fk.second >= 0) {
+      if (this.gridMode) this.seedSupers();
+      else this.seedDepthRanges();
+    } else this.seedRows();
     const sd = this.seeds;
     for (let i = 0; i < sd.size; i++) this.pending += sd.n[i];
   }
@@ -1198,6 +1262,9 @@ class FamilySearch {
     const sd = this.seeds,
       n = sd.size,
       h = this.heap;
+    // (S) where LTB is checked: elsewhere the first rows' bounds are tight enough that the first
+    // feasible point found is at or near the best, and the seed would only add evaluations
+    if (n > 0 && this.fk.second >= 0 && (this.en?.restraint || this.us?.restraint)) this.seedIncumbent();
     if (n > 0) {
       const sample = new Float64Array(Math.min(n, 4096));
       for (let i = 0; i < sample.length; i++) sample[i] = sd.key[Math.floor((i * n) / sample.length)];
@@ -1280,6 +1347,10 @@ class FamilySearch {
     // Grid mode re-keys an entry whose bound at cap moved up, following the front's cap at each
     // new key in turn (the front only ever lowers it, so the key stays a lower bound), and waits
     // at the last one: the front may have fallen further by the time it pops again.
+    if (kind === KIND_DRANGE) {
+      this.stepDepthRange(id, k, kHi, cap);
+      return;
+    }
     if (kind === KIND_SUPER_RAW) {
       // Straight to the node's full bound at this cap, without re-keying on the cheap seed key:
       // that key is so loose that each node popped about five times as the front fell (the
@@ -1477,7 +1548,20 @@ class FamilySearch {
         hi = Math.min(hi, firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
       } else if (this.slR1[0] > lim * (1 + REL)) hi = lo - 1;
     }
+    // (E5) a sagging moment compresses the top flange, which must not be class 4
+    if (this.en && this.ctx.Ms > 0) hi = Math.min(hi, this.enFlangeHi(v[2], v[5]));
     return [lo, hi];
+  }
+
+  /**
+   * (E5) Class 4 is excluded (member-checks.md §2 item 1), so a compressed welded outstand needs
+   * c/t = (b − tw)/2/t ≤ 14ε (EN 1993-1-1 Table 5.2 sheet 2, no root radius on welded plates),
+   * ε from the section's fy (its thickest plate, fixed with the thicknesses): the last width index
+   * of a flange of thickness t that can pass, whatever the other dimensions.
+   */
+  enFlangeHi(t: number, tw: number): number {
+    const bMax = 28 * Math.sqrt(235 / this.enFyMax(0, 0)) * t + tw;
+    return firstAbove(this.W, bMax + REL * (Math.abs(bMax) + 1)) - 1;
   }
 
   seedSupers(): void {
@@ -1795,6 +1879,18 @@ class FamilySearch {
     lp.o00 = o00;
     lp.ot = ot;
     lp.ob = ob;
+    return this.knapsack(req, bt0, bt1, bb0, bb1);
+  }
+
+  /** The knapsack on the affine model in this.lp (measure c00 + ct·Δbt + cb·Δbb ≥ req at least objective). */
+  private knapsack(req: number, bt0: number, bt1: number, bb0: number, bb1: number): number {
+    const lp = this.lp,
+      c00 = lp.c00,
+      ct = lp.ct,
+      cb = lp.cb,
+      o00 = lp.o00,
+      ot = lp.ot,
+      ob = lp.ob;
     let deficit = req - c00;
     let bt = bt0,
       bb = bb0,
@@ -1905,6 +2001,542 @@ class FamilySearch {
       const k = Math.max(m.kLo, firstAtLeast(W, bb - REL * (Math.abs(bb) + 1)));
       if (k > m.kHi) continue;
       this.push(key, id + j * stride, k, m.kHi, KIND_RAW, m.kHi - k + 1);
+    }
+  }
+
+  // ---- mono-i in best mode: depth ranges (R) and a first incumbent (S) --------------------
+
+  /** what dBound left: the depth range (indices into the depth axis) and the shapes it stands for */
+  private dr = { lo: 0, hi: 0, n: 0 };
+  /** the box ltbOut3 bounds: depth, bt and bb index ranges [d1, d2, j1, j2, k1, k2] */
+  private bx = new Int32Array(6);
+
+  /** Every (tft, tfb, tw) as one node per run of consecutive valid depths (R), bounded at once. */
+  seedDepthRanges(): void {
+    const fk = this.fk,
+      gd = this.groupDims,
+      rad = this.radix,
+      v = this.v,
+      W = this.W,
+      D = this.pf.axes[0];
+    const outer = gd.map((_, j) => j).filter((j) => gd[j] !== fk.second && gd[j] !== 0);
+    const idx = new Int32Array(gd.length);
+    for (let j = 0; j < gd.length; j++) v[gd[j]] = this.pf.axes[gd[j]][0];
+    for (;;) {
+      // mono-i's width minima (the web thickness, fabrication.ts's rules) do not involve the depth
+      v[0] = D[0];
+      const nBt = W.length - firstAbove(W, fk.secondMin(v));
+      const nBb = W.length - firstAbove(W, fk.freeMin(v));
+      if (nBt > 0 && nBb > 0) {
+        const base = this.encode(idx);
+        for (let i = 0; i < D.length; ) {
+          v[0] = D[i];
+          if (!fk.groupValid(v)) {
+            i++;
+            continue;
+          }
+          let e = i;
+          while (e + 1 < D.length && ((v[0] = D[e + 1]), fk.groupValid(v))) e++;
+          this.t.grid += (e - i + 1) * nBt * nBb;
+          const key = this.dBound(base, i, e, 1);
+          if (key !== null) this.seeds.append(key, base, this.dr.lo, this.dr.hi, KIND_DRANGE, this.fam, this.dr.n);
+          this.decode(base);
+          i = e + 1;
+        }
+      }
+      let o = outer.length - 1;
+      while (o >= 0) {
+        const j = outer[o];
+        idx[j]++;
+        if (idx[j] < rad[j]) {
+          v[gd[j]] = this.pf.axes[gd[j]][idx[j]];
+          break;
+        }
+        idx[j] = 0;
+        v[gd[j]] = this.pf.axes[gd[j]][0];
+        o--;
+      }
+      if (o < 0) break;
+    }
+  }
+
+  /** A popped depth range: halves, each bounded on its own, or one super node per depth once short. */
+  private stepDepthRange(id: number, dA: number, dB: number, cap: number): void {
+    if (dB - dA + 1 <= DRANGE_LEAF) {
+      for (let i = dA; i <= dB; i++) {
+        this.decode(id + i * this.depthStride);
+        this.pushSuper(id + i * this.depthStride, 0, this.W.length - 1, cap);
+      }
+      return;
+    }
+    const mid = (dA + dB) >> 1;
+    for (let h = 0; h < 2; h++) {
+      const key = h === 0 ? this.dBound(id, dA, mid, cap) : this.dBound(id, mid + 1, dB, cap);
+      if (key !== null && key <= this.limit()) this.push(key, id, this.dr.lo, this.dr.hi, KIND_DRANGE, this.dr.n);
+    }
+  }
+
+  /**
+   * (R) Lower bound on the objective over a mono-i depth range: (tft, tfb, tw) fixed, depth
+   * indices [dA, dB], every bt and bb; null when no point can reach utilisation ≤ cap. Narrows
+   * the depth range (into dr) by the web's slenderness, the incumbent and (E2) over the box.
+   */
+  dBound(id: number, dA: number, dB: number, cap: number): number | null {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      D = this.pf.axes[0],
+      sec = fk.second,
+      f = fk.free,
+      ctx = this.ctx,
+      out = this.t.ruledOut;
+    this.decode(id);
+    const tft = v[2],
+      tfb = v[4],
+      tw = v[5];
+    v[0] = D[dA];
+    let [jLo, jHi] = this.btRange(cap);
+    let kLo = firstAbove(W, fk.freeMin(v));
+    this.dr.n = (dB - dA + 1) * (W.length - firstAbove(W, fk.secondMin(v))) * (W.length - kLo);
+    // (6) the web's ratio (d − tft − tfb)/tw rises with d: a last depth
+    const limW = ctx.slenderLimit[fkm.C_WEB] * cap;
+    if (limW === limW) {
+      const dMax = tft + tfb + limW * tw;
+      dB = Math.min(dB, firstAbove(D, dMax + REL * (Math.abs(dMax) + 1)) - 1);
+    }
+    if (dB < dA || jHi < jLo) {
+      out[fkm.C_OUTSTAND] += 1;
+      return null;
+    }
+    // the bottom outstand, with the top outstand held at an allowed bt (rowHi checks every element)
+    v[sec] = W[jLo];
+    let kHi = this.rowHi(kLo, W.length - 1, cap);
+    if (kHi < 0) return null;
+    if (this.en && ctx.Mh > 0) kHi = Math.min(kHi, this.enFlangeHi(tfb, tw));
+    if (kHi < kLo) {
+      out[C_CLASS4] += 1;
+      return null;
+    }
+    if (this.en && this.enRowOut(cap)) {
+      out[C_WELD] += (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+      return null;
+    }
+    const lim = this.limit();
+    const bx = this.bx;
+    for (let round = 0; round < 4; round++) {
+      const d0 = dA,
+        j0 = jLo,
+        k0 = kLo;
+      if (lim < Infinity) {
+        // best mode: the objective is affine in d, bt and bb with positive slopes, so the points no
+        // heavier than the incumbent have each coordinate below its bound at the others' least
+        v[0] = D[dA];
+        v[sec] = W[jLo];
+        v[f] = W[kLo];
+        const o0 = this.objectiveOf2();
+        if (o0 > lim) return null;
+        if (jHi > jLo) {
+          v[sec] = W[jHi];
+          const o1 = this.objectiveOf2();
+          if (o1 > lim) {
+            const x = W[jLo] + ((lim - o0) * (W[jHi] - W[jLo])) / (o1 - o0);
+            jHi = Math.min(jHi, firstAbove(W, x + REL * (Math.abs(x) + 1)) - 1);
+          }
+          v[sec] = W[jLo];
+        }
+        if (kHi > kLo) {
+          v[f] = W[kHi];
+          const o1 = this.objectiveOf2();
+          if (o1 > lim) {
+            const x = W[kLo] + ((lim - o0) * (W[kHi] - W[kLo])) / (o1 - o0);
+            kHi = Math.min(kHi, firstAbove(W, x + REL * (Math.abs(x) + 1)) - 1);
+          }
+          v[f] = W[kLo];
+        }
+        if (dB > dA) {
+          v[0] = D[dB];
+          const o1 = this.objectiveOf2();
+          if (o1 > lim) {
+            const x = D[dA] + ((lim - o0) * (D[dB] - D[dA])) / (o1 - o0);
+            dB = Math.min(dB, firstAbove(D, x + REL * (Math.abs(x) + 1)) - 1);
+          }
+          v[0] = D[dA];
+        }
+        if (jHi < jLo || kHi < kLo || dB < dA) return null;
+      }
+      if (this.en && this.en.restraint) {
+        bx[0] = dA;
+        bx[1] = dB;
+        bx[2] = jLo;
+        bx[3] = jHi;
+        bx[4] = kLo;
+        bx[5] = kHi;
+        if (this.ltbOut3(cap)) {
+          out[C_LTB] += (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+          return null;
+        }
+        // the least depth, bt and bb a point can have and pass (E2): each box bound grows with its box
+        for (let ax = 0; ax < 3; ax++) this.raise3(ax, cap);
+        dA = bx[0];
+        jLo = bx[2];
+        kLo = bx[4];
+      }
+      if (lim === Infinity || (dA === d0 && jLo === j0 && kLo === k0)) break;
+    }
+    const d1 = D[dA],
+      d2 = D[dB];
+    this.dr.lo = dA;
+    this.dr.hi = dB;
+    const bt0 = W[jLo],
+      bt1 = W[jHi],
+      bb0 = W[kLo],
+      bb1 = W[kHi];
+    const p = this.plates,
+      n = fk.nPlates,
+      lp = this.lp;
+    // (4) with (1): every point's Iz is at most its Iz at the deepest depth, at most I about any y0
+    // there (affine in bt, bb); the requirement rises with d, so its value at the shallowest holds;
+    // the objective rises with d, so its value at the shallowest is a lower bound
+    v[0] = d1;
+    v[sec] = bt0;
+    v[f] = bb0;
+    let best = this.objectiveOf2();
+    const req = this.baseIreq(d1, cap) * (1 - REL);
+    if (req > 0) {
+      let y0 = d2 / 2;
+      for (let round = 0; round < 2; round++) {
+        const obj = this.lpRange(false, y0, req, d2, d1, bt0, bt1, bb0, bb1);
+        if (obj !== obj) {
+          out[ctx.aT <= ctx.aC ? C_TENS : C_COMP] += (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+          return null;
+        }
+        if (obj > best) best = obj;
+        v[0] = d2;
+        v[sec] = lp.bt;
+        v[f] = lp.bb;
+        fk.fill(v, p);
+        compositeKernel(p, n, this.kout);
+        y0 = this.kout[K_CY];
+      }
+    }
+    if (this.lim) {
+      // (E1), (U1) likewise: Zz never falls with d or either width, ∫|y − a| dA at the deepest ≥ it
+      const zreq = this.enZreq(this.enFyMax(0, 0), cap) * (1 - REL);
+      let a = d2 / 2;
+      for (let round = 0; round < 2; round++) {
+        const obj = this.lpRange(true, a, zreq, d2, d1, bt0, bt1, bb0, bb1);
+        if (obj !== obj) {
+          out[C_BEND] += (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+          return null;
+        }
+        if (obj > best) best = obj;
+        v[0] = d2;
+        v[sec] = lp.bt;
+        v[f] = lp.bb;
+        fk.fill(v, p);
+        compositeKernel(p, n, this.kout);
+        a = plateNeutralAxis(p, n, this.kout[K_AREA], this.kout[K_CY]);
+      }
+    }
+    this.dr.n = (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+    return best * (1 - REL);
+  }
+
+  /** (R) Raises the low end of axis ax (0 depth, 1 bt, 2 bb) of the box in bx past the run of values whose sub-box fails (E2). */
+  private raise3(ax: number, cap: number): void {
+    const b = this.bx,
+      lo0 = b[2 * ax],
+      hi0 = b[2 * ax + 1];
+    b[2 * ax + 1] = lo0;
+    if (lo0 < hi0 && this.ltbOut3(cap)) {
+      let lo = lo0,
+        hi = hi0; // [lo0, lo] fails as a whole, [lo0, hi] does not (the whole box passed)
+      while (hi - lo > 1) {
+        const m = (lo + hi) >> 1;
+        b[2 * ax + 1] = m;
+        if (this.ltbOut3(cap)) lo = m;
+        else hi = m;
+      }
+      b[2 * ax] = hi;
+    }
+    b[2 * ax + 1] = hi0;
+  }
+
+  /**
+   * (R), (E2) True when no mono-i point with depth, bt and bb in the box bx can have every LTB
+   * utilisation ≤ cap. Iy, Cw, J and Zz at the box's deepest and widest corner (each grows with
+   * d, bt and bb); curve c if any point may have d/b_narrow ≤ 2. The centroid height ȳ rises with
+   * d and bt and falls with bb; c = d − ȳ rises with d and bb and falls with bt; the shear centre
+   * ysc = tfb/2 + h0·It/(It + Ib) rises with d and bt and falls with bb; zg (top: tft/2 + h0·Ib/(It
+   * + Ib); bottom: −ysc) is monotone in each, so its extremes are at box corners. betaX = N/Iz −
+   * 2(ȳ − ysc) with N = Σ over the plates of (B³/12)·S1 + B·S3 (enTRange): the bottom flange's S1,
+   * S3 rise with ȳ, the top flange's fall with c, the web's term is g(ȳ − tfb) − g(tft − c) with
+   * g(x) = (tw³/12)x²/2 + tw·x⁴/4, even and rising in |x|; interval products over B, then ÷ Iz.
+   */
+  private ltbOut3(cap: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      D = this.pf.axes[0],
+      b = this.bx,
+      sec = fk.second,
+      f = fk.free,
+      n = fk.nPlates,
+      ko = this.kout,
+      st = this.st,
+      p = this.plates;
+    const d1 = D[b[0]],
+      d2 = D[b[1]],
+      bt1 = W[b[2]],
+      bt2 = W[b[3]],
+      bb1 = W[b[4]],
+      bb2 = W[b[5]];
+    const tft = v[2],
+      tfb = v[4],
+      tw = v[5];
+    v[0] = d2;
+    v[sec] = bt2;
+    v[f] = bb2;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const iy = ko[K_IY],
+      izHi = ko[K_IZ];
+    const zz = plateModulusAbout(p, n, plateNeutralAxis(p, n, ko[K_AREA], ko[K_CY]));
+    stabilityKernel(fk.family, v, st);
+    const cw = st[ST_CW],
+      j = st[ST_J];
+    const aLT = ltbCurveC(fk.family, d1, Math.min(bt2, bb2)) ? ALPHA_LT_C : ALPHA_LT_D;
+    const fy = this.enFyMax(0, 0);
+    v[0] = d1;
+    v[sec] = bt1;
+    v[f] = bb1;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const izLo = ko[K_IZ];
+    // ȳ least at (d1, bt1, bb2), greatest at (d2, bt2, bb1); c = d − ȳ least at (d1, bt2, bb1), greatest at (d2, bt1, bb2)
+    v[f] = bb2;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const yLo = ko[K_CY];
+    v[0] = d2;
+    v[sec] = bt2;
+    v[f] = bb1;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const yHi = ko[K_CY];
+    v[0] = d1;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const cLo = d1 - ko[K_CY];
+    v[0] = d2;
+    v[sec] = bt1;
+    v[f] = bb2;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const cHi = d2 - ko[K_CY];
+    // N's interval: bottom flange over [0, tfb] (v2 = ȳ, v1 = ȳ − tfb), top over [d − tft, d] (v2 = tft − c, v1 = −c)
+    const c1 = (bb1 * bb1 * bb1) / 12,
+      c2 = (bb2 * bb2 * bb2) / 12,
+      e1 = (bt1 * bt1 * bt1) / 12,
+      e2 = (bt2 * bt2 * bt2) / 12;
+    let nLo = 0,
+      nHi = 0;
+    {
+      let a = yLo,
+        z = yLo - tfb;
+      const s1a = (a * a - z * z) / 2,
+        s3a = (a * a * a * a - z * z * z * z) / 4;
+      a = yHi;
+      z = yHi - tfb;
+      const s1b = (a * a - z * z) / 2,
+        s3b = (a * a * a * a - z * z * z * z) / 4;
+      nLo += (s1a >= 0 ? c1 * s1a : c2 * s1a) + (s3a >= 0 ? bb1 * s3a : bb2 * s3a);
+      nHi += (s1b >= 0 ? c2 * s1b : c1 * s1b) + (s3b >= 0 ? bb2 * s3b : bb1 * s3b);
+    }
+    {
+      // least at c = cHi, greatest at c = cLo
+      let a = tft - cHi,
+        z = -cHi;
+      const s1a = (a * a - z * z) / 2,
+        s3a = (a * a * a * a - z * z * z * z) / 4;
+      a = tft - cLo;
+      z = -cLo;
+      const s1b = (a * a - z * z) / 2,
+        s3b = (a * a * a * a - z * z * z * z) / 4;
+      nLo += (s1a >= 0 ? e1 * s1a : e2 * s1a) + (s3a >= 0 ? bt1 * s3a : bt2 * s3a);
+      nHi += (s1b >= 0 ? e2 * s1b : e1 * s1b) + (s3b >= 0 ? bt2 * s3b : bt1 * s3b);
+    }
+    {
+      const u1 = yLo - tfb,
+        u2 = yHi - tfb,
+        w1 = tft - cHi,
+        w2 = tft - cLo;
+      nLo += webWagner(tw, u1 <= 0 && u2 >= 0 ? 0 : Math.min(Math.abs(u1), Math.abs(u2))) - webWagner(tw, Math.max(Math.abs(w1), Math.abs(w2)));
+      nHi += webWagner(tw, Math.max(Math.abs(u1), Math.abs(u2))) - webWagner(tw, w1 <= 0 && w2 >= 0 ? 0 : Math.min(Math.abs(w1), Math.abs(w2)));
+    }
+    const slack = REL * (Math.abs(nLo) + Math.abs(nHi)) + 1e-300;
+    nLo -= slack;
+    nHi += slack;
+    const qLo = nLo >= 0 ? nLo / izHi : nLo / izLo,
+      qHi = nHi >= 0 ? nHi / izLo : nHi / izHi;
+    // the shear centre and zg from stability.ts's closed form at the corners that bound them
+    const e = this.en!;
+    const sLo = monoShearCentre(d1, bt1, tft, bb2, tfb),
+      sHi = monoShearCentre(d2, bt2, tft, bb1, tfb);
+    const za = loadHeight(e, d1, monoShearCentre(d1, bt2, tft, bb1, tfb)),
+      zb = loadHeight(e, d2, monoShearCentre(d2, bt1, tft, bb2, tfb)),
+      zc = loadHeight(e, d2, sHi),
+      zd = loadHeight(e, d1, sLo);
+    const zLo = Math.min(za, zb, zc, zd),
+      zHi = Math.max(za, zb, zc, zd);
+    const r = this.rng;
+    const zs = REL * (Math.abs(zLo) + Math.abs(zHi) + d2);
+    r[0] = zLo - zs;
+    r[1] = zHi + zs;
+    const bs = REL * (Math.abs(qLo) + Math.abs(qHi) + d2);
+    r[2] = qLo - 2 * (yHi - sLo) - bs;
+    r[3] = qHi - 2 * (yLo - sHi) + bs;
+    return this.enLtbOut(iy, cw, j, zz, fy, aLT, cap);
+  }
+
+  /**
+   * The knapsack of lpRound over a depth range: the measure (I about y0, or ∫|y − y0| dA) from
+   * the plates at depth dM, the objective from those at depth dO; NaN when even both widths in
+   * full fall short.
+   */
+  private lpRange(useZ: boolean, y0: number, req: number, dM: number, dO: number, bt0: number, bt1: number, bb0: number, bb1: number): number {
+    const fk = this.fk,
+      v = this.v,
+      sec = fk.second,
+      f = fk.free,
+      p = this.plates,
+      n = fk.nPlates,
+      lp = this.lp,
+      ctx = this.ctx;
+    const measure = useZ ? plateModulusAbout : iAbout;
+    v[0] = dO;
+    v[sec] = bt0;
+    v[f] = bb0;
+    fk.fill(v, p);
+    const o00 = objectiveOf(fk, v, p, ctx);
+    v[sec] = bt1;
+    fk.fill(v, p);
+    const ot = bt1 > bt0 ? (objectiveOf(fk, v, p, ctx) - o00) / (bt1 - bt0) : 0;
+    v[sec] = bt0;
+    v[f] = bb1;
+    fk.fill(v, p);
+    const ob = bb1 > bb0 ? (objectiveOf(fk, v, p, ctx) - o00) / (bb1 - bb0) : 0;
+    v[0] = dM;
+    v[f] = bb0;
+    fk.fill(v, p);
+    const c00 = measure(p, n, y0);
+    v[sec] = bt1;
+    fk.fill(v, p);
+    const ct = bt1 > bt0 ? (measure(p, n, y0) - c00) / (bt1 - bt0) : 0;
+    v[sec] = bt0;
+    v[f] = bb1;
+    fk.fill(v, p);
+    const cb = bb1 > bb0 ? (measure(p, n, y0) - c00) / (bb1 - bb0) : 0;
+    lp.c00 = c00;
+    lp.ct = ct;
+    lp.cb = cb;
+    lp.o00 = o00;
+    lp.ot = ot;
+    lp.ob = ob;
+    return this.knapsack(req, bt0, bt1, bb0, bb1);
+  }
+
+  /**
+   * (S) A first incumbent before the best-first search: a local search over the grid from the
+   * heaviest valid point (each dimension stepped down, then one down and another up, by halving
+   * steps, keeping the lightest feasible), at most SEED_EVALS evaluations. Only feasible grid
+   * points it evaluated (the same evaluation as brute force) are offered, so the answer is the
+   * same as without it (as searchWithKnown's known candidates); the incumbent's cut (best mode)
+   * then narrows every box before (E2) bounds it, which is where the LTB bounds bite.
+   */
+  seedIncumbent(): void {
+    const fk = this.fk,
+      ax = this.pf.axes,
+      nd = fk.dims.length,
+      s = this.scratch;
+    const sv = new Float64Array(nd);
+    const cur = new Int32Array(nd),
+      tryIx = new Int32Array(nd);
+    const seen = new Map<number, number>();
+    let evals = 0;
+    const c: RawCandidate = { fi: this.fam, fk, v: sv, objective: 0, area: 0, utilisation: 0, governing: -1 };
+    const at = (ix: Int32Array): number => {
+      let key = 0;
+      for (let i = 0; i < nd; i++) {
+        if (ix[i] < 0 || ix[i] >= ax[i].length) return Infinity;
+        sv[i] = ax[i][ix[i]];
+        key = key * ax[i].length + ix[i];
+      }
+      const known = seen.get(key);
+      if (known !== undefined) return known;
+      let o = Infinity;
+      if (evals < SEED_EVALS && fk.groupValid(sv) && sv[fk.free] > fk.freeMin(sv) && (fk.second < 0 || sv[fk.second] > fk.secondMin(sv))) {
+        evals++;
+        this.t.evaluated++;
+        if (evaluate(fk, sv, this.ctx, s, false)) {
+          c.objective = o = s.objective;
+          c.area = s.area;
+          c.utilisation = s.utilisation;
+          c.governing = s.governing;
+          offerFeasible(this.t, c);
+        } else this.t.ruledOut[s.governing]++;
+      }
+      seen.set(key, o);
+      return o;
+    };
+    const top = (len: number) => {
+      let st = 1;
+      while (st * 2 < len) st *= 2;
+      return st;
+    };
+    // the depth last: thinner plates and narrower widths first, then a shallower section
+    const order = [...fk.dims.keys()].sort((x, y) => (fk.roles[x] === "depth" ? 1 : 0) - (fk.roles[y] === "depth" ? 1 : 0));
+    const descend = () => {
+      let obj = at(cur);
+      if (obj === Infinity) return;
+      while (evals < SEED_EVALS) {
+        const before = obj;
+        for (const i of order)
+          for (let st = top(ax[i].length); st >= 1; st >>= 1) {
+            tryIx.set(cur);
+            tryIx[i] -= st;
+            const o = at(tryIx);
+            if (o < obj) {
+              obj = o;
+              cur.set(tryIx);
+              st <<= 1;
+            }
+          }
+        if (obj < before) continue;
+        // one dimension down, another up (a thinner plate for a wider one, a deeper web for a lighter flange)
+        for (const i of order) {
+          for (const j of order) {
+            if (i === j) continue;
+            for (let st = top(ax[i].length); st >= 1 && !(obj < before); st >>= 1)
+              for (let up = 1; up <= top(ax[j].length) && !(obj < before); up *= 4) {
+                tryIx.set(cur);
+                tryIx[i] -= st;
+                tryIx[j] += up;
+                const o = at(tryIx);
+                if (o < obj) {
+                  obj = o;
+                  cur.set(tryIx);
+                }
+              }
+          }
+        }
+        if (!(obj < before)) break;
+      }
+    };
+    // starts: the heaviest point, then the same at three quarters and half the depth axis
+    for (const frac of [1, 0.75, 0.5]) {
+      for (let i = 0; i < nd; i++) cur[i] = fk.roles[i] === "depth" ? Math.floor(frac * (ax[i].length - 1)) : ax[i].length - 1;
+      descend();
     }
   }
 }
