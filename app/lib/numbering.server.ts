@@ -3,23 +3,24 @@
 // project's rows up to and including the row (ids only grow and rows are never deleted apart
 // from their whole project), so it never changes once given and needs no column to keep in
 // step. A sweep run outside any project (through the API) keeps its id.
+import type { Knex } from "knex";
 import { db } from "~/lib/db.server";
 import type { Numbers } from "~/lib/numbering";
 
 type Id = number | null | undefined;
 
-async function numbersOf(table: "sweeps" | "options", ids: Id[]): Promise<Record<number, number>> {
+async function numbersOf(table: "sweeps" | "options", ids: Id[], q: Knex | Knex.Transaction): Promise<Record<number, number>> {
   const wanted = [...new Set(ids.filter((x): x is number => typeof x === "number" && Number.isSafeInteger(x)))];
   if (!wanted.length) return {};
-  const rows = await db(`${table} as t`)
+  const rows = await q(`${table} as t`)
     .whereIn("t.id", wanted)
     .whereNotNull("t.project_id")
-    .select("t.id", db.raw(`(select count(*) from ${table} u where u.project_id = t.project_id and u.id <= t.id) as n`));
+    .select("t.id", q.raw(`(select count(*) from ${table} u where u.project_id = t.project_id and u.id <= t.id) as n`));
   return Object.fromEntries(rows.map((r: { id: number; n: number | string }) => [r.id, Number(r.n)]));
 }
 
-/** The project numbers of the sweeps and options a page names. */
-export async function projectNumbers(ids: { sweeps?: Id[]; options?: Id[] }): Promise<Numbers> {
-  const [sweep, option] = await Promise.all([numbersOf("sweeps", ids.sweeps ?? []), numbersOf("options", ids.options ?? [])]);
+/** The project numbers of the sweeps and options a page, e-mail or notice names (q: inside a transaction, its own). */
+export async function projectNumbers(ids: { sweeps?: Id[]; options?: Id[] }, q: Knex | Knex.Transaction = db): Promise<Numbers> {
+  const [sweep, option] = await Promise.all([numbersOf("sweeps", ids.sweeps ?? [], q), numbersOf("options", ids.options ?? [], q)]);
   return { sweep, option };
 }

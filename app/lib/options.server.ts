@@ -7,6 +7,8 @@ import { db, parseJson } from "~/lib/db.server";
 import { logActivity } from "~/lib/activity.server";
 import { sendEmail } from "~/lib/email.server";
 import { notify } from "~/lib/notifications.server";
+import { optionNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { notFound } from "~/lib/projects.server";
 import type { SessionUser } from "~/lib/auth.server";
 import { reviewRefusal, type ReviewTies } from "~/lib/roles";
@@ -278,6 +280,8 @@ export async function requestReview(user: SessionUser, optionId: number, comment
   if (option.reviewState === "approved") throw new WorkflowError("form", "this option is already approved");
   // Nobody tied to the option may decide it (four-eyes), so they are not asked to.
   const reviewers = (await reviewersOf(user.teamId)).filter((r) => r.id !== user.id && r.id !== option.createdById);
+  // named as its pages name it: its number within the project, not its id
+  const no = optionNo(await projectNumbers({ options: [optionId] }), optionId);
   const c = option.candidate;
   const what = `${c.family} ${Object.entries(c.dimensions)
     .map(([k, v]) => `${k} ${v}`)
@@ -293,12 +297,12 @@ export async function requestReview(user: SessionUser, optionId: number, comment
         {
           teamId: user.teamId,
           to: r.email,
-          subject: `Review requested: option ${optionId} in ${option.projectName}`,
-          text: `${user.name} asks you to review option ${optionId} (${what}) in project "${option.projectName}".\n\n${comment ? `Note: ${comment}\n\n` : ""}Open it: ${link(`/options/${optionId}`)}\n`,
+          subject: `Review requested: option ${no} in ${option.projectName}`,
+          text: `${user.name} asks you to review option ${no} (${what}) in project "${option.projectName}".\n\n${comment ? `Note: ${comment}\n\n` : ""}Open it: ${link(`/options/${optionId}`)}\n`,
         },
         trx,
       );
-      await notify(r.id, { title: `Review requested: option ${optionId}`, body: `${user.name}: ${what}`, link: `/options/${optionId}` }, trx);
+      await notify(r.id, { title: `Review requested: option ${no} in ${option.projectName}`, body: `${user.name}: ${what}`, link: `/options/${optionId}` }, trx);
     }
   });
   return reviewers.length;
@@ -318,7 +322,8 @@ export async function decideReview(user: SessionUser, optionId: number, decision
     await logActivity({ teamId: user.teamId, projectId: option.projectId, userId: user.id, action: decision === "approved" ? "option_approved" : "option_returned", subjectType: "option", subjectId: optionId, detail: comment ? { comment } : undefined }, trx);
     if (option.createdById && option.createdById !== user.id) {
       const author = await trx("users").where({ id: option.createdById }).first("email");
-      const title = `Option ${optionId} ${decision} by ${user.name}`;
+      const no = optionNo(await projectNumbers({ options: [optionId] }, trx), optionId);
+      const title = `Option ${no} in ${option.projectName} ${decision} by ${user.name}`;
       if (author)
         await sendEmail({ teamId: user.teamId, to: author.email, subject: title, text: `${title}.\n\n${comment ? `Comment: ${comment}\n\n` : ""}${link(`/options/${optionId}`)}\n` }, trx);
       await notify(option.createdById, { title, body: comment ?? undefined, link: `/options/${optionId}` }, trx);

@@ -23,6 +23,8 @@ import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
 import { searchProblemSchema, FAMILIES, geometryKey, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
+import { sweepNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { appUrl } from "~/lib/app-url.server";
 import { gridCostProblem, timedOutReason } from "./sweep-budget";
 import type { ProgressUnit, SweepProgress } from "./sweep-search.server";
@@ -643,7 +645,10 @@ function sweepLink(id: number): string {
 async function announceEnd(n: EndedNotice, trx: Knex.Transaction): Promise<void> {
   const owner = await trx("users").where({ id: n.ownerId }).first("email", "name", "disabled_at");
   if (!owner || owner.disabled_at) return;
-  const title = `Sweep ${n.id} ${STATUS_WORDS[n.status]}`;
+  // named as its page names it: its number and project; a sweep outside any project (the API) by its id
+  const place = await trx("sweeps as s").join("projects as p", "p.id", "s.project_id").where("s.id", n.id).first("p.name");
+  const no = sweepNo(await projectNumbers({ sweeps: [n.id] }, trx), n.id);
+  const title = place ? `Sweep ${no} in ${place.name} ${STATUS_WORDS[n.status]}` : `Sweep ${n.id} ${STATUS_WORDS[n.status]}`;
   await sendEmail(
     { teamId: n.teamId, to: owner.email, subject: title, text: `Hello ${owner.name},\n\n${title}. ${n.summary}\n\nOpen it: ${appUrl(sweepLink(n.id))}\n\n— Sparwise` },
     trx,

@@ -108,5 +108,6 @@ export async function seed(knex: Knex): Promise<void> {
     { team_id: team.id, project_id: mezzanine, user_id: engineer.id, action: "option_saved", subject_type: "option", subject_id: optionId },
     { team_id: team.id, project_id: mezzanine, user_id: engineer.id, action: "review_requested", subject_type: "option", subject_id: optionId },
   ]);
-  await knex("notifications").insert({ user_id: reviewer.id, title: `Review requested: option ${optionId}`, body: `${engineer.name}: primary beam, grid B`, link: `/options/${optionId}` });
+  // the project's first option, so its number there is 1
+  await knex("notifications").insert({ user_id: reviewer.id, title: `Review requested: option 1 in ${MEZZANINE}`, body: `${engineer.name}: primary beam, grid B`, link: `/options/${optionId}` });
 }

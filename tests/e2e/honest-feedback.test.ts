@@ -90,7 +90,7 @@ test("notices and outbox describe every kind of message they list (item 8)", asy
   for (const kind of [/sweep you started has ended/, /review an option/, /approved or returned/]) expect(about).toMatch(kind);
   // every notice listed is one of the kinds described
   const titles = await rev.locator("main li > div > :first-child").allTextContents();
-  for (const t of titles) expect(t).toMatch(/^(Sweep \d+ |Review requested: option |Option \d+ (approved|returned) by )/);
+  for (const t of titles) expect(t).toMatch(/^(Sweep \d+ |Review requested: option \d+ in |Option \d+ in .+ (approved|returned) by )/);
 
   const admin = await signIn("admin@tallowfield.example", "/admin/outbox");
   const outbox = (await admin.getByTestId("outbox-about").textContent()) ?? "";

@@ -235,6 +235,30 @@ describe("runner", () => {
     }
   });
 
+  test("the owner's e-mail and notice name a project's sweep by its number there and the project, an API sweep by its id", async () => {
+    const u = await teamAndUser();
+    const [projectId] = await db("projects").insert({ team_id: u.teamId, name: "Numbering yard (queue test)", created_by: u.ownerId });
+    try {
+      // the API sweep first, so the project's first sweep has an id other than its number 1
+      const outside = await enqueueSweep({ ...u, problem: tinyProblem(3) });
+      const { id } = await enqueueSweep({ ...u, projectId: Number(projectId), problem: tinyProblem(4) });
+      expect(id).toBeGreaterThan(1);
+      const runner = new SweepRunner({ workerId: "test-runner", concurrency: 1, log: () => {} }).start();
+      try {
+        await waitFor("both sweeps to finish", async () => (await getSweep(id))?.status === "succeeded" && (await getSweep(outside.id))?.status === "succeeded", 15_000, 50);
+      } finally {
+        await runner.stop();
+      }
+      const subjects = await db("outbox").whereIn("subject", ["Sweep 1 in Numbering yard (queue test) finished", `Sweep ${outside.id} finished`]).pluck("subject");
+      expect(subjects.sort()).toEqual(["Sweep 1 in Numbering yard (queue test) finished", `Sweep ${outside.id} finished`].sort());
+      expect(await db("notifications").where({ user_id: u.ownerId, link: `/sweeps/${id}` }).pluck("title")).toEqual(["Sweep 1 in Numbering yard (queue test) finished"]);
+    } finally {
+      await db("candidates").whereIn("sweep_id", db("sweeps").where({ project_id: projectId }).select("id")).delete();
+      await db("sweeps").where({ project_id: projectId }).delete();
+      await db("projects").where({ id: projectId }).delete();
+    }
+  });
+
   test("progress reaches the row while the search runs (for the sweep page's bar)", async () => {
     const u = await teamAndUser();
     const { id } = await enqueueSweep({ ...u, problem: tinyProblem(4) });

@@ -327,8 +327,8 @@ describe("5. four-eyes review", () => {
     const params = { optionId: String(optionId) };
     const requested = await callRoute(option.action, await post(me, `/options/${optionId}`, { intent: "requestReview" }), params);
     expect(requested.status).toBe(200);
-    // Only the other admin is asked.
-    expect(await db("outbox").where({ subject: `Review requested: option ${optionId} in Four-eyes yard` }).pluck("to_address")).toEqual(["second-admin-b@sallowmere.example"]);
+    // Only the other admin is asked; the e-mail names the option as its pages do: the project's first.
+    expect(await db("outbox").where({ subject: "Review requested: option 1 in Four-eyes yard" }).pluck("to_address")).toEqual(["second-admin-b@sallowmere.example"]);
 
     for (const decision of [{ decision: "approved" }, { decision: "returned", comment: "looks fine to me" }] as Record<string, string>[]) {
       const own = await callRoute(option.action, await post(me, `/options/${optionId}`, { intent: "decide", ...decision }), params);
@@ -344,6 +344,8 @@ describe("5. four-eyes review", () => {
     const otherPage = (await callRoute(option.loader, get(theirs, `/options/${optionId}`), params)).data as { may: { review: boolean }; reviewRefusal: string | null };
     expect(otherPage).toMatchObject({ may: { review: true }, reviewRefusal: null });
     expect((await callRoute(option.action, await post(theirs, `/options/${optionId}`, { intent: "decide", decision: "approved" }), params)).status).toBe(200);
+    const { name } = await db("users").where({ id: other }).first("name");
+    expect(await db("notifications").where({ user_id: adminB, link: `/options/${optionId}` }).pluck("title")).toEqual([`Option 1 in Four-eyes yard approved by ${name}`]);
   });
 });
 
