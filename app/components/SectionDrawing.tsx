@@ -151,7 +151,9 @@ export function SectionDrawing({
               strokeDasharray="10 3 2 3"
               data-testid="axis-horizontal"
             />
-            <text x={X(bw) + 6} y={Y(c.y) - 5} fontSize={12} fill={ACCENT} textAnchor="end">
+            {/* Axis labels sit above their axis line and "C" below it, so the two never meet
+                whatever the section's width or where its centroid falls. */}
+            <text x={X(bw) + 6} y={Y(c.y) - 5} fontSize={12} fill={ACCENT} textAnchor="end" data-testid="axis-label">
               {inclined ? "z" : "N.A."}
             </text>
             {inclined
@@ -178,7 +180,7 @@ export function SectionDrawing({
                   return (
                     <g data-testid="axis-neutral-inclined">
                       <line x1={cx - dx} y1={cyp - dy} x2={cx + dx} y2={cyp + dy} stroke={CAUTION} strokeWidth={1.4} strokeDasharray="10 3 2 3" />
-                      <text x={cx + dx} y={cyp + dy - 4} fontSize={12} fill={CAUTION} textAnchor={dx >= 0 ? "end" : "start"}>
+                      <text x={cx + dx} y={cyp + dy - 4} fontSize={12} fill={CAUTION} textAnchor={dx >= 0 ? "end" : "start"} data-testid="axis-label">
                         {`N.A. ${formatQuantity("angle", neutralAxisAngleDeg!, units)}`}
                       </text>
                     </g>
@@ -189,7 +191,7 @@ export function SectionDrawing({
               <circle r={6} fill="white" stroke={INK} strokeWidth={1.2} />
               {/* the draughtsman's centroid symbol: two opposite quarters filled */}
               <path d="M0,0 L6,0 A6,6 0 0,1 0,6 Z M0,0 L-6,0 A6,6 0 0,1 0,-6 Z" fill={INK} />
-              <text x={9} y={-8} fontSize={12} fill={INK}>
+              <text x={8} y={18} fontSize={12} fill={INK} data-testid="centroid-label">
                 C
               </text>
             </g>

@@ -81,6 +81,45 @@ describe("SectionDrawing", () => {
     expect(html).not.toContain("<rect x=");
   });
 
+  test("the centroid's \"C\" never overlaps an axis label (N.A., z or the inclined N.A.), narrow or wide, symmetric or not", () => {
+    // Text boxes from the SVG's own coordinates, generously sized: each character at most 0.7 of the
+    // font size wide, the glyphs from a font size above the baseline to a quarter below it.
+    type Box = { x0: number; x1: number; y0: number; y1: number };
+    const box = (x: number, y: number, anchor: string, chars: number, font: number): Box => {
+      const w = chars * 0.7 * font;
+      const x0 = anchor === "end" ? x - w : anchor === "middle" ? x - w / 2 : x;
+      return { x0, x1: x0 + w, y0: y - font, y1: y + 0.25 * font };
+    };
+    const overlap = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
+    const cases: { section: SectionInput; M?: number }[] = [
+      { section: { family: "rectangle", b: 20, d: 200 } },
+      { section: { family: "rectangle", b: 200, d: 20 } },
+      { section: I400 },
+      { section: { family: "tee", d: 200, b: 30, tf: 10, tw: 8 } },
+      { section: { family: "channel", d: 300, b: 90, tf: 12, tw: 8 } },
+      { section: { family: "angle", d: 100, b: 75, t: 10 }, M: 5 },
+      { section: { family: "angle", d: 150, b: 20, t: 6 }, M: 5 },
+    ];
+    for (const { section, M } of cases) {
+      for (const [width, height, showDimensions] of [[400, 400, true], [240, 240, true], [240, 160, false]] as const) {
+        const s = M ? sectionStresses(section, { Mz: M }) : null;
+        const properties = s ? s.properties : sectionProperties(section);
+        const html = renderToString(
+          createElement(SectionDrawing, { section, properties, width, height, showDimensions, neutralAxisAngleDeg: s?.neutralAxis?.angleDeg }),
+        );
+        const [, tx, ty] = /data-testid="centroid-marker" transform="translate\(([-\d.e]+) ([-\d.e]+)\)"/.exec(html)!.map(Number);
+        const cm = /<text x="([-\d.e]+)" y="([-\d.e]+)" font-size="(\d+)"[^>]*data-testid="centroid-label"[^>]*>([^<]*)<\/text>/.exec(html)!;
+        const cBox = box(tx + Number(cm[1]), ty + Number(cm[2]), "start", cm[4].trim().length, Number(cm[3]));
+        const labels = [...html.matchAll(/<text x="([-\d.e]+)" y="([-\d.e]+)" font-size="(\d+)"[^>]*text-anchor="(\w+)"[^>]*data-testid="axis-label"[^>]*>([^<]*)<\/text>/g)];
+        expect(labels.length, `${JSON.stringify(section)} ${width}×${height}`).toBe(M ? 2 : 1);
+        for (const l of labels) {
+          const aBox = box(Number(l[1]), Number(l[2]), l[4], l[5].trim().length, Number(l[3]));
+          expect(overlap(cBox, aBox), `"C" and "${l[5]}" of ${JSON.stringify(section)} at ${width}×${height}`).toBe(false);
+        }
+      }
+    }
+  });
+
   test("an invalid section renders a message, not an exception", () => {
     const html = text(renderToString(createElement(SectionDrawing, { section: { family: "i", d: 10, b: 100, tf: 6, tw: 5 } })));
     expect(html).toContain("No drawing");
