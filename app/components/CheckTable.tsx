@@ -1,30 +1,13 @@
 // Every check of one section with demand, capacity, utilisation and the clause it implements
-// (candidateChecks' output), in the page's units: each check's own unit (CheckResult.unit) is
-// converted through units.ts. Under the allowable basis the caption says that no stability is checked.
+// (candidateChecks' output), its name and the brief's fields in its clause through the one label
+// table (labels.ts), in the page's units: each check's own unit (CheckResult.unit) is converted
+// through units.ts. Under the allowable basis the caption says that no stability is checked.
 import type { CandidateVerdict, CheckResult } from "~/optimizer/checks";
 import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { STRESSES_ONLY } from "~/lib/caution";
 import { TableScroll } from "~/components/DataTable";
-
-export const CHECK_WORDS: Record<string, string> = {
-  "bending-compression": "Bending, compressive fibre stress",
-  "bending-tension": "Bending, tensile fibre stress",
-  shear: "Shear stress V·Q/(Iz·b)",
-  "slenderness-outstand": "Slenderness, flange outstand",
-  "slenderness-internal": "Slenderness, internal plate",
-  "slenderness-web": "Slenderness, web",
-  "slenderness-stem": "Slenderness, stem",
-  deflection: "Deflection 5wL⁴/(384EI)",
-  "class-4": "Cross-section class (c/t over the class 3 limit)",
-  "bending-resistance": "Bending resistance MEd ≤ Mc,Rd",
-  ltb: "Lateral-torsional buckling MEd ≤ Mb,Rd",
-  "shear-resistance": "Shear resistance VEd ≤ Vpl,Rd",
-  "shear-buckling": "Shear buckling VEd ≤ Vb,Rd",
-  "bending-shear": "Bending with shear MEd ≤ MV,Rd",
-  weld: "Flange-to-web weld throat a ≤ 0.7·t",
-  bearing: "Web under the support reaction VEd ≤ FRd",
-};
+import { checkTitle, clauseLabel } from "~/lib/labels";
 
 const UNIT_QUANTITY: Record<CheckResult["unit"], Quantity | null> = { MPa: "stress", mm: "length", "kN·m": "moment", kN: "force", ratio: null };
 
@@ -67,14 +50,14 @@ export function CheckTable({ verdict, units, compact = false }: { verdict: Candi
           return (
             <tr key={c.name} className={`border-b border-ink/10 align-top ${c.name === verdict.governing ? "font-semibold" : ""}`} data-check={c.name}>
               <td className="py-1 pr-2">
-                {CHECK_WORDS[c.name] ?? c.name}
+                {checkTitle(c.name)}
                 {c.name === verdict.governing ? " (governs)" : ""}
                 {compact ? (
                   <span className="block text-xs font-normal tabular-nums" data-demand>
                     demand {v(c.demand)} {u.label}, capacity {v(c.capacity)} {u.label}
                   </span>
                 ) : null}
-                {compact && c.clause ? <span className="block text-[0.7rem] font-normal text-ink/70">{c.clause}</span> : null}
+                {compact && c.clause ? <span className="block text-[0.7rem] font-normal text-ink/70">{clauseLabel(c.clause)}</span> : null}
               </td>
               {compact ? null : (
                 <>
@@ -84,7 +67,7 @@ export function CheckTable({ verdict, units, compact = false }: { verdict: Candi
                 </>
               )}
               <td className={`py-1 pr-2 text-right tabular-nums ${c.utilisation > 1 ? "text-red-800" : ""}`}>{c.utilisation.toFixed(3)}</td>
-              {compact ? null : <td className="py-1 text-xs font-normal text-ink/80">{c.clause}</td>}
+              {compact ? null : <td className="py-1 text-xs font-normal text-ink/80">{clauseLabel(c.clause)}</td>}
             </tr>
           );
         })}

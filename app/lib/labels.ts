@@ -201,15 +201,41 @@ function midSentence(label: string): string {
   return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
 }
 
-export function plainMessage(message: string): string {
-  // fy bands by the row the editor shows ("steel.fy[1].maxThickness" → "band 2, plates up to")
-  let out = message.replace(/steel\.fy\[(\d+)\]\.(maxThickness|fy)/g, (_, i: string, k: string) => `band ${Number(i) + 1}, ${k === "fy" ? "fy" : "plates up to"}`);
-  // Dotted and list paths anywhere ("allowable.tension", "thicknesses[]", "prices[].pricePerKg").
+/** Dotted and list paths anywhere ("allowable.tension", "thicknesses[]", "prices[].pricePerKg") → their labels. */
+function labelPaths(text: string): string {
+  let out = text;
   for (const p of PATHS) {
     if (!p.includes(".") && !p.includes("[")) continue;
     const re = new RegExp(`(^|[^\\w.\\[])${p.replace(/[.[\]]/g, (c) => `\\${c}`)}(?![\\w\\[])`, "g");
     out = out.replace(re, (_, pre: string) => `${pre}${pre === "" ? FIELD_LABELS[p] : midSentence(FIELD_LABELS[p])}`);
   }
+  return out;
+}
+
+/**
+ * A check's clause (checks.ts CHECK_CLAUSES, which the API gives with the problem's field paths)
+ * as the option page and the record show it: the brief's fields by their labels
+ * ("≤ allowable.compression" → "≤ allowable compression", "the brief's limit slenderness.web" →
+ * "the brief's web slenderness limit", "L/limitRatio" → "L/limit ratio").
+ */
+export function clauseLabel(clause: string): string {
+  const bare = (path: string) => midSentence(fieldLabel(path).replace(/ \(.*\)$/, ""));
+  return labelPaths(
+    clause
+      .replace(/the brief's limit ([a-z]+\.[a-zA-Z]+)/g, (_, p: string) => `the brief's ${bare(p)}`)
+      .replace(/\bL\/limitRatio\b/g, `L/${bare("deflection.limitRatio")}`),
+  );
+}
+
+/** A check's name at the head of a table row or sentence ("Web slenderness"). */
+export function checkTitle(name: string): string {
+  const l = checkLabel(name);
+  return l.charAt(0).toUpperCase() + l.slice(1);
+}
+
+export function plainMessage(message: string): string {
+  // fy bands by the row the editor shows ("steel.fy[1].maxThickness" → "band 2, plates up to")
+  let out = labelPaths(message.replace(/steel\.fy\[(\d+)\]\.(maxThickness|fy)/g, (_, i: string, k: string) => `band ${Number(i) + 1}, ${k === "fy" ? "fy" : "plates up to"}`));
   // a plate's own dimension ("plates[2].b" → "plate 3, width b")
   out = out.replace(/\bplates\[(\d+)\]\.(b|h|z|y)\b/g, (_, i: string, k: string) => `plate ${Number(i) + 1}, ${PLATE_DIMENSIONS[k]}`);
   out = out.replace(/\]\.points\[/g, "], points[");

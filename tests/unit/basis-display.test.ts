@@ -9,9 +9,10 @@ import { CheckTable } from "~/components/CheckTable";
 import { Caution } from "~/components/Caution";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { cautionText } from "~/lib/caution";
+import { clauseLabel } from "~/lib/labels";
 import { STABILITY_QUANTITIES, candidateChecks, searchProblemSchema, sectionProperties, CONTRACT_EXAMPLE_PROBLEM, type SectionProperties } from "~/optimizer";
 
-const text = (html: string) => html.replace(/<[^>]+>/g, " ").replace(/&amp;/g, "&").replace(/\s+/g, " ");
+const text = (html: string) => html.replace(/<[^>]+>/g, " ").replace(/&amp;/g, "&").replace(/&#x27;/g, "'").replace(/\s+/g, " ");
 
 // Doubly symmetric I 400 × 200 × 16/10: member-checks.md §1 closed forms h0 = d − tf = 384 mm,
 // Cw = tf·b³·h0²/24 = 16 × 200³ × 384² / 24 = 7.86432 × 10¹¹ mm⁶, shear centre at the centroid, βx = 0.
@@ -67,7 +68,23 @@ describe("caution and check table follow the basis", () => {
     const v = candidateChecks("i", { d: 300, b: 150, tf: 12, tw: 8 }, allowable);
     const html = text(renderToString(createElement(CheckTable, { verdict: v, units: "si" })));
     expect(html).toContain("stresses only: no stability checks");
-    expect(html).toContain(v.checks[0].clause);
+    expect(html).toContain(clauseLabel(v.checks[0].clause));
+  });
+
+  test("the check table's names and clauses read as words: no field paths, camelCase keys or check ids", () => {
+    const p = searchProblemSchema.parse({ ...CONTRACT_EXAMPLE_PROBLEM, slenderness: { outstand: 12, web: 60 }, deflection: { span: 4, serviceLoad: 6, limitRatio: 250, E: 205000 } });
+    const v = candidateChecks("i", { d: 300, b: 150, tf: 12, tw: 8 }, p);
+    expect(v.checks.map((c) => c.name)).toEqual(expect.arrayContaining(["bending-compression", "slenderness-outstand", "deflection"]));
+    // the engine's clauses name the problem's fields by path (the API's words); the page must not
+    expect(v.checks.map((c) => c.clause).join(" ")).toMatch(/allowable\.compression|slenderness\.outstand|limitRatio/);
+    for (const compact of [false, true]) {
+      const html = text(renderToString(createElement(CheckTable, { verdict: v, units: "si", compact })));
+      expect(html).not.toMatch(/\b[a-z]+\.[a-z][A-Za-z]*\b/);
+      expect(html).not.toMatch(/\b[a-z]+[A-Z][a-z]+/);
+      for (const c of v.checks) if (c.name.includes("-")) expect(html).not.toContain(c.name);
+      expect(html).toContain("the brief's flange outstand limit");
+      expect(html).toContain("≤ L/limit ratio");
+    }
   });
 });
 

@@ -53,7 +53,7 @@ const CASES: Case[] = [
     family: "tee",
     dims: { d: 200, b: 150, tf: 20, tw: 10 },
     units: "si",
-    shows: ["Deflection 5wL⁴/(384EI)", "Shear stress V·Q/(Iz·b)", "data-testid=\"quantity\"", "data-testid=\"fibre-hogging\""],
+    shows: ["5·w·L⁴/(384·E·I) ≤ L/limit ratio", "τ = V·Q/(Iz·b)", "data-testid=\"quantity\"", "data-testid=\"fibre-hogging\""],
   },
   {
     name: "allowable, welded angle (unsymmetric), US customary",
