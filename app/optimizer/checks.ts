@@ -66,11 +66,12 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
   const limit = en || us;
   const hasShear = p.shear !== undefined && (limit || p.allowable?.shear !== undefined);
   let deflNumerator = 0,
-    deflLimit = Infinity;
+    deflLimit = Infinity,
+    deflSpan = 0;
   if (p.deflection) {
     // Simply supported, uniform load: δ = 5·w·L⁴ / (384·E·I) (any beam table, e.g. the
     // AISC Steel Construction Manual's beam diagrams, case 1; mem.). w kN/m = N/mm; L m → mm.
-    const L = p.deflection.span * 1000;
+    const L = (deflSpan = p.deflection.span * 1000);
     deflNumerator = (5 * p.deflection.serviceLoad * L ** 4) / (384 * p.deflection.E);
     deflLimit = L / p.deflection.limitRatio;
   }
@@ -91,6 +92,7 @@ export function makeCheckContext(p: SearchProblem): CheckContext {
     hasDeflection: p.deflection !== undefined,
     deflNumerator,
     deflLimit,
+    deflSpan,
     density: p.density,
     cost: p.objective === "cost",
     prices: new Map((p.prices ?? []).map((q) => [q.thickness, q.pricePerKg])),
@@ -176,6 +178,33 @@ export interface CandidateVerdict {
    * (the angle) bends about an inclined axis and moves sideways too; the check is on the total.
    */
   deflection?: { vertical: number; sideways: number; total: number };
+  /** With a deflection check: the numbers it was worked with, for the calculation record. */
+  deflectionWorking?: DeflectionWorking;
+}
+
+/** δ = 5·w·L⁴/(384·E·I) ≤ L/limitRatio as the deflection check evaluated it (records only; not stored with candidates). */
+export interface DeflectionWorking {
+  /** service load, kN/m (= N/mm) */
+  w: number;
+  /** span, mm */
+  L: number;
+  /** MPa */
+  E: number;
+  /** the second moment divided by, mm⁴: Iz, or for an unsymmetric section (Iz·Iy − Iyz²)/√(Iy² + Iyz²) */
+  I: number;
+  /** the deflection, mm (the check's demand) */
+  delta: number;
+  limitRatio: number;
+  /** L/limitRatio, mm (the check's capacity) */
+  limit: number;
+}
+
+/** After evaluateCandidate(all = true): the deflection check's numbers, or undefined when it did not run. */
+export function deflectionWorking(problem: SearchProblem, ctx: CheckContext, s: Scratch): DeflectionWorking | undefined {
+  const d = problem.deflection;
+  const delta = s.demand[fkm.C_DEFL];
+  if (!d || !ctx.hasDeflection || delta !== delta) return undefined;
+  return { w: d.serviceLoad, L: ctx.deflSpan, E: d.E, I: s.deflI, delta, limitRatio: d.limitRatio, limit: ctx.deflLimit };
 }
 
 /** Unit of each check's demand and capacity. */
@@ -247,6 +276,8 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
       sideways = (ctx.deflNumerator * Math.abs(Iyz)) / den;
     out.deflection = { vertical, sideways, total: fk.unsymmetric ? Math.hypot(vertical, sideways) : vertical };
   }
+  const dw = deflectionWorking(problem, ctx, s);
+  if (dw) out.deflectionWorking = dw;
   attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem));
   return out;
 }

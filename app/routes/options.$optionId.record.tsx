@@ -16,6 +16,7 @@ import { OptionProvenance } from "~/components/OptionProvenance";
 import { BasisNote } from "~/components/BasisAssumptions";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { Aisc360Checks } from "~/components/Aisc360Record";
+import { DeflectionWorked } from "~/components/DeflectionRecord";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
@@ -295,6 +296,8 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
           </p>
         </section>
       )}
+
+      <DeflectionWorked verdict={rec.verdict} units={units} />
 
       <section aria-labelledby="props-h" className="break-inside-avoid">
         <h2 id="props-h" className="sr-only">

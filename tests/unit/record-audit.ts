@@ -115,6 +115,10 @@ export const FORMULA_TEXT: readonly string[] = [
   "a ≤ 0.7·t",
   "5wL⁴/(384EI)",
   "5·w·L⁴/(384·E·I)",
+  "δ = 5·w·L⁴/(384·E·I) = 5 ×",
+  "÷ (384 ×",
+  "I = (Iz·Iy − Iyz²)/√(Iy² + Iyz²)",
+  "√(vertical² + sideways²)",
   "Σ b·t³/3",
   "zj = βc/2",
   "> 2)",
@@ -127,6 +131,9 @@ export const FORMULA_TEXT: readonly string[] = [
   "Table J2.4 minimum",
   "kv = 5.34 for I webs and channels (G2.1), 5 for box webs (G4), 1.2 for tee stems (G3)",
 ];
+
+// longest first, so a phrase is taken out whole before a shorter one inside it
+const FORMULA_LONGEST_FIRST = [...FORMULA_TEXT].sort((x, y) => y.length - x.length);
 
 // Citations and names: a section sign and what follows, EN/ENV/AISC/ASTM standard numbers, tables,
 // equations, annexes, Clause brackets, headings' numbers, the table's plate index column.
@@ -146,7 +153,7 @@ function stripFormulaText(line: string, names: string[]): string {
   // the flexure formula's sign before the substituted moment ("= −20 kN·m × 10⁶ …") is the formula's, not the value's
   let s = line.replace(/(= )([−+])(?=\d[\d,.]* (?:kN·m|kip·ft) × )/g, "$1$2 ");
   for (const n of names) s = s.split(n).join(" ");
-  for (const t of FORMULA_TEXT) s = s.split(t).join(" ");
+  for (const t of FORMULA_LONGEST_FIRST) s = s.split(t).join(" ");
   for (const r of CITATIONS) s = s.replace(r, " ");
   // a heading's number ("6.2 Bending resistance", "3. Centroid") and a table's row number ("1 | 200 | …")
   s = s.replace(/^\d+(?:\.\d+)*\.?\s(?=[A-Z|])/, "").replace(/^\d+ \| /, "| ");
@@ -377,6 +384,26 @@ export function labelledMismatches(html: string, e: EngineFacts): Labelled {
   if (e.quantity) {
     const total = e.quantity.count * fromSI("span", e.quantity.lengthM, u) * fromSI("massPerLength", e.properties.massPerMetre, u);
     eq("quantity total mass", new RegExp(`Quantity: [^\\n]* = ${NUM} (?:kg|lb)`).exec(text)?.[1], formatNumber(total, 4));
+  }
+
+  // the deflection worked through (every basis)
+  const dw = e.verdict.deflectionWorking;
+  eq("deflection worked", String(/data-testid="record-deflection"/.test(calc)), String(dw !== undefined));
+  if (dw) {
+    const m = new RegExp(`δ = 5·w·L⁴/\\(384·E·I\\) = 5 × ${NUM} N/mm × \\(?${NUM}\\)?⁴ mm⁴ ÷ \\(384 × \\(?${NUM}\\)? MPa × \\(?${NUM}\\)? mm⁴\\) = ${NUM} mm`).exec(text);
+    eq("deflection w", m?.[1], formatNumber(dw.w));
+    eq("deflection L", m?.[2], formatNumber(dw.L));
+    eq("deflection E", m?.[3], formatNumber(dw.E));
+    eq("deflection I", m?.[4], formatNumber(dw.I));
+    eq("deflection δ", m?.[5], formatNumber(dw.delta));
+    eq("deflection limit", new RegExp(`limit L/[\\d.,]+ = [\\d.,]+/[\\d.,]+ = ${NUM} mm`).exec(text)?.[1], formatNumber(dw.limit));
+    eq("deflection δ/limit", after("δ/limit ="), e.verdict.checks.find((c) => c.name === "deflection")!.utilisation.toFixed(3));
+    const parts = e.verdict.deflection;
+    if (parts && parts.sideways > 0) {
+      eq("deflection vertical", after("vertical"), formatNumber(parts.vertical));
+      eq("deflection sideways", after("sideways"), formatNumber(parts.sideways));
+      eq("deflection total", after("total √(vertical² + sideways²) ="), formatNumber(parts.total));
+    }
   }
 
   // the worked checks, by basis

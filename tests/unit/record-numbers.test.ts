@@ -57,11 +57,11 @@ const CASES: Case[] = [
   },
   {
     name: "allowable, welded angle (unsymmetric), US customary",
-    problem: { ...GRID, families: ["angle"], moment: { sagging: 8, hogging: 0 }, shear: 10, allowable: { tension: 150, compression: 140, shear: 90 } },
+    problem: { ...GRID, families: ["angle"], moment: { sagging: 8, hogging: 0 }, shear: 10, allowable: { tension: 150, compression: 140, shear: 90 }, deflection: { span: 3, serviceLoad: 2, limitRatio: 200, E: 200000 } },
     family: "angle",
     dims: { d: 150, b: 100, t: 12 },
     units: "us",
-    shows: ["Unsymmetric section (Iyz ="],
+    shows: ["Unsymmetric section (Iyz =", "bends about an inclined axis"],
   },
   {
     name: "EN 1993, welded I, SI, restraint, bending with shear, unstiffened supports",
@@ -73,7 +73,7 @@ const CASES: Case[] = [
   },
   {
     name: "EN 1993, welded channel, US customary",
-    problem: { ...GRID, families: ["channel"], basis: "en1993", steel: { grade: "S275" }, moment: { sagging: 40, hogging: 0 }, shear: 60, restraint: { length: 2.5 } },
+    problem: { ...GRID, families: ["channel"], basis: "en1993", steel: { grade: "S275" }, moment: { sagging: 40, hogging: 0 }, shear: 60, restraint: { length: 2.5 }, deflection: { span: 5, serviceLoad: 8, limitRatio: 300, E: 210000 } },
     family: "channel",
     dims: { d: 300, b: 90, tf: 12, tw: 8 },
     units: "us",
@@ -106,7 +106,7 @@ const CASES: Case[] = [
   },
   {
     name: "AISC 360 ASD, rolled UPE 200 channel from a catalogue, US customary",
-    problem: { ...GRID, families: ["channel"], basis: "aisc360", method: "ASD", aisc: { grade: "A36" }, moment: { sagging: 25, hogging: 0 }, shear: 50, restraint: { length: 2 } },
+    problem: { ...GRID, families: ["channel"], basis: "aisc360", method: "ASD", aisc: { grade: "A36" }, moment: { sagging: 25, hogging: 0 }, shear: 50, restraint: { length: 2 }, deflection: { span: 4, serviceLoad: 5, limitRatio: 360, E: 200000 } },
     family: "channel",
     dims: { d: 200, b: 80, tw: 6, tf: 11, r: 13 },
     units: "us",

@@ -901,6 +901,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
 
   // Deflection (service load): every family here is symmetric about the vertical axis
   if (ctx.hasDeflection) {
+    s.deflI = Iz;
     dem[C_DEFL] = ctx.deflNumerator / Iz;
     cap[C_DEFL] = ctx.deflLimit;
     if (dem[C_DEFL] > ctx.deflLimit) ok = false;

@@ -70,6 +70,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     if (!all) return finish(s, false, ctx);
   }
   if (ctx.hasDeflection) {
+    s.deflI = Idefl;
     dem[C_DEFL] = ctx.deflNumerator / Idefl;
     cap[C_DEFL] = ctx.deflLimit;
     if (dem[C_DEFL] > ctx.deflLimit) {

@@ -37,6 +37,8 @@ export interface CheckContext {
   deflNumerator: number;
   /** L / limitRatio, mm. */
   deflLimit: number;
+  /** The span L, mm (the one m → mm of the deflection check; 0 without it). */
+  deflSpan: number;
   density: number;
   cost: boolean;
   /** Price per kg by plate thickness (cost objective). */
@@ -92,6 +94,8 @@ export class Scratch {
   governing = -1;
   area = 0;
   objective = 0;
+  /** the second moment the deflection check divided by, mm⁴ (Iz, or the inclined-axis equivalent of an unsymmetric section) */
+  deflI = NaN;
   /** basis "en1993": its intermediate results (filled by en1993.ts, read back for the design block) */
   en: En1993Scratch | null = null;
   /** basis "aisc360": its intermediate results (filled by aisc360.ts) */

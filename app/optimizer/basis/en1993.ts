@@ -613,6 +613,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   // 8. Deflection (service load, as under the allowable basis): every EN 1993 family is
   // symmetric about the vertical axis, so the vertical deflection uses Iz.
   if (ctx.hasDeflection) {
+    s.deflI = Iz;
     dem[C_DEFL] = ctx.deflNumerator / Iz;
     cap[C_DEFL] = ctx.deflLimit;
     if (dem[C_DEFL] > ctx.deflLimit) ok = false;
