@@ -1,6 +1,7 @@
 // A brief's values with their units, read-only (option page and calculation record).
 import { familyLabel } from "~/lib/labels";
 import type { SearchProblem } from "~/optimizer/search-schema";
+import { SHAPE_WORDS } from "~/optimizer";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber } from "~/components/PropertyTable";
 import { FIELD_QUANTITIES, type NumericField } from "~/lib/brief-form";
@@ -76,6 +77,13 @@ export function BriefSummary({ problem, units }: { problem: SearchProblem; units
     ["Width", axis("width")],
     ["Plate thicknesses", `${problem.thicknesses.map((t) => formatNumber(fromSI("length", t, units))).join(", ")} ${unitLabel("length", units)}`],
     ["Shape families", problem.families.map(familyLabel).join(", ")],
+    [
+      "Catalogues searched",
+      // each by the name it was searched under, its section count and any shapes it was cut to
+      (problem.catalogues ?? [])
+        .map((c) => `${c.name}: ${c.sections.length} section${c.sections.length === 1 ? "" : "s"}${c.shapes?.length ? ` (only ${c.shapes.map((x) => SHAPE_WORDS[x]).join("; ")})` : ""}`)
+        .join(" · ") || "none (plate families only)",
+    ],
     ["Slenderness limits (b/t)", Object.entries(s).filter(([, v]) => v !== undefined).map(([k, v]) => `${SLENDERNESS_WORDS[k] ?? k} ${v}`).join(", ") || "none"],
     ["Density", q("density", problem.density)],
     [
