@@ -1583,7 +1583,9 @@ class FamilySearch {
         const nBb = W.length - kLo;
         if (nBt > 0 && nBb > 0) {
           this.t.grid += nBt * nBb;
-          this.seeds.append(this.superRawKey(W[W.length - nBt], W[kLo]), this.encode(idx), 0, 0, KIND_SUPER_RAW, this.fam, nBt * nBb);
+          const key = this.superRawKey(W[W.length - nBt], W[kLo], W[W.length - 1]);
+          if (key === key) this.seeds.append(key, this.encode(idx), 0, 0, KIND_SUPER_RAW, this.fam, nBt * nBb);
+          else this.t.ruledOut[this.cause] += nBt * nBb;
         }
       }
       let o = outer.length - 1;
@@ -1608,9 +1610,10 @@ class FamilySearch {
    * (its I grows with its height, at most d), so I_mid ≤ A_flanges·d²/4 + tw·d³/12; with
    * Iz ≤ I_mid, (4), the flanges need A_f ≥ 4·(I_req − tw·d³/12)/d² (the thin-flange relation
    * A_f ≈ M/(σ·d) − A_web/6 read as a bound). Objective = that flange area at its cheapest
-   * price plus the web.
+   * price plus the web. NaN (cause set) when even both flanges at the widest grid width, bMax,
+   * give less flange area than that: no point of the node passes, at utilisation 1 or below.
    */
-  superRawKey(btLo: number, bbLo: number): number {
+  superRawKey(btLo: number, bbLo: number, bMax: number): number {
     const v = this.v,
       ctx = this.ctx;
     const d = v[0],
@@ -1619,10 +1622,19 @@ class FamilySearch {
       tw = v[5];
     const req = this.baseIreq(d, 1);
     let afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
+    const afMax = bMax * (tft + tfb) * (1 + REL);
+    if (afNeed > afMax) {
+      this.cause = this.Idefl > req * 0.999999 ? C_DEFL : ctx.aT <= ctx.aC ? C_TENS : C_COMP;
+      return NaN;
+    }
     if (this.lim) {
       // (E1) likewise ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4 ≥ Zz
       const zreq = this.enZreq(this.enFyMax(0, 0), 1);
       afNeed = Math.max(afNeed, (2 * (zreq - (tw * d * d) / 4)) / d);
+      if (afNeed > afMax) {
+        this.cause = C_BEND;
+        return NaN;
+      }
     }
     const at0 = btLo * tft,
       ab0 = bbLo * tfb,
