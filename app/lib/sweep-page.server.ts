@@ -17,8 +17,12 @@ import type { UnitSystem } from "~/optimizer/units";
 import type { SearchProblem } from "~/optimizer";
 import { isCodeBasis, type DesignRow } from "~/lib/design-summary";
 
-/** Rows of the candidate table per page (the page's first page, and each page the table fetches). */
-export const TABLE_PAGE_SIZE = 50;
+/**
+ * Rows of the candidate table per page (the page's first page, and each page the table fetches).
+ * 25, not 50: the table's rows were most of the page's markup and of its server time (issue 9,
+ * item 8); 25 rows still fill the table's scrolling box, and the next page is one click.
+ */
+export const TABLE_PAGE_SIZE = 25;
 /**
  * Most points the chart draws: every k-th stored candidate by rank (evenly along the front), plus
  * rank 1, the front's heaviest end and each family's best (at most one per family, ≤ 20).
@@ -184,12 +188,30 @@ export interface PageChart {
   front: number;
 }
 
+/**
+ * The table's first page as the document carries it: the rows as one JSON text (ChartCandidate[]
+ * with their design figures, null fields left out), parsed by the page on the server and in the
+ * browser, for the same reason as the chart's points (PageChart).
+ */
+export interface PageTable {
+  /** JSON of ChartCandidate[], rank order */
+  itemsJson: string;
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
 /** What a finished sweep's page shows of its candidates: never changes once the sweep has ended. */
 interface ResultParts {
   chart: PageChart;
-  table: Awaited<ReturnType<typeof candidatesPage>>;
+  table: PageTable;
+  /** rank 1's design figures (the summary line), when the basis has them */
+  bestDesign: DesignRow | null;
   families: string[];
 }
+
+/** null fields left out (every ChartCandidate field that may be null is optional): most of a welded sweep's catalogue and cost fields are null, and each one cost the document bytes */
+const withoutNulls = (_k: string, v: unknown) => (v === null ? undefined : v);
 
 /**
  * A sweep's stored candidates are written once, in the transaction that ends it, and never change
@@ -217,11 +239,19 @@ async function resultParts(sweep: SweepView): Promise<ResultParts> {
     candidatesPage(sweep, { page: 1, pageSize: TABLE_PAGE_SIZE, sort: "rank" }),
     db("candidates").where({ sweep_id: sweep.id }).distinct("family").orderBy("family"),
   ]);
-  const parts = {
-    // null fields left out (every ChartCandidate field that may be null is optional): most of a
-    // welded sweep's catalogue and cost fields are null, and each one cost the document bytes
-    chart: { pointsJson: JSON.stringify(chart.points, (_k, v: unknown) => (v === null ? undefined : v)), drawn: chart.points.length, withCost: chart.points.some((c) => c.cost != null), stored: chart.stored, front: chart.front },
-    table,
+  const parts: ResultParts = {
+    chart: { pointsJson: JSON.stringify(chart.points, withoutNulls), drawn: chart.points.length, withCost: chart.points.some((c) => c.cost != null), stored: chart.stored, front: chart.front },
+    table: {
+      itemsJson: JSON.stringify(
+        table.items.map((c) => ({ ...toChartCandidate(c), design: c.design ?? null })),
+        withoutNulls,
+      ),
+      total: table.total,
+      page: table.page,
+      pageSize: table.pageSize,
+    },
+    // rank 1 is on the table's first page
+    bestDesign: table.items.find((c) => c.rank === 1)?.design ?? null,
     families: (families as { family: string }[]).map((f) => f.family),
   };
   if (TERMINAL.has(sweep.status)) {
@@ -248,15 +278,12 @@ export async function loadSweepPage(teamId: number, id: number) {
     rechecks.length < PAGE_LIST_MAX ? { n: rechecks.length } : db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).count({ n: "*" }).first(),
     options.length < PAGE_LIST_MAX ? { n: options.length } : db("options").where({ sweep_id: sweep.id }).count({ n: "*" }).first(),
   ]);
-  const chart: PageChart = parts?.chart ?? { pointsJson: "[]", drawn: 0, withCost: false, stored: 0, front: 0 },
-    table = parts?.table ?? null;
-  // the best's design figures for the summary line (rank 1 is on the table's first page)
-  const bestRow = table?.items.find((c) => c.rank === 1);
+  const chart: PageChart = parts?.chart ?? { pointsJson: "[]", drawn: 0, withCost: false, stored: 0, front: 0 };
   return {
     sweep: publicSweep(sweep),
     chart,
-    table: table ? { items: table.items.map((c) => ({ ...toChartCandidate(c), design: c.design ?? null })), total: table.total, page: table.page, pageSize: table.pageSize } : { items: [], total: 0, page: 1, pageSize: TABLE_PAGE_SIZE },
-    bestDesign: bestRow?.design ?? null,
+    table: parts?.table ?? { itemsJson: "[]", total: 0, page: 1, pageSize: TABLE_PAGE_SIZE },
+    bestDesign: parts?.bestDesign ?? null,
     families: parts?.families ?? [],
     /** most front members a sweep stores (the page says so when a front was longer) */
     frontCap: STORED_FRONT_CAP,

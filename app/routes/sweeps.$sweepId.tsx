@@ -1,4 +1,4 @@
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { optionNo, sweepNo } from "~/lib/numbering";
 import { projectNumbers } from "~/lib/numbering.server";
 import { checkLabel, familyLabel } from "~/lib/labels";
@@ -79,7 +79,10 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function SweepPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { sweep, chart, table, families, frontCap, brief, project, rechecks, options, may, numbers } = loaderData;
+  const { sweep, chart, families, frontCap, brief, project, rechecks, options, may, numbers } = loaderData;
+  // The table's first page arrives as one JSON text (PageTable in sweep-page.server.ts): parsed here,
+  // on the server for the markup and in the browser, once per loader answer.
+  const table = useMemo(() => ({ ...loaderData.table, items: JSON.parse(loaderData.table.itemsJson) as ChartCandidate[] }), [loaderData.table]);
   const [units, setUnits] = useState<UnitSystem>(loaderData.units);
   // The chart's points: one JSON text in the document, parsed in the browser only, after hydration
   // (PageChart in sweep-page.server.ts says why); the server and the first render draw none.

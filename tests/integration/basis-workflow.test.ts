@@ -57,8 +57,9 @@ describe("EN 1993 brief → sweep → results", () => {
     const page = await loadRouteModule("routes/sweeps.$sweepId.tsx");
     const res = await callRoute(page.loader, await requestAs("viewer", `/sweeps/${sweepId}`), { sweepId: String(sweepId) });
     expect(res.status).toBe(200);
-    const loaded = res.data as { sweep: { best: { massPerMetre: number; governing: string } | null; restraintStudy: RestraintStudy | null; problem: SearchProblem }; table: { items: { rank: number; design: Record<string, number | string | null> | null }[] } };
-    const data = { ...loaded, candidates: loaded.table.items };
+    const loaded = res.data as { sweep: { best: { massPerMetre: number; governing: string } | null; restraintStudy: RestraintStudy | null; problem: SearchProblem }; table: { itemsJson: string } };
+    // the table's first page travels as one JSON text (sweep-page.server.ts, PageTable)
+    const data = { ...loaded, candidates: JSON.parse(loaded.table.itemsJson) as { rank: number; design: Record<string, number | string | null> | null }[] };
     expect(data.sweep.best).not.toBeNull();
     const best = data.candidates.find((c) => c.rank === 1)!;
     // The engine's figures, not a second computation: each one equals candidateChecks' design block.

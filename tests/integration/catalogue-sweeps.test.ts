@@ -149,7 +149,7 @@ describe("a finished sweep over catalogue and plates", () => {
     const page = await loadRouteModule("routes/sweeps.$sweepId.tsx");
     const res = await callRoute(page.loader, await requestAs("engineer", `/sweeps/${sweepId}`), { sweepId: String(sweepId) });
     type Row = { rank: number; source?: string; designation?: string | null; costMaterial?: number | null; onFront: boolean };
-    const data = res.data as { sweep: { catalogueResult: CatalogueSummary | null }; chart: { pointsJson: string }; table: { items: Row[]; total: number } };
+    const data = res.data as { sweep: { catalogueResult: CatalogueSummary | null }; chart: { pointsJson: string }; table: { itemsJson: string; total: number } };
     expect(data.sweep.catalogueResult?.sideBySide.rolled.cheapest).toBeTruthy();
     // the chart draws both sides, each with its own front
     // the page sends the chart's points as one JSON text, parsed in the browser
