@@ -65,6 +65,7 @@ interface MembershipRow {
   team_id: number;
   team_name: string;
   role: string;
+  unread_notices: number | string;
 }
 
 /**
@@ -72,7 +73,7 @@ interface MembershipRow {
  * membership); null when disabled or belonging to no team. The team is only ever one of the
  * user's own memberships, so a stale or forged choice cannot reach another team.
  */
-async function loadUser(userId: number, teamId?: number | null): Promise<(SessionUser & { sessionVersion: number }) | null> {
+async function loadUser(userId: number, teamId?: number | null): Promise<(SessionUser & { sessionVersion: number; unreadNotices: number }) | null> {
   const rows = (await db("users")
     .join("memberships", "memberships.user_id", "users.id")
     .join("teams", "teams.id", "memberships.team_id")
@@ -87,6 +88,10 @@ async function loadUser(userId: number, teamId?: number | null): Promise<(Sessio
       "memberships.team_id",
       "teams.name as team_name",
       "memberships.role",
+      // The header's unread count rides along (an index range on notifications(user_id, read_at)):
+      // every signed-in page shows it, and one round trip fewer per page view counts at 20 readers
+      // (issue 9, item 8). It is the user's own count, whatever team they act in.
+      db.raw("(SELECT COUNT(*) FROM notifications n WHERE n.user_id = users.id AND n.read_at IS NULL) AS unread_notices"),
     )) as MembershipRow[];
   const valid = rows.filter((r) => isRole(r.role));
   const row = valid.find((r) => r.team_id === teamId) ?? valid[0];
@@ -100,13 +105,14 @@ async function loadUser(userId: number, teamId?: number | null): Promise<(Sessio
     role: row.role as Role,
     teams: valid.map((r) => ({ id: r.team_id, name: r.team_name, role: r.role as Role })),
     sessionVersion: row.session_version,
+    unreadNotices: Number(row.unread_notices),
   };
 }
 
 // A loader and its parent layout often both ask; one query per request is enough.
-const perRequest = new WeakMap<Request, Promise<SessionUser | null>>();
+const perRequest = new WeakMap<Request, Promise<{ user: SessionUser; unreadNotices: number } | null>>();
 
-export function getUser(request: Request): Promise<SessionUser | null> {
+function sessionUser(request: Request): Promise<{ user: SessionUser; unreadNotices: number } | null> {
   let pending = perRequest.get(request);
   if (!pending) {
     pending = (async () => {
@@ -115,27 +121,43 @@ export function getUser(request: Request): Promise<SessionUser | null> {
       const sv = session.get("sv");
       if (typeof userId !== "number" || typeof sv !== "number") return null;
       const chosen = session.get("teamId");
-      const user = await loadUser(userId, typeof chosen === "number" ? chosen : null);
+      const loaded = await loadUser(userId, typeof chosen === "number" ? chosen : null);
       // A cookie minted before the last sign-out or password reset is dead.
-      if (!user || user.sessionVersion !== sv) return null;
-      const { sessionVersion: _sv, ...rest } = user;
-      return rest;
+      if (!loaded || loaded.sessionVersion !== sv) return null;
+      const { sessionVersion: _sv, unreadNotices, ...user } = loaded;
+      return { user, unreadNotices };
     })();
     perRequest.set(request, pending);
   }
   return pending;
 }
 
+export async function getUser(request: Request): Promise<SessionUser | null> {
+  return (await sessionUser(request))?.user ?? null;
+}
+
+/** requireUser, with the user's unread notices as of the same query (the signed-in frame's header). */
+export async function requireUserWithNotices(request: Request): Promise<{ user: SessionUser; unreadNotices: number }> {
+  const found = await sessionUser(request);
+  if (found) return found;
+  throw signInRedirect(request);
+}
+
 function forbidden(message: string): Response {
   return new Response(message, { status: 403, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+}
+
+/** To the sign-in page, coming back here after. */
+function signInRedirect(request: Request): Response {
+  const url = new URL(request.url);
+  const next = url.pathname + url.search;
+  return redirect(next && next !== "/" ? `/sign-in?next=${encodeURIComponent(next)}` : "/sign-in");
 }
 
 export async function requireUser(request: Request): Promise<SessionUser> {
   const user = await getUser(request);
   if (user) return user;
-  const url = new URL(request.url);
-  const next = url.pathname + url.search;
-  throw redirect(next && next !== "/" ? `/sign-in?next=${encodeURIComponent(next)}` : "/sign-in");
+  throw signInRedirect(request);
 }
 
 const PERMISSION_WORDS: Record<Permission, string> = {

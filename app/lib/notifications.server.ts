@@ -17,7 +17,3 @@ export async function notify(userId: number, notice: Notice, trx?: Knex.Transact
   });
 }
 
-export async function unreadNoticeCount(userId: number): Promise<number> {
-  const row = await db("notifications").where({ user_id: userId }).whereNull("read_at").count({ n: "*" }).first();
-  return Number(row?.n ?? 0);
-}

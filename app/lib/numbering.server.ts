@@ -9,13 +9,19 @@ import type { Numbers } from "~/lib/numbering";
 
 type Id = number | null | undefined;
 
+/**
+ * A select column with the project number of each row of `table` read under `alias`, as `n`:
+ * null for a row outside any project. For a page that lists rows anyway, so their numbers come
+ * with them instead of from a second round trip.
+ */
+export function projectNumberColumn(table: "sweeps" | "options", alias: string, q: Knex | Knex.Transaction = db) {
+  return q.raw(`(CASE WHEN ??.project_id IS NULL THEN NULL ELSE (select count(*) from ${table} u where u.project_id = ??.project_id and u.id <= ??.id) END) as n`, [alias, alias, alias]);
+}
+
 async function numbersOf(table: "sweeps" | "options", ids: Id[], q: Knex | Knex.Transaction): Promise<Record<number, number>> {
   const wanted = [...new Set(ids.filter((x): x is number => typeof x === "number" && Number.isSafeInteger(x)))];
   if (!wanted.length) return {};
-  const rows = await q(`${table} as t`)
-    .whereIn("t.id", wanted)
-    .whereNotNull("t.project_id")
-    .select("t.id", q.raw(`(select count(*) from ${table} u where u.project_id = t.project_id and u.id <= t.id) as n`));
+  const rows = await q(`${table} as t`).whereIn("t.id", wanted).whereNotNull("t.project_id").select("t.id", projectNumberColumn(table, "t", q));
   return Object.fromEntries(rows.map((r: { id: number; n: number | string }) => [r.id, Number(r.n)]));
 }
 

@@ -16,6 +16,8 @@ import type { ChartCandidate } from "~/components/TradeoffChart";
 import type { UnitSystem } from "~/optimizer/units";
 import type { SearchProblem } from "~/optimizer";
 import { isCodeBasis, type DesignRow } from "~/lib/design-summary";
+import type { Numbers } from "~/lib/numbering";
+import { projectNumberColumn } from "~/lib/numbering.server";
 
 /**
  * Rows of the candidate table per page (the page's first page, and each page the table fetches).
@@ -265,19 +267,35 @@ export async function loadSweepPage(teamId: number, id: number) {
   const sweep = await getTeamSweep(id, { teamId });
   if (!sweep) throw notFound("No such sweep in your team.");
   const done = WITH_RESULTS.has(sweep.status);
-  const [brief, project, rechecks, options, parts] = await Promise.all([
+  // Every query a page view makes is one more round trip 20 readers queue for on the pool, so the
+  // sweeps the page names (itself, the original it rechecks, its latest rechecks) come in one read
+  // of the team's sweeps, and each row's project number (numbering.server.ts) comes with it.
+  const named = [sweep.id, sweep.recheckOf].filter((x): x is number => typeof x === "number");
+  const [brief, project, sweepRows, options, parts] = await Promise.all([
     sweep.briefId ? db("briefs").where({ id: sweep.briefId }).first("id", "name", "units") : null,
     sweep.projectId ? db("projects").where({ id: sweep.projectId }).first("id", "name") : null,
-    db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).orderBy("id", "desc").limit(PAGE_LIST_MAX).select("id", "status"),
-    db("options").where({ sweep_id: sweep.id }).orderBy("id").limit(PAGE_LIST_MAX).select("id", "review_state", "candidate"),
+    db("sweeps as s")
+      .where("s.team_id", teamId)
+      .andWhere((q) => q.whereIn("s.id", named).orWhere("s.recheck_of", sweep.id))
+      // the named ones first (at most two), then the rechecks newest first
+      .orderByRaw("(s.recheck_of <=> ?) ASC, s.id DESC", [sweep.id])
+      .limit(PAGE_LIST_MAX + named.length)
+      .select("s.id", "s.status", "s.recheck_of", projectNumberColumn("sweeps", "s")) as Promise<{ id: number; status: string; recheck_of: number | null; n: number | string | null }[]>,
+    db("options as o")
+      .where("o.sweep_id", sweep.id)
+      .orderBy("o.id")
+      .limit(PAGE_LIST_MAX)
+      .select("o.id", "o.review_state", "o.candidate", projectNumberColumn("options", "o")) as Promise<{ id: number; review_state: string; candidate: string; n: number | string | null }[]>,
     done ? resultParts(sweep) : null,
   ]);
-  // Counted only when the list is full: most sweeps have a few of each, and every query a page
-  // view makes is one more round trip 20 readers queue for on the pool.
+  const rechecks = sweepRows.filter((r) => r.recheck_of === sweep.id).slice(0, PAGE_LIST_MAX);
+  // Counted only when the list is full: most sweeps have a few of each.
   const [rechecksN, optionsN] = await Promise.all([
     rechecks.length < PAGE_LIST_MAX ? { n: rechecks.length } : db("sweeps").where({ recheck_of: sweep.id, team_id: teamId }).count({ n: "*" }).first(),
     options.length < PAGE_LIST_MAX ? { n: options.length } : db("options").where({ sweep_id: sweep.id }).count({ n: "*" }).first(),
   ]);
+  const numbered = (rows: { id: number; n: number | string | null }[]) => Object.fromEntries(rows.filter((r) => r.n !== null).map((r) => [r.id, Number(r.n)]));
+  const numbers: Numbers = { sweep: numbered(sweepRows), option: numbered(options) };
   const chart: PageChart = parts?.chart ?? { pointsJson: "[]", drawn: 0, withCost: false, stored: 0, front: 0 };
   return {
     sweep: publicSweep(sweep),
@@ -290,10 +308,11 @@ export async function loadSweepPage(teamId: number, id: number) {
     brief: brief ? { id: brief.id as number, name: brief.name as string } : null,
     project: project ? { id: project.id as number, name: project.name as string } : null,
     units: ((brief?.units as UnitSystem | undefined) ?? "si") as UnitSystem,
-    rechecks: rechecks.map((r) => ({ id: r.id as number, status: r.status as string })),
+    rechecks: rechecks.map((r) => ({ id: r.id, status: r.status })),
     rechecksTotal: Number(rechecksN?.n ?? 0),
-    options: options.map((o) => ({ id: o.id as number, reviewState: o.review_state as string, rank: parseJson<{ rank: number }>(o.candidate).rank })),
+    options: options.map((o) => ({ id: o.id, reviewState: o.review_state, rank: parseJson<{ rank: number }>(o.candidate).rank })),
     optionsTotal: Number(optionsN?.n ?? 0),
+    numbers,
   };
 }
 

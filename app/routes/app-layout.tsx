@@ -3,14 +3,13 @@ import { Outlet, useRouteLoaderData } from "react-router";
 import type { Route } from "./+types/app-layout";
 import { AppHeader, SparwiseMark } from "~/components/AppHeader";
 import { ErrorMessage } from "~/components/ErrorMessage";
-import { requireUser } from "~/lib/auth.server";
-import { unreadNoticeCount } from "~/lib/notifications.server";
+import { requireUserWithNotices } from "~/lib/auth.server";
 
 // The frame of every signed-in page. Child loaders run in parallel with this one, so each
-// still calls its own guard; this one only feeds the header.
+// still calls its own guard; this one only feeds the header (the user and their unread notices
+// come from one query, shared with the child's guard).
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireUser(request);
-  return { user, unreadNotices: await unreadNoticeCount(user.id) };
+  return requireUserWithNotices(request);
 }
 
 function Frame({ header, children }: { header: ReactNode; children: ReactNode }) {

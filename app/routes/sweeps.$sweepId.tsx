@@ -1,6 +1,5 @@
 import { useEffect, useMemo, useState } from "react";
 import { optionNo, sweepNo } from "~/lib/numbering";
-import { projectNumbers } from "~/lib/numbering.server";
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { Form, Link, data, redirect, useRevalidator } from "react-router";
 import { z } from "zod";
@@ -39,7 +38,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const page = await loadSweepPage(user.teamId, idParam(params.sweepId));
   return {
     ...page,
-    numbers: await projectNumbers({ sweeps: [page.sweep.id, page.sweep.recheckOf, ...page.rechecks.map((r) => r.id)], options: page.options.map((o) => o.id) }),
     may: {
       save: can(user.role, "saveOption") && page.project !== null,
       recheck: can(user.role, "recheck"),

@@ -5,7 +5,7 @@ import { closeDb, db } from "~/lib/db.server";
 import { projectNumbers } from "~/lib/numbering.server";
 import { getOption, listProjectOptions } from "~/lib/options.server";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
-import { callRoute, FixtureContext, formPost, loadRouteModule } from "./fixtures";
+import { callRoute, FixtureContext, formPost, loadRouteModule, requestAs } from "./fixtures";
 import { CHANNEL_PROBLEM } from "./workflow-fixtures";
 
 afterAll(() => closeDb());
@@ -45,6 +45,17 @@ describe("numbering within the project", () => {
     const oA2 = await save(a1);
     const o = await projectNumbers({ options: [oA1, oA2, oB] });
     expect([o.option[oA1], o.option[oA2], o.option[oB]]).toEqual([1, 2, 1]);
+    // The sweep page reads its numbers with the rows it lists (one query for itself, its original and
+    // its rechecks): the same numbers as projectNumbers.
+    const a3 = await a.sweep();
+    await db("sweeps").where({ id: a3 }).update({ recheck_of: a2 });
+    const pageOf = async (id: number) =>
+      (await callRoute(mod.loader, await requestAs("viewer", `/sweeps/${id}`), { sweepId: String(id) })).data as { numbers: { sweep: Record<number, number>; option: Record<number, number> }; rechecks: { id: number }[]; options: { id: number }[] };
+    const p2 = await pageOf(a2);
+    expect(p2.rechecks.map((r) => r.id)).toEqual([a3]);
+    expect(p2.options.map((x) => x.id)).toEqual([oA1]);
+    expect(p2.numbers).toEqual({ sweep: { [a2]: 2, [a3]: 3 }, option: { [oA1]: 1 } });
+    expect((await pageOf(a3)).numbers).toEqual({ sweep: { [a3]: 3, [a2]: 2 }, option: {} });
     // an API sweep outside any project keeps its id
     const teamId = await ctx.teamId();
     const loose = await recordFinishedSweep(db, { teamId, ownerId: (await ctx.user("engineer")).id, problem: CHANNEL_PROBLEM });
