@@ -214,6 +214,7 @@ interface ResultParts {
 
 /** null fields left out (every ChartCandidate field that may be null is optional): most of a welded sweep's catalogue and cost fields are null, and each one cost the document bytes */
 const withoutNulls = (_k: string, v: unknown) => (v === null ? undefined : v);
+const topLevelWithoutNulls = <T extends object>(o: T): Partial<T> => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null)) as Partial<T>;
 
 /**
  * A sweep's stored candidates are written once, in the transaction that ends it, and never change
@@ -244,10 +245,8 @@ async function resultParts(sweep: SweepView): Promise<ResultParts> {
   const parts: ResultParts = {
     chart: { pointsJson: JSON.stringify(chart.points, withoutNulls), drawn: chart.points.length, withCost: chart.points.some((c) => c.cost != null), stored: chart.stored, front: chart.front },
     table: {
-      itemsJson: JSON.stringify(
-        table.items.map((c) => ({ ...toChartCandidate(c), design: c.design ?? null })),
-        withoutNulls,
-      ),
+      // null fields of the rows left out as in the chart's; the design block is kept as the engine wrote it
+      itemsJson: JSON.stringify(table.items.map((c) => ({ ...topLevelWithoutNulls(toChartCandidate(c)), design: c.design ?? null }))),
       total: table.total,
       page: table.page,
       pageSize: table.pageSize,
