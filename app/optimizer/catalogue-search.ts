@@ -5,7 +5,7 @@
 // from welded ones (basis/en1993.ts: classification widths from the fillets or between the
 // corner radii, rolled shear areas, LTB curve b/c for rolled I, no flange-to-web weld). A catalogue is a short list, so it is simply enumerated;
 // the plate search (search.ts) is untouched and the two results are put side by side here.
-import { BASIS_MODULES, CHECK_UNITS, Scratch, attachDesign, checkClause, deflectionWorking, evaluateCandidate, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
+import { BASIS_MODULES, CHECK_UNITS, Scratch, attachDesign, checkClause, deflectionWorking, evaluateCandidate, shearWorking, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
 import type { RolledSection } from "./basis/core";
 import { SHAPE_FAMILY, catalogueSectionInput, type CatalogueSection, type CatalogueShape } from "./catalogue";
 import { MIN_WELD_THROAT, WELD_RUNS, weldCostPerMetre, type CostParts } from "./cost";
@@ -18,7 +18,7 @@ import type { SectionFamily } from "./hollow";
 import { sectionProperties, type SectionProperties } from "./properties";
 import { CHECK_NAMES, type CheckName, type SearchProblem } from "./search-schema";
 import { CHECK_LIMIT, type LimitBreach, type SectionLimits } from "./limits";
-import { sectionStresses } from "./stress";
+import { sectionStresses, type ShearSample } from "./stress";
 
 /**
  * The plate family whose kernel (geometry frame, slenderness elements, stress path) each shape is
@@ -130,7 +130,11 @@ function prepare(section: CatalogueSection, density: number): Prepared {
   // axis, Q there the largest and b the web or walls; tees and angles are sampled on the exact
   // outline (stress.ts: the neutral axis, every break in the outline and 60 heights between).
   const atAxis = section.shape === "I" || section.shape === "channel" || section.shape === "rhs" || section.shape === "chs";
-  const tau = atAxis ? (1e3 * properties.Qz) / (properties.Iz * properties.widthAtNeutralAxis) : sectionStresses(input, { V: 1 }).maxShear;
+  // the sample of largest |τ| (first of equals, as StressResult.maxShear takes it), kept with where it is for the record
+  let peak: ShearSample | null = null;
+  if (!atAxis) for (const x of sectionStresses(input, { V: 1 }).shear) if (Math.abs(x.tau) > Math.abs(peak?.tau ?? 0)) peak = x;
+  const tau = atAxis ? (1e3 * properties.Qz) / (properties.Iz * properties.widthAtNeutralAxis) : (peak?.tau ?? 0);
+  const shearAt = atAxis || !peak ? { y: properties.centroid.y, Q: atAxis ? properties.Qz : 0, b: atAxis ? properties.widthAtNeutralAxis : 0 } : { y: peak.y, Q: Math.abs(peak.Q), b: peak.width };
   const rolled: RolledSection = {
     shape: section.shape,
     r: section.dims.r ?? 0,
@@ -144,6 +148,7 @@ function prepare(section: CatalogueSection, density: number): Prepared {
     cy: properties.centroid.y,
     Zz: properties.Zz,
     shearFactor: Math.abs(tau) / 1e3,
+    shearAt,
   };
   const { family: _f, density: _d, ...dimensions } = input as unknown as Record<string, number>;
   void _f;
@@ -214,6 +219,8 @@ export function catalogueCandidateChecks(section: CatalogueSection, problem: Sea
   };
   const dw = deflectionWorking(problem, ctx, s);
   if (dw) out.deflectionWorking = dw;
+  const sw = shearWorking(problem, fk, s);
+  if (sw) out.shearWorking = sw;
   attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, pr.v, ctx, s, problem));
   return out;
 }

@@ -180,6 +180,33 @@ export interface CandidateVerdict {
   deflection?: { vertical: number; sideways: number; total: number };
   /** With a deflection check: the numbers it was worked with, for the calculation record. */
   deflectionWorking?: DeflectionWorking;
+  /** With the allowable basis's shear check: where τ = V·Q/(Iz·b) is largest and its terms, for the calculation record. */
+  shearWorking?: ShearWorking;
+}
+
+/** The allowable-stress shear check as evaluated (records only; not stored with candidates). */
+export interface ShearWorking {
+  /** kN */
+  V: number;
+  /** height of the largest τ above the section's bottom edge, mm */
+  y: number;
+  /** first moment of the area above y about the centroidal axis, mm³ */
+  Q: number;
+  /** width cut at y, mm */
+  b: number;
+  /** mm⁴ */
+  Iz: number;
+  /** the check's demand, MPa */
+  tau: number;
+}
+
+/** After evaluateCandidate(all = true): the allowable shear check's terms, or undefined when it did not run. */
+export function shearWorking(problem: SearchProblem, fk: FamilyKernel, s: Scratch): ShearWorking | undefined {
+  const tau = s.demand[fkm.C_SHEAR];
+  if (tau !== tau || problem.shear === undefined) return undefined;
+  // the point the check's own scan found (basis/allowable.ts: maxShearFactor, or the catalogue section's)
+  const at = s.rolled !== null ? s.rolled.shearAt : composite.maxShearPoint(s.plates, fk.nPlates, s.k[K_CY]);
+  return { V: problem.shear, y: at.y, Q: at.Q, b: at.b, Iz: s.rolled !== null ? s.rolled.Iz : s.k[K_IZ], tau };
 }
 
 /** δ = 5·w·L⁴/(384·E·I) ≤ L/limitRatio as the deflection check evaluated it (records only; not stored with candidates). */
@@ -278,6 +305,8 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
   }
   const dw = deflectionWorking(problem, ctx, s);
   if (dw) out.deflectionWorking = dw;
+  const sw = shearWorking(problem, fk, s);
+  if (sw) out.shearWorking = sw;
   attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem));
   return out;
 }

@@ -113,16 +113,53 @@ export function plateWidthAt(plates: Float64Array, count: number, y: number, sid
  * consistent with widthAtNeutralAxis.
  */
 export function maxShearFactor(plates: Float64Array, count: number, cy: number, Iz: number): number {
+  return shearScan(plates, count, cy, null) / Iz;
+}
+
+/** Where maxShearFactor finds its largest Q/b (for the calculation record): height y, |Q| and width b there. */
+export interface ShearPoint {
+  /** height from the bottom of the plates' frame, mm */
+  y: number;
+  /** first moment of the area above y about the horizontal centroidal axis, mm³ (magnitude) */
+  Q: number;
+  /** the width cut there (the narrower side at an edge), mm */
+  b: number;
+}
+
+/** maxShearFactor's own scan, also saying where (one source for the search and the record). */
+export function maxShearPoint(plates: Float64Array, count: number, cy: number): ShearPoint {
+  const out = new Float64Array(3);
+  shearScan(plates, count, cy, out);
+  return { y: out[0], Q: out[1], b: out[2] };
+}
+
+function shearScan(plates: Float64Array, count: number, cy: number, at: Float64Array | null): number {
   let best = shearFactorAt(plates, count, cy, cy);
+  if (at) shearPointAt(plates, count, cy, cy, at);
   const n = count * PLATE_STRIDE;
   for (let i = 0; i < n; i += PLATE_STRIDE) {
     const bot = plates[i + 3];
     const f1 = shearFactorAt(plates, count, bot, cy);
-    if (f1 > best) best = f1;
+    if (f1 > best) {
+      best = f1;
+      if (at) shearPointAt(plates, count, bot, cy, at);
+    }
     const f2 = shearFactorAt(plates, count, bot + plates[i + 1], cy);
-    if (f2 > best) best = f2;
+    if (f2 > best) {
+      best = f2;
+      if (at) shearPointAt(plates, count, bot + plates[i + 1], cy, at);
+    }
   }
-  return best / Iz;
+  return best;
+}
+
+/** y, |Q| and the width shearFactorAt divided by (the narrower side with material). */
+function shearPointAt(plates: Float64Array, count: number, y: number, cy: number, at: Float64Array): void {
+  const wa = plateWidthAt(plates, count, y, 1);
+  const wb = plateWidthAt(plates, count, y, -1);
+  at[0] = y;
+  at[1] = Math.abs(plateQAbove(plates, count, y, cy));
+  at[2] = wa > 0 && wb > 0 ? (wa < wb ? wa : wb) : wa > 0 ? wa : wb;
 }
 
 function shearFactorAt(plates: Float64Array, count: number, y: number, cy: number): number {

@@ -16,7 +16,7 @@ import { OptionProvenance } from "~/components/OptionProvenance";
 import { BasisNote } from "~/components/BasisAssumptions";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { Aisc360Checks } from "~/components/Aisc360Record";
-import { DeflectionWorked } from "~/components/DeflectionRecord";
+import { DeflectionWorked, ShearWorked } from "~/components/WorkedChecks";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
@@ -297,6 +297,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
         </section>
       )}
 
+      <ShearWorked verdict={rec.verdict} units={units} />
       <DeflectionWorked verdict={rec.verdict} units={units} />
 
       <section aria-labelledby="props-h" className="break-inside-avoid">

@@ -3,6 +3,7 @@ import {
   compositeKernel,
   compositeTable,
   maxShearFactor,
+  maxShearPoint,
   packPlates,
   KERNEL_OUT,
   K_AREA,
@@ -85,6 +86,23 @@ describe("maxShearFactor", () => {
     // Q at the stem top = first moment of the stem (below) about the NA, by equilibrium.
     const Qstem = tw * (d - tf) * (cy - (d - tf) / 2);
     expect(maxShearFactor(p, 2, cy, o[K_IZ])).toBeCloseTo(Qstem / (o[K_IZ] * tw), 14);
+    // maxShearPoint (the record's) names the same place: the flange underside, the stem's Q and width
+    const at = maxShearPoint(p, 2, cy);
+    expect(at.y).toBe(d - tf);
+    expect(at.Q).toBeCloseTo(Qstem, 9);
+    expect(at.b).toBe(tw);
+  });
+
+  it("maxShearPoint: the I's neutral axis at mid-depth, Q as above, the web's width; Q/(Iz·b) is maxShearFactor", () => {
+    const d = 400, b = 180, tf = 13.5, tw = 8.6;
+    const p = packPlates(familyPlates("i", { d, b, tf, tw }));
+    const o = new Float64Array(KERNEL_OUT);
+    compositeKernel(p, 3, o);
+    const at = maxShearPoint(p, 3, o[K_CY]);
+    expect(at.y).toBeCloseTo(d / 2, 9);
+    expect(at.Q).toBeCloseTo((b * tf * (d - tf)) / 2 + (tw * (d / 2 - tf) ** 2) / 2, 9);
+    expect(at.b).toBe(tw);
+    expect(at.Q / (o[K_IZ] * at.b)).toBeCloseTo(maxShearFactor(p, 3, o[K_CY], o[K_IZ]), 15);
   });
 });
 

@@ -119,6 +119,8 @@ export const FORMULA_TEXT: readonly string[] = [
   "÷ (384 ×",
   "I = (Iz·Iy − Iyz²)/√(Iy² + Iyz²)",
   "√(vertical² + sideways²)",
+  "τ = V·Q/(Iz·b)",
+  "V·Q/(Iz·b)",
   "Σ b·t³/3",
   "zj = βc/2",
   "> 2)",
@@ -404,6 +406,20 @@ export function labelledMismatches(html: string, e: EngineFacts): Labelled {
       eq("deflection sideways", after("sideways"), formatNumber(parts.sideways));
       eq("deflection total", after("total √(vertical² + sideways²) ="), formatNumber(parts.total));
     }
+  }
+
+  // the allowable shear stress worked through
+  const sw = e.verdict.shearWorking;
+  eq("shear worked", String(/data-testid="record-shear"/.test(calc)), String(sw !== undefined));
+  if (sw) {
+    eq("shear y", after("Largest at y ="), formatNumber(sw.y));
+    eq("shear Q", after("where Q ="), formatNumber(sw.Q));
+    eq("shear b", after("mm³ (the area above y about the neutral axis) and b ="), formatNumber(sw.b));
+    const m = new RegExp(`τ = ${NUM} kN × 10³ N × \\(?${NUM}\\)? mm³ ÷ \\(\\(?${NUM}\\)? mm⁴ × ${NUM} mm\\) = ${NUM} MPa`).exec(text);
+    eq("shear V", m?.[1], formatNumber(sw.V));
+    eq("shear Iz", m?.[3], formatNumber(sw.Iz));
+    eq("shear τ", m?.[5], formatNumber(sw.tau));
+    eq("shear τ/allowable", after("τ/allowable ="), e.verdict.checks.find((c) => c.name === "shear")!.utilisation.toFixed(3));
   }
 
   // the worked checks, by basis

@@ -64,6 +64,15 @@ const CASES: Case[] = [
     shows: ["Unsymmetric section (Iyz =", "bends about an inclined axis"],
   },
   {
+    name: "allowable, rolled IPE 300 from a catalogue, US customary, with shear and deflection",
+    problem: { ...GRID, families: ["i"], moment: { sagging: 60, hogging: 0 }, shear: 90, allowable: { tension: 160, compression: 160, shear: 95 }, deflection: { span: 6, serviceLoad: 8, limitRatio: 250, E: 210000 } },
+    family: "i",
+    dims: { d: 300, b: 150, tw: 7.1, tf: 10.7, r: 15 },
+    units: "us",
+    shows: ["IPE 300 (rolled, from Starter", "data-testid=\"record-shear\"", "data-testid=\"record-deflection\""],
+    rolled: { designation: "IPE 300", shape: "I", catalogue: "Starter" },
+  },
+  {
     name: "EN 1993, welded I, SI, restraint, bending with shear, unstiffened supports",
     problem: { ...GRID, families: ["i"], basis: "en1993", steel: { grade: "S355" }, moment: { sagging: 180, hogging: 60 }, shear: 520, restraint: { length: 4, C1: 1.13, C2: 0.45, C3: 0.525, loadAt: "top" }, supports: { stiffened: false, bearingLength: 100 } },
     family: "i",

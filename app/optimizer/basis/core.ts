@@ -81,6 +81,8 @@ export interface RolledSection {
   Zz: number;
   /** the largest Q(y)/(Iz·b(y)) over the depth, 1/mm² (× V in N gives MPa) */
   shearFactor: number;
+  /** where that largest value is: height y (plate frame), |Q| and b there (the calculation record) */
+  shearAt: { y: number; Q: number; b: number };
 }
 
 /** Reusable buffers for one evaluating thread. */

@@ -1,6 +1,7 @@
-// The calculation record's deflection check worked through (every basis): the formula, the
-// numbers the engine evaluated it with (CandidateVerdict.deflectionWorking: w, L, E, the I it
-// divided by, δ and the limit) and, for an unsymmetric section, the vertical and sideways parts.
+// The calculation record's checks shared by the bases, worked through from the numbers the engine
+// evaluated them with: the deflection (every basis; CandidateVerdict.deflectionWorking: w, L, E,
+// the I it divided by, δ and the limit; an unsymmetric section's vertical and sideways parts) and
+// the allowable basis's shear stress (shearWorking: where V·Q/(Iz·b) is largest, Q, b, Iz, τ).
 // Worked in SI, the engine's units; a US customary record also gets the results in brackets.
 import type { CandidateVerdict } from "~/optimizer/checks";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
@@ -12,6 +13,24 @@ const f = (x: number) => {
   const t = formatNumber(x);
   return t.includes("×") ? `(${t})` : t;
 };
+
+export function ShearWorked({ verdict, units }: { verdict: CandidateVerdict; units: UnitSystem }) {
+  const s = verdict.shearWorking;
+  const c = verdict.checks.find((x) => x.name === "shear");
+  if (!s || !c) return null;
+  return (
+    <section aria-labelledby="shear-worked-h" className="mt-3 text-sm" data-testid="record-shear">
+      <h3 id="shear-worked-h" className="font-semibold">
+        Shear stress τ = V·Q/(Iz·b), at its largest over the depth
+      </h3>
+      <p>
+        Largest at y = {n(s.y)} mm above the bottom edge, where Q = {n(s.Q)} mm³ (the area above y about the neutral axis) and b = {n(s.b)} mm: τ = {n(s.V)} kN × 10³ N × {f(s.Q)} mm³ ÷ ({f(s.Iz)}{" "}
+        mm⁴ × {n(s.b)} mm) = <strong>{n(s.tau)} MPa</strong>
+        {units === "us" ? ` (${n(fromSI("stress", s.tau, units))} ${unitLabel("stress", units)})` : ""}; allowable {n(c.capacity)} MPa; τ/allowable = <strong>{c.utilisation.toFixed(3)}</strong>
+      </p>
+    </section>
+  );
+}
 
 export function DeflectionWorked({ verdict, units }: { verdict: CandidateVerdict; units: UnitSystem }) {
   const w = verdict.deflectionWorking;
