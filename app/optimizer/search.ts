@@ -106,6 +106,11 @@
 //       top flange under sagging, the bottom under hogging) needs (b − tw)/2 ≤ 14ε·t (Table 5.2
 //       sheet 2, no root radius on plates), ε from the thickest plate's fy, fixed with the
 //       thicknesses: a last width for that flange whatever the other dimensions (enFlangeHi; mono-i).
+//   (E6) Likewise a compressed flange with c/t > 10ε makes the section class 3 (or 4, failing):
+//       such points are checked with W = Wel,min = Iz/max(c_top, c_bot) (one W for every check),
+//       at most Iz's upper bound over the range over the greater of the two fibre distances' least
+//       values; c/t grows with the flange's width, so its least width over the range decides
+//       (enWUpper; the LTB range bounds of i rows, mono-i rows, boxes and depth ranges).
 //   Classification makes feasibility non-monotone along a row (a wider flange can turn class 3
 //   or 4), so nothing above assumes monotone feasibility: points are only ever excluded by
 //   these necessary conditions, and the row's first feasible point is still its lightest.
@@ -165,6 +170,11 @@
 //     ȳ ∈ [ȳ(d1, bt1, bb2), ȳ(d2, bt2, bb1)], c ∈ [c(d1, bt2, bb1), c(d2, bt1, bb2)]. The bound
 //     grows with the box, so "every point of the box with axis x in [x1, m] fails" is monotone in
 //     m: bisection raises the least depth, bt and bb (raise3).
+//   - Once an incumbent exists the box's widest corner is far heavier than it: the bt range is cut
+//     into SLICES slices, each bounded by (E2) over its own box, with the bb (and, for ranges, the
+//     depth) the incumbent leaves at the slice's least bt (the objective is affine with positive
+//     slopes, so a point of the slice heavier than that is already cut); the bt range shrinks to
+//     the span of the slices that may pass (superBound does the same per depth in best mode).
 //   - (E4) and (E5) as for the super nodes.
 //   A popped range is halved; at DRANGE_LEAF depths or fewer each depth becomes its super node.
 // (S) mono-i in best mode with a restraint (LTB checked), before the search: a local search from the heaviest grid point (and
@@ -263,6 +273,8 @@ const KIND_READY = 0,
   KIND_DRANGE = 4;
 /** mono-i depth-range nodes (R) this short or shorter are expanded into one super node per depth. */
 const DRANGE_LEAF = 2;
+/** (R) bt slices a depth range's box is cut into for (E2) once an incumbent exists. */
+const SLICES = 8;
 /** (S) the most candidates the mono-i seed's local search evaluates. */
 const SEED_EVALS = 4000;
 
@@ -849,6 +861,24 @@ class FamilySearch {
     return (this.mMax * this.enGamma) / (fy * cap);
   }
 
+  /**
+   * (E6) W over a range whose every point has a compressed flange of class 3 or 4 (c/t > 10ε,
+   * Table 5.2 sheet 2; class 4 fails anyway): such a point is checked with W = Wel,min =
+   * Iz/max(c_top, c_bot) (en1993.ts), at most izHi/max(cTopMin, cBotMin) with Iz at most izHi and
+   * each fibre distance at least its least over the range; otherwise zz (W ≤ Zz, (E1)). The
+   * flanges' least widths over the range decide (c/t rises with the width); ε from the thickest
+   * plate's fy, fixed with the thicknesses (i, mono-i).
+   */
+  enWUpper(zz: number, izHi: number, cTopMin: number, cBotMin: number, bTopMin: number, tTop: number, bBotMin: number, tBot: number, tw: number): number {
+    const lim = 20 * Math.sqrt(235 / this.enFyMax(0, 0)) * (1 + REL);
+    const ctx = this.ctx;
+    if ((ctx.Ms > 0 && bTopMin - tw > lim * tTop) || (ctx.Mh > 0 && bBotMin - tw > lim * tBot)) {
+      const w = izHi / Math.max(cTopMin, cBotMin);
+      return w < zz ? w : zz;
+    }
+    return zz;
+  }
+
   /** (E4) The row's fixed plates leave no welded point a utilisation ≤ cap (the 3 mm least throat). */
   enRowOut(cap: number): boolean {
     const fam = this.fk.family,
@@ -954,7 +984,9 @@ class FamilySearch {
       iyHi = ko[K_IY],
       izHi = ko[K_IZ],
       yHi = ko[K_CY];
-    const zz = plateModulusAbout(pHi, n, this.sym ? 0.5 * d : plateNeutralAxis(pHi, n, ko[K_AREA], yHi));
+    let zz = plateModulusAbout(pHi, n, this.sym ? 0.5 * d : plateNeutralAxis(pHi, n, ko[K_AREA], yHi));
+    // (E6) family i: ȳ = d/2, both flanges of width b ≥ W[k1]
+    if (fk.family === "i") zz = this.enWUpper(zz, izHi, 0.5 * d, 0.5 * d, W[k1], v[2], W[k1], v[2], v[3]);
     stabilityKernel(fk.family, v, st);
     const cw = st[ST_CW],
       j = st[ST_J];
@@ -972,6 +1004,8 @@ class FamilySearch {
         sLo = st[ST_SCY];
       // ȳ and the shear centre move monotonically with the free width: their ends bound them
       this.enTRange(n, Math.min(yLo, yHi), Math.max(yLo, yHi), Math.min(sLo, sHi), Math.max(sLo, sHi), ko[K_IZ], izHi, d);
+      // (E6) mono-i: bt fixed, bb from W[k1]; c_top least where ȳ is greatest, c_bot where least
+      if (fk.family === "mono-i") zz = this.enWUpper(zz, izHi, d - Math.max(yLo, yHi), Math.min(yLo, yHi), v[1], v[2], W[k1], v[4], v[5]);
     } else {
       // i, channel, box, rectangle: betaX = 0 and the shear centre at mid-depth, fixed along the row
       r[0] = r[1] = loadHeight(this.en!, d, st[ST_SCY]);
@@ -1764,6 +1798,30 @@ class FamilySearch {
           }
           kLo = hi;
         }
+        if (lim < Infinity && jHi > jLo) {
+          // (R) as dBound: slices of bt, each with the bb the incumbent leaves at its least bt
+          let sLo = -1,
+            sHi = -1;
+          const nj = jHi - jLo + 1,
+            d = v[0];
+          for (let q = 0; q < SLICES; q++) {
+            const ja = jLo + Math.floor((q * nj) / SLICES),
+              jb = jLo + Math.floor(((q + 1) * nj) / SLICES) - 1;
+            if (jb < ja) continue;
+            const kb = this.cutBelow(f, kLo, kHi, W[ja], d, lim);
+            v[0] = d;
+            if (kb < kLo || this.ltbOutBox(ja, jb, kLo, kb, cap)) continue;
+            if (sLo < 0) sLo = ja;
+            sHi = jb;
+          }
+          v[0] = d;
+          if (sLo < 0) {
+            this.t.ruledOut[C_LTB] += (jHi - jLo + 1) * (kHi - kLo + 1);
+            return null;
+          }
+          jLo = sLo;
+          jHi = sHi;
+        }
       }
       // a raised lower end lowers the incumbent's reach in the other width: again until settled
       if (lim === Infinity || (jLo === j0 && kLo === k0)) break;
@@ -1949,7 +2007,7 @@ class FamilySearch {
     const d = ko[K_MAXY],
       iy = ko[K_IY],
       izHi = ko[K_IZ];
-    const zz = plateModulusAbout(this.pHi, n, plateNeutralAxis(this.pHi, n, ko[K_AREA], ko[K_CY]));
+    let zz = plateModulusAbout(this.pHi, n, plateNeutralAxis(this.pHi, n, ko[K_AREA], ko[K_CY]));
     stabilityKernel(fk.family, v, st);
     const cw = st[ST_CW],
       j = st[ST_J];
@@ -1973,6 +2031,8 @@ class FamilySearch {
     compositeKernel(p, n, ko);
     stabilityKernel(fk.family, v, st);
     this.enTRange(n, yMin, ko[K_CY], sMin, st[ST_SCY], izLo, izHi, d);
+    // (E6) ȳ is least at (j1, k2), greatest at (j2, k1)
+    zz = this.enWUpper(zz, izHi, d - ko[K_CY], yMin, W[j1], v[2], W[k1], v[4], v[5]);
     return this.enLtbOut(iy, cw, j, zz, fy, aLT, cap);
   }
 
@@ -2192,6 +2252,33 @@ class FamilySearch {
         dA = bx[0];
         jLo = bx[2];
         kLo = bx[4];
+        if (lim < Infinity && jHi > jLo) {
+          // the box's widest corner is far heavier than the incumbent: bound slices of bt, each with
+          // the bb and d the incumbent leaves at its least bt, and keep the span of those that may pass
+          let sLo = -1,
+            sHi = -1;
+          const nj = jHi - jLo + 1;
+          for (let q = 0; q < SLICES; q++) {
+            const ja = jLo + Math.floor((q * nj) / SLICES),
+              jb = jLo + Math.floor(((q + 1) * nj) / SLICES) - 1;
+            if (jb < ja) continue;
+            bx[0] = dA;
+            bx[1] = this.cutBelow(0, dA, dB, W[ja], W[kLo], lim);
+            bx[2] = ja;
+            bx[3] = jb;
+            bx[4] = kLo;
+            bx[5] = this.cutBelow(f, kLo, kHi, W[ja], D[dA], lim);
+            if (bx[1] < dA || bx[5] < kLo || this.ltbOut3(cap)) continue;
+            if (sLo < 0) sLo = ja;
+            sHi = jb;
+          }
+          if (sLo < 0) {
+            out[C_LTB] += (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+            return null;
+          }
+          jLo = sLo;
+          jHi = sHi;
+        }
       }
       if (lim === Infinity || (dA === d0 && jLo === j0 && kLo === k0)) break;
     }
@@ -2254,6 +2341,28 @@ class FamilySearch {
     return best * (1 - REL);
   }
 
+  /**
+   * (R) The last index in [lo, hi] of the depth (dim 0) or bb (dim f) that keeps the objective
+   * within lim with bt = bt and the other of depth and bb at `other` (its least): the objective is
+   * affine in each with a positive slope. lo − 1 when none.
+   */
+  private cutBelow(dim: number, lo: number, hi: number, bt: number, other: number, lim: number): number {
+    const fk = this.fk,
+      v = this.v,
+      A = this.pf.axes[dim];
+    v[fk.second] = bt;
+    v[dim === 0 ? fk.free : 0] = other;
+    v[dim] = A[lo];
+    const o0 = this.objectiveOf2();
+    if (o0 > lim) return lo - 1;
+    if (hi === lo) return hi;
+    v[dim] = A[hi];
+    const o1 = this.objectiveOf2();
+    if (o1 <= lim) return hi;
+    const x = A[lo] + ((lim - o0) * (A[hi] - A[lo])) / (o1 - o0);
+    return Math.max(lo, Math.min(hi, firstAbove(A, x + REL * (Math.abs(x) + 1)) - 1));
+  }
+
   /** (R) Raises the low end of axis ax (0 depth, 1 bt, 2 bb) of the box in bx past the run of values whose sub-box fails (E2). */
   private raise3(ax: number, cap: number): void {
     const b = this.bx,
@@ -2313,7 +2422,7 @@ class FamilySearch {
     compositeKernel(p, n, ko);
     const iy = ko[K_IY],
       izHi = ko[K_IZ];
-    const zz = plateModulusAbout(p, n, plateNeutralAxis(p, n, ko[K_AREA], ko[K_CY]));
+    let zz = plateModulusAbout(p, n, plateNeutralAxis(p, n, ko[K_AREA], ko[K_CY]));
     stabilityKernel(fk.family, v, st);
     const cw = st[ST_CW],
       j = st[ST_J];
@@ -2408,6 +2517,7 @@ class FamilySearch {
     const bs = REL * (Math.abs(qLo) + Math.abs(qHi) + d2);
     r[2] = qLo - 2 * (yHi - sLo) - bs;
     r[3] = qHi - 2 * (yLo - sHi) + bs;
+    zz = this.enWUpper(zz, izHi, cLo, yLo, bt1, tft, bb1, tfb, tw);
     return this.enLtbOut(iy, cw, j, zz, fy, aLT, cap);
   }
 
