@@ -1,28 +1,10 @@
 // Two pages the workflow story does not pass through: the admin's team materials (which then
 // appear in the brief editor's presets) and the project page's rationalisation panel, run on the
 // demo project seeded with finished sweeps. Screenshots go to tests/artifacts/screenshots.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, test } from "vitest";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function signIn(email: string, next: string): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
+const { signIn } = browserForFile();
 
 test("an admin adds a team material: a unit slip is refused naming the field, then it is listed", async () => {
   const admin = await signIn("admin@tallowfield.example", "/admin/materials");

@@ -22,6 +22,12 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
+export interface Viewport {
+  width: number;
+  height: number;
+}
+const DESKTOP: Viewport = { width: 1280, height: 900 };
+
 export const SCREENSHOT_DIR = path.resolve("tests/artifacts/screenshots");
 
 export async function screenshot(page: Page, name: string): Promise<string> {
@@ -32,11 +38,15 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 }
 
 /**
- * One browser for the calling test file, launched before its tests and closed after them, and
- * `signIn(email, next)`: a fresh context (its own cookies) signed in with the demo password through
- * the sign-in form, waiting until it lands on `next`. Call once at the top of a test file.
+ * One browser for the calling test file, launched before its tests and closed after them;
+ * `signIn(email, next, viewport)`: a fresh context (its own cookies) signed in with the demo
+ * password through the sign-in form, waiting until it lands on `next`; `newPage(viewport)`: a
+ * fresh context signed in as nobody. Call once at the top of a test file.
  */
-export function browserForFile(): { signIn: (email: string, next?: string) => Promise<Page> } {
+export function browserForFile(): {
+  signIn: (email: string, next?: string, viewport?: Viewport) => Promise<Page>;
+  newPage: (viewport?: Viewport) => Promise<Page>;
+} {
   let browser: Browser | undefined;
   beforeAll(async () => {
     browser = await launchBrowser();
@@ -44,11 +54,14 @@ export function browserForFile(): { signIn: (email: string, next?: string) => Pr
   afterAll(async () => {
     await browser?.close();
   });
+  async function newPage(viewport: Viewport = DESKTOP): Promise<Page> {
+    if (!browser) throw new Error("browserForFile: a page was asked for before the browser started (call it inside a test)");
+    return (await browser.newContext({ viewport })).newPage();
+  }
   return {
-    async signIn(email: string, next = "/"): Promise<Page> {
-      if (!browser) throw new Error("browserForFile: signIn called before the browser started (call it inside a test)");
-      const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-      const page = await ctx.newPage();
+    newPage,
+    async signIn(email: string, next = "/", viewport: Viewport = DESKTOP): Promise<Page> {
+      const page = await newPage(viewport);
       page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
       await page.goto(`${inject("baseUrl")}/sign-in?next=${encodeURIComponent(next)}`);
       await page.getByLabel("E-mail address").fill(email);

@@ -2,31 +2,13 @@
 // (mass per length against utilisation), axis labels with units in either unit system, round tick
 // values, a legend with a line sample for the front and each family's marker, and the candidate
 // table draws each row with the very marker the chart uses for that family.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, inject, test } from "vitest";
+import type { Page } from "playwright-core";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const { signIn } = browserForFile();
 
 const base = () => inject("baseUrl");
-
-async function signIn(email: string, next: string): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${base()}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
-}
 
 /** The tick labels of one axis, as numbers (the page's minus sign and thousands commas undone). */
 async function ticks(page: Page, axis: "x" | "y"): Promise<number[]> {

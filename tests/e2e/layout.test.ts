@@ -1,30 +1,17 @@
 // Issue 11, item 11 as a person sees it: no page of the demo scrolls sideways on a 390 px phone
 // and the main navigation shows every link there; the four-up comparison at 1440 px clips no
 // diagram title and no column; a refused (403) or missing (404) page keeps the app's frame.
-import { afterAll, beforeAll, expect, inject, test } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { launchBrowser, screenshot } from "./browser";
+import { expect, inject, test } from "vitest";
+import type { Page } from "playwright-core";
+import { browserForFile, screenshot } from "./browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 const base = () => inject("baseUrl");
 
-async function signIn(email: string, width: number, next = "/"): Promise<Page> {
-  const ctx = await browser.newContext({ viewport: { width, height: 844 } });
-  const page = await ctx.newPage();
-  page.on("pageerror", (e) => console.error(`[browser ${email}]`, e.message));
-  await page.goto(`${base()}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel("E-mail address").fill(email);
-  await page.getByLabel("Password").fill("sparwise-demo");
-  await page.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL((u) => u.pathname === next);
-  return page;
+/** Signed in on a screen `width` px wide (a phone's 844 px tall). */
+function signIn(email: string, width: number, next = "/"): Promise<Page> {
+  return browser.signIn(email, next, { width, height: 844 });
 }
 
 /** The page's sideways overflow, with the outermost elements that reach past the right edge (for the failure message). */
@@ -133,7 +120,7 @@ test("no page of the demo scrolls sideways at 390 px, and the navigation shows e
   await screenshot(admin, "layout-390-nav");
 
   // The public pages too.
-  const out = await (await browser.newContext({ viewport: { width: 390, height: 844 } })).newPage();
+  const out = await browser.newPage({ width: 390, height: 844 });
   for (const path of ["/sign-in", "/forgot-password", "/invite/not-a-real-token", "/reset-password/not-a-real-token"]) {
     await out.goto(`${base()}${path}`);
     await settle(out);
