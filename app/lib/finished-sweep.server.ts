@@ -3,7 +3,7 @@
 // results without waiting for a worker.
 import type { Knex } from "knex";
 import { searchProblemSchema, searchSections, type SearchProblemInput } from "~/optimizer";
-import { candidatesToStore } from "~/workers/queue.server";
+import { candidatesToStore, depthBestsInfo } from "~/workers/queue.server";
 import { catalogueSummary, withRolledRows } from "~/lib/catalogue-sweep";
 import { SWEEP_SEARCH_OPTIONS, sweepCatalogues, sweepRestraintStudy, withAdvice } from "~/workers/sweep-search.server";
 import { studyApplies } from "~/lib/restraint-study";
@@ -43,6 +43,7 @@ export async function recordFinishedSweep(knex: Knex, input: FinishedSweepInput)
       best: result.best ? JSON.stringify(result.best) : null,
       reason: result.reason ?? null,
       restraint_study: study ? JSON.stringify(study) : null,
+      depth_bests: JSON.stringify(depthBestsInfo(problem, result)),
       advice: result.advice ? JSON.stringify(result.advice) : null,
       catalogue_result: catalogue ? JSON.stringify(catalogue) : null,
       attempts: 1,

@@ -18,6 +18,10 @@ import type { SearchProblem } from "~/optimizer";
 import { isCodeBasis, type DesignRow } from "~/lib/design-summary";
 import type { Numbers } from "~/lib/numbering";
 import { projectNumberColumn } from "~/lib/numbering.server";
+import { sameDepth, type DepthViewQuery } from "~/lib/depth-bests";
+import type { DepthView } from "~/components/DepthBests";
+import { FAMILIES, axisCount, gridValues } from "~/optimizer";
+import { familyLabel } from "~/lib/labels";
 
 /**
  * Rows of the candidate table per page (the page's first page, and each page the table fetches).
@@ -123,6 +127,29 @@ const ROLLED_CHART_MAX = 20;
  * ROLLED_CHART_MAX front rows by rank bring the rolled front whole (they are the highest ranks),
  * and the welded front's heaviest end is its own last front row.
  */
+/** A stored candidates row read with CHART_COLUMNS, as listCandidates would give it (no design figures). */
+function rowToCandidate(r: Record<string, unknown>): CandidateRow {
+  return {
+    rank: Number(r.rank),
+    family: String(r.family),
+    dimensions: parseJson(r.dimensions as string),
+    area: Number(r.area),
+    massPerMetre: Number(r.mass_per_metre),
+    cost: r.cost === null ? null : Number(r.cost),
+    utilisation: Number(r.utilisation),
+    governing: String(r.governing),
+    onFront: !!r.on_front,
+    familyBest: !!r.family_best,
+    depthBest: !!r.depth_best,
+    source: r.source === "rolled" ? "rolled" : "plate",
+    designation: (r.designation as string | null) ?? null,
+    catalogue: (r.catalogue as string | null) ?? null,
+    costMaterial: r.cost_material == null ? null : Number(r.cost_material),
+    costFabrication: r.cost_fabrication == null ? null : Number(r.cost_fabrication),
+    design: null, // neither the chart nor the depth control draws design figures
+  };
+}
+
 export async function chartSample(sweepId: number): Promise<ChartSample> {
   const [counts, last] = await Promise.all([
     db("candidates").where({ sweep_id: sweepId }).first(db.raw("COUNT(*) AS n"), db.raw("COALESCE(SUM(on_front), 0) AS f")),
@@ -147,27 +174,7 @@ export async function chartSample(sweepId: number): Promise<ChartSample> {
   for (const r of [...sampled, ...bests, ...rolledFront]) byRank.set(Number(r.rank), r);
   const points = [...byRank.values()]
     .sort((a, b) => Number(a.rank) - Number(b.rank))
-    .map((r) =>
-      toChartCandidate({
-        rank: Number(r.rank),
-        family: String(r.family),
-        dimensions: parseJson(r.dimensions as string),
-        area: Number(r.area),
-        massPerMetre: Number(r.mass_per_metre),
-        cost: r.cost === null ? null : Number(r.cost),
-        utilisation: Number(r.utilisation),
-        governing: String(r.governing),
-        onFront: !!r.on_front,
-        familyBest: !!r.family_best,
-        depthBest: !!r.depth_best,
-        source: r.source === "rolled" ? "rolled" : "plate",
-        designation: (r.designation as string | null) ?? null,
-        catalogue: (r.catalogue as string | null) ?? null,
-        costMaterial: r.cost_material == null ? null : Number(r.cost_material),
-        costFabrication: r.cost_fabrication == null ? null : Number(r.cost_fabrication),
-        design: null, // the chart draws no design figures
-      }),
-    );
+    .map((r) => toChartCandidate(rowToCandidate(r)));
   return { points, stored, front };
 }
 
@@ -262,7 +269,57 @@ async function resultParts(sweep: SweepView): Promise<ResultParts> {
   return parts;
 }
 
-export async function loadSweepPage(teamId: number, id: number) {
+/** The sweep page's depth control, from the rows the sweep stored (DepthView says what each part means). */
+export async function depthView(sweep: Pick<SweepView, "id" | "problem" | "depthBests">, parsed: { success: true; data: DepthViewQuery } | { success: false; errors: Partial<Record<"depth" | "family", string>> }): Promise<DepthView> {
+  const problem = sweep.problem;
+  const families = [...problem.families];
+  const count = axisCount(problem.depth);
+  let info: DepthView["info"];
+  if (sweep.depthBests) info = sweep.depthBests;
+  else {
+    // stored before sweeps recorded whether they kept them: the rows, if any, are all there is to go by
+    const any = await db("candidates").where({ sweep_id: sweep.id, depth_best: true }).first("rank");
+    info = {
+      state: "unknown",
+      depths: count,
+      reason: any ? null : "This sweep was stored before each family's lightest at every depth was kept. Run it again (a recheck with the same limits) to filter it by depth.",
+    };
+  }
+  // rolled sections only (no plate family searched): nothing per depth to offer
+  if (families.length === 0) info = { state: "none", depths: count, reason: "This sweep searched catalogue sections only; each family's lightest at every depth is kept for the welded families." };
+  const grid = info.state === "none" || (info.state === "unknown" && info.reason) ? null : { min: problem.depth.min, step: problem.depth.step, count };
+  const view: DepthView = { info, grid, families, query: { depth: null, family: null }, errors: null, rows: null, complete: null };
+  if (!parsed.success) return { ...view, errors: parsed.errors };
+  const q = parsed.data;
+  const errors: Partial<Record<"depth" | "family", string>> = {};
+  const depths = gridValues(problem.depth);
+  const depth = q.depth === undefined ? undefined : depths.find((d) => sameDepth(d, q.depth!));
+  if (q.depth !== undefined && depth === undefined)
+    errors.depth = `depth: ${q.depth} mm is not on this sweep's depth grid (${problem.depth.min} to ${problem.depth.max} mm by ${problem.depth.step} mm)`;
+  if (q.family && !families.includes(q.family)) errors.family = `family: this sweep did not search ${familyLabel(q.family).toLowerCase()} sections (it searched ${families.map((f) => familyLabel(f).toLowerCase()).join(", ")})`;
+  view.query = { depth: depth ?? q.depth ?? null, family: q.family ?? null };
+  if (Object.keys(errors).length) return { ...view, errors };
+  if (depth === undefined || !grid) return view;
+  const found = await db("candidates")
+    .where({ sweep_id: sweep.id, depth_best: true })
+    // grid depths are exact products; the tolerance only absorbs float noise (as listCandidates)
+    .andWhereRaw("ABS(JSON_VALUE(dimensions, '$.d') - ?) < 1e-6", [depth])
+    .modify((b) => {
+      if (q.family) b.andWhereRaw("FIND_IN_SET(?, COALESCE(depth_best_for, family)) > 0", [q.family]);
+    })
+    .orderBy("rank")
+    .limit(FAMILIES.length)
+    .select(CHART_COLUMNS.concat("depth_best_for"));
+  view.rows = (found as Record<string, unknown>[]).map((r) => ({
+    ...toChartCandidate(rowToCandidate(r)),
+    // rows stored before depth_best_for: their own family's only
+    depthBestFor: r.depth_best_for ? String(r.depth_best_for).split(",") : [String(r.family)],
+  }));
+  view.complete = info.state === "complete" ? true : null;
+  return view;
+}
+
+export async function loadSweepPage(teamId: number, id: number, depthQuery?: Parameters<typeof depthView>[1]) {
   const sweep = await getTeamSweep(id, { teamId });
   if (!sweep) throw notFound("No such sweep in your team.");
   const done = WITH_RESULTS.has(sweep.status);
@@ -270,7 +327,7 @@ export async function loadSweepPage(teamId: number, id: number) {
   // sweeps the page names (itself, the original it rechecks, its latest rechecks) come in one read
   // of the team's sweeps, and each row's project number (numbering.server.ts) comes with it.
   const named = [sweep.id, sweep.recheckOf].filter((x): x is number => typeof x === "number");
-  const [brief, project, sweepRows, options, parts] = await Promise.all([
+  const [brief, project, sweepRows, options, parts, depth] = await Promise.all([
     sweep.briefId ? db("briefs").where({ id: sweep.briefId }).first("id", "name", "units") : null,
     sweep.projectId ? db("projects").where({ id: sweep.projectId }).first("id", "name") : null,
     db("sweeps as s")
@@ -286,6 +343,8 @@ export async function loadSweepPage(teamId: number, id: number) {
       .limit(PAGE_LIST_MAX)
       .select("o.id", "o.review_state", "o.candidate", projectNumberColumn("options", "o")) as Promise<{ id: number; review_state: string; candidate: string; n: number | string | null }[]>,
     done ? resultParts(sweep) : null,
+    // (not cached with the results: it depends on the query; none or one indexed read)
+    done ? depthView(sweep, depthQuery ?? { success: true, data: {} }) : null,
   ]);
   const rechecks = sweepRows.filter((r) => r.recheck_of === sweep.id).slice(0, PAGE_LIST_MAX);
   // Counted only when the list is full: most sweeps have a few of each.
@@ -302,6 +361,7 @@ export async function loadSweepPage(teamId: number, id: number) {
     table: parts?.table ?? { itemsJson: "[]", total: 0, page: 1, pageSize: TABLE_PAGE_SIZE },
     bestDesign: parts?.bestDesign ?? null,
     families: parts?.families ?? [],
+    depth,
     /** most front members a sweep stores (the page says so when a front was longer) */
     frontCap: STORED_FRONT_CAP,
     brief: brief ? { id: brief.id as number, name: brief.name as string } : null,

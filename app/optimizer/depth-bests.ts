@@ -7,11 +7,11 @@
 import { familyPlates, type Family } from "./geometry";
 import type { SearchPoint } from "./grid";
 import { searchSections } from "./search";
-import { axisCount, searchProblemSchema, type SearchProblemInput } from "./search-schema";
+import { gridValues, searchProblemSchema, type SearchProblemInput } from "./search-schema";
 
 export interface DepthBestsOptions {
   signal?: AbortSignal;
-  /** asked before each depth; once true the rest are skipped and `complete` is false */
+  /** asked before each depth and inside its search; once true the rest are skipped and `complete` is false */
   stopWhen?: () => boolean;
 }
 
@@ -20,20 +20,31 @@ export interface DepthBests {
   points: SearchPoint[];
   /** false when stopWhen cut the work short (the points found are still exact for their depths) */
   complete: boolean;
+  /**
+   * The depths (mm, grid values) searched to the end, ascending: at these a family without a
+   * point has no feasible section; at the others nothing is known.
+   */
+  searched: number[];
 }
 
 export function depthBests(input: SearchProblemInput, options: DepthBestsOptions = {}): DepthBests {
   const problem = searchProblemSchema.parse(input);
-  const n = axisCount(problem.depth);
+  const depths = gridValues(problem.depth);
   const byFamily = new Map<Family, SearchPoint[]>(problem.families.map((f) => [f, []]));
+  const searched: number[] = [];
   let complete = true;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < depths.length; i++) {
     if (options.stopWhen?.()) {
       complete = false;
       break;
     }
     const r = searchSections(problem, { front: "evaluated", depthIndexRange: [i, i + 1], signal: options.signal, stopWhen: options.stopWhen });
-    if (r.stoppedEarly) complete = false;
+    // A search stopped part way has a best so far, not the lightest: none of its points is kept.
+    if (r.stoppedEarly) {
+      complete = false;
+      break;
+    }
+    searched.push(depths[i]);
     for (const f of problem.families) {
       const c = r.bestByFamily[f];
       if (!c) continue;
@@ -41,9 +52,8 @@ export function depthBests(input: SearchProblemInput, options: DepthBestsOptions
       if (c.cost !== undefined) point.cost = c.cost;
       byFamily.get(f)!.push(point);
     }
-    if (r.stoppedEarly) break;
   }
-  return { points: problem.families.flatMap((f) => byFamily.get(f)!), complete };
+  return { points: problem.families.flatMap((f) => byFamily.get(f)!), complete, searched };
 }
 
 /**

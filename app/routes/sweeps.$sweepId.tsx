@@ -5,7 +5,8 @@ import { Form, Link, data, redirect, useRevalidator } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/sweeps.$sweepId";
 import { requirePermission } from "~/lib/auth.server";
-import { readForm } from "~/lib/forms.server";
+import { fieldErrorsFrom, readForm } from "~/lib/forms.server";
+import { depthViewQuerySchema } from "~/lib/depth-bests";
 import { loadSweepPage } from "~/lib/sweep-page.server";
 import { saveOption, saveOptionSchema, WorkflowError } from "~/lib/options.server";
 import { can } from "~/lib/roles";
@@ -16,6 +17,7 @@ import { WhatItWouldTake } from "~/components/WhatItWouldTake";
 import { ProgressBar } from "~/components/ProgressBar";
 import { TradeoffChart, candidateName, describeDimensions, tradeoffTitle, type ChartCandidate } from "~/components/TradeoffChart";
 import { CandidateTable } from "~/components/CandidateTable";
+import { DepthBests } from "~/components/DepthBests";
 import { ChartFilter, type FilteredChart } from "~/components/ChartFilter";
 import { CompareCandidates } from "~/components/CompareCandidates";
 import { UnitSwitch } from "~/components/UnitSwitch";
@@ -35,7 +37,9 @@ export function meta({ data }: Route.MetaArgs) {
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requirePermission(request, "read");
-  const page = await loadSweepPage(user.teamId, idParam(params.sweepId));
+  // the depth control's query (?depth=&family=): its errors are shown beside its fields, never thrown
+  const q = depthViewQuerySchema.safeParse(Object.fromEntries(new URL(request.url).searchParams));
+  const page = await loadSweepPage(user.teamId, idParam(params.sweepId), q.success ? q : { success: false, errors: fieldErrorsFrom(q.error) });
   return {
     ...page,
     may: {
@@ -409,6 +413,17 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
                   onRows={learn}
                 />
               </section>
+              {loaderData.depth ? (
+                <DepthBests
+                  view={loaderData.depth}
+                  units={units}
+                  selected={selected}
+                  onSelect={(c) => {
+                    learn([c]);
+                    setSelected(c.rank);
+                  }}
+                />
+              ) : null}
               <section aria-labelledby="compare-h" className="space-y-2">
                 <h2 id="compare-h" className="text-lg font-bold">
                   Comparison

@@ -21,7 +21,7 @@ import { z } from "zod";
 import { db, parseJson } from "~/lib/db.server";
 import { can, type Role } from "~/lib/roles";
 import { fieldErrorsFrom } from "~/lib/forms.server";
-import { searchProblemSchema, FAMILIES, geometryKey, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
+import { axisCount, searchProblemSchema, geometryKey, type SearchProblem, type SearchResult, type SearchCandidate, type SearchPoint, type WhatItWouldTake } from "~/optimizer";
 import { sendEmail } from "~/lib/email.server";
 import { sweepNo } from "~/lib/numbering";
 import { projectNumbers } from "~/lib/numbering.server";
@@ -30,6 +30,7 @@ import { gridCostProblem, timedOutReason } from "./sweep-budget";
 import type { ProgressUnit, SweepProgress } from "./sweep-search.server";
 import { notify } from "~/lib/notifications.server";
 import type { RestraintStudy, SweepResult } from "~/lib/restraint-study";
+import { MAX_DEPTH_BEST_DEPTHS, depthFamilyQueryFields, type DepthBestsInfo } from "~/lib/depth-bests";
 import { designRow, isCodeBasis, type DesignRow } from "~/lib/design-summary";
 import { candidateChecks } from "~/optimizer/checks";
 
@@ -427,6 +428,22 @@ export function storedDepthBests(result: SweepResult): SearchPoint[] {
 }
 
 /**
+ * Whether a sweep keeps its per-depth bests (sweeps.depth_bests, read by the sweep page's depth
+ * control), and why not. Not kept past MAX_DEPTH_BEST_DEPTHS depths (what one sweep may store).
+ */
+export function depthBestsInfo(problem: SearchProblem, result: SweepResult): DepthBestsInfo {
+  const depths = axisCount(problem.depth);
+  const none = (reason: string): DepthBestsInfo => ({ state: "none", depths, reason });
+  if (depths > MAX_DEPTH_BEST_DEPTHS)
+    return none(
+      `The grid has ${depths.toLocaleString("en")} depths; each family's lightest at every depth is kept for grids of up to ${MAX_DEPTH_BEST_DEPTHS.toLocaleString("en")} depths. A coarser depth step keeps them.`,
+    );
+  if (result.depthBests || (result.frontScope === "grid" && !result.stoppedEarly)) return { state: "complete", depths, reason: null };
+  if (result.stoppedEarly) return none("The search stopped at the sweep's time budget, before it had proven each family's lightest at every depth (they are proven in the same pass as the whole grid's front).");
+  return none("The search looked for the best section alone, without proving each family's lightest at every depth.");
+}
+
+/**
  * Which candidates a sweep stores (the search returns no more than these): the front (the
  * contract's front is over the feasible candidates the search evaluated, so a best-first search
  * reports a subset of the exhaustive front), every family's best, and the overall best; duplicates
@@ -446,8 +463,15 @@ export function candidatesToStore(result: SweepResult, objective: "mass" | "cost
   const familyBest = new Set<string>();
   for (const c of Object.values(result.bestByFamily)) if (c) familyBest.add(keyOf(c));
   const front = new Set(result.front.slice(0, STORED_FRONT_CAP).map(keyOf));
-  const perDepth = storedDepthBests(result);
-  const depthBest = new Set(perDepth.map(keyOf));
+  const perDepth = problem && depthBestsInfo(problem, result).state === "none" ? [] : storedDepthBests(result);
+  // for each section, the families whose lightest at its depth it is (more than one when two
+  // families found the same section), so a filter by either family still finds it
+  const depthBestFor = new Map<string, Set<string>>();
+  for (const c of perDepth) {
+    const k = keyOf(c);
+    if (!depthBestFor.has(k)) depthBestFor.set(k, new Set());
+    depthBestFor.get(k)!.add(c.family);
+  }
   const all = new Map<string, SearchPoint>();
   for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily), ...perDepth]) {
     if (!c) continue;
@@ -474,7 +498,8 @@ export function candidatesToStore(result: SweepResult, objective: "mass" | "cost
     governing: c.governing,
     on_front: front.has(keyOf(c)),
     family_best: familyBest.has(keyOf(c)),
-    depth_best: depthBest.has(keyOf(c)),
+    depth_best: depthBestFor.has(keyOf(c)),
+    depth_best_for: depthBestFor.has(keyOf(c)) ? [...depthBestFor.get(keyOf(c))!].sort((a, b) => order(a) - order(b)).join(",") : null,
     // the code bases' figures (EN 1993 or AISC 360); the allowable basis has none
     design: problem && isCodeBasis(problem.basis) ? storedDesign(c, problem) : null,
   }));
@@ -547,6 +572,7 @@ export async function finishSweep(
           best: result.best ? JSON.stringify(result.best) : null,
           reason,
           restraint_study: result.restraintStudy ? JSON.stringify(result.restraintStudy) : null,
+          depth_bests: JSON.stringify(depthBestsInfo(claim.problem, result)),
           advice: result.advice ? JSON.stringify(result.advice) : null,
           catalogue_result: catalogue ? JSON.stringify(catalogue) : null,
           // the search's last report (a short sweep ends before any heartbeat wrote one); a stopped
@@ -693,6 +719,8 @@ export interface SweepView {
   best: SearchCandidate | null;
   /** EN 1993 sweeps with a restraint length: the lightest section at L … L/6 */
   restraintStudy: RestraintStudy | null;
+  /** whether each family's lightest at every depth was kept; null for sweeps stored before this was recorded */
+  depthBests: DepthBestsInfo | null;
   /** the brief searched catalogues: lightest and cheapest welded and rolled, counts, sections left out */
   catalogueResult: CatalogueSummary | null;
   reason: string | null;
@@ -766,6 +794,7 @@ export async function getSweep(id: number): Promise<SweepView | null> {
     counts: row.counts ? parseJson(row.counts) : null,
     best: row.best ? parseJson(row.best) : null,
     restraintStudy: row.restraint_study ? parseJson(row.restraint_study) : null,
+    depthBests: row.depth_bests ? parseJson(row.depth_bests) : null,
     catalogueResult: row.catalogue_result ? parseJson(row.catalogue_result) : null,
     reason: row.reason,
     error: row.error,
@@ -809,13 +838,13 @@ export const candidatesQuerySchema = z
     page: z.coerce.number({ error: "page must be a whole number ≥ 1" }).int({ message: "page must be a whole number ≥ 1" }).min(1, { message: "page must be a whole number ≥ 1" }).max(100_000).default(1),
     pageSize: z.coerce.number({ error: "pageSize must be a whole number" }).int({ message: "pageSize must be a whole number" }).min(1, { message: "pageSize must be 1 to 500" }).max(500, { message: "pageSize must be 1 to 500" }).default(50),
     sort: z.enum(CANDIDATE_SORTS, { error: `sort must be one of ${CANDIDATE_SORTS.join(", ")}` }).default("rank"),
-    family: z.enum(FAMILIES, { error: `family must be one of ${FAMILIES.join(", ")}` }).optional(),
+    family: depthFamilyQueryFields.family,
     frontOnly: z
       .enum(["true", "false", "1", "0"], { error: "frontOnly must be true or false" })
       .optional()
       .transform((v) => v === "true" || v === "1"),
     /** only sections of this depth d (mm): with the stored depth bests, each family's lightest there */
-    depth: z.coerce.number({ error: "depth must be a number of mm" }).positive({ message: "depth must be a positive number of mm" }).max(100_000, { message: "depth: at most 100000 mm" }).optional(),
+    depth: depthFamilyQueryFields.depth,
     /** only each family's lightest at its depth (the chart's context points) */
     depthBest: z
       .enum(["true", "false", "1", "0"], { error: "depthBest must be true or false" })

@@ -125,7 +125,7 @@ const FIELDS = [
   "width.max", "width.step", "moment.sagging", "moment.hogging", "shear", "allowable.tension", "allowable.compression", "allowable.shear",
   "E", "fy", "density", "basis", "grade", "length", "count", "pricePerKg", "platePrice", "weldPrice", "jobNumber", "attachmentId",
 ];
-const QUERY_KEYS = ["next", "s", "k", "m", "units", "saved", "archived", "view", "edit", "page", "pageSize", "sort", "order", "dir", "limit", "offset", "family", "feasible", "cursor", "q", "fields", "rev", "stock"];
+const QUERY_KEYS = ["next", "s", "k", "m", "units", "saved", "archived", "view", "edit", "page", "pageSize", "sort", "order", "dir", "limit", "offset", "family", "depth", "feasible", "cursor", "q", "fields", "rev", "stock"];
 const JSON_KEYS = ["plates", "family", "dimensions", "dims", "units", "polygon", "polygons", "holes", "problem", "briefId", "projectId", "recheckOf", "name", "options", "sort", "page"];
 const NASTY = [
   "", " ", "0", "-1", "1.5", "1e309", "-1e309", "NaN", "Infinity", "0x10", "0b1", "9007199254740993", "99999999999999999999", "true", "null",

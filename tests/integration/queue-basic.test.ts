@@ -222,6 +222,8 @@ describe("runner", () => {
       const problem = searchProblemSchema.parse(tinyProblem(i * 7));
       expect(all.total).toBe(candidatesToStore({ ...expected, depthBests: depthBests(problem).points }, "mass", problem).length);
       expect(all.items.filter((c) => c.depthBest).length).toBe(depthBests(problem).points.length);
+      // and that they were kept for every depth, for the sweep page's depth control
+      expect(s.depthBests).toEqual({ state: "complete", depths: 16, reason: null });
       expect(all.items[0].dimensions).toEqual(expected.best!.dimensions);
       expect(all.items.filter((c) => c.onFront)).toHaveLength(expected.front.length);
       const fam = await listCandidates(id, { family: "tee", pageSize: 500 });

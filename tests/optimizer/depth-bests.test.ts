@@ -28,6 +28,21 @@ describe("depthBests", () => {
     const d = depthBests(CONTRACT_EXAMPLE_PROBLEM, { stopWhen: () => ++calls > 2 });
     expect(d.complete).toBe(false);
   });
+
+  // Stopped part way, what it keeps is still exact: only depths searched to the end, each with
+  // brute force's lightest per family; a depth whose search was cut short keeps no point at all
+  // (its best so far is not proven the lightest).
+  it("stopped part way keeps only depths searched to the end, each exact", () => {
+    const problem: SearchProblemInput = { ...CONTRACT_EXAMPLE_PROBLEM, families: ["i", "tee"], width: { min: 100, max: 200, step: 25 }, thicknesses: [6, 10, 16] };
+    const ref = bruteForceSearch(problem).context!;
+    for (const stopAt of [1, 2, 3, 5, 8]) {
+      let calls = 0;
+      const d = depthBests(problem, { stopWhen: () => ++calls > stopAt });
+      const searched = new Set(d.searched);
+      expect(d.points.every((p) => searched.has(p.dimensions.d))).toBe(true);
+      expect(d.points.map(strip)).toEqual(ref.filter((p) => searched.has(p.dimensions.d)).map(strip));
+    }
+  });
 });
 
 describe("one section, one row", () => {
