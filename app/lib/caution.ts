@@ -59,10 +59,16 @@ const CODE_CAUTIONS: Record<"aisc360" | "en1993", CodeCaution> = {
     ],
     unstiffenedSupport: "web local yielding and web crippling at an end support (J10.2, J10.3)",
     stiffenedSupport: "web local yielding or crippling at supports (bearing stiffeners are assumed there and must be provided)",
-    excluded: ["box sections with slender webs and channels with noncompact webs (excluded)", "tension field action"],
+    excluded: [
+      "web local yielding or crippling under concentrated loads within the span",
+      "box sections with slender webs and channels with noncompact webs (excluded)",
+      "tension field action",
+    ],
     choicesWord: "choices",
+    // the engine's stated choices (basis/aisc360.ts design notes) that change a strength, as the record words them
     choices:
-      'equations marked "mem." recalled from memory, shear of bars by G2-1\'s expression, the weld leg at most the thinner part joined',
+      'equations marked "mem." recalled from memory, channels\' flange local buckling by F3\'s expressions with the load through the shear centre, ' +
+      "shear of bars by G2-1's expression, k = tf at welded supports (the weld leg left out), the weld leg at most the thinner part joined",
   },
   en1993: {
     basisName: () => "EN 1993 basis",

@@ -81,8 +81,30 @@ export function governingFlexure(d: AiscDesign): AiscFlexure | null {
   return d.flexure.reduce((a, b) => (b.M / flexAvailable(b) > a.M / flexAvailable(a) ? b : a));
 }
 
-/** The governing limit state of an AISC verdict, in words, with its equation (AISC 360-16). */
-function aiscLimitState(d: AiscDesign, governing: string, f: AiscFlexure | null): { limitState: string; equation: string } {
+/** The moment sign whose `strength` is the most used (largest required ÷ available); null when none has one. */
+function mostUsed(d: AiscDesign, strength: (f: AiscFlexure) => number | null | undefined): AiscFlexure | null {
+  let best: AiscFlexure | null = null,
+    u = -Infinity;
+  for (const f of d.flexure) {
+    const a = strength(f);
+    if (a == null || !(a > 0)) continue;
+    if (f.M / a > u) {
+      u = f.M / a;
+      best = f;
+    }
+  }
+  return best;
+}
+
+/** The limit state of one check of an AISC verdict, in words, with its equation (AISC 360-16) and the moment sign it is for. */
+function aiscLimitState(d: AiscDesign, governing: string): { limitState: string; equation: string; flexure: AiscFlexure | null } {
+  // each flexural check names the moment sign that sets it (a tee's two signs have different sections' equations)
+  const f = governing === "ltb" ? mostUsed(d, (x) => x.ltb?.available) : governing === "bending-resistance" ? mostUsed(d, (x) => x.availableLocal) : null;
+  const r = aiscLimitStateWords(d, governing, f);
+  return { ...r, flexure: f };
+}
+
+function aiscLimitStateWords(d: AiscDesign, governing: string, f: AiscFlexure | null): { limitState: string; equation: string } {
   switch (governing) {
     case "bending-resistance": {
       if (!f) return { limitState: "flexure", equation: "" };
@@ -121,6 +143,34 @@ function aiscLimitState(d: AiscDesign, governing: string, f: AiscFlexure | null)
   }
 }
 
+/**
+ * The clause beside one check of an AISC 360 verdict, as specific as the engine's figures allow:
+ * the Chapter F section and equation that set the strength ("AISC 360-16 §F2, Eq. F2-2"), the
+ * shear, weld or bearing equations; `fallback` (the basis's clause for the check, checks.ts) where
+ * the check has no equation of its own (deflection, the brief's slenderness limits).
+ */
+export function aiscCheckClause(d: AiscDesign, check: string, fallback: string): string {
+  const { equation, flexure: f } = aiscLimitState(d, check);
+  // no equation of its own (deflection, slenderness), or one the basis's clause words better (Table B4.1b, "Lb ≤ Lp")
+  if (!/^[A-Z]\d/.test(equation)) return fallback;
+  const shear = d.shear && d.shear.clause !== "bar" ? `§${d.shear.clause}, ` : "";
+  const section =
+    check === "bending-resistance" || check === "ltb"
+      ? f
+        ? `§${f.section}, `
+        : ""
+      : check === "shear-resistance" || check === "shear-buckling"
+        ? shear
+        : check === "weld"
+          ? "§J2.4, "
+          : check === "bearing"
+            ? equation === "J10-3"
+              ? "§J10.2, "
+              : "§J10.3, "
+            : "";
+  return `AISC 360-16 ${section}Eq. ${equation}`;
+}
+
 /** An AISC 360 verdict's row. */
 export function aiscRow(v: Pick<CandidateVerdict, "aisc" | "checks" | "governing">): AiscRow | null {
   const d = v.aisc;
@@ -128,7 +178,7 @@ export function aiscRow(v: Pick<CandidateVerdict, "aisc" | "checks" | "governing
   const f = governingFlexure(d);
   const l = f?.ltb ?? null;
   const Mn = f ? Math.min(f.MnLocal, l?.Mn ?? Infinity) : null;
-  const { limitState, equation } = aiscLimitState(d, v.governing, f);
+  const { limitState, equation } = aiscLimitState(d, v.governing);
   const checkClause = v.checks.find((c) => c.name === v.governing)?.clause ?? "";
   return {
     basis: "aisc360",
@@ -145,7 +195,7 @@ export function aiscRow(v: Pick<CandidateVerdict, "aisc" | "checks" | "governing
     weldLeg: d.weld?.w ?? null,
     limitState,
     equation,
-    governingClause: equation && /^[A-Z]\d/.test(equation) ? `AISC 360-16 ${equation.startsWith("Table") ? equation : `Eq. ${equation}`}` : checkClause,
+    governingClause: aiscCheckClause(d, v.governing, checkClause),
   };
 }
 

@@ -94,7 +94,7 @@ describe("AISC 360 sweep: results in AISC terms", () => {
         expect(d.limitState).toBe("lateral-torsional buckling");
         // F2-2 in the inelastic zone, F2-3 (with F2-4) in the elastic one, and their F3 … F11 kin
         expect(d.equation).toMatch(/^F\d+-\d+/);
-        expect(d.governingClause).toBe(`AISC 360-16 Eq. ${d.equation}`);
+        expect(d.governingClause).toBe(`AISC 360-16 §${d.section}, Eq. ${d.equation}`);
       }
       if (c.governing === "bending-resistance") expect(d.equation).toMatch(/^F\d+-\d+/);
       if (c.governing === "shear-resistance" || c.governing === "shear-buckling") expect(d.equation).toMatch(/^G[234]-1/);

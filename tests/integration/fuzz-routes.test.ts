@@ -14,6 +14,8 @@ import { hashPassword, hashToken } from "~/lib/auth.server";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
 import { BASE, callRoute, cookieForUser, FixtureContext, fillPath, flattenRoutes, fromAddress, loadRouteModule, type RouteModule, type RouteResult } from "./fixtures";
 import { CHANNEL_PROBLEM, workflowFixture, type WorkflowFixture } from "./workflow-fixtures";
+import { searchProblemSchema } from "~/optimizer";
+import { fieldLabel } from "~/lib/labels";
 
 // Fixed, so a failure replays exactly; fast-check prints the counterexample and its path.
 const SEED = 20261203;
@@ -124,6 +126,9 @@ const FIELDS = [
   "description", "materialId", "stockListId", "siValues", "next", "k", "m", "depth.min", "depth.max", "depth.step", "width.min",
   "width.max", "width.step", "moment.sagging", "moment.hogging", "shear", "allowable.tension", "allowable.compression", "allowable.shear",
   "E", "fy", "density", "basis", "grade", "length", "count", "pricePerKg", "platePrice", "weldPrice", "jobNumber", "attachmentId",
+  // the design bases' brief fields (issue 14: AISC 360's method, steel and Cb; EN 1993's restraint and supports)
+  "method", "aisc.grade", "aisc.Fy", "aisc.Fu", "aisc.E", "aisc.G", "aisc.FEXX", "restraint.length", "restraint.Cb", "restraintThroughout",
+  "supports.stiffened", "supports.bearingLength",
 ];
 const QUERY_KEYS = ["next", "s", "k", "m", "units", "saved", "archived", "view", "edit", "page", "pageSize", "sort", "order", "dir", "limit", "offset", "family", "depth", "feasible", "cursor", "q", "fields", "rev", "stock"];
 const JSON_KEYS = ["plates", "family", "dimensions", "dims", "units", "polygon", "polygons", "holes", "problem", "briefId", "projectId", "recheckOf", "name", "options", "sort", "page"];
@@ -131,6 +136,7 @@ const NASTY = [
   "", " ", "0", "-1", "1.5", "1e309", "-1e309", "NaN", "Infinity", "0x10", "0b1", "9007199254740993", "99999999999999999999", "true", "null",
   "[]", "{}", "<script>alert(1)</script>", "' OR 1=1 --", "%00", "\u0000", "\u2028", "../../etc/passwd", "//evil.example", "/\t/evil.example",
   "https://evil.example", "x".repeat(300), "ﾟ･✿ヾ╲(｡◕‿◕｡)╱✿･ﾟ", "6, 8, 10", "channel", "i", "si", "us", "admin", "viewer", "approve", "return",
+  "aisc360", "en1993", "ASD", "LRFD", "asd", "A36", "A572 Gr 50", "A992",
 ];
 
 const idText = (): fc.Arbitrary<string> =>
@@ -319,4 +325,184 @@ describe("fuzzing every route (fixed seed)", () => {
     // Not all refusals: some requests must get through, or the fuzzer only tests the guards.
     expect(tally.byStatus.get(200) ?? 0).toBeGreaterThan(100);
   });
+});
+
+// ---------------------------------------------------------------- the design bases' brief fields
+//
+// Issue 14's fields (method, aisc.*, restraint.Cb) and the restraint length, fuzzed one at a time
+// inside an otherwise valid AISC 360 brief, through every way a brief comes in: the new-brief and
+// brief forms, the recheck form and the sweeps API's problem. Each request: no 5xx, nothing thrown,
+// no stack; refused (4xx): no row written and a message that names the broken field itself (in
+// the message's words, not only as a key); accepted: what was written is a whole brief or sweep
+// whose problem the engine's schema parses, on the AISC basis.
+
+/** A whole, valid AISC 360 brief as the brief editor posts it (SI units). */
+const AISC_FORM: Record<string, string> = {
+  name: "Fuzz AISC brief",
+  units: "si",
+  "moment.sagging": "120",
+  shear: "100",
+  "depth.min": "200",
+  "depth.max": "400",
+  "depth.step": "20",
+  "width.min": "100",
+  "width.max": "250",
+  "width.step": "25",
+  thicknesses: "8, 10, 12",
+  families: "i",
+  basis: "aisc360",
+  method: "ASD",
+  "aisc.grade": "A572 Gr 50",
+  "aisc.Fy": "345",
+  "aisc.Fu": "450",
+  "aisc.E": "200000",
+  "aisc.G": "77200",
+  "aisc.FEXX": "482",
+  "restraint.length": "6",
+  "restraint.Cb": "1.136",
+  "supports.stiffened": "yes",
+};
+/** The same brief as the sweeps API takes it. */
+const AISC_PROBLEM = {
+  moment: { sagging: 120 },
+  shear: 100,
+  depth: { min: 200, max: 400, step: 20 },
+  width: { min: 100, max: 250, step: 25 },
+  thicknesses: [8, 10, 12],
+  families: ["i"],
+  basis: "aisc360",
+  method: "ASD",
+  aisc: { grade: "A572 Gr 50", E: 200000, G: 77200, FEXX: 482, rolledGrade: "A992" },
+  restraint: { length: 6, Cb: 1.136 },
+};
+const FORM_BASIS_FIELDS = ["method", "aisc.grade", "aisc.Fy", "aisc.Fu", "aisc.E", "aisc.G", "aisc.FEXX", "restraint.length", "restraint.Cb"] as const;
+const API_BASIS_FIELDS = [...FORM_BASIS_FIELDS, "aisc.rolledGrade", "aisc.rolledFy"] as const;
+
+/** Text a form field may carry: the nasty list, numbers just outside the fields' ranges, anything. */
+const formValue = (): fc.Arbitrary<string> =>
+  fc.oneof<fc.MaybeWeightedArbitrary<string>[]>(
+    { weight: 3, arbitrary: fc.constantFrom(...NASTY) },
+    { weight: 3, arbitrary: fc.constantFrom("0.99", "5.01", "-6", "0", "1e6", "1e-9", "ASD ", "lrfd", "A992", "Grade 50", "1,136", "345 MPa") },
+    { weight: 2, arbitrary: fc.double().map(String) },
+    { weight: 2, arbitrary: fc.string({ maxLength: 50 }) },
+  );
+/** A JSON value a problem field may carry. */
+const jsonValue = (): fc.Arbitrary<unknown> =>
+  fc.oneof<fc.MaybeWeightedArbitrary<unknown>[]>(
+    { weight: 3, arbitrary: fc.constantFrom<unknown>(null, true, [], {}, "", "ASD ", "A992", "345", -1, 0, 0.99, 5.01, 1e6, 1e308, "x".repeat(60)) },
+    { weight: 2, arbitrary: fc.double() },
+    { weight: 2, arbitrary: fc.jsonValue({ maxDepth: 1 }) },
+  );
+
+/**
+ * A message (the form's field errors, or the API's error and errors) that names `field` in its
+ * words: by its path, or on a form page by the label the brief editor shows (labels.ts), any case.
+ */
+function namesField(res: RouteResult, field: string): boolean {
+  const d = res.data as { errors?: Record<string, string | string[]>; error?: string } | undefined;
+  const words = [...Object.values(d?.errors ?? {}).flat(), d?.error ?? ""].map((w) => String(w).toLowerCase());
+  return words.some((w) => w.includes(field.toLowerCase()) || w.includes(fieldLabel(field).toLowerCase()));
+}
+
+interface BasisRoute {
+  pattern: string;
+  file: string;
+  who: FuzzRole | `token:${FuzzRole}`;
+  params: () => Record<string, string>;
+  api: boolean;
+}
+const BASIS_ROUTES: BasisRoute[] = [
+  { pattern: "/projects/:projectId/briefs/new", file: "routes/projects.$projectId.briefs.new.tsx", who: "engineer", params: () => ({ projectId: String(fz.own.projectId) }), api: false },
+  { pattern: "/briefs/:briefId", file: "routes/briefs.$briefId.tsx", who: "engineer", params: () => ({ briefId: String(fz.own.briefId) }), api: false },
+  { pattern: "/sweeps/:sweepId/recheck", file: "routes/sweeps.$sweepId.recheck.tsx", who: "reviewer", params: () => ({ sweepId: String(fz.own.sweepId) }), api: false },
+  { pattern: "/api/v1/sweeps", file: "routes/api.v1.sweeps.ts", who: "token:engineer", params: () => ({}), api: true },
+];
+
+async function basisRequest(route: BasisRoute, body: { form?: [string, string][]; json?: unknown }): Promise<Request> {
+  const headers = new Headers({ Origin: BASE });
+  if (route.who.startsWith("token:")) headers.set("Authorization", `Bearer ${fz.tokens[route.who.slice(6) as FuzzRole]}`);
+  else headers.set("Cookie", await cookieForUser(fz.users[route.who as FuzzRole].id));
+  const init: RequestInit = { method: "POST", headers };
+  if (body.json !== undefined) {
+    headers.set("Content-Type", "application/json");
+    init.body = JSON.stringify(body.json);
+  } else {
+    headers.set("Content-Type", "application/x-www-form-urlencoded");
+    init.body = new URLSearchParams(body.form ?? []);
+  }
+  return new Request(new URL(fillPath(route.pattern, route.params()), BASE), init);
+}
+
+/** The latest sweep and brief ids of the fuzz team, to find (and check, then remove) what an accepted request wrote. */
+async function latestIds(): Promise<{ sweep: number; brief: number }> {
+  const s = await db("sweeps").where({ team_id: fz.teamId }).max({ m: "id" }).first();
+  const b = await db("briefs").join("projects", "projects.id", "briefs.project_id").where("projects.team_id", fz.teamId).max({ m: "briefs.id" }).first();
+  return { sweep: Number(s?.m ?? 0), brief: Number(b?.m ?? 0) };
+}
+
+function withPath(problem: Record<string, unknown>, path: string, value: unknown): Record<string, unknown> {
+  const out = structuredClone(problem) as Record<string, any>;
+  const keys = path.split(".");
+  let o = out;
+  for (const k of keys.slice(0, -1)) o = o[k] ??= {};
+  o[keys[keys.length - 1]!] = value;
+  return out;
+}
+
+describe("fuzzing the design bases' brief fields (fixed seed)", () => {
+  const briefBody = (form: Record<string, string>, route: BasisRoute): [string, string][] => [...Object.entries(form), ...(route.pattern === "/sweeps/:sweepId/recheck" ? [] : [["intent", "save"] as [string, string]])];
+
+  test("the unbroken AISC brief is accepted by every route (so a refusal below is the broken field's)", async () => {
+    for (const route of BASIS_ROUTES) {
+      const mod = await loadRouteModule(route.file);
+      const res = await callRoute(mod.action, await basisRequest(route, route.api ? { json: { problem: AISC_PROBLEM, projectId: fz.own.projectId } } : { form: briefBody(AISC_FORM, route) }), route.params());
+      if (res.error) throw res.error;
+      expect([200, 202, 302], `${route.pattern}: ${JSON.stringify(res.data).slice(0, 300)}`).toContain(res.status);
+    }
+    await db("sweeps").where({ team_id: fz.teamId, status: "queued" }).delete();
+  });
+
+  for (const route of BASIS_ROUTES) {
+    test(`${route.pattern}: one broken basis field → no 5xx; refused naming the field with nothing written, or accepted whole`, async () => {
+      const mod = await loadRouteModule(route.file);
+      const fields = route.api ? API_BASIS_FIELDS : FORM_BASIS_FIELDS;
+      const arb = route.api
+        ? fc.record({ field: fc.constantFrom(...fields), value: jsonValue() as fc.Arbitrary<unknown> })
+        : fc.record({ field: fc.constantFrom(...fields), value: formValue() as fc.Arbitrary<unknown> });
+      let refused = 0;
+      await fc.assert(
+        fc.asyncProperty(arb, async ({ field, value }) => {
+          const body = route.api ? { json: { problem: withPath(AISC_PROBLEM, field, value), projectId: fz.own.projectId } } : { form: briefBody({ ...AISC_FORM, [field]: value as string }, route) };
+          const before = await counts();
+          const last = await latestIds();
+          const res = await callRoute(mod.action, await basisRequest(route, body), route.params());
+          if (res.error) throw new Error(`threw ${String((res.error as Error)?.stack ?? res.error)}`);
+          const said = bodyText(res).slice(0, 400);
+          expect(res.status, said).toBeLessThan(500);
+          expect(bodyText(res)).not.toMatch(STACK);
+          if (res.status >= 400) {
+            refused++;
+            expect(await counts(), said).toEqual(before);
+            expect(namesField(res, field), `${field} = ${JSON.stringify(value)}: ${JSON.stringify((res.data as { errors?: unknown; error?: unknown })?.errors ?? (res.data as { error?: unknown })?.error ?? said)}`).toBe(true);
+            return;
+          }
+          // accepted: whatever was written is whole, and on the AISC basis
+          const now = await latestIds();
+          if (now.sweep > last.sweep) {
+            const sweep = await db("sweeps").where({ id: now.sweep }).first("problem");
+            expect(searchProblemSchema.parse(parseJson(sweep.problem)).basis).toBe("aisc360");
+            await db("sweeps").where({ team_id: fz.teamId }).where("id", ">", last.sweep).delete();
+          }
+          const briefId = now.brief > last.brief ? now.brief : route.pattern === "/briefs/:briefId" ? fz.own.briefId : null;
+          if (briefId !== null) {
+            const brief = await db("briefs").where({ id: briefId }).first("problem");
+            expect(searchProblemSchema.parse(parseJson(brief.problem)).basis).toBe("aisc360");
+          }
+        }),
+        { seed: SEED, numRuns: 60, endOnFailure: true },
+      );
+      // the fuzzing reached the refusals it is for
+      expect(refused).toBeGreaterThan(20);
+    });
+  }
 });

@@ -13,6 +13,9 @@ import { renderToString } from "react-dom/server";
 import { CandidateTable } from "~/components/CandidateTable";
 import { DesignFigures } from "~/components/BasisAssumptions";
 import { RestraintStudyChart } from "~/components/RestraintStudyChart";
+import { CheckTable } from "~/components/CheckTable";
+import { Aisc360Checks } from "~/components/Aisc360Record";
+import { cautionText } from "~/lib/caution";
 import { aiscRow, designRow, isAiscRow } from "~/lib/design-summary";
 import { catalogueCandidateChecks, parseSearchProblem, fromSI, toSI, type SearchProblemInput } from "~/optimizer/index";
 import { formatNumber } from "~/lib/format";
@@ -49,7 +52,7 @@ describe("the AISC row of a verdict (lib/design-summary.ts)", () => {
     const v = inelastic("LRFD");
     expect(v.governing).toBe("ltb");
     const row = aiscRow(v)!;
-    expect(row).toMatchObject({ basis: "aisc360", method: "LRFD", section: "F2", zone: "inelastic", Cb: 1.01, limitState: "lateral-torsional buckling", equation: "F2-2", governingClause: "AISC 360-16 Eq. F2-2" });
+    expect(row).toMatchObject({ basis: "aisc360", method: "LRFD", section: "F2", zone: "inelastic", Cb: 1.01, limitState: "lateral-torsional buckling", equation: "F2-2", governingClause: "AISC 360-16 §F2, Eq. F2-2" });
     close(kipft(row.Mn!), 338.5, 0.03);
     close(kipft(row.MnAvailable!), 304.7, 0.03);
     expect(row.MnAvailable! / row.Mn!).toBeCloseTo(0.9, 12); // φb = 0.90 (§F1)
@@ -75,7 +78,7 @@ describe("the AISC row of a verdict (lib/design-summary.ts)", () => {
     const Mp = catalogueCandidateChecks(W18x50, problem({ restraint: { length: ftm(5), Cb: 1 } })).aisc!.flexure[0].availableLocal;
     const v = catalogueCandidateChecks(W18x50, problem({ moment: { sagging: Mp * 0.99 }, restraint: { length: ftm(5), Cb: 1 } }));
     expect(v.governing).toBe("bending-resistance");
-    expect(aiscRow(v)).toMatchObject({ zone: "plastic", limitState: "yielding", equation: "F2-1", governingClause: "AISC 360-16 Eq. F2-1" });
+    expect(aiscRow(v)).toMatchObject({ zone: "plastic", limitState: "yielding", equation: "F2-1", governingClause: "AISC 360-16 §F2, Eq. F2-1" });
     const braced = aiscRow(catalogueCandidateChecks(W18x50, problem({ moment: { sagging: Mp * 0.99 } })))!;
     expect(braced).toMatchObject({ zone: null, Lp: null, Lr: null, Cb: null, equation: "F2-1" });
   });
@@ -83,7 +86,7 @@ describe("the AISC row of a verdict (lib/design-summary.ts)", () => {
   test("shear governing names G2-1 with its Cv equation", () => {
     const v = catalogueCandidateChecks(W18x50, problem({ moment: { sagging: 1 }, shear: toSI("force", 190, "us") }));
     expect(v.governing).toBe("shear-resistance");
-    expect(aiscRow(v)).toMatchObject({ limitState: "shear yielding", equation: "G2-1, G2-2", governingClause: "AISC 360-16 Eq. G2-1, G2-2" });
+    expect(aiscRow(v)).toMatchObject({ limitState: "shear yielding", equation: "G2-1, G2-2", governingClause: "AISC 360-16 §G2.1, Eq. G2-1, G2-2" });
   });
 });
 
@@ -116,7 +119,7 @@ describe("the candidate table and the comparison under AISC 360", () => {
     expect(t).toMatch(/Chapter F Mn \(kN·m\) φbMn \(kN·m\) LTB zone Lp \(m\) Lr \(m\) Cb Vn \(kN\) φvVn \(kN\) Weld w \(mm\)/);
     expect(t).not.toMatch(/Mcr|χLT|Mb,Rd|VRd|stresses only/);
     expect(t).toContain(`F2 ${formatNumber(row.Mn!)} ${formatNumber(row.MnAvailable!)} inelastic ${formatNumber(row.Lp! / 1000)} ${formatNumber(row.Lr! / 1000)} 1.01 ${formatNumber(row.Vn!)} ${formatNumber(row.VnAvailable!)} —`);
-    expect(t).toContain("lateral-torsional buckling AISC 360-16 Eq. F2-2");
+    expect(t).toContain("lateral-torsional buckling AISC 360-16 §F2, Eq. F2-2");
     expect(t).toContain("φbMn and φvVn are the design strengths");
   });
 
@@ -135,7 +138,7 @@ describe("the candidate table and the comparison under AISC 360", () => {
     expect(t).toContain("LTB zone inelastic");
     expect(t).toMatch(/Lp, Lr 5\.\d+ ft, 1[67]\.\d+ ft/);
     expect(t).toContain("Cb 1.01");
-    expect(t).toContain("Governs lateral-torsional buckling (AISC 360-16 Eq. F2-2)");
+    expect(t).toContain("Governs lateral-torsional buckling (AISC 360-16 §F2, Eq. F2-2)");
     expect(isAiscRow(row)).toBe(true);
   });
 });
@@ -152,5 +155,49 @@ describe("the restraint study under AISC 360", () => {
     // an EN 1993 study (no Cb on its points) keeps its own heads
     const en = text(renderToString(createElement(RestraintStudyChart, { study: { ...study, points: study.points.map(({ Cb: _c, ...p }) => p) }, units: "si" })));
     expect(en).not.toContain("Cb");
+  });
+});
+
+describe("the check table, the caution and the record's lines name AISC 360's clauses (product.md, Safety)", () => {
+  test("the check table: no 'stresses only' under AISC, AISC words with the method's symbols, the equation beside each check", () => {
+    const v = inelastic("LRFD");
+    const t = text(renderToString(createElement(CheckTable, { verdict: v, units: "si" })));
+    expect(t).not.toContain("stresses only");
+    expect(t).toContain("Lateral-torsional buckling over Lb Mu ≤ φbMn (governs)");
+    expect(t).toContain("Flexure, yielding and local buckling Mu ≤ φbMn");
+    expect(t).toContain("Shear Vu ≤ φvVn");
+    // the clause column: the Chapter F section and equation that set each strength (F.1-2B: F2-2 in the inelastic zone)
+    expect(t).toMatch(/Lateral-torsional buckling over Lb Mu ≤ φbMn \(governs\) [\d.,]+ [\d.,]+ kN·m [\d.]+ AISC 360-16 §F2, Eq\. F2-2/);
+    expect(t).toMatch(/Flexure, yielding and local buckling Mu ≤ φbMn [\d.,]+ [\d.,]+ kN·m [\d.]+ AISC 360-16 §F2, Eq\. F2-1/);
+    expect(t).toMatch(/Shear Vu ≤ φvVn [\d.,]+ [\d.,]+ kN [\d.]+ AISC 360-16 §G2\.1, Eq\. G2-1, G2-2/);
+    expect(t).not.toMatch(/Mc,Rd|Mb,Rd|Vpl,Rd/);
+    const asd = text(renderToString(createElement(CheckTable, { verdict: inelastic("ASD"), units: "si", compact: true })));
+    expect(asd).toContain("Lateral-torsional buckling over Lb Ma ≤ Mn/Ωb");
+    expect(asd).toContain("AISC 360-16 §F2, Eq. F2-2");
+  });
+
+  test("the caution on AISC results: what it covers, what it leaves out (product.md's list) and its stated choices", () => {
+    const p = problem({ method: "ASD", restraint: { length: 6, Cb: 1.136 } });
+    const t = cautionText(p);
+    expect(t).toMatch(/^Sparwise is a sizing aid\. On the AISC 360-16 basis \(ASD: available strength Rn\/Ω\)/);
+    expect(t).toMatch(/cover only width-to-thickness classification \(AISC 360-16 Table B4\.1b.*Chapter F flexure.*lateral-torsional buckling over the stated unbraced length Lb with Cb.*G2\.1/);
+    expect(t).toMatch(/do not cover web local yielding or crippling at supports \(bearing stiffeners are assumed there and must be provided\), web local yielding or crippling under concentrated loads within the span, .*connections, fatigue, fire, load combinations, torsion/);
+    expect(t).toMatch(/choices stated in the record \(equations marked "mem\." .*channels' flange local buckling by F3's expressions/);
+    expect(t).toContain("approved by a licensed engineer before fabrication");
+    const unstiffened = cautionText({ ...p, supports: { stiffened: false } });
+    expect(unstiffened).toContain("web local yielding and web crippling at an end support (J10.2, J10.3)");
+    expect(cautionText({ ...p, restraint: undefined })).toContain("do not cover lateral-torsional buckling (the compression flange is taken as braced throughout)");
+    expect(cautionText({ ...p, method: "LRFD" })).toContain("LRFD: available strength φRn");
+  });
+
+  test("every line of the record's AISC part names its section, equation or table (or says it is an assumption)", () => {
+    const v = inelastic("ASD");
+    const p = problem({ method: "ASD", moment: { sagging: M300 / 1.6 }, restraint: { length: ftm(35 / 3), Cb: 1.01 } });
+    const html = renderToString(createElement(Aisc360Checks, { problem: p, verdict: v }));
+    const cells = [...html.matchAll(/<tr class="align-top"><td[^>]*>([^<]*)<\/td>/g)].map((m) => m[1]!.replace(/&amp;/g, "&"));
+    expect(cells.length).toBeGreaterThan(6);
+    for (const c of cells) expect(c).toMatch(/^(AISC 360-16 (§|Eq\. |Table )[A-Z]|assumption$)/);
+    expect(cells).toContain("AISC 360-16 Eq. F2-2");
+    expect(cells).toContain("AISC 360-16 §F2");
   });
 });
