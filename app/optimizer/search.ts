@@ -1281,7 +1281,13 @@ class FamilySearch {
     if (this.pf.axes.some((a) => a.length === 0)) return;
     if (this.fk.second >= 0) {
       if (this.gridMode) this.seedSupers();
-      else this.seedDepthRanges();
+      else {
+        // (S) where LTB is checked (elsewhere the first rows' bounds are tight enough that the first
+        // feasible point found is at or near the best): before the ranges are bounded, so they are
+        // bounded with its cut
+        if (this.en?.restraint || this.us?.restraint) this.seedIncumbent();
+        this.seedDepthRanges();
+      }
     } else this.seedRows();
     const sd = this.seeds;
     for (let i = 0; i < sd.size; i++) this.pending += sd.n[i];
@@ -1296,9 +1302,6 @@ class FamilySearch {
     const sd = this.seeds,
       n = sd.size,
       h = this.heap;
-    // (S) where LTB is checked: elsewhere the first rows' bounds are tight enough that the first
-    // feasible point found is at or near the best, and the seed would only add evaluations
-    if (n > 0 && this.fk.second >= 0 && (this.en?.restraint || this.us?.restraint)) this.seedIncumbent();
     if (n > 0) {
       const sample = new Float64Array(Math.min(n, 4096));
       for (let i = 0; i < sample.length; i++) sample[i] = sd.key[Math.floor((i * n) / sample.length)];
