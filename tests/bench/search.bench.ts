@@ -235,14 +235,15 @@ const enWide: SearchProblemInput = {
 delete (en as { allowable?: unknown }).allowable;
 {
   // one brute-force run serves (5a) and (5d): it yields the best and the grid's front together
-  const [best, tBest] = timeMedian(() => searchSections(en, { front: "evaluated" }), 3);
+  const [best, tBest, cBest] = timeMedianC(() => searchSections(en, { front: "evaluated" }), 3);
   const [grid, tGrid, cGrid] = timeMedianC(() => searchSections(en), 3);
   const [brute, tb, cb] = timeC(() => bruteForceSearch(en));
   console.log(`\n(5a) EN 1993, i family, the 10^7 grid of (1) (${best.counts.grid.toLocaleString("en")} candidates), 6 m restraint: best only`);
-  console.log(`  fast : ${ms(tBest)}, evaluated ${best.counts.evaluated.toLocaleString("en")}; best ${desc(best)}`);
-  console.log(`  brute: ${ms(tb)}, evaluated ${brute.counts.evaluated.toLocaleString("en")}; best ${desc(brute)}`);
-  const ratio = tb / tBest;
-  console.log(`  same best: ${same(best, brute) ? "yes" : "NO"}; brute/fast = ${ratio.toFixed(0)}× (target < 500 ms and ≥ 10×: ${verdict(tBest < 500 && ratio >= 10)})`);
+  console.log(`  fast : ${ms(tBest)} wall, ${ms(cBest)} CPU, evaluated ${best.counts.evaluated.toLocaleString("en")}; best ${desc(best)}`);
+  console.log(`  brute: ${ms(tb)} wall, ${ms(cb)} CPU, evaluated ${brute.counts.evaluated.toLocaleString("en")}; best ${desc(brute)}`);
+  const ratio = tb / tBest,
+    ratioC = cb / cBest;
+  console.log(`  same best: ${same(best, brute) ? "yes" : "NO"}; brute/fast = ${ratio.toFixed(0)}× wall, ${ratioC.toFixed(0)}× CPU (target < 500 ms and ≥ 10×: wall ${verdict(tBest < 500 && ratio >= 10)}, CPU ${verdict(cBest < 500 && ratioC >= 10)})`);
   console.log(`\n(5d) the exact front of the same grid (front "grid": every shape on the grid no other beats on mass and utilisation)`);
   console.log(`  fast : ${ms(tGrid)} wall, ${ms(cGrid)} CPU, evaluated ${grid.counts.evaluated.toLocaleString("en")}; front ${grid.front.length} members, context ${grid.context?.length ?? 0} points`);
   console.log(`  brute: ${ms(tb)} wall, ${ms(cb)} CPU (the same run as (5a)); front ${brute.front.length} members`);
@@ -253,24 +254,24 @@ delete (en as { allowable?: unknown }).allowable;
 }
 {
   const six: SearchProblemInput = { ...enWide, families: ["i", "mono-i", "channel", "tee", "box", "rectangle"] };
-  const [r, t] = timeMedian(() => searchSections(six, { front: "evaluated" }), 1);
+  const [r, t, c] = timeMedianC(() => searchSections(six, { front: "evaluated" }), 1);
   console.log(`\n(5b) EN 1993, all six EN 1993 families on the axes of (2b), best only`);
   console.log(`  grid ${r.counts.grid.toExponential(3)} candidates (brute force impossible: mono-i alone is 10^10); evaluated ${r.counts.evaluated.toLocaleString("en")}`);
-  console.log(`  fast: ${ms(t)}; best ${desc(r)}`);
-  for (const [f, c] of Object.entries(r.bestByFamily)) console.log(`    ${f.padEnd(10)} ${c ? `${JSON.stringify(c.dimensions)} ${c.massPerMetre.toFixed(1)} kg/m (${c.governing})` : "none"}`);
-  console.log(`  target < 2 s: ${verdict(t < 2000)}`);
+  console.log(`  fast: ${ms(t)} wall, ${ms(c)} CPU; best ${desc(r)}`);
+  for (const [f, x] of Object.entries(r.bestByFamily)) console.log(`    ${f.padEnd(10)} ${x ? `${JSON.stringify(x.dimensions)} ${x.massPerMetre.toFixed(1)} kg/m (${x.governing})` : "none"}`);
+  console.log(`  target < 2 s: wall ${verdict(t < 2000)}, CPU ${verdict(c < 2000)}`);
   const noMono: SearchProblemInput = { ...six, families: ["i", "channel", "tee", "box", "rectangle"] };
-  const [fm, tfm] = timeMedian(() => searchSections(noMono, { front: "evaluated" }), 1);
-  console.log(`  the five without mono-i (${fm.counts.grid.toExponential(3)} candidates): fast ${ms(tfm)}, evaluated ${fm.counts.evaluated.toLocaleString("en")}`);
+  const [fm, tfm, cfm] = timeMedianC(() => searchSections(noMono, { front: "evaluated" }), 1);
+  console.log(`  the five without mono-i (${fm.counts.grid.toExponential(3)} candidates): fast ${ms(tfm)} wall, ${ms(cfm)} CPU, evaluated ${fm.counts.evaluated.toLocaleString("en")}`);
 }
 {
   // the sweep's restraint study: L, L/2 … L/6, each an exact best-only search
-  const [r, t] = timeMedian(() => restraintStudy(en), 1);
-  const [b1, tb1] = time(() => bruteForceSearch({ ...en, restraint: { ...en.restraint!, length: 6 / 6 } }));
+  const [r, t, c] = timeMedianC(() => restraintStudy(en), 1);
+  const [b1, tb1, cb1] = timeC(() => bruteForceSearch({ ...en, restraint: { ...en.restraint!, length: 6 / 6 } }));
   const last = r.points[r.points.length - 1];
   console.log(`\n(5c) restraint study, i family on the 10^7 grid of (5a), six spacings 6 m … 1 m`);
   console.log(`  ${r.points.map((p) => `${(en.restraint!.length / p.segments).toFixed(2)} m: ${p.best ? p.best.massPerMetre.toFixed(1) : "none"}`).join("; ")} kg/m`);
-  console.log(`  fast: ${ms(t)} for all six (target < 3 s: ${verdict(t < 3000)}); brute force at the 1 m spacing alone: ${ms(tb1)}, same best there: ${last.best && b1.best && JSON.stringify(last.best.dimensions) === JSON.stringify(b1.best.dimensions) ? "yes" : "NO"}`);
+  console.log(`  fast: ${ms(t)} wall, ${ms(c)} CPU for all six (target < 3 s: wall ${verdict(t < 3000)}, CPU ${verdict(c < 3000)}); brute force at the 1 m spacing alone: ${ms(tb1)} wall, ${ms(cb1)} CPU, same best there: ${last.best && b1.best && JSON.stringify(last.best.dimensions) === JSON.stringify(b1.best.dimensions) ? "yes" : "NO"}`);
 }
 
 // (6a) issue 15: the exact front of (1)'s 10^7 i grid against brute force's front, whose run (1) timed
