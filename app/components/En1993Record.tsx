@@ -14,39 +14,11 @@ import type { ClassifiedElement, DesignBlock, LtbDesign } from "~/optimizer/desi
 import type { Family } from "~/optimizer/geometry";
 import type { SectionProperties } from "~/optimizer/properties";
 import type { SearchProblem } from "~/optimizer/search-schema";
-import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
-import { formatNumber } from "~/components/PropertyTable";
+import type { UnitSystem } from "~/optimizer/units";
+import { Also, Clause, Step, f, n } from "~/components/Worked";
 import { CheckTable } from "~/components/CheckTable";
 import { matchMomentDiagram, MOMENT_DIAGRAM_SOURCE } from "~/lib/moment-diagrams";
 import { TableScroll } from "~/components/DataTable";
-
-const n = (x: number, sig = 4) => formatNumber(x, sig);
-/** A factor inside a written-out product: powers of ten in brackets, so "÷ (2.028 × 10⁷)" reads unambiguously. */
-const f = (x: number, sig = 4) => {
-  const t = formatNumber(x, sig);
-  return t.includes("×") ? `(${t})` : t;
-};
-
-function Also({ q, x, units }: { q: Quantity; x: number; units: UnitSystem }) {
-  return units === "us" ? (
-    <span className="text-ink/70">
-      {" "}
-      ({n(fromSI(q, x, units))} {unitLabel(q, units)})
-    </span>
-  ) : null;
-}
-
-function Clause({ children }: { children: string }) {
-  return <span className="ml-1 text-xs text-ink/70">[{children}]</span>;
-}
-
-function Step({ children, testid }: { children: React.ReactNode; testid?: string }) {
-  return (
-    <p className="text-sm" data-testid={testid}>
-      {children}
-    </p>
-  );
-}
 
 const PART_WORDS: Record<ClassifiedElement["part"], string> = {
   outstand: "outstand flange in compression",

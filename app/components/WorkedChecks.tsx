@@ -1,18 +1,12 @@
 // The calculation record's checks shared by the bases, worked through from the numbers the engine
 // evaluated them with: the deflection (every basis; CandidateVerdict.deflectionWorking: w, L, E,
 // the I it divided by, δ and the limit; an unsymmetric section's vertical and sideways parts) and
-// the allowable basis's shear stress (shearWorking: where V·Q/(Iz·b) is largest, Q, b, Iz, τ).
+// the allowable basis's shear stress (shearWorking: where V·Q/(Iz·b) is largest, Q, b, Iz, τ) and
+// the brief's plate slenderness limits (slendernessWorking: each element's b and t, b/t, the limit).
 // Worked in SI, the engine's units; a US customary record also gets the results in brackets.
 import type { CandidateVerdict } from "~/optimizer/checks";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
-import { formatNumber } from "~/components/PropertyTable";
-
-const n = (x: number, sig = 4) => formatNumber(x, sig);
-/** a factor inside a product: powers of ten in brackets */
-const f = (x: number) => {
-  const t = formatNumber(x);
-  return t.includes("×") ? `(${t})` : t;
-};
+import { Clause, Step, f, n } from "~/components/Worked";
 
 export function ShearWorked({ verdict, units }: { verdict: CandidateVerdict; units: UnitSystem }) {
   const s = verdict.shearWorking;
@@ -55,6 +49,35 @@ export function DeflectionWorked({ verdict, units }: { verdict: CandidateVerdict
           {n(parts.sideways)} mm, total √(vertical² + sideways²) = {n(parts.total)} mm.
         </p>
       ) : null}
+    </section>
+  );
+}
+
+export function SlendernessWorked({ verdict }: { verdict: CandidateVerdict }) {
+  const els = verdict.slendernessWorking;
+  if (!els) return null;
+  return (
+    <section aria-labelledby="slenderness-h" className="mt-3 text-sm" data-testid="record-slenderness">
+      <h3 id="slenderness-h" className="font-semibold">
+        Plate slenderness b/t against the brief's limits
+      </h3>
+      {els.map((e, i) => {
+        const c = verdict.checks.find((x) => x.name === e.name);
+        return (
+          <Step key={i} testid={`record-slenderness-${i}`}>
+            {e.element}: width b = {e.widthSymbols} = {n(e.b)} mm, thickness t = {e.thicknessSymbols} = {n(e.t)} mm; b/t = {n(e.b)}/{n(e.t)} = <strong>{n(e.ratio)}</strong> {e.ratio <= e.limit ? "≤" : ">"} limit{" "}
+            {n(e.limit)}
+            {c ? <Clause>{c.clause}</Clause> : null}
+            {e.governs && c ? (
+              <>
+                ; b/t ÷ limit = <strong>{c.utilisation.toFixed(3)}</strong>
+              </>
+            ) : (
+              "; not the largest of its kind"
+            )}
+          </Step>
+        );
+      })}
     </section>
   );
 }

@@ -5,7 +5,7 @@
 // from welded ones (basis/en1993.ts: classification widths from the fillets or between the
 // corner radii, rolled shear areas, LTB curve b/c for rolled I, no flange-to-web weld). A catalogue is a short list, so it is simply enumerated;
 // the plate search (search.ts) is untouched and the two results are put side by side here.
-import { BASIS_MODULES, CHECK_UNITS, Scratch, attachDesign, checkClause, deflectionWorking, evaluateCandidate, shearWorking, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
+import { BASIS_MODULES, CHECK_UNITS, Scratch, attachDesign, checkClause, deflectionWorking, evaluateCandidate, shearWorking, slendernessWorking, makeCheckContext, type CandidateVerdict, type CheckResult } from "./checks";
 import type { RolledSection } from "./basis/core";
 import { SHAPE_FAMILY, catalogueSectionInput, type CatalogueSection, type CatalogueShape } from "./catalogue";
 import { MIN_WELD_THROAT, WELD_RUNS, weldCostPerMetre, type CostParts } from "./cost";
@@ -221,6 +221,8 @@ export function catalogueCandidateChecks(section: CatalogueSection, problem: Sea
   if (dw) out.deflectionWorking = dw;
   const sw = shearWorking(problem, fk, s);
   if (sw) out.shearWorking = sw;
+  const lw = slendernessWorking(fk, pr.v, ctx, s);
+  if (lw) out.slendernessWorking = lw;
   attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, pr.v, ctx, s, problem));
   return out;
 }

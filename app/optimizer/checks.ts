@@ -182,6 +182,49 @@ export interface CandidateVerdict {
   deflectionWorking?: DeflectionWorking;
   /** With the allowable basis's shear check: where τ = V·Q/(Iz·b) is largest and its terms, for the calculation record. */
   shearWorking?: ShearWorking;
+  /** With the brief's slenderness limits: each limited element's b and t, for the calculation record. */
+  slendernessWorking?: SlendernessWorking[];
+}
+
+/** One element under one of the brief's slenderness limits, as the check measured it (records only). */
+export interface SlendernessWorking {
+  /** the check it belongs to (slenderness-outstand …) */
+  name: CheckName;
+  element: string;
+  /** the width and thickness in the family's symbols, e.g. "(b − tw)/2" and "tf" */
+  widthSymbols: string;
+  thicknessSymbols: string;
+  /** mm */
+  b: number;
+  t: number;
+  /** b/t, as the check evaluated it */
+  ratio: number;
+  /** the brief's limit */
+  limit: number;
+  /** this element's ratio is the check's demand (the largest of its kind) */
+  governs: boolean;
+}
+
+/** After evaluateCandidate(all = true): every element a slenderness limit applies to, with its b and t. */
+export function slendernessWorking(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scratch): SlendernessWorking[] | undefined {
+  const kinds = fk.slenderKinds;
+  const out: SlendernessWorking[] = [];
+  const bt = new Float64Array(2 * kinds.length);
+  fk.slenderParts(v, bt);
+  fk.slender(v, s.ratios);
+  const taken = new Set<number>();
+  for (let i = 0; i < kinds.length; i++) {
+    const c = kinds[i];
+    const limit = ctx.slenderLimit[c];
+    if (limit !== limit) continue;
+    const ratio = s.ratios[i];
+    // the first element holding the largest ratio is the one evaluateCandidate kept as the demand
+    const governs = !taken.has(c) && ratio === s.demand[c];
+    if (governs) taken.add(c);
+    const w = fk.slenderWords[i];
+    out.push({ name: CHECK_NAMES[c], element: w.element, widthSymbols: w.width, thicknessSymbols: w.thickness, b: bt[2 * i], t: bt[2 * i + 1], ratio, limit, governs });
+  }
+  return out.length ? out : undefined;
 }
 
 /** The allowable-stress shear check as evaluated (records only; not stored with candidates). */
@@ -307,6 +350,8 @@ export function candidateChecks(family: Family, dims: Record<string, number>, pr
   if (dw) out.deflectionWorking = dw;
   const sw = shearWorking(problem, fk, s);
   if (sw) out.shearWorking = sw;
+  const lw = slendernessWorking(fk, v, ctx, s);
+  if (lw) out.slendernessWorking = lw;
   attachDesign(out, BASIS_MODULES[ctx.basis].design(fk, v, ctx, s, problem));
   return out;
 }

@@ -50,6 +50,13 @@ export interface FamilyKernel {
   slenderKinds: readonly number[];
   slender(v: Float64Array, out: Float64Array): void;
   /**
+   * The plate width and thickness of each slenderness element (out[2i] = b, out[2i + 1] = t, mm):
+   * the one place the elements are measured; slender() is b/t of these.
+   */
+  slenderParts(v: Float64Array, out: Float64Array): void;
+  /** Per element, for the calculation record: what it is and its width and thickness in the family's symbols. */
+  slenderWords: readonly { element: string; width: string; thickness: string }[];
+  /**
    * How the centroid moves as the free width grows, for sections symmetric about the vertical
    * axis: +1 up (the free plate is the top plate), −1 down (bottom plate), 0 fixed at mid-depth
    * (symmetric about the horizontal axis too). Adding area whose centroid lies above the
@@ -89,7 +96,7 @@ function tieOrderOf(dims: readonly string[], family: Family): number[] {
   return idx.sort((a, b) => rank(dimRole(family, dims[a])) - rank(dimRole(family, dims[b])) || a - b);
 }
 
-type Spec = Omit<FamilyKernel, "family" | "dims" | "roles" | "tieOrder" | "shearBands" | "shearDir">;
+type Spec = Omit<FamilyKernel, "family" | "dims" | "roles" | "tieOrder" | "shearBands" | "shearDir" | "slender">;
 
 /** ∫ over a flange band of Q(y) dy per unit width: c·t²/2 − t³/6 (Q(s) = s·(c − s/2) from the outer face). */
 const g = (c: number, t: number) => (c * t * t) / 2 - (t * t * t) / 6;
@@ -118,7 +125,8 @@ const SPECS: Record<Family, Spec> = {
     freeMin: () => 0,
     secondMin: () => 0,
     slenderKinds: [],
-    slender: () => {},
+    slenderParts: () => {},
+    slenderWords: [],
     centroidDir: 0,
     unsymmetric: false,
   },
@@ -140,10 +148,16 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => v[3],
     secondMin: () => 0,
     slenderKinds: [C_OUTSTAND, C_WEB],
-    slender: (v, o) => {
-      o[0] = (v[1] - v[3]) / 2 / v[2];
-      o[1] = (v[0] - 2 * v[2]) / v[3];
+    slenderParts: (v, o) => {
+      o[0] = (v[1] - v[3]) / 2;
+      o[1] = v[2];
+      o[2] = v[0] - 2 * v[2];
+      o[3] = v[3];
     },
+    slenderWords: [
+      { element: "flange outstand", width: "(b − tw)/2", thickness: "tf" },
+      { element: "web", width: "d − 2·tf", thickness: "tw" },
+    ],
     centroidDir: 0,
     unsymmetric: false,
   },
@@ -168,11 +182,19 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => v[5],
     secondMin: (v) => v[5],
     slenderKinds: [C_OUTSTAND, C_OUTSTAND, C_WEB],
-    slender: (v, o) => {
-      o[0] = (v[1] - v[5]) / 2 / v[2];
-      o[1] = (v[3] - v[5]) / 2 / v[4];
-      o[2] = (v[0] - v[2] - v[4]) / v[5];
+    slenderParts: (v, o) => {
+      o[0] = (v[1] - v[5]) / 2;
+      o[1] = v[2];
+      o[2] = (v[3] - v[5]) / 2;
+      o[3] = v[4];
+      o[4] = v[0] - v[2] - v[4];
+      o[5] = v[5];
     },
+    slenderWords: [
+      { element: "top flange outstand", width: "(bt − tw)/2", thickness: "tft" },
+      { element: "bottom flange outstand", width: "(bb − tw)/2", thickness: "tfb" },
+      { element: "web", width: "d − tft − tfb", thickness: "tw" },
+    ],
     centroidDir: -1,
     unsymmetric: false,
   },
@@ -194,10 +216,16 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => v[3],
     secondMin: () => 0,
     slenderKinds: [C_OUTSTAND, C_WEB],
-    slender: (v, o) => {
-      o[0] = (v[1] - v[3]) / v[2];
-      o[1] = (v[0] - 2 * v[2]) / v[3];
+    slenderParts: (v, o) => {
+      o[0] = v[1] - v[3];
+      o[1] = v[2];
+      o[2] = v[0] - 2 * v[2];
+      o[3] = v[3];
     },
+    slenderWords: [
+      { element: "flange outstand", width: "b − tw", thickness: "tf" },
+      { element: "web", width: "d − 2·tf", thickness: "tw" },
+    ],
     centroidDir: 0,
     unsymmetric: false,
   },
@@ -219,10 +247,16 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => 2 * v[3],
     secondMin: () => 0,
     slenderKinds: [C_INTERNAL, C_STEM],
-    slender: (v, o) => {
-      o[0] = (v[1] - 2 * v[3]) / v[2];
-      o[1] = (v[0] - v[2]) / v[3];
+    slenderParts: (v, o) => {
+      o[0] = v[1] - 2 * v[3];
+      o[1] = v[2];
+      o[2] = v[0] - v[2];
+      o[3] = v[3];
     },
+    slenderWords: [
+      { element: "top plate between the legs", width: "b − 2·tf", thickness: "tw" },
+      { element: "leg", width: "d − tw", thickness: "tf" },
+    ],
     centroidDir: 1,
     unsymmetric: false,
   },
@@ -243,10 +277,16 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => v[3],
     secondMin: () => 0,
     slenderKinds: [C_OUTSTAND, C_STEM],
-    slender: (v, o) => {
-      o[0] = (v[1] - v[3]) / 2 / v[2];
-      o[1] = (v[0] - v[2]) / v[3];
+    slenderParts: (v, o) => {
+      o[0] = (v[1] - v[3]) / 2;
+      o[1] = v[2];
+      o[2] = v[0] - v[2];
+      o[3] = v[3];
     },
+    slenderWords: [
+      { element: "flange outstand", width: "(b − tw)/2", thickness: "tf" },
+      { element: "stem", width: "d − tf", thickness: "tw" },
+    ],
     centroidDir: 1,
     unsymmetric: false,
   },
@@ -269,10 +309,16 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => 2 * v[3],
     secondMin: () => 0,
     slenderKinds: [C_INTERNAL, C_WEB],
-    slender: (v, o) => {
-      o[0] = (v[1] - 2 * v[3]) / v[2];
-      o[1] = (v[0] - 2 * v[2]) / v[3];
+    slenderParts: (v, o) => {
+      o[0] = v[1] - 2 * v[3];
+      o[1] = v[2];
+      o[2] = v[0] - 2 * v[2];
+      o[3] = v[3];
     },
+    slenderWords: [
+      { element: "flange between the webs", width: "b − 2·tw", thickness: "tf" },
+      { element: "web", width: "d − 2·tf", thickness: "tw" },
+    ],
     centroidDir: 0,
     unsymmetric: false,
   },
@@ -292,21 +338,38 @@ const SPECS: Record<Family, Spec> = {
     freeMin: (v) => v[2],
     secondMin: () => 0,
     slenderKinds: [C_OUTSTAND, C_OUTSTAND],
-    slender: (v, o) => {
-      o[0] = (v[0] - v[2]) / v[2];
-      o[1] = (v[1] - v[2]) / v[2];
+    slenderParts: (v, o) => {
+      o[0] = v[0] - v[2];
+      o[1] = v[2];
+      o[2] = v[1] - v[2];
+      o[3] = v[2];
     },
+    slenderWords: [
+      { element: "vertical leg", width: "d − t", thickness: "t" },
+      { element: "horizontal leg", width: "b − t", thickness: "t" },
+    ],
     centroidDir: 0,
     unsymmetric: true,
   },
 };
+
+/** b/t of each element from slenderParts (the same division the ratios always were: ((b − tw)/2)/tf …). */
+function slenderOf(spec: Spec): FamilyKernel["slender"] {
+  const parts = spec.slenderParts,
+    n = spec.slenderKinds.length;
+  const bt = new Float64Array(2 * n);
+  return (v, o) => {
+    parts(v, bt);
+    for (let i = 0; i < n; i++) o[i] = bt[2 * i] / bt[2 * i + 1];
+  };
+}
 
 export const FAMILY_KERNELS: Record<Family, FamilyKernel> = Object.fromEntries(
   (Object.keys(SPECS) as Family[]).map((f) => {
     const dims = FAMILY_DIMENSIONS[f];
     return [
       f,
-      { ...SPECS[f], family: f, dims, roles: dims.map((d) => dimRole(f, d)), tieOrder: tieOrderOf(dims, f), shearBands: SHEAR[f].bands, shearDir: SHEAR[f].dir },
+      { ...SPECS[f], slender: slenderOf(SPECS[f]), family: f, dims, roles: dims.map((d) => dimRole(f, d)), tieOrder: tieOrderOf(dims, f), shearBands: SHEAR[f].bands, shearDir: SHEAR[f].dir },
     ];
   }),
 ) as unknown as Record<Family, FamilyKernel>;

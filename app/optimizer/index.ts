@@ -12,7 +12,7 @@ export { searchSections } from "./search";
 export { PROGRESS_UNIT, type ProgressDetail, type SearchOptions, type SearchResult, type SearchCandidate, type SearchPoint } from "./grid";
 export { bruteForceSearch } from "./brute-force";
 export { restraintStudy, MAX_STUDY_DIVISIONS, type RestraintStudyPoint, type RestraintStudyResult, type RestraintStudyOptions } from "./restraint-study";
-export { candidateChecks, recordLines, designBasis, CHECK_CLAUSES, CHECK_UNITS, type CheckResult, type CheckUnit, type CandidateVerdict, type DeflectionWorking, type ShearWorking, type DesignBasisModule, type RecordLine } from "./checks";
+export { candidateChecks, recordLines, designBasis, CHECK_CLAUSES, CHECK_UNITS, type CheckResult, type CheckUnit, type CandidateVerdict, type DeflectionWorking, type ShearWorking, type SlendernessWorking, type DesignBasisModule, type RecordLine } from "./checks";
 export { chiLT, phiLT } from "./basis/en1993";
 export { cbFromMoments, minFilletLeg, AISC_FACTORS } from "./basis/aisc360";
 export { STABILITY_FAMILIES } from "./stability";

@@ -16,7 +16,7 @@ import { OptionProvenance } from "~/components/OptionProvenance";
 import { BasisNote } from "~/components/BasisAssumptions";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { Aisc360Checks } from "~/components/Aisc360Record";
-import { DeflectionWorked, ShearWorked } from "~/components/WorkedChecks";
+import { DeflectionWorked, ShearWorked, SlendernessWorked } from "~/components/WorkedChecks";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
@@ -298,6 +298,7 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
       )}
 
       <ShearWorked verdict={rec.verdict} units={units} />
+      <SlendernessWorked verdict={rec.verdict} />
       <DeflectionWorked verdict={rec.verdict} units={units} />
 
       <section aria-labelledby="props-h" className="break-inside-avoid">

@@ -46,6 +46,20 @@ describe("doubly symmetric I (d 400, b 200, tf 10, tw 8)", () => {
     expect(get(v, "slenderness-web").demand).toBe(47.5);
     expect(v.feasible).toBe(false);
     expect(v.governing).toBe("slenderness-outstand");
+    // the record's working: outstand (b − tw)/2 = 96 over tf = 10, web d − 2·tf = 380 over tw = 8 (engine contract, slenderness)
+    expect(v.slendernessWorking).toEqual([
+      { name: "slenderness-outstand", element: "flange outstand", widthSymbols: "(b − tw)/2", thicknessSymbols: "tf", b: 96, t: 10, ratio: 9.6, limit: 9, governs: true },
+      { name: "slenderness-web", element: "web", widthSymbols: "d − 2·tf", thicknessSymbols: "tw", b: 380, t: 8, ratio: 47.5, limit: 50, governs: true },
+    ]);
+  });
+
+  it("slenderness working of an angle: both legs under the one outstand limit, the longer governs (engine contract, slenderness)", () => {
+    const v = candidateChecks("angle", { d: 150, b: 100, t: 10 }, problem({ families: ["angle"], slenderness: { outstand: 15 } }));
+    expect(v.slendernessWorking!.map((e) => [e.element, e.b, e.t, e.ratio, e.governs])).toEqual([
+      ["vertical leg", 140, 10, 14, true],
+      ["horizontal leg", 90, 10, 9, false],
+    ]);
+    expect(get(v, "slenderness-outstand").demand).toBe(14);
   });
 
   it("deflection 5·w·L⁴/(384·E·I) against L/ratio (simply supported, uniform load; AISC Steel Construction Manual beam diagrams case 1; mem.)", () => {

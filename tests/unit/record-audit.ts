@@ -126,6 +126,15 @@ export const FORMULA_TEXT: readonly string[] = [
   "> 2)",
   "≤ 2)",
   "h/b ≤ 2",
+  // the brief's slenderness limits: each element's width and thickness in the family's symbols
+  // (family-kernel.ts slenderWords; the rest of them carry no digit)
+  "(b − tw)/2",
+  "(bt − tw)/2",
+  "(bb − tw)/2",
+  "d − 2·tf",
+  "b − 2·tf",
+  "b − 2·tw",
+  "b/t ÷ limit",
   // AISC 360-16 (the engine's record lines)
   "Fnw = 0.60·FEXX",
   "on the throat 0.707·w",
@@ -420,6 +429,21 @@ export function labelledMismatches(html: string, e: EngineFacts): Labelled {
     eq("shear Iz", m?.[3], formatNumber(sw.Iz));
     eq("shear τ", m?.[5], formatNumber(sw.tau));
     eq("shear τ/allowable", after("τ/allowable ="), e.verdict.checks.find((c) => c.name === "shear")!.utilisation.toFixed(3));
+  }
+
+  // the brief's slenderness limits worked through, element by element
+  const sl = e.verdict.slendernessWorking ?? [];
+  eq("slenderness worked", String(/data-testid="record-slenderness"/.test(calc)), String(sl.length > 0));
+  for (const el of sl) {
+    const m = new RegExp(`${esc(el.element)}: width b = ${esc(el.widthSymbols)} = ${NUM} mm, thickness t = ${esc(el.thicknessSymbols)} = ${NUM} mm; b/t = ${NUM}/${NUM} = ${NUM} [≤>] limit ${NUM}`).exec(text);
+    eq(`${el.element} b`, m?.[1], formatNumber(el.b));
+    eq(`${el.element} t`, m?.[2], formatNumber(el.t));
+    eq(`${el.element} b in b/t`, m?.[3], formatNumber(el.b));
+    eq(`${el.element} t in b/t`, m?.[4], formatNumber(el.t));
+    eq(`${el.element} b/t`, m?.[5], formatNumber(el.ratio));
+    eq(`${el.element} limit`, m?.[6], formatNumber(el.limit));
+    if (el.governs)
+      eq(`${el.element} b/t ÷ limit`, new RegExp(`${esc(el.element)}: width [^\\n]*b/t ÷ limit = ${NUM}`).exec(text)?.[1], e.verdict.checks.find((c) => c.name === el.name)!.utilisation.toFixed(3));
   }
 
   // the worked checks, by basis

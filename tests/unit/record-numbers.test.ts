@@ -53,23 +53,23 @@ const CASES: Case[] = [
     family: "tee",
     dims: { d: 200, b: 150, tf: 20, tw: 10 },
     units: "si",
-    shows: ["5·w·L⁴/(384·E·I) ≤ L/limit ratio", "τ = V·Q/(Iz·b)", "data-testid=\"quantity\"", "data-testid=\"fibre-hogging\""],
+    shows: ["5·w·L⁴/(384·E·I) ≤ L/limit ratio", "τ = V·Q/(Iz·b)", "flange outstand: width b = (b − tw)/2", "stem: width b = d − tf", "data-testid=\"quantity\"", "data-testid=\"fibre-hogging\""],
   },
   {
     name: "allowable, welded angle (unsymmetric), US customary",
-    problem: { ...GRID, families: ["angle"], moment: { sagging: 8, hogging: 0 }, shear: 10, allowable: { tension: 150, compression: 140, shear: 90 }, deflection: { span: 3, serviceLoad: 2, limitRatio: 200, E: 200000 } },
+    problem: { ...GRID, families: ["angle"], moment: { sagging: 8, hogging: 0 }, shear: 10, allowable: { tension: 150, compression: 140, shear: 90 }, deflection: { span: 3, serviceLoad: 2, limitRatio: 200, E: 200000 }, slenderness: { outstand: 15 } },
     family: "angle",
     dims: { d: 150, b: 100, t: 12 },
     units: "us",
-    shows: ["Unsymmetric section (Iyz =", "bends about an inclined axis"],
+    shows: ["Unsymmetric section (Iyz =", "bends about an inclined axis", "horizontal leg: width b = b − t", "not the largest of its kind"],
   },
   {
     name: "allowable, rolled IPE 300 from a catalogue, US customary, with shear and deflection",
-    problem: { ...GRID, families: ["i"], moment: { sagging: 60, hogging: 0 }, shear: 90, allowable: { tension: 160, compression: 160, shear: 95 }, deflection: { span: 6, serviceLoad: 8, limitRatio: 250, E: 210000 } },
+    problem: { ...GRID, families: ["i"], moment: { sagging: 60, hogging: 0 }, shear: 90, allowable: { tension: 160, compression: 160, shear: 95 }, deflection: { span: 6, serviceLoad: 8, limitRatio: 250, E: 210000 }, slenderness: { outstand: 9, web: 40 } },
     family: "i",
     dims: { d: 300, b: 150, tw: 7.1, tf: 10.7, r: 15 },
     units: "us",
-    shows: ["IPE 300 (rolled, from Starter", "data-testid=\"record-shear\"", "data-testid=\"record-deflection\""],
+    shows: ["IPE 300 (rolled, from Starter", "data-testid=\"record-shear\"", "data-testid=\"record-deflection\"", "web: width b = d − 2·tf", "b/t ÷ limit ="],
     rolled: { designation: "IPE 300", shape: "I", catalogue: "Starter" },
   },
   {
@@ -227,6 +227,19 @@ describe("calculation record audit: a wrong number fails it", () => {
     const html = enHtml.replace(`= <strong>${top} MPa`, `= <strong>${top.slice(1)} MPa`);
     expect(html).not.toBe(enHtml);
     expect(labelledMismatches(html, e).failures).toContain(`sagging σ_top: the record shows “${top.slice(1)}”, the engine's value is “${top}”`);
+  });
+
+  it("a slenderness line with a wrong thickness is caught, by its label and as a number of no engine value", () => {
+    const tee = CASES.find((c) => c.name.startsWith("allowable, welded tee"))!;
+    const problem = parseSearchProblem(tee.problem);
+    const e = engineFacts(tee, problem);
+    const html = renderRecord(tee, problem);
+    const el = e.verdict.slendernessWorking!.find((x) => x.element === "stem")!;
+    const right = `thickness t = ${el.thicknessSymbols} = ${formatNumber(el.t)} mm`;
+    const bad = html.replace(right, `thickness t = ${el.thicknessSymbols} = 11.5 mm`);
+    expect(bad).not.toBe(html);
+    expect(labelledMismatches(bad, e).failures).toContain(`stem t: the record shows “11.5”, the engine's value is “${formatNumber(el.t)}”`);
+    expect(unmatchedNumbers(bad, e).some((x) => x.startsWith("11.5 mm — no engine value"))).toBe(true);
   });
 
   it("a value shown without the unit conversion (SI number beside a US unit) is caught", () => {
