@@ -3,6 +3,8 @@
 // comparison reruns the engine's checks on the saved option under the new limits.
 import { afterAll, describe, expect, test } from "vitest";
 import { closeDb, db, parseJson } from "~/lib/db.server";
+import { optionNo } from "~/lib/numbering";
+import { projectNumbers } from "~/lib/numbering.server";
 import { compareRecheck } from "~/lib/recheck.server";
 import { candidateChecks } from "~/optimizer/checks";
 import { searchProblemSchema } from "~/optimizer/search-schema";
@@ -38,7 +40,9 @@ describe("review state", () => {
     expect(await optionState(optionId)).toBe("in_review");
     const mails = await db("outbox").orderBy("id", "desc").limit(5);
     expect(Number((await db("outbox").count({ n: "*" }).first())!.n)).toBeGreaterThan(outboxBefore);
-    expect(mails.some((m) => m.to_address === "reviewer@tallowfield.example" && m.subject.includes(`option ${optionId}`))).toBe(true);
+    // Named as its pages name it: its number in the project, not its database id.
+    const no = optionNo(await projectNumbers({ options: [optionId] }), optionId);
+    expect(mails.some((m) => m.to_address === "reviewer@tallowfield.example" && m.subject.includes(`option ${no} in `))).toBe(true);
     // Asking twice is refused.
     expect((await callRoute(mod.action, await formPost("engineer", `/options/${optionId}`, { intent: "requestReview" }), params)).status).toBe(409);
     // An engineer may not decide; returning needs a comment.
