@@ -3,6 +3,7 @@
 // form (?depth=&family=), so it works by keyboard and without scripts; the loader answers it
 // (sweep-page.server.ts depthView). Depths are offered from the sweep's own grid, labelled in the
 // page's units; the query carries them in mm, as stored.
+import { useEffect, useState } from "react";
 import { Form } from "react-router";
 import { checkLabel, familyLabel } from "~/lib/labels";
 import { formatNumber } from "~/components/PropertyTable";
@@ -47,6 +48,12 @@ export function DepthBests({ view, units, onSelect, selected }: { view: DepthVie
   const asked = query.family ? [query.family] : view.families;
   const depthError = errors?.depth,
     familyError = errors?.family;
+  // Controlled, and never re-mounted on an answer: focus stays where the keyboard left it (the
+  // Show button); the fields follow the URL when it changes otherwise (back, forward, a link).
+  const [depthValue, setDepthValue] = useState(query.depth === null ? "" : depthParam(query.depth));
+  const [familyValue, setFamilyValue] = useState(query.family ?? "");
+  useEffect(() => setDepthValue(query.depth === null ? "" : depthParam(query.depth)), [query.depth]);
+  useEffect(() => setFamilyValue(query.family ?? ""), [query.family]);
   return (
     <section aria-labelledby="depth-h" className="space-y-2" data-testid="depth-bests">
       <h2 id="depth-h" className="text-lg font-bold">
@@ -56,12 +63,13 @@ export function DepthBests({ view, units, onSelect, selected }: { view: DepthVie
         Each family's lightest section that passes every check, at every depth of the grid, kept with the sweep: choose a depth to see them without running it again. A section two families describe (a mono-symmetric I with equal flanges is an I) is listed once, under the family the brief lists first.
       </p>
       {grid ? (
-        <Form method="get" preventScrollReset key={`${query.depth}|${query.family}`} className="flex flex-wrap items-end gap-3 text-sm" aria-label="Lightest at a depth">
+        <Form method="get" preventScrollReset className="flex flex-wrap items-end gap-3 text-sm" aria-label="Lightest at a depth">
           <label className="block">
             <span className="block font-semibold">Depth ({lengthUnit})</span>
             <select
               name="depth"
-              defaultValue={query.depth === null ? "" : depthParam(query.depth)}
+              value={depthValue}
+              onChange={(e) => setDepthValue(e.target.value)}
               aria-invalid={depthError ? true : undefined}
               aria-describedby={depthError ? "depth-error" : undefined}
               className="rounded-md border border-ink/30 bg-white px-2 py-1"
@@ -83,7 +91,8 @@ export function DepthBests({ view, units, onSelect, selected }: { view: DepthVie
             <span className="block font-semibold">Family</span>
             <select
               name="family"
-              defaultValue={query.family ?? ""}
+              value={familyValue}
+              onChange={(e) => setFamilyValue(e.target.value)}
               aria-invalid={familyError ? true : undefined}
               aria-describedby={familyError ? "family-error" : undefined}
               className="rounded-md border border-ink/30 bg-white px-2 py-1"
@@ -137,18 +146,20 @@ function DepthRows({
   // Why a family has no row at this depth, in words that claim no more than is known.
   const missing =
     complete === true
-      ? (f: string) => `No feasible ${familyLabel(f).toLowerCase()} at ${depth}: every one of that depth on the grid fails a check.`
+      ? () => `None of this family at ${depth} passes every check.`
       : () => `Nothing stored at ${depth} for this family (the sweep was stored before it recorded whether every depth was kept).`;
   if (rows.length === 0)
     return (
       <p className="rounded-md border border-ink/30 bg-white p-3 text-sm" data-testid="depth-empty">
         {complete === true ? (
           <>
-            <strong>No feasible section at {depth}</strong>
-            {asked.length === 1 ? ` for the ${familyLabel(asked[0]).toLowerCase()} family` : ""}: every shape of that depth on the grid fails a check. Another depth, or the limits of a recheck, may give one.
+            <strong>
+              No feasible section{asked.length === 1 ? ` of the family “${familyLabel(asked[0])}”` : ""} at {depth}
+            </strong>
+            : every shape of that depth on the grid fails a check. Another depth, or the limits of a recheck, may give one.
           </>
         ) : (
-          missing(asked[0])
+          missing()
         )}
       </p>
     );
@@ -162,7 +173,7 @@ function DepthRows({
               Family
             </th>
             <th scope="col" className="p-2">
-              Section
+              Rank
             </th>
             <th scope="col" className="p-2">
               Dimensions
@@ -191,7 +202,7 @@ function DepthRows({
                     {familyLabel(f)}
                   </th>
                   <td className="p-2 text-ink/80" colSpan={6}>
-                    {missing(f)}
+                    {missing()}
                   </td>
                 </tr>
               );
@@ -202,14 +213,14 @@ function DepthRows({
                 </th>
                 <td className="p-2">
                   <FamilyMarker family={r.family} className="mr-1" />
-                  {r.family === f ? `#${r.rank}` : `#${r.rank}, the same section as the ${familyLabel(r.family).toLowerCase()} (listed once, under the family listed first)`}
+                  {r.family === f ? `#${r.rank}` : `#${r.rank}: the same section, listed once under ${familyLabel(r.family)} (the family listed first)`}
                 </td>
                 <td className="p-2 tabular-nums">{describeDimensions(r.dimensions, units)}</td>
                 <td className="p-2 text-right tabular-nums">{formatNumber(fromSI("massPerLength", r.massPerMetre, units))}</td>
                 <td className="p-2 text-right tabular-nums">{r.utilisation.toFixed(3)}</td>
                 <td className="p-2">{checkLabel(r.governing)}</td>
                 <td className="p-2">
-                  <button type="button" className="rounded-md border border-ink/30 bg-white px-2 py-0.5 font-semibold" aria-label={`Select ${familyLabel(f).toLowerCase()} #${r.rank}`} onClick={() => onSelect(r)}>
+                  <button type="button" className="rounded-md border border-ink/30 bg-white px-2 py-0.5 font-semibold" aria-label={`Select ${familyLabel(f)} #${r.rank}`} onClick={() => onSelect(r)}>
                     Select
                   </button>
                 </td>

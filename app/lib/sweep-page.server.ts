@@ -296,7 +296,7 @@ export async function depthView(sweep: Pick<SweepView, "id" | "problem" | "depth
   const depth = q.depth === undefined ? undefined : depths.find((d) => sameDepth(d, q.depth!));
   if (q.depth !== undefined && depth === undefined)
     errors.depth = `depth: ${q.depth} mm is not on this sweep's depth grid (${problem.depth.min} to ${problem.depth.max} mm by ${problem.depth.step} mm)`;
-  if (q.family && !families.includes(q.family)) errors.family = `family: this sweep did not search ${familyLabel(q.family).toLowerCase()} sections (it searched ${families.map((f) => familyLabel(f).toLowerCase()).join(", ")})`;
+  if (q.family && !families.includes(q.family)) errors.family = `family: this sweep did not search “${familyLabel(q.family)}” (it searched ${families.map((f) => `“${familyLabel(f)}”`).join(", ")})`;
   view.query = { depth: depth ?? q.depth ?? null, family: q.family ?? null };
   if (Object.keys(errors).length) return { ...view, errors };
   if (depth === undefined || !grid) return view;

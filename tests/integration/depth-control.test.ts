@@ -75,7 +75,7 @@ describe("the sweep page's depth control", () => {
     const off = await view(sweepId, "?depth=305");
     expect(off.errors?.depth).toMatch(/305 mm is not on this sweep's depth grid \(100 to 400 mm by 20 mm\)/);
     const notSearched = await view(sweepId, "?depth=300&family=box");
-    expect(notSearched.errors?.family).toMatch(/^family: this sweep did not search box sections/);
+    expect(notSearched.errors?.family).toMatch(/^family: this sweep did not search “Box” \(it searched “I \(equal flanges\)”, “Mono-symmetric I”, “Channel”\)$/);
     const unknown = await view(sweepId, "?depth=300&family=girder");
     expect(unknown.errors?.family).toMatch(/family must be one of/);
     // a sweep of another team is still a 404 whatever the query
