@@ -68,8 +68,8 @@
 //       (the integral grows for every a), and ∫|y − a| dA for a fixed a is affine in the free
 //       width (each plate's heights are fixed: width × a fixed ∫|y − a| dy) and ≥ Zz: the
 //       closed-form least width of (4), with a at the point's equal-area axis in rowStart, at
-//       mid-depth in the raw key, and mono-i's knapsack of (4) on it; the mono-i seed key uses
-//       ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4.
+//       mid-depth in the raw key, and mono-i's knapsack of (4) on it (over a depth range, (R),
+//       about a fixed a at the deepest depth).
 //   (E2) LTB (restraint given), for each moment sign with M > 0: M ≤ Mb = B(W·fy, Mcr)/γM1,
 //       B(Mpl, Mcr) = χLT(√(Mpl/Mcr))·Mpl. B is non-decreasing in Mpl and in Mcr, and
 //       non-increasing in αLT. With Φ = (1 + α(λ − 0.2) + λ²)/2, R = √(Φ² − λ²) and λ ≥ 0.2:
@@ -139,7 +139,7 @@
 //       by the row's fixed web section, flange local buckling by the flange classes the range
 //       holds; proof in its comment), combined with (U2) in one bisection.
 //   Shear, welds and J10 are not used to bound (they only make more points infeasible).
-// (R) mono-i in best mode: one node per (tft, tfb, tw) and run of consecutive valid depths (the
+// (R) mono-i, both passes: one node per (tft, tfb, tw) and run of consecutive valid depths (the
 //   width minima, tw, do not involve d), over every bt and bb: 10^6 per-depth super nodes were
 //   each bounded on their own. dBound bounds the box d ∈ [d1, d2] × bt × bb:
 //   - (6) the web's (d − tft − tfb)/tw rises with d: a last depth; the outstands bound bt, bb.
@@ -194,7 +194,8 @@
 //   every family, so entries pop lightest first across families. An entry (a raw row, a row
 //   tail, a mono-i node) with key o, a lower bound on the objective of its points, is needed:
 //   - for a context point (each family's lightest feasible per depth) only while o is within
-//     its (family, depth)'s lightest feasible so far (1e-9 margin for ties): then as above;
+//     its (family, depth)'s lightest feasible so far (1e-9 margin for ties): then as above; a
+//     mono-i depth range (R) while o is within the lightest so far of any depth it holds;
 //   - for the front, otherwise. A point x is off the front when some feasible y has
 //     objective(y) < objective(x) and u(y) < u(x) (u = utilisation; front.ts's "beats").
 //     cap = the least utilisation among the evaluated feasible candidates strictly lighter
@@ -206,9 +207,11 @@
 //     limits scaled by cap (the required I divided by cap) each bound excludes only points
 //     that cannot reach u ≤ cap ((E1), (E2), (E4) likewise divide the demand by cap). So the
 //     entry is re-bounded at cap when it pops: a row tail whose first point cannot reach cap
-//     is re-queued at its first point that can, a mono-i node whose bound rose (by more than
-//     REKEY) is re-queued at it, anything else is expanded or its point evaluated. What is dropped stays beaten: dominance is transitive (strictly
-//     lighter and strictly lower twice over), and only evaluated candidates enter the front.
+//     is re-queued at its first point that can, a mono-i node or depth range whose bound rose
+//     (by more than REKEY) is re-queued at it (dBound's bounds at cap are the same "demand ÷ cap"
+//     reading of (R)'s), anything else is expanded or its point evaluated. What is dropped stays
+//     beaten: dominance is transitive (strictly lighter and strictly lower twice over), and only
+//     evaluated candidates enter the front.
 //   A feasible point does not end its row here: heavier points may reach lower utilisation.
 //   The heap empties, so every grid point is evaluated or proven off the front and heavier
 //   than its depth's context point: the front and context equal brute force's.
@@ -269,7 +272,6 @@ const OUT_SHEAR = 0,
 const KIND_READY = 0,
   KIND_RAW = 1,
   KIND_SUPER = 2,
-  KIND_SUPER_RAW = 3,
   KIND_DRANGE = 4;
 /** mono-i depth-range nodes (R) this short or shorter are expanded into one super node per depth. */
 const DRANGE_LEAF = 2;
@@ -1280,14 +1282,11 @@ class FamilySearch {
   seed(): void {
     if (this.pf.axes.some((a) => a.length === 0)) return;
     if (this.fk.second >= 0) {
-      if (this.gridMode) this.seedSupers();
-      else {
-        // (S) where LTB is checked (elsewhere the first rows' bounds are tight enough that the first
-        // feasible point found is at or near the best): before the ranges are bounded, so they are
-        // bounded with its cut
-        if (this.en?.restraint || this.us?.restraint) this.seedIncumbent();
-        this.seedDepthRanges();
-      }
+      // (S) in best mode where LTB is checked (elsewhere the first rows' bounds are tight enough
+      // that the first feasible point found is at or near the best): before the ranges are
+      // bounded, so they are bounded with its cut. Grid mode has no incumbent's cut to feed.
+      if (!this.gridMode && (this.en?.restraint || this.us?.restraint)) this.seedIncumbent();
+      this.seedDepthRanges();
     } else this.seedRows();
     const sd = this.seeds;
     for (let i = 0; i < sd.size; i++) this.pending += sd.n[i];
@@ -1369,6 +1368,14 @@ class FamilySearch {
     return u < 1 && u > 1e-9 ? u : 1;
   }
 
+  /** capAt for a mono-i depth range (R), depth indices [dA, dB]: 1 while any of its depths may still hold its context point. */
+  rangeCapAt(o: number, dA: number, dB: number): number {
+    const c = this.t.ctxObj,
+      base = this.ctxBase;
+    for (let i = dA; i <= dB; i++) if (o <= c[base + i] * (1 + REL)) return 1;
+    return this.capAt(o, base + dA);
+  }
+
   /**
    * One popped heap entry. Grid mode first asks what the entry can still give: a context point
    * (its key is within its depth's lightest so far) needs every feasible point, so cap = 1;
@@ -1385,15 +1392,28 @@ class FamilySearch {
     // new key in turn (the front only ever lowers it, so the key stays a lower bound), and waits
     // at the last one: the front may have fallen further by the time it pops again.
     if (kind === KIND_DRANGE) {
+      if (this.gridMode) {
+        // (D) over a depth range: a context point of any of its depths needs cap 1; otherwise
+        // the front's cap at the key bounds every point of the range, re-keyed as a super node
+        cap = this.rangeCapAt(key, k, kHi);
+        if (cap < 1) {
+          let o = key;
+          for (let it = 0; it < 3; it++) {
+            const b = this.dBound(id, k, kHi, cap);
+            if (b === null) return;
+            k = this.dr.lo;
+            kHi = this.dr.hi;
+            if (!(b > o * (1 + REKEY))) break;
+            o = b;
+            cap = this.rangeCapAt(o, k, kHi);
+          }
+          if (o > key) {
+            this.push(o, id, k, kHi, KIND_DRANGE, this.dr.n);
+            return;
+          }
+        }
+      }
       this.stepDepthRange(id, k, kHi, cap);
-      return;
-    }
-    if (kind === KIND_SUPER_RAW) {
-      // Straight to the node's full bound at this cap, without re-keying on the cheap seed key:
-      // that key is so loose that each node popped about five times as the front fell (the
-      // all-families fine-grid brief of the bench: 2.7 million pops for 512,000 nodes, 25 % of
-      // its time).
-      this.pushSuper(id, 0, W.length - 1, cap);
       return;
     }
     if (kind === KIND_SUPER) {
@@ -1599,93 +1619,6 @@ class FamilySearch {
   enFlangeHi(t: number, tw: number): number {
     const bMax = 28 * Math.sqrt(235 / this.enFyMax(0, 0)) * t + tw;
     return firstAbove(this.W, bMax + REL * (Math.abs(bMax) + 1)) - 1;
-  }
-
-  seedSupers(): void {
-    const fk = this.fk,
-      gd = this.groupDims,
-      rad = this.radix,
-      v = this.v,
-      W = this.W,
-      sec = fk.second;
-    const secPos = gd.indexOf(sec);
-    // enumerate group dims except `second` (held at index 0)
-    const outer = gd.map((_, j) => j).filter((j) => j !== secPos);
-    const idx = new Int32Array(gd.length);
-    for (let j = 0; j < gd.length; j++) v[gd[j]] = this.pf.axes[gd[j]][0];
-    for (;;) {
-      if (fk.groupValid(v)) {
-        const nBt = W.length - firstAbove(W, fk.secondMin(v));
-        const kLo = firstAbove(W, fk.freeMin(v));
-        const nBb = W.length - kLo;
-        if (nBt > 0 && nBb > 0) {
-          this.t.grid += nBt * nBb;
-          const key = this.superRawKey(W[W.length - nBt], W[kLo], W[W.length - 1]);
-          if (key === key) this.seeds.append(key, this.encode(idx), 0, 0, KIND_SUPER_RAW, this.fam, nBt * nBb);
-          else this.t.ruledOut[this.cause] += nBt * nBb;
-        }
-      }
-      let o = outer.length - 1;
-      while (o >= 0) {
-        const j = outer[o];
-        idx[j]++;
-        if (idx[j] < rad[j]) {
-          v[gd[j]] = this.pf.axes[gd[j]][idx[j]];
-          break;
-        }
-        idx[j] = 0;
-        v[gd[j]] = this.pf.axes[gd[j]][0];
-        o--;
-      }
-      if (o < 0) break;
-    }
-  }
-
-  /**
-   * Cheap first key of a mono-i super node (d, tft, tfb, tw), no plates: every point of the
-   * section lies within d/2 of mid-depth and the web's I about mid-depth is at most tw·d³/12
-   * (its I grows with its height, at most d), so I_mid ≤ A_flanges·d²/4 + tw·d³/12; with
-   * Iz ≤ I_mid, (4), the flanges need A_f ≥ 4·(I_req − tw·d³/12)/d² (the thin-flange relation
-   * A_f ≈ M/(σ·d) − A_web/6 read as a bound). Objective = that flange area at its cheapest
-   * price plus the web. NaN (cause set) when even both flanges at the widest grid width, bMax,
-   * give less flange area than that: no point of the node passes, at utilisation 1 or below.
-   */
-  superRawKey(btLo: number, bbLo: number, bMax: number): number {
-    const v = this.v,
-      ctx = this.ctx;
-    const d = v[0],
-      tft = v[2],
-      tfb = v[4],
-      tw = v[5];
-    const req = this.baseIreq(d, 1);
-    let afNeed = Math.max(0, ((req - (tw * d * d * d) / 12) * 4) / (d * d));
-    const afMax = bMax * (tft + tfb) * (1 + REL);
-    if (afNeed > afMax) {
-      this.cause = this.Idefl > req * 0.999999 ? C_DEFL : ctx.aT <= ctx.aC ? C_TENS : C_COMP;
-      return NaN;
-    }
-    if (this.lim) {
-      // (E1) likewise ∫|y − d/2| dA ≤ A_flanges·d/2 + tw·d²/4 ≥ Zz
-      const zreq = this.enZreq(this.enFyMax(0, 0), 1);
-      afNeed = Math.max(afNeed, (2 * (zreq - (tw * d * d) / 4)) / d);
-      if (afNeed > afMax) {
-        this.cause = C_BEND;
-        return NaN;
-      }
-    }
-    const at0 = btLo * tft,
-      ab0 = bbLo * tfb,
-      aw = tw * (d - tft - tfb);
-    let key: number;
-    if (!ctx.cost) key = Math.max(afNeed, at0 + ab0) + aw;
-    else {
-      const pt = ctx.prices.get(tft)!,
-        pb = ctx.prices.get(tfb)!,
-        pw = ctx.prices.get(tw)!;
-      const extra = Math.max(0, afNeed - at0 - ab0);
-      key = (pt * at0 + pb * ab0 + extra * Math.min(pt, pb) + pw * aw) * ctx.density * 1e-6;
-    }
-    return key * (1 - REL);
   }
 
   encode(idx: Int32Array): number {
@@ -2079,7 +2012,7 @@ class FamilySearch {
     }
   }
 
-  // ---- mono-i in best mode: depth ranges (R) and a first incumbent (S) --------------------
+  // ---- mono-i: depth ranges (R, both passes) and a first incumbent (S, best mode) ----------
 
   /** what dBound left: the depth range (indices into the depth axis) and the shapes it stands for */
   private dr = { lo: 0, hi: 0, n: 0 };

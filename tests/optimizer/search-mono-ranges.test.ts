@@ -2,7 +2,8 @@
 // depth, bt and bb at once, the local-search first incumbent and the class-4 flange width limit
 // must leave the best exactly brute force's. Random small mono-i problems with long depth axes (so
 // ranges are split several times before single depths) under the allowable, EN 1993 and AISC 360
-// bases; each compares the best-only search (front "evaluated") with plain enumeration.
+// bases; each compares the best-only search (front "evaluated") with plain enumeration, and the
+// grid-front search (the same depth ranges at the front's dominance cap) with its front and context.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { bruteForceSearch } from "~/optimizer/brute-force";
@@ -13,6 +14,7 @@ import { aisc360Arb, en1993Arb, problemArb } from "./search-arbitraries";
 
 const RUNS = Number(process.env.SEARCH_PROPERTY_RUNS ?? 0) || undefined;
 const runs = (n: number) => RUNS ?? n;
+const members = (xs: SearchResult["front"] | undefined) => (xs ?? []).map((c) => `${c.family} ${JSON.stringify(c.dimensions)}`);
 const key = (r: SearchResult) => (r.best ? `${r.best.family} ${JSON.stringify(r.best.dimensions)}` : "none");
 
 /** The problem as a mono-i one: up to 40 depths (ranges of many depths), at most 5 widths. */
@@ -38,6 +40,12 @@ function check(arb: fc.Arbitrary<SearchProblemInput>, seed: number, n: number): 
       const brute = bruteForceSearch(p);
       expect(key(fast)).toBe(key(brute));
       expect(fast.counts.grid).toBe(brute.counts.grid);
+      // issue 15: the grid front and the context points (each depth's lightest) through the same
+      // depth ranges, bounded at the front's dominance cap (search.ts (D)), member for member
+      const grid = searchSections(p);
+      expect(grid.frontScope).toBe("grid");
+      expect(members(grid.front)).toEqual(members(brute.front));
+      expect(members(grid.context)).toEqual(members(brute.context));
       if (brute.best) found++;
     }),
     { numRuns: runs(n), seed },
@@ -62,7 +70,7 @@ const ltbArb = fc
   }))
   .filter((p) => searchProblemSchema.safeParse(p).success);
 
-describe("mono-i best-only search against brute force (depth ranges, first incumbent)", () => {
+describe("mono-i search against brute force (depth ranges, first incumbent; best only and the grid front)", () => {
   it("allowable stresses", () => check(monoArb(problemArb), 7101, 80), 600_000);
   it("EN 1993 (LTB over depth ranges, class-4 flange limit, load height, hogging)", () => check(monoArb(en1993Arb), 7102, 100), 600_000);
   it("EN 1993 with LTB over long segments", () => check(ltbArb, 7104, 100), 600_000);
