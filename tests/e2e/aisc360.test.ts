@@ -41,6 +41,16 @@ test("AISC 360 ASD, US units, 20 ft unbraced: record shows the Chapter F zone, L
   await eng.getByRole("heading", { name: /against utilisation$/ }).waitFor({ timeout: 120_000 });
   const caution = await eng.getByRole("note", { name: "Caution" }).first().textContent();
   expect(caution).toContain("On the AISC 360-16 basis (ASD");
+  // the results table in AISC terms, ASD symbols and the page's units in every head
+  const head = (await eng.getByTestId("candidate-table").locator("thead").textContent()) ?? "";
+  expect(head).toMatch(/Chapter F.*Mn \((kip·ft|kN·m)\).*Mn\/Ωb \((kip·ft|kN·m)\).*LTB zone.*Lp \((ft|m)\).*Lr \((ft|m)\).*Cb.*Vn \((kip|kN)\).*Vn\/Ωv \((kip|kN)\)/);
+  expect(head).not.toMatch(/Mcr|χLT/);
+  const first = (await eng.getByTestId("candidate-table").locator("tbody tr").first().textContent()) ?? "";
+  expect(first).toMatch(/F[2-5].*(plastic|inelastic|elastic).*AISC 360-16/);
+  // the restraint study over Lb, L/2 … L/6 with the Cb each spacing used
+  const study = (await eng.getByTestId("restraint-study-table").textContent()) ?? "";
+  expect(study).toMatch(/Spacing Lb\s*Cb/);
+  expect(study).toContain("1.136");
   await screenshot(eng, "aisc-sweep");
 
   await eng.getByTestId("candidate-table").locator("tbody tr").first().click();
@@ -48,6 +58,8 @@ test("AISC 360 ASD, US units, 20 ft unbraced: record shows the Chapter F zone, L
   await eng.getByRole("button", { name: "Save as option" }).click();
   await eng.waitForURL(/\/options\/\d+$/);
   await eng.getByRole("link", { name: "Calculation record" }).click();
+  // the check table is not the allowable basis's: no "stresses only" beside AISC checks
+  await expect(eng.getByTestId("check-table").first().locator("caption").textContent()).resolves.not.toContain("stresses only");
   const record = eng.getByTestId("record-aisc360");
   await record.waitFor();
   const text = (await record.textContent()) ?? "";
