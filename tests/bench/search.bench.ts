@@ -309,4 +309,27 @@ delete (en as { allowable?: unknown }).allowable;
   console.log(`  explore 0.25 (former sweep): ${ms(tx)} wall, ${ms(cx)} CPU, evaluated ${x.counts.evaluated.toLocaleString("en")}; front over the evaluated ${x.front.length}; same best: ${same(g, x) && sameBests(g, x) ? "yes" : "NO"}`);
   console.log(`  explore/exact = ${(tx / tg).toFixed(1)}× wall, ${(cx / cg).toFixed(1)}× CPU; exact ${ms(tg)} wall, ${ms(cg)} CPU (target < 2 s: ${verdict(tg < 2000)})`);
 }
+
+// (6c) issue 14's gap: the exact grid front (the sweep's own search options, front "grid") of
+// (2c)'s AISC 360 grid, ASD and LRFD, against the sweep's time budget (SWEEP_TIME_BUDGET_S, 120 s
+// by default: a sweep that reaches it ends "timed_out", not proven lightest) and, for ASD, against
+// brute force's front from (2c)'s run, member for member. One run each (a front takes seconds to
+// a minute); wall and CPU time beside each other, since the machine may be loaded.
+{
+  for (const method of ["ASD", "LRFD"] as const) {
+    const aisc: SearchProblemInput = { ...base, allowable: undefined, basis: "aisc360", method, aisc: { grade: "A572 Gr 50" }, shear: 600, restraint: { length: 6, Cb: 1.14 } };
+    const [best, tb, cb] = timeC(() => searchSections(aisc, { front: "evaluated" }));
+    const [g, tg, cg] = timeC(() => searchSections(aisc, { front: "grid" }));
+    console.log(`\n(6c) the exact grid front of (2c)'s 10^7 i grid under AISC 360-16 ${method} (the sweep's search), load average ${load()}`);
+    console.log(`  grid front: ${ms(tg)} wall, ${ms(cg)} CPU, evaluated ${g.counts.evaluated.toLocaleString("en")}; front ${g.front.length.toLocaleString("en")} members, context ${g.context?.length ?? 0} points; same best as best-only: ${same(g, best) ? "yes" : "NO"}`);
+    console.log(`  best only (same run): ${ms(tb)} wall, ${ms(cb)} CPU; front/best = ${(tg / tb).toFixed(0)}× wall, ${(cg / cb).toFixed(0)}× CPU`);
+    console.log(`  within the sweep's 120 s time budget: ${verdict(tg < 120_000)} (${((100 * tg) / 120_000).toFixed(0)} % of it, wall)`);
+    if (method === "ASD" && bruteAsd) {
+      const [brute, tbr] = bruteAsd;
+      const sf = members(g, "front") === members(brute, "front");
+      console.log(`  brute force's front ((2c)'s run, ${ms(tbr)} wall): ${brute.front.length.toLocaleString("en")} members; same front, member for member: ${sf ? "yes" : "NO"}; brute/front = ${(tbr / tg).toFixed(0)}×`);
+    }
+  }
+}
+
 console.log(`\nload average at the end: ${load()} (1 / 5 / 15 min)`);
