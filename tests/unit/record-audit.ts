@@ -71,6 +71,9 @@ export function calculationHtml(html: string): string {
  * Each is removed before numbers are read, as literal text, so a number cannot hide in a pattern.
  */
 export const FORMULA_TEXT: readonly string[] = [
+  // textbook citations of the allowable basis's stress checks (checks.ts CHECK_CLAUSES)
+  "(Gere & Goodno, Mechanics of Materials, 7th ed., ch. 5; Boresi & Schmidt, Advanced Mechanics of Materials, 6th ed., ch. 7)",
+  "(Gere & Goodno, Mechanics of Materials, 7th ed., ch. 5)",
   // unit factors written out in a substituted formula
   "× 10⁶ N·mm/kN·m",
   "× 12 in/ft",
