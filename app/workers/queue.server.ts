@@ -889,7 +889,10 @@ export async function listCandidates(
     pageSize = q.pageSize ?? 50,
     sort = q.sort ?? "rank";
   const base = db("candidates").where({ sweep_id: sweepId });
-  if (q.family) base.andWhere({ family: q.family });
+  // Each family's lightest at a depth: a section two families found is stored once, under the
+  // family listed first, and depth_best_for names both, so either family finds it.
+  if (q.family && q.depthBest) base.andWhereRaw("FIND_IN_SET(?, COALESCE(depth_best_for, family)) > 0", [q.family]);
+  else if (q.family) base.andWhere({ family: q.family });
   if (q.frontOnly) base.andWhere({ on_front: true });
   // grid depths are exact sums of steps; the tolerance only absorbs their float noise
   if (q.depth !== undefined) base.andWhereRaw("ABS(JSON_VALUE(dimensions, '$.d') - ?) < 1e-6", [q.depth]);

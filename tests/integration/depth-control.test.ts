@@ -8,6 +8,7 @@ import { closeDb, db, parseJson } from "~/lib/db.server";
 import { recordFinishedSweep } from "~/lib/finished-sweep.server";
 import { CONTRACT_EXAMPLE_PROBLEM, depthBests, geometryKey, rawGridSize, searchProblemSchema, type SearchProblemInput } from "~/optimizer";
 import * as page from "~/routes/sweeps.$sweepId";
+import * as cands from "~/routes/api.v1.sweeps.$id.candidates";
 import { candidatesToStore, depthBestsInfo, enqueueSweep, getSweep } from "~/workers/queue.server";
 import { SweepRunner } from "~/workers/runner.server";
 import { IN_THREAD_MAX_GRID, SWEEP_SEARCH_OPTIONS } from "~/workers/sweep-search.server";
@@ -124,6 +125,11 @@ describe("one section, one row, in stored results", () => {
     const v = await view(sweepId, "?depth=300&family=mono-i");
     expect(v.rows).toHaveLength(1);
     expect(v.rows![0]).toMatchObject({ family: "i", depthBestFor: ["i", "mono-i"] });
+    // and so does the candidates API's filter for each family's lightest at each depth
+    const api = await callRoute(cands.loader, await requestAs("viewer", `/api/v1/sweeps/${sweepId}/candidates?family=mono-i&depthBest=true&pageSize=500`), { id: String(sweepId) });
+    const items = (api.data as { items: { family: string; dimensions: Record<string, number> }[] }).items;
+    expect(items.map((x) => x.dimensions.d).sort((a, b) => a - b)).toEqual(depthBests(problem).points.filter((p) => p.family === "mono-i").map((p) => p.dimensions.d));
+    expect(items.filter((x) => x.family === "i").length).toBe(monoSameAsI.length);
   });
 });
 
