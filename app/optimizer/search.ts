@@ -1413,7 +1413,7 @@ class FamilySearch {
           }
         }
       }
-      this.stepDepthRange(id, k, kHi, cap);
+      this.stepDepthRange(id, k, kHi, cap, n);
       return;
     }
     if (kind === KIND_SUPER) {
@@ -1714,7 +1714,8 @@ class FamilySearch {
           this.t.ruledOut[C_LTB] += (jHi - jLo + 1) * (kHi - kLo + 1);
           return null;
         }
-        if (this.ltbOutBox(jLo, jLo, kLo, kHi, cap)) {
+        // (with an incumbent, the slices below find the least bt at a slice's grain for fewer bounds)
+        if (lim === Infinity && this.ltbOutBox(jLo, jLo, kLo, kHi, cap)) {
           let lo = jLo,
             hi = jHi; // [jLo, lo] out, [jLo, hi] not
           while (hi - lo > 1) {
@@ -2068,8 +2069,12 @@ class FamilySearch {
     }
   }
 
-  /** A popped depth range: halves, each bounded on its own, or one super node per depth once short. */
-  private stepDepthRange(id: number, dA: number, dB: number, cap: number): void {
+  /**
+   * A popped depth range: halves, each bounded on its own, or one super node per depth once short.
+   * n: the shapes it stood for; the halves stand for at most that many together, so progress
+   * (settled shapes) never moves back.
+   */
+  private stepDepthRange(id: number, dA: number, dB: number, cap: number, n: number): void {
     if (dB - dA + 1 <= DRANGE_LEAF) {
       for (let i = dA; i <= dB; i++) {
         this.decode(id + i * this.depthStride);
@@ -2080,7 +2085,11 @@ class FamilySearch {
     const mid = (dA + dB) >> 1;
     for (let h = 0; h < 2; h++) {
       const key = h === 0 ? this.dBound(id, dA, mid, cap) : this.dBound(id, mid + 1, dB, cap);
-      if (key !== null && key <= this.limit()) this.push(key, id, this.dr.lo, this.dr.hi, KIND_DRANGE, this.dr.n);
+      if (key !== null && key <= this.limit()) {
+        const m = Math.min(this.dr.n, n);
+        n -= m;
+        this.push(key, id, this.dr.lo, this.dr.hi, KIND_DRANGE, m);
+      }
     }
   }
 
