@@ -213,12 +213,19 @@ export interface AiscFlexure {
   /** the least of limitStates, kN·m, and its available strength (φMn or Mn/Ω) */
   MnLocal: number;
   availableLocal: number;
+  /** resistance and safety factors of Chapter F (§F1) */
+  phi: number;
+  omega: number;
+  /** plastic modulus Mp is worked from (Mp = Fy·Zx), mm³ */
+  Zx: number;
   /** kN·m */
   Mp: number;
   My: number;
   /** elastic moduli to the compression and tension fibres, mm³ */
   Sxc: number;
   Sxt: number;
+  /** F2, F3: Mr = 0.7·Fy·Sx of F2-2 and F3-1, kN·m */
+  Mr?: number;
   Rpc?: number;
   Rpt?: number;
   Rpg?: number;
@@ -240,6 +247,9 @@ export interface AiscFlexure {
     equation: string;
     /** MPa */
     Fcr?: number;
+    /** F2, F3: ry of Lp (F2-5), mm; J·c/(Sx·h0) of Lr (F2-6) and Fcr (F2-4) */
+    ry?: number;
+    jc?: number;
     /** kN·m */
     Mcr?: number;
     /** F9-11 / F9-13 */
@@ -271,6 +281,8 @@ export interface AiscShear {
   available: number;
   /** G2.1(a): rolled I web with h/tw ≤ 2.24√(E/Fy) */
   rolledA: boolean;
+  /** G2.1: the h/tw limit Cv1 = 1 holds to, 2.24√(E/Fy) (G2.1(a)) or 1.10√(kv·E/Fy) (G2-3); null elsewhere */
+  htLimit: number | null;
 }
 
 /** J2 flange-to-web fillet welds. */
@@ -282,6 +294,11 @@ export interface AiscWeld {
   FEXX: number;
   /** nominal weld stress 0.60·FEXX (Table J2.5), MPa */
   Fnw: number;
+  /** §J2.4 factors (Table J2.5) */
+  phi: number;
+  omega: number;
+  /** available strength per mm of leg of one weld, N/mm per mm: φ·Fnw·0.707 or Fnw·0.707/Ω */
+  perLeg: number;
   /** leg size needed, mm, before rounding */
   wExact: number;
   /** leg size, mm */

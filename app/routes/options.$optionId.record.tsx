@@ -15,7 +15,7 @@ import { BriefSummary } from "~/components/BriefSummary";
 import { OptionProvenance } from "~/components/OptionProvenance";
 import { BasisNote } from "~/components/BasisAssumptions";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
-import { Aisc360Checks } from "~/components/Aisc360Record";
+import { Aisc360Checks, Aisc360Worked } from "~/components/Aisc360Record";
 import { DeflectionWorked, ShearWorked, SlendernessWorked } from "~/components/WorkedChecks";
 import { PropertyTable, formatNumber } from "~/components/PropertyTable";
 import { fromSI, unitLabel } from "~/optimizer/units";
@@ -264,6 +264,8 @@ export default function RecordPage({ loaderData }: Route.ComponentProps) {
             Utilisation = required ÷ available strength; the largest, <strong>{rec.verdict.utilisation.toFixed(3)}</strong>, is set by {checkLabel(rec.verdict.governing)}. Worked in SI units, the
             engine's own; section and equation numbers of AISC 360-16 beside each line.
           </p>
+          <Aisc360Worked verdict={rec.verdict} units={units} />
+          <h3 className="mt-3 font-semibold">5.4 Every limit state, with its section and equation</h3>
           <Aisc360Checks problem={option.problem} verdict={rec.verdict} />
         </section>
       ) : en ? (

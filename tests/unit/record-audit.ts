@@ -144,6 +144,29 @@ export const FORMULA_TEXT: readonly string[] = [
   "Vn = 0.6·Fy·Aw·Cv",
   "Table J2.4 minimum",
   "kv = 5.34 for I webs and channels (G2.1), 5 for box webs (G4), 1.2 for tee stems (G3)",
+  // AISC 360-16 worked through (Aisc360Worked): Chapter F, G2.1, J2.4
+  "Lp = 1.76·ry·√(E/Fy) = 1.76 ×",
+  "Lr = 1.95·rts·(E/(0.7·Fy))·√(J·c/(Sx·h0) + √((J·c/(Sx·h0))² + 6.76·(0.7·Fy/E)²))",
+  "Lr = 1.95 ×",
+  "/(0.7 ×",
+  "6.76 × (0.7 ×",
+  "Mr = 0.7·Fy·Sx",
+  "Mn = Mp − (Mp − 0.7·Fy·Sx)·(λ − λpf)/(λrf − λpf)",
+  "Mn = Cb·[Mp − (Mp − 0.7·Fy·Sx)·(Lb − Lp)/(Lr − Lp)] ≤ Mp",
+  "Fcr = Cb·π²·E/(Lb/rts)²·√(1 + 0.078·(J·c/(Sx·h0))·(Lb/rts)²)",
+  "× √(1 + 0.078 ×",
+  "Mn = 0.9·E·kc·Sx/λ² = 0.9 ×",
+  "Cv1 = 1.10·√(kv·E/Fy)/(h/tw)",
+  "1.10·√(kv·E/Fy)",
+  "2.24·√(E/Fy)",
+  "Vn = 0.6·Fy·Aw·Cv = 0.6 ×",
+  "Fnw = 0.60·FEXX = 0.60 ×",
+  "Awe = 0.707·w",
+  "φ·Fnw·0.707",
+  "Fnw·0.707/Ω",
+  "× 0.707",
+  "w = q/(2 × that) = ",
+  "/(2 ×",
 ];
 
 // longest first, so a phrase is taken out whole before a shorter one inside it
@@ -571,5 +594,54 @@ function aiscLabelled(text: string, e: EngineFacts, eq: Eq) {
     eq("Vn", /Vn = 0\.6·Fy·Aw·Cv = ([\d.]+) kN/.exec(text)?.[1], f3(s.Vn));
   }
   if (a.weld) eq("weld leg", /→ (\d+) mm \(Table J2\.4/.exec(text)?.[1], String(a.weld.w));
+  aiscWorkedLabelled(text, e, eq);
   if (a.bearing) eq("bearing available", /available ([\d.]+) kN/.exec(text)?.[1], f3(a.bearing.available));
+}
+
+/** The AISC 360-16 checks worked through (Aisc360Worked): each result after its formula and substitution. */
+function aiscWorkedLabelled(text: string, e: EngineFacts, eq: Eq) {
+  const a = e.verdict.aisc!;
+  const n = (x: number, sig = 4) => formatNumber(x, sig);
+  const res = (block: string, formula: string, unit = "") => new RegExp(`${esc(formula)} = [^\\n]*? = ${NUM}${unit ? " " + esc(unit) : ""}(?:[;\\n\\[ ]|$)`).exec(block)?.[1];
+  for (const f of a.flexure) {
+    if (f.section !== "F2" && f.section !== "F3") continue;
+    const from = text.indexOf(`${f.moment === "sagging" ? "Sagging" : "Hogging"} moment ${a.method === "ASD" ? "Ma" : "Mu"} =`);
+    eq(`${f.moment} worked flexure shown`, String(from >= 0), "true");
+    const block = from < 0 ? "" : text.slice(from);
+    eq(`${f.moment} Fy·Zx`, res(block, "Mn = Mp = Fy·Zx", "kN·m"), n(f.Mp));
+    const flb = f.limitStates.find((x) => x.equation === "F3-1" || x.equation === "F3-2");
+    if (flb) eq(`${f.moment} ${flb.equation}`, res(block, flb.equation === "F3-1" ? "Mn = Mp − (Mp − 0.7·Fy·Sx)·(λ − λpf)/(λrf − λpf)" : "Mn = 0.9·E·kc·Sx/λ²", "kN·m"), n(flb.Mn));
+    if (f.Mr !== undefined && flb?.equation === "F3-1") eq(`${f.moment} Mr`, new RegExp(`Mr = 0\\.7·Fy·Sx = ${NUM} kN·m`).exec(block)?.[1], n(f.Mr));
+    const local = new RegExp(`Mn = ${NUM} kN·m \\(the least[^\\n]*? = ${NUM} kN·m`).exec(block);
+    eq(`${f.moment} worked Mn`, local?.[1], n(f.MnLocal));
+    eq(`${f.moment} worked available`, local?.[2], n(f.availableLocal));
+    const l = f.ltb;
+    if (l && l.Lp !== null && l.Lr !== null) {
+      eq(`${f.moment} worked Lp`, res(block, "Lp = 1.76·ry·√(E/Fy)", "mm"), n(l.Lp));
+      eq(`${f.moment} worked ry`, new RegExp(`1\\.76 × ${NUM} mm`).exec(block)?.[1], n(l.ry ?? NaN));
+      eq(`${f.moment} worked Lr`, new RegExp(`: Lr = 1\\.95 × [^\\n]*? = ${NUM} mm`).exec(block)?.[1], n(l.Lr));
+      if (l.zone === "inelastic") eq(`${f.moment} F2-2 Mn`, new RegExp(`Lp < Lb ≤ Lr: [^\\n]*? = ${NUM} kN·m`).exec(block)?.[1], n(l.Mn ?? NaN));
+      if (l.zone === "elastic") {
+        eq(`${f.moment} F2-4 Fcr`, new RegExp(`Lb > Lr: Fcr = [^\\n]*? = ${NUM} MPa`).exec(block)?.[1], n(l.Fcr ?? NaN));
+        eq(`${f.moment} F2-3 Mn`, new RegExp(`Mn = Fcr·Sx ≤ Mp = [^\\n]*? = ${NUM} kN·m`).exec(block)?.[1], n(l.Mn ?? NaN));
+      }
+    }
+  }
+  const s = a.shear;
+  if (s) {
+    eq("worked Aw", new RegExp(`\\nAw = [^\\n=]* = ${NUM} mm²`).exec(text)?.[1], n(s.Aw));
+    const shear = text.slice(text.indexOf("\nAw = "));
+    eq("worked Cv", new RegExp(`Cv1? = (?:[^\\n;\\[,]*? = )?(\\d(?:\\.\\d+)?)(?=[,;\\[\\s]|$)`).exec(shear)?.[1], n(s.Cv));
+    if (s.htLimit !== null) eq("worked h/tw limit", new RegExp(`√\\((?:kv·)?E/Fy\\) = ${NUM}`).exec(shear)?.[1], n(s.htLimit));
+    eq("worked Vn", res(text, "Vn = 0.6·Fy·Aw·Cv", "kN"), n(s.Vn));
+    eq("worked available V", new RegExp(`(?:φvVn|Vn/Ωv) = [^\\n]*? = ${NUM} kN`).exec(text)?.[1], n(s.available));
+  }
+  const w = a.weld;
+  if (w) {
+    eq("worked q", new RegExp(`\\nq = V·Qf/Iz = ${NUM} N/mm`).exec(text)?.[1], n(w.q));
+    eq("worked Fnw", res(text, "Fnw = 0.60·FEXX", "MPa"), n(w.Fnw));
+    eq("worked per mm of leg", new RegExp(`= ${NUM} N/mm per mm of leg`).exec(text)?.[1], n(w.perLeg));
+    eq("worked w exact", new RegExp(`w = q/\\(2 × that\\) = [^\\n]*? = ${NUM} mm →`).exec(text)?.[1], n(w.wExact, 3));
+    eq("worked w", new RegExp(`minimum [^\\n]*: w = ${NUM} mm`).exec(text)?.[1], n(w.w));
+  }
 }

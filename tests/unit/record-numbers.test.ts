@@ -103,7 +103,24 @@ const CASES: Case[] = [
     family: "i",
     dims: { d: 450, b: 200, tf: 15, tw: 8 },
     units: "si",
-    shows: ["AISC 360-16 §J10.2, §J10.3", "lateral-torsional buckling, Lb =", "AISC 360-16 §J2.4"],
+    shows: ["AISC 360-16 §J10.2, §J10.3", "lateral-torsional buckling, Lb =", "AISC 360-16 §J2.4", "AISC 360-16 Eq. F2-2", "AISC 360-16 Eq. F2-5", "AISC 360-16 Eq. G2-3"],
+  },
+  {
+    name: "AISC 360 LRFD, welded I with a noncompact flange and a thin web, SI, long unbraced length",
+    problem: { ...GRID, families: ["i"], basis: "aisc360", method: "LRFD", aisc: { grade: "A572 Gr 50" }, moment: { sagging: 200, hogging: 0 }, shear: 400, restraint: { length: 8, Cb: 1 } },
+    family: "i",
+    dims: { d: 600, b: 300, tf: 10, tw: 8 },
+    units: "si",
+    shows: ["AISC 360-16 Eq. F3-1", "AISC 360-16 Eq. F2-4", "AISC 360-16 Eq. F2-3", "AISC 360-16 Eq. G2-4", "AISC 360-16 Eq. J2-3, J2-4"],
+  },
+  {
+    name: "AISC 360 ASD, rolled IPE 300 from a catalogue, US customary, braced",
+    problem: { ...GRID, families: ["i"], basis: "aisc360", method: "ASD", aisc: { grade: "A36" }, moment: { sagging: 60, hogging: 0 }, shear: 90 },
+    family: "i",
+    dims: { d: 300, b: 150, tw: 7.1, tf: 10.7, r: 15 },
+    units: "us",
+    shows: ["IPE 300 (rolled, from Starter", "AISC 360-16 §G2.1(a)", "AISC 360-16 Eq. F2-1"],
+    rolled: { designation: "IPE 300", shape: "I", catalogue: "Starter" },
   },
   {
     name: "AISC 360 ASD, welded tee, US customary",
@@ -240,6 +257,20 @@ describe("calculation record audit: a wrong number fails it", () => {
     expect(bad).not.toBe(html);
     expect(labelledMismatches(bad, e).failures).toContain(`stem t: the record shows “11.5”, the engine's value is “${formatNumber(el.t)}”`);
     expect(unmatchedNumbers(bad, e).some((x) => x.startsWith("11.5 mm — no engine value"))).toBe(true);
+  });
+
+  it("an AISC worked result moved by 1 % (F2-4's Fcr, Lp) no longer matches the sheet's", () => {
+    const us = CASES.find((c) => c.name.startsWith("AISC 360 LRFD, welded I with a noncompact flange"))!;
+    const problem = parseSearchProblem(us.problem);
+    const html = renderRecord(us, problem);
+    const e = engineFacts(us, problem);
+    const l = e.verdict.aisc!.flexure[0]!.ltb!;
+    const shown = [formatNumber(l.Fcr!), formatNumber(l.Lp!)];
+    l.Fcr! *= 1.01;
+    l.Lp! *= 1.01;
+    const failures = labelledMismatches(html, e).failures;
+    expect(failures).toContain(`sagging F2-4 Fcr: the record shows “${shown[0]}”, the engine's value is “${formatNumber(l.Fcr!)}”`);
+    expect(failures).toContain(`sagging worked Lp: the record shows “${shown[1]}”, the engine's value is “${formatNumber(l.Lp!)}”`);
   });
 
   it("a value shown without the unit conversion (SI number beside a US unit) is caught", () => {

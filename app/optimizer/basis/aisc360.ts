@@ -190,6 +190,10 @@ export class FlexWork {
   r = NaN;
   Lp = NaN;
   Lr = NaN;
+  /** F2, F3 (for the record): ry of Lp (F2-5), J·c/(Sx·h0) of Lr and Fcr (F2-6, F2-4), Mr = 0.7·Fy·Sx of F2-2 and F3-1 (N·mm); NaN elsewhere */
+  ry = NaN;
+  jc = NaN;
+  Mr = NaN;
   zone = -1;
   Fcr = NaN;
   Mcr = NaN;
@@ -238,10 +242,14 @@ export class AiscScratch implements PlateTerms, FlangeShearFlow {
   Vn = 0;
   Va = 0;
   vRolledA = false;
+  /** G2.1: the h/tw Cv1 is judged against, 2.24√(E/Fy) (G2.1(a)) or 1.10√(kv·E/Fy) (G2-3, G2-4); NaN elsewhere */
+  htLimit = NaN;
   // weld
   weldOn = false;
   Qf = 0;
   q = 0;
+  /** available strength of the weld per mm of leg, N/mm per mm: φ·Fnw·0.707 (LRFD) or Fnw·0.707/Ω (ASD) */
+  perLeg = 0;
   wExact = 0;
   w = 0;
   wMin = 0;
@@ -355,7 +363,8 @@ function flexI(
     // F2 (compact flanges) or F3 (noncompact or slender flanges); channels take F3's FLB by analogy
     w.sec = w.flange.cls === 0 ? S_F2 : S_F3;
     w.yld = Mp; // F2-1
-    if (w.flange.cls === 1) w.flb = Mp - (Mp - 0.7 * Fy * Sxc) * ((lamF - lpf) / (lrf - lpf)); // F3-1
+    const Mr = (w.Mr = 0.7 * Fy * Sxc);
+    if (w.flange.cls === 1) w.flb = Mp - (Mp - Mr) * ((lamF - lpf) / (lrf - lpf)); // F3-1
     else if (w.flange.cls === 2) w.flb = (0.9 * E * kc * Sxc) / (lamF * lamF); // F3-2
     if (ltbOn) {
       // F2-5, F2-7, F2-8a/b, F2-6, F2-2, F2-3, F2-4
@@ -369,10 +378,12 @@ function flexI(
       w.r = rts;
       w.Lp = Lp;
       w.Lr = Lr;
+      w.ry = ry;
+      w.jc = jc;
       if (Lb <= Lp) w.zone = 0;
       else if (Lb <= Lr) {
         w.zone = 1;
-        w.ltb = inelastic(Cb, Mp, 0.7 * Fy * Sxc, Lb, Lp, Lr);
+        w.ltb = inelastic(Cb, Mp, Mr, Lb, Lp, Lr);
       } else {
         w.zone = 2;
         const s = Lb / rts;
@@ -708,6 +719,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     w.outRatio = 0;
     w.outLimit = 1;
     w.outWhat = "";
+    w.ry = w.jc = w.Mr = NaN;
     if (family === "i" || family === "channel" || family === "mono-i") {
       // sagging compresses the top flange
       const top = sgn === 0;
@@ -790,6 +802,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
     x.shearOn = true;
     let Vn: number, f: { phi: number; omega: number };
     x.vRolledA = false;
+    x.htLimit = NaN;
     if (family === "tee") {
       // G3 (mem.): Vn = 0.6·Fy·b·t·Cv2 (G3-1), b = d, t = tw, kv = 1.2, Cv2 by G2.2 with h/tw = d/tw
       x.shearClause = "G3";
@@ -825,11 +838,12 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
       if (rolled !== null && family === "i" && ht <= 2.24 * re) {
         // G2.1(a): rolled I webs with h/tw ≤ 2.24√(E/Fy): Cv1 = 1.0, φv = 1.00, Ωv = 1.50
         x.vRolledA = true;
+        x.htLimit = 2.24 * re;
         x.Cv = 1;
         f = AISC_FACTORS.shearRolled;
       } else {
         // G2.1(b): h/tw ≤ 1.10√(kv·E/Fy): Cv1 = 1.0 (G2-3); else Cv1 = 1.10√(kv·E/Fy)/(h/tw) (G2-4)
-        const lim = 1.1 * Math.sqrt((x.kv * E) / Fy);
+        const lim = (x.htLimit = 1.1 * Math.sqrt((x.kv * E) / Fy));
         x.Cv = ht <= lim ? 1 : lim / ht;
         f = AISC_FACTORS.shear;
       }
@@ -855,7 +869,7 @@ function evaluate(fk: FamilyKernel, v: Float64Array, ctx: CheckContext, s: Scrat
   if (family !== "rectangle" && rolled === null) {
     x.weldOn = true;
     const top = flangeShearFlow(family, x, V, cy, Iz, x);
-    const perLeg = available(e, fnw(e.FEXX) * 0.707, AISC_FACTORS.weld);
+    const perLeg = (x.perLeg = available(e, fnw(e.FEXX) * 0.707, AISC_FACTORS.weld));
     x.wExact = x.q / (2 * perLeg);
     const tf = top ? x.tft : x.tfb;
     const thin = tf < x.tw ? tf : x.tw;
@@ -1168,12 +1182,16 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
       limitStates: limitStates(w, section, stemTension),
       MnLocal: w.MnLocal * 1e-6,
       availableLocal: available(e, w.MnLocal, fx) * 1e-6,
+      phi: fx.phi,
+      omega: fx.omega,
+      Zx: x.Zx,
       Mp: w.Mp * 1e-6,
       My: w.My * 1e-6,
       Sxc: w.Sxc,
       Sxt: w.Sxt,
       ltb: null,
     };
+    if (w.Mr === w.Mr) out.Mr = w.Mr * 1e-6;
     if (w.Rpc === w.Rpc) out.Rpc = w.Rpc;
     if (w.Rpt === w.Rpt) out.Rpt = w.Rpt;
     if (w.Rpg === w.Rpg) out.Rpg = w.Rpg;
@@ -1192,6 +1210,8 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
         available: w.ltb === w.ltb ? available(e, w.ltb, fx) * 1e-6 : null,
       };
       if (w.Fcr === w.Fcr) out.ltb.Fcr = w.Fcr;
+      if (w.ry === w.ry) out.ltb.ry = w.ry;
+      if (w.jc === w.jc) out.ltb.jc = w.jc;
       if (w.Mcr === w.Mcr) out.ltb.Mcr = w.Mcr * 1e-6;
       if (w.B === w.B) out.ltb.B = w.B;
     }
@@ -1244,9 +1264,10 @@ function design(fk: FamilyKernel, _v: Float64Array, ctx: CheckContext, s: Scratc
       omega: f.omega,
       available: x.Va * 1e-3,
       rolledA: x.vRolledA,
+      htLimit: x.htLimit === x.htLimit ? x.htLimit : null,
     };
   }
-  if (!outside && x.weldOn) out.weld = { Qf: x.Qf, q: x.q, FEXX: e.FEXX, Fnw: fnw(e.FEXX), wExact: x.wExact, w: x.w, wMin: x.wMin, wMax: x.wMax };
+  if (!outside && x.weldOn) out.weld = { Qf: x.Qf, q: x.q, FEXX: e.FEXX, Fnw: fnw(e.FEXX), phi: AISC_FACTORS.weld.phi, omega: AISC_FACTORS.weld.omega, perLeg: x.perLeg, wExact: x.wExact, w: x.w, wMin: x.wMin, wMax: x.wMax };
   if (!outside && x.bearOn)
     out.bearing = { lb: e.lb, k: x.kDist, RnYielding: x.Rn2 * 1e-3, RnCrippling: x.Rn3 * 1e-3, cripplingEquation: x.bearEq as "J10-5a" | "J10-5b", available: x.Ra * 1e-3 };
   void problem;
