@@ -72,7 +72,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // a sweep that searched catalogues says which rows are rolled sections, and which
   const cat = sweep.catalogueResult != null;
   const csv = Papa.unparse({
-    fields: ["rank", "family", ...(cat ? ["source", "designation", "catalogue"] : []), ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front", ...designFields],
+    fields: ["rank", "family", ...(cat ? ["source", "designation", "catalogue"] : []), ...dims.map((d) => `${d}_mm`), "mass_kg_per_m", "utilisation", "governing", "on_front", "lightest_at_its_depth", ...designFields],
     // plain numbers: no float noise (13.624999999999998) in a spreadsheet's cells
     data: plainNumbers(rows.map((r) => [
       r.rank,
@@ -83,6 +83,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       r.utilisation,
       r.governing,
       r.onFront ? "yes" : "no",
+      // its family's lightest at its depth (issue 11, item 9), so a spreadsheet filters by depth too
+      r.depthBest ? "yes" : "no",
       ...designColumns.map(([, cell]) => cell(r.design ?? null)),
     ])),
   });

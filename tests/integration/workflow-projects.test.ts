@@ -87,9 +87,13 @@ describe("candidates CSV", () => {
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = String(res.data).trim().split(/\r?\n/);
-    expect(lines[0]).toBe("rank,family,d_mm,b_mm,tf_mm,tw_mm,mass_kg_per_m,utilisation,governing,on_front,basis");
+    expect(lines[0]).toBe("rank,family,d_mm,b_mm,tf_mm,tw_mm,mass_kg_per_m,utilisation,governing,on_front,lightest_at_its_depth,basis");
     const stored = await db("candidates").where({ sweep_id: f.sweepId }).count({ n: "*" }).first();
     expect(lines.length - 1).toBe(Number(stored!.n));
+    // each family's lightest at every depth marked, one row each
+    const depthBests = await db("candidates").where({ sweep_id: f.sweepId, depth_best: true }).count({ n: "*" }).first();
+    expect(Number(depthBests!.n)).toBeGreaterThan(0);
+    expect(lines.slice(1).filter((l) => l.split(",")[10] === "yes")).toHaveLength(Number(depthBests!.n));
     expect(lines[1].startsWith("1,")).toBe(true);
   });
 });
