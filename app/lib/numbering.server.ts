@@ -14,8 +14,13 @@ type Id = number | null | undefined;
  * null for a row outside any project. For a page that lists rows anyway, so their numbers come
  * with them instead of from a second round trip.
  */
-export function projectNumberColumn(table: "sweeps" | "options", alias: string, q: Knex | Knex.Transaction = db) {
-  return q.raw(`(CASE WHEN ??.project_id IS NULL THEN NULL ELSE (select count(*) from ${table} u where u.project_id = ??.project_id and u.id <= ??.id) END) as n`, [alias, alias, alias]);
+export function projectNumberColumn(table: "sweeps" | "options", alias: "s" | "o" | "t", q: Knex | Knex.Transaction = db) {
+  return q.raw(`${projectNumberSql(table, alias)} as n`);
+}
+
+/** The same number as an SQL expression, for a hand-written query (`alias` is the query's own, never input). */
+export function projectNumberSql(table: "sweeps" | "options", alias: "s" | "o" | "t"): string {
+  return `(CASE WHEN ${alias}.project_id IS NULL THEN NULL ELSE (SELECT COUNT(*) FROM ${table} u WHERE u.project_id = ${alias}.project_id AND u.id <= ${alias}.id) END)`;
 }
 
 async function numbersOf(table: "sweeps" | "options", ids: Id[], q: Knex | Knex.Transaction): Promise<Record<number, number>> {

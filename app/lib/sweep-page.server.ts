@@ -17,7 +17,7 @@ import type { UnitSystem } from "~/optimizer/units";
 import type { SearchProblem } from "~/optimizer";
 import { isCodeBasis, type DesignRow } from "~/lib/design-summary";
 import type { Numbers } from "~/lib/numbering";
-import { projectNumberColumn } from "~/lib/numbering.server";
+import { projectNumberSql } from "~/lib/numbering.server";
 import { sameDepth, type DepthViewQuery } from "~/lib/depth-bests";
 import type { DepthView } from "~/components/DepthBests";
 import { FAMILIES, axisCount, gridValues } from "~/optimizer";
@@ -319,33 +319,51 @@ export async function depthView(sweep: Pick<SweepView, "id" | "problem" | "depth
   return view;
 }
 
+/** A row of the sweep page's one read of what it names (loadSweepPage). */
+interface ListedRow {
+  kind: "sweep" | "option" | "brief" | "project";
+  id: number;
+  label: string;
+  ref: number | string | null;
+  candidate: unknown;
+  n: number | string | null;
+}
+
 export async function loadSweepPage(teamId: number, id: number, depthQuery?: Parameters<typeof depthView>[1]) {
   const sweep = await getTeamSweep(id, { teamId });
   if (!sweep) throw notFound("No such sweep in your team.");
   const done = WITH_RESULTS.has(sweep.status);
-  // Every query a page view makes is one more round trip 20 readers queue for on the pool, so the
-  // sweeps the page names (itself, the original it rechecks, its latest rechecks) come in one read
-  // of the team's sweeps, and each row's project number (numbering.server.ts) comes with it.
+  // Every query a page view makes is one more round trip 20 readers queue for on the pool (about a
+  // millisecond of server time each at 20 readers), so what the page names besides the sweep comes
+  // in one read (issue 9, item 8): the sweeps it names (itself, the original it rechecks, its latest
+  // rechecks, all of this team), its options, its brief and its project, each sweep and option with
+  // its project number (numbering.server.ts). Each part keeps its own order and limit.
   const named = [sweep.id, sweep.recheckOf].filter((x): x is number => typeof x === "number");
-  const [brief, project, sweepRows, options, parts, depth] = await Promise.all([
-    sweep.briefId ? db("briefs").where({ id: sweep.briefId }).first("id", "name", "units") : null,
-    sweep.projectId ? db("projects").where({ id: sweep.projectId }).first("id", "name") : null,
-    db("sweeps as s")
-      .where("s.team_id", teamId)
-      .andWhere((q) => q.whereIn("s.id", named).orWhere("s.recheck_of", sweep.id))
+  const [listed, parts, depth] = await Promise.all([
+    db.raw(
+      `(SELECT 'sweep' AS kind, s.id, s.status AS label, s.recheck_of AS ref, NULL AS candidate, ${projectNumberSql("sweeps", "s")} AS n
+          FROM sweeps s WHERE s.team_id = ? AND (s.id IN (${named.map(() => "?").join(", ")}) OR s.recheck_of = ?)
+          ORDER BY (s.recheck_of <=> ?) ASC, s.id DESC LIMIT ?)
+       UNION ALL
+       (SELECT 'option', o.id, o.review_state, NULL, o.candidate, ${projectNumberSql("options", "o")}
+          FROM options o WHERE o.sweep_id = ? ORDER BY o.id LIMIT ?)
+       UNION ALL
+       (SELECT 'brief', b.id, b.name, b.units, NULL, NULL FROM briefs b WHERE b.id = ?)
+       UNION ALL
+       (SELECT 'project', p.id, p.name, NULL, NULL, NULL FROM projects p WHERE p.id = ?)`,
       // the named ones first (at most two), then the rechecks newest first
-      .orderByRaw("(s.recheck_of <=> ?) ASC, s.id DESC", [sweep.id])
-      .limit(PAGE_LIST_MAX + named.length)
-      .select("s.id", "s.status", "s.recheck_of", projectNumberColumn("sweeps", "s")) as Promise<{ id: number; status: string; recheck_of: number | null; n: number | string | null }[]>,
-    db("options as o")
-      .where("o.sweep_id", sweep.id)
-      .orderBy("o.id")
-      .limit(PAGE_LIST_MAX)
-      .select("o.id", "o.review_state", "o.candidate", projectNumberColumn("options", "o")) as Promise<{ id: number; review_state: string; candidate: string; n: number | string | null }[]>,
+      [teamId, ...named, sweep.id, sweep.id, PAGE_LIST_MAX + named.length, sweep.id, PAGE_LIST_MAX, sweep.briefId ?? null, sweep.projectId ?? null],
+    ) as Promise<unknown> as Promise<[ListedRow[], unknown]>,
     done ? resultParts(sweep) : null,
     // (not cached with the results: it depends on the query; none or one indexed read)
     done ? depthView(sweep, depthQuery ?? { success: true, data: {} }) : null,
   ]);
+  const rows = listed[0];
+  // UNION ALL gives each column the type the parts share: ids in `ref` may come back as text
+  const sweepRows = rows.filter((r) => r.kind === "sweep").map((r) => ({ id: Number(r.id), status: r.label, recheck_of: r.ref === null ? null : Number(r.ref), n: r.n }));
+  const options = rows.filter((r) => r.kind === "option").map((r) => ({ id: Number(r.id), review_state: r.label, candidate: r.candidate, n: r.n }));
+  const brief = rows.find((r) => r.kind === "brief") ?? null;
+  const project = rows.find((r) => r.kind === "project") ?? null;
   const rechecks = sweepRows.filter((r) => r.recheck_of === sweep.id).slice(0, PAGE_LIST_MAX);
   // Counted only when the list is full: most sweeps have a few of each.
   const [rechecksN, optionsN] = await Promise.all([
@@ -364,9 +382,9 @@ export async function loadSweepPage(teamId: number, id: number, depthQuery?: Par
     depth,
     /** most front members a sweep stores (the page says so when a front was longer) */
     frontCap: STORED_FRONT_CAP,
-    brief: brief ? { id: brief.id as number, name: brief.name as string } : null,
-    project: project ? { id: project.id as number, name: project.name as string } : null,
-    units: ((brief?.units as UnitSystem | undefined) ?? "si") as UnitSystem,
+    brief: brief ? { id: Number(brief.id), name: brief.label } : null,
+    project: project ? { id: Number(project.id), name: project.label } : null,
+    units: ((brief?.ref as UnitSystem | null | undefined) ?? "si") as UnitSystem,
     rechecks: rechecks.map((r) => ({ id: r.id, status: r.status })),
     rechecksTotal: Number(rechecksN?.n ?? 0),
     options: options.map((o) => ({ id: o.id, reviewState: o.review_state, rank: parseJson<{ rank: number }>(o.candidate).rank })),

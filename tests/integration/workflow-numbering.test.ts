@@ -50,8 +50,22 @@ describe("numbering within the project", () => {
     const a3 = await a.sweep();
     await db("sweeps").where({ id: a3 }).update({ recheck_of: a2 });
     const pageOf = async (id: number) =>
-      (await callRoute(mod.loader, await requestAs("viewer", `/sweeps/${id}`), { sweepId: String(id) })).data as { numbers: { sweep: Record<number, number>; option: Record<number, number> }; rechecks: { id: number }[]; options: { id: number }[] };
+      (await callRoute(mod.loader, await requestAs("viewer", `/sweeps/${id}`), { sweepId: String(id) })).data as {
+        numbers: { sweep: Record<number, number>; option: Record<number, number> };
+        rechecks: { id: number; status: string }[];
+        options: { id: number; reviewState: string; rank: number }[];
+        brief: { id: number; name: string } | null;
+        project: { id: number; name: string } | null;
+        units: string;
+      };
+    // the brief's units as the page shows them (the same read brings the brief's name and units)
+    await db("briefs").where({ id: a.briefId }).update({ units: "us" });
     const p2 = await pageOf(a2);
+    expect(p2.brief).toEqual({ id: a.briefId, name: "Numbering A beam" });
+    expect(p2.project).toEqual({ id: a.projectId, name: "Numbering A" });
+    expect(p2.units).toBe("us");
+    expect(p2.rechecks).toEqual([{ id: a3, status: "succeeded" }]);
+    expect(p2.options).toEqual([{ id: oA1, reviewState: "draft", rank: 1 }]);
     expect(p2.rechecks.map((r) => r.id)).toEqual([a3]);
     expect(p2.options.map((x) => x.id)).toEqual([oA1]);
     expect(p2.numbers).toEqual({ sweep: { [a2]: 2, [a3]: 3 }, option: { [oA1]: 1 } });
