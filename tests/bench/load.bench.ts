@@ -1,6 +1,7 @@
 // Load benchmark (issue 9, items 4 and 8): `npx tsx tests/bench/load.bench.ts` (or `npm run bench load`).
 // Starts the production build (building it first when app/ is newer) with node server.ts (what
-// `npm run start` runs) on a free loopback port against a fresh database of its own (sparwise_bench_load), then prints:
+// `npm run start` runs) on a free loopback port against a fresh database of its own
+// (sparwise_bench_load), then prints:
 //  - baseline: /healthz (one database round trip) one request at a time;
 //  - item 4: POST /api/v1/properties for the costliest sections the caps accept, one at a time,
 //    then /healthz latency while four clients send the worst of them back to back, as a ratio
