@@ -18,7 +18,7 @@ import type { SearchProblem } from "~/optimizer";
 import { isCodeBasis, type DesignRow } from "~/lib/design-summary";
 import type { Numbers } from "~/lib/numbering";
 import { projectNumberSql } from "~/lib/numbering.server";
-import { sameDepth, type DepthViewQuery } from "~/lib/depth-bests";
+import { MAX_DEPTH_BEST_DEPTHS, sameDepth, type DepthViewQuery } from "~/lib/depth-bests";
 import type { DepthView } from "~/components/DepthBests";
 import { FAMILIES, axisCount, gridValues } from "~/optimizer";
 import { familyLabel } from "~/lib/labels";
@@ -285,6 +285,9 @@ export async function depthView(sweep: Pick<SweepView, "id" | "problem" | "depth
       reason: any ? null : "This sweep was stored before each family's lightest at every depth was kept. Run it again (a recheck with the same limits) to filter it by depth.",
     };
   }
+  // a sweep stored before the cap on depths (queue.server.ts depthBestsInfo): the page offers no more depths than a sweep keeps
+  if (count > MAX_DEPTH_BEST_DEPTHS && info.state !== "none")
+    info = { state: "none", depths: count, reason: `The grid has ${count.toLocaleString("en")} depths; the page offers each family's lightest at every depth for grids of up to ${MAX_DEPTH_BEST_DEPTHS.toLocaleString("en")} depths.` };
   // rolled sections only (no plate family searched): nothing per depth to offer
   if (families.length === 0) info = { state: "none", depths: count, reason: "This sweep searched catalogue sections only; each family's lightest at every depth is kept for the welded families." };
   const grid = info.state === "none" || (info.state === "unknown" && info.reason) ? null : { min: problem.depth.min, step: problem.depth.step, count };

@@ -96,6 +96,13 @@ describe("the sweep page's depth control", () => {
     expect(v.info.reason).toMatch(/stored before each family's lightest at every depth was kept/);
     expect(v.grid).toBeNull();
     expect(v.rows).toBeNull();
+    // nor does it offer a list of more depths than a sweep keeps, whatever the sweep stored
+    const wide = await sweepOf({ ...PROBLEM, depth: { min: 100, max: 100 + MAX_DEPTH_BEST_DEPTHS, step: 1 }, families: ["rectangle"], width: { min: 50, max: 60, step: 10 } });
+    await db("sweeps").where({ id: wide }).update({ depth_bests: null });
+    await db("candidates").where({ sweep_id: wide }).limit(1).update({ depth_best: true });
+    const w = await view(wide, "?depth=300");
+    expect(w.grid).toBeNull();
+    expect(w.info.reason).toMatch(/2,001 depths/);
   });
 });
 
