@@ -441,6 +441,26 @@ function firstAtLeast(a: Float64Array, x: number): number {
   return lo;
 }
 
+/**
+ * The incumbent's cut along one axis (header: "the objective is affine in d, bt, bb with positive
+ * slopes"): with the objective o0 at a[lo] and o1 > lim at a[hi], the last index of a whose value
+ * is at or below where the line reaches lim, widened by REL so rounding never cuts a point that
+ * passes. The caller clamps it to its own range.
+ */
+function lastWithin(a: Float64Array, lo: number, hi: number, o0: number, o1: number, lim: number): number {
+  return lastAtMost(a, a[lo] + ((lim - o0) * (a[hi] - a[lo])) / (o1 - o0));
+}
+
+/** The first index of a whose value is at least x, x widened by REL so rounding never cuts a grid value at the bound. */
+function firstAtLeastWidened(a: Float64Array, x: number): number {
+  return firstAtLeast(a, x - REL * (Math.abs(x) + 1));
+}
+
+/** The last index of a whose value is at most x, x widened by REL so rounding never cuts a grid value at the bound. */
+function lastAtMost(a: Float64Array, x: number): number {
+  return firstAbove(a, x + REL * (Math.abs(x) + 1)) - 1;
+}
+
 /** One family's branch-and-bound. */
 class FamilySearch {
   readonly fk: FamilyKernel;
@@ -606,7 +626,7 @@ class FamilySearch {
       const slope = (r2 - r1) / (W[last] - W[kLo]);
       if (slope > 0) {
         const bMax = W[kLo] + (lim - r1) / slope;
-        const h = firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1;
+        const h = lastAtMost(W, bMax);
         if (h < kHi) {
           this.t.ruledOut[c] += kHi - Math.max(h, kLo - 1);
           kHi = h;
@@ -677,7 +697,7 @@ class FamilySearch {
       if (iHi < req) return this.dead(k, kHi);
       const slope = (iHi - Iz) / (W[kHi] - b);
       const bNeed = b + (req - Iz) / slope;
-      let k2 = firstAtLeast(W, bNeed - REL * (Math.abs(bNeed) + 1));
+      let k2 = firstAtLeastWidened(W, bNeed);
       if (k2 <= k) k2 = k + 1;
       if (k2 > kHi) return this.dead(k, kHi);
       this.t.ruledOut[cause] += k2 - k;
@@ -916,7 +936,7 @@ class FamilySearch {
       const zHi = plateModulusAbout(p, n, a);
       if (zHi < req) return this.dead(k, kHi);
       const bNeed = b + (req - Z) / ((zHi - Z) / (W[kHi] - b));
-      let k2 = firstAtLeast(W, bNeed - REL * (Math.abs(bNeed) + 1));
+      let k2 = firstAtLeastWidened(W, bNeed);
       if (k2 <= k) k2 = k + 1;
       if (k2 > kHi) return this.dead(k, kHi);
       this.t.ruledOut[C_BEND] += k2 - k;
@@ -1269,8 +1289,7 @@ class FamilySearch {
         o1 = this.objectiveAt(kHi);
       if (o1 > lim) {
         if (o0 > lim) return -1;
-        const bMax = this.W[k] + ((lim - o0) * (this.W[kHi] - this.W[k])) / (o1 - o0);
-        kHi = Math.min(kHi, firstAbove(this.W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+        kHi = Math.min(kHi, lastWithin(this.W, k, kHi, o0, o1, lim));
         if (kHi < k) return -1;
       }
     }
@@ -1602,7 +1621,7 @@ class FamilySearch {
       const slope = (this.slR2[0] - this.slR1[0]) / (W[hi] - W[lo]);
       if (hi > lo && slope > 0) {
         const bMax = W[lo] + (lim - this.slR1[0]) / slope;
-        hi = Math.min(hi, firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+        hi = Math.min(hi, lastAtMost(W, bMax));
       } else if (this.slR1[0] > lim * (1 + REL)) hi = lo - 1;
     }
     // (E5) a sagging moment compresses the top flange, which must not be class 4
@@ -1618,7 +1637,7 @@ class FamilySearch {
    */
   enFlangeHi(t: number, tw: number): number {
     const bMax = 28 * Math.sqrt(235 / this.enFyMax(0, 0)) * t + tw;
-    return firstAbove(this.W, bMax + REL * (Math.abs(bMax) + 1)) - 1;
+    return lastAtMost(this.W, bMax);
   }
 
   encode(idx: Int32Array): number {
@@ -1691,8 +1710,7 @@ class FamilySearch {
           v[sec] = W[jHi];
           const o10 = this.objectiveOf2();
           if (o10 > lim) {
-            const bMax = W[jLo] + ((lim - o00) * (W[jHi] - W[jLo])) / (o10 - o00);
-            jHi = Math.min(jHi, firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+            jHi = Math.min(jHi, lastWithin(W, jLo, jHi, o00, o10, lim));
           }
           v[sec] = W[jLo];
         }
@@ -1700,8 +1718,7 @@ class FamilySearch {
           v[f] = W[kHi];
           const o01 = this.objectiveOf2();
           if (o01 > lim) {
-            const bMax = W[kLo] + ((lim - o00) * (W[kHi] - W[kLo])) / (o01 - o00);
-            kHi = Math.min(kHi, firstAbove(W, bMax + REL * (Math.abs(bMax) + 1)) - 1);
+            kHi = Math.min(kHi, lastWithin(W, kLo, kHi, o00, o01, lim));
           }
         }
         if (jHi < jLo || kHi < kLo) return null;
@@ -2007,7 +2024,7 @@ class FamilySearch {
       if (bb > W[m.kHi] * (1 + REL) + REL) continue;
       const key = (m.o00 + m.ot * (bt - m.bt0) + m.ob * (bb - m.bb0)) * (1 - REL);
       if (key > inc) continue;
-      const k = Math.max(m.kLo, firstAtLeast(W, bb - REL * (Math.abs(bb) + 1)));
+      const k = Math.max(m.kLo, firstAtLeastWidened(W, bb));
       if (k > m.kHi) continue;
       this.push(key, id + j * stride, k, m.kHi, KIND_RAW, m.kHi - k + 1);
     }
@@ -2119,7 +2136,7 @@ class FamilySearch {
     const limW = ctx.slenderLimit[fkm.C_WEB] * cap;
     if (limW === limW) {
       const dMax = tft + tfb + limW * tw;
-      dB = Math.min(dB, firstAbove(D, dMax + REL * (Math.abs(dMax) + 1)) - 1);
+      dB = Math.min(dB, lastAtMost(D, dMax));
     }
     if (dB < dA || jHi < jLo) {
       out[fkm.C_OUTSTAND] += 1;
@@ -2156,8 +2173,7 @@ class FamilySearch {
           v[sec] = W[jHi];
           const o1 = this.objectiveOf2();
           if (o1 > lim) {
-            const x = W[jLo] + ((lim - o0) * (W[jHi] - W[jLo])) / (o1 - o0);
-            jHi = Math.min(jHi, firstAbove(W, x + REL * (Math.abs(x) + 1)) - 1);
+            jHi = Math.min(jHi, lastWithin(W, jLo, jHi, o0, o1, lim));
           }
           v[sec] = W[jLo];
         }
@@ -2165,8 +2181,7 @@ class FamilySearch {
           v[f] = W[kHi];
           const o1 = this.objectiveOf2();
           if (o1 > lim) {
-            const x = W[kLo] + ((lim - o0) * (W[kHi] - W[kLo])) / (o1 - o0);
-            kHi = Math.min(kHi, firstAbove(W, x + REL * (Math.abs(x) + 1)) - 1);
+            kHi = Math.min(kHi, lastWithin(W, kLo, kHi, o0, o1, lim));
           }
           v[f] = W[kLo];
         }
@@ -2174,8 +2189,7 @@ class FamilySearch {
           v[0] = D[dB];
           const o1 = this.objectiveOf2();
           if (o1 > lim) {
-            const x = D[dA] + ((lim - o0) * (D[dB] - D[dA])) / (o1 - o0);
-            dB = Math.min(dB, firstAbove(D, x + REL * (Math.abs(x) + 1)) - 1);
+            dB = Math.min(dB, lastWithin(D, dA, dB, o0, o1, lim));
           }
           v[0] = D[dA];
         }
@@ -2304,8 +2318,7 @@ class FamilySearch {
     v[dim] = A[hi];
     const o1 = this.objectiveOf2();
     if (o1 <= lim) return hi;
-    const x = A[lo] + ((lim - o0) * (A[hi] - A[lo])) / (o1 - o0);
-    return Math.max(lo, Math.min(hi, firstAbove(A, x + REL * (Math.abs(x) + 1)) - 1));
+    return Math.max(lo, Math.min(hi, lastWithin(A, lo, hi, o0, o1, lim)));
   }
 
   /** (R) Raises the low end of axis ax (0 depth, 1 bt, 2 bb) of the box in bx past the run of values whose sub-box fails (E2). */
