@@ -1706,21 +1706,8 @@ class FamilySearch {
         v[f] = W[kLo];
         const o00 = this.objectiveOf2();
         if (o00 > lim) return null;
-        if (jHi > jLo) {
-          v[sec] = W[jHi];
-          const o10 = this.objectiveOf2();
-          if (o10 > lim) {
-            jHi = Math.min(jHi, lastWithin(W, jLo, jHi, o00, o10, lim));
-          }
-          v[sec] = W[jLo];
-        }
-        if (kHi > kLo) {
-          v[f] = W[kHi];
-          const o01 = this.objectiveOf2();
-          if (o01 > lim) {
-            kHi = Math.min(kHi, lastWithin(W, kLo, kHi, o00, o01, lim));
-          }
-        }
+        jHi = this.cutAxis(sec, W, jLo, jHi, o00, lim);
+        kHi = this.cutAxis(f, W, kLo, kHi, o00, lim);
         if (jHi < jLo || kHi < kLo) return null;
       }
       if (this.en && this.en.restraint) {
@@ -1861,6 +1848,21 @@ class FamilySearch {
   private lp = { c00: 0, ct: 0, cb: 0, o00: 0, ot: 0, ob: 0, bt: 0, bb: 0 };
 
   /** The objective at the widths now in v (fills the plates). */
+  /**
+   * The incumbent's cut along one axis of a box (the header's "objective is affine in d, bt, bb with
+   * positive slopes"): [lo, hi] of the dimension in slot (values A) shrunk to the points no heavier
+   * than lim, with the objective o0 at A[lo] and the other dimensions as v holds them; v[slot] is
+   * left at A[lo].
+   */
+  private cutAxis(slot: number, A: Float64Array, lo: number, hi: number, o0: number, lim: number): number {
+    if (hi <= lo) return hi;
+    const v = this.v;
+    v[slot] = A[hi];
+    const o1 = this.objectiveOf2();
+    v[slot] = A[lo];
+    return o1 > lim ? Math.min(hi, lastWithin(A, lo, hi, o0, o1, lim)) : hi;
+  }
+
   private objectiveOf2(): number {
     this.fk.fill(this.v, this.plates);
     return objectiveOf(this.fk, this.v, this.plates, this.ctx);
@@ -2169,30 +2171,9 @@ class FamilySearch {
         v[f] = W[kLo];
         const o0 = this.objectiveOf2();
         if (o0 > lim) return null;
-        if (jHi > jLo) {
-          v[sec] = W[jHi];
-          const o1 = this.objectiveOf2();
-          if (o1 > lim) {
-            jHi = Math.min(jHi, lastWithin(W, jLo, jHi, o0, o1, lim));
-          }
-          v[sec] = W[jLo];
-        }
-        if (kHi > kLo) {
-          v[f] = W[kHi];
-          const o1 = this.objectiveOf2();
-          if (o1 > lim) {
-            kHi = Math.min(kHi, lastWithin(W, kLo, kHi, o0, o1, lim));
-          }
-          v[f] = W[kLo];
-        }
-        if (dB > dA) {
-          v[0] = D[dB];
-          const o1 = this.objectiveOf2();
-          if (o1 > lim) {
-            dB = Math.min(dB, lastWithin(D, dA, dB, o0, o1, lim));
-          }
-          v[0] = D[dA];
-        }
+        jHi = this.cutAxis(sec, W, jLo, jHi, o0, lim);
+        kHi = this.cutAxis(f, W, kLo, kHi, o0, lim);
+        dB = this.cutAxis(0, D, dA, dB, o0, lim);
         if (jHi < jLo || kHi < kLo || dB < dA) return null;
       }
       if (this.en && this.en.restraint) {
