@@ -49,6 +49,17 @@
 //       m = k (tight) and only weakens as m grows (Iz(m), c(m) move the loose way), so "every
 //       point of [k, m] fails" is monotone in m: bisection finds the first point that may pass.
 //       (rangeFrom/rangeOut; allowable basis only, as (2), (5), (7).)
+//   (8′) The shear part of (8) without bisection (shearJump): along the row Zz = min over a of
+//       ∫|y − a| dA, each affine in the free width, so Zz is concave and lies above its chord
+//       from k to the row's last point; Iz ≤ I about ȳ(k), affine. So τ(ȳ(x)) ≥ V·chord(x)/
+//       (2·b·I_ȳ(k)(x)) while ȳ(x) stays in the band of width b, checked at the run's last
+//       point (ȳ is monotone): the run that fails is one affine inequality, solved in closed form.
+//   (8″) mono-i boxes (superBound, dBound; passReq): the points that can pass meet the knapsack's
+//       I about y0 ≥ req, so bb ≥ bbMin(bt) and bt ≥ btMin(bb); over them c_top is least at
+//       (bt1, bbMin(bt1)), c_bot at (btMin(bb1), bb1), at the least depth (R). When both exceed
+//       their flange's thickness, ȳ is in the web at every such point and (8)'s shear bound needs
+//       Iz ≥ V·Zz/(2·tw·τ), Zz least at (btMin(bb1), bbMin(bt1)). A larger requirement narrows
+//       the region again: a few rounds of the knapsack.
 // - mono-i has two widths: a "super" node per (d, tft, tfb, tw) and range of bt bounds both
 //   with the fractional-knapsack solution of min objective s.t. I_y0(bt, bb) ≥ I_req (a
 //   2-variable LP solved in closed form, valid by (4)), I_req from (2) with each fibre's
@@ -758,9 +769,20 @@ class FamilySearch {
    * continue after it. Every range bound of a row ((5), (8), (E2), (U2)) goes through here.
    */
   private skipOut(which: number, k: number, kHi: number, cap: number): number {
+    this.zzHiK = -1; // shearJump's chord end belongs to this row
     for (let round = 0; round < 64; round++) {
       if (which === OUT_RANGE) this.rangeFrom(k);
       if (!this.out(which, k, k, cap)) return k;
+      if (which === OUT_RANGE && this.cause === C_SHEAR) {
+        // (8′): jump the run shear excludes in closed form instead of bisecting for it
+        const j = this.shearJump(k, kHi, cap);
+        if (j > kHi) return this.dead(k, kHi);
+        if (j > k) {
+          this.t.ruledOut[C_SHEAR] += j - k;
+          k = j;
+          continue;
+        }
+      }
       if (k === kHi || this.out(which, k, kHi, cap)) return this.dead(k, kHi);
       let lo = k,
         hi = kHi; // [k, lo] out; [k, hi] not
@@ -858,6 +880,66 @@ class FamilySearch {
       }
     }
     return false;
+  }
+
+  /** (8′) Zz at the row's last point kHi (zzHiK), for shearJump's chord; skipOut forgets it for each row. */
+  private zzHi = NaN;
+  private zzHiK = -1;
+
+  /**
+   * (8′) After rangeOut(k) failed by shear at ȳ(k) (rangeFrom(k) set the plate band): the first
+   * index after the run [k, j − 1] that the shear bound excludes as a whole (k when it cannot
+   * tell; kHi + 1 when the whole rest of the row fails). For x in the run, with ȳ(x) inside the
+   * same band of width b: τ(ȳ(x)) = V·Q(ȳ(x))/(Iz(x)·b), Q(ȳ(x)) ≥ Zz(x)/2 as in (8); Zz is the
+   * least over a of ∫|y − a| dA, each affine in the free width, so Zz is concave along the row and
+   * lies above its chord between k and the row's last point kHi; Iz(x) ≤ I about ȳ(k), affine in
+   * the free width (parallel-axis theorem). So the point fails wherever V·chord(x) > 2·b·aS·cap·
+   * I_ȳ(k)(x): an affine inequality, solved in closed form. The band condition is checked at the
+   * run's last point (ȳ moves monotonically along the row, so between the ends it stays inside).
+   */
+  private shearJump(k: number, kHi: number, cap: number): number {
+    if (this.rkBand < 0 || k >= kHi || this.rkZz !== this.rkZz) return k;
+    const fk = this.fk,
+      ctx = this.ctx,
+      W = this.W,
+      v = this.v,
+      n = fk.nPlates,
+      p = this.plates,
+      q = this.pHi,
+      ko = this.kout,
+      rk = this.rk;
+    const a = rk[K_CY],
+      zk = this.rkZz,
+      ik = rk[K_IZ],
+      w0 = W[k],
+      dw = W[kHi] - w0;
+    v[fk.free] = W[kHi];
+    fk.fill(v, q);
+    const iHi = iAbout(q, n, a);
+    if (this.zzHiK !== kHi) {
+      compositeKernel(q, n, ko);
+      this.zzHi = plateModulusAbout(q, n, plateNeutralAxis(q, n, ko[K_AREA], ko[K_CY]));
+      this.zzHiK = kHi;
+    }
+    const sZ = Math.max(0, (this.zzHi - zk) / dw),
+      sI = (iHi - ik) / dw;
+    const C = 2 * this.rkB * ctx.aS * cap * (1 + REL);
+    const f0 = ctx.V * zk - C * ik,
+      f1 = ctx.V * sZ - C * sI;
+    if (!(f0 > 0)) return k;
+    // the run: points whose free width is below w0 + Δ*, narrowed by REL (never cuts a point at the bound)
+    const j = f1 >= 0 ? kHi + 1 : firstAtLeastWidened(W, w0 - f0 / f1);
+    if (j <= k + 1) return k;
+    // ȳ at the run's last point strictly inside the same band, of the same width
+    const last = Math.min(j - 1, kHi);
+    v[fk.free] = W[last];
+    fk.fill(v, q);
+    compositeKernel(q, n, ko);
+    const y2 = ko[K_CY],
+      b = this.rkB,
+      o = this.rkBand * PLATE_STRIDE;
+    if (!(p[o] === q[o] && p[o + 1] === q[o + 1] && p[o + 3] === q[o + 3] && q[o + 3] < y2 && y2 < q[o + 3] + q[o + 1] && b === plateWidthAt(q, n, y2, 1) && b === plateWidthAt(q, n, y2, -1))) return k;
+    return j;
   }
 
   // ---- EN 1993 (E) -----------------------------------------------------------------------
@@ -1807,6 +1889,29 @@ class FamilySearch {
       compositeKernel(p, n, this.kout);
       y0 = this.kout[K_CY];
     }
+    if (!this.lim && req > 0) {
+      // (2′), (8″) over the points that can pass: rounds while the requirement rises
+      this.lpRound(false, m.y0, req, bt0, bt1, bb0, bb1);
+      for (let round = 0; round < 4; round++) {
+        const r = this.passReq(req, v[0], bt0, bt1, bb0, bb1, cap);
+        if (!(r > req * (1 + 1e-3))) break;
+        req = r;
+        const obj = this.lpRound(false, m.y0, req, bt0, bt1, bb0, bb1);
+        if (obj !== obj) {
+          this.t.ruledOut[this.cause] += (jHi - jLo + 1) * (kHi - kLo + 1);
+          return null;
+        }
+        const lp = this.lp;
+        m.req = req;
+        m.i00 = lp.c00;
+        m.it = lp.ct;
+        m.ib = lp.cb;
+        m.o00 = lp.o00;
+        m.ot = lp.ot;
+        m.ob = lp.ob;
+        if (obj > best) best = obj;
+      }
+    }
     m.zreq = 0;
     if (this.lim) {
       // (E1): ∫|y − a| dA about a fixed a is affine in (bt, bb) and ≥ Zz: the same knapsack on it,
@@ -1866,6 +1971,62 @@ class FamilySearch {
   private objectiveOf2(): number {
     this.fk.fill(this.v, this.plates);
     return objectiveOf(this.fk, this.v, this.plates, this.ctx);
+  }
+
+  /**
+   * (2′), (8″) A mono-i box's I requirement from the points that can pass (allowable stresses).
+   * Each such point has I about y0 ≥ req, y0 the model's axis in this.lp (Iz ≤ I about any axis),
+   * the model being affine in (bt, bb) with positive slopes: bb ≥ bbMin(bt), falling with bt, and
+   * bt ≥ btMin(bb). The centroid rises with bt and falls with bb (R), so c_top is least at
+   * (bt1, bbMin(bt1)) and c_bot at (btMin(bb1), bb1); with d at the box's least depth (both rise
+   * with d, (R)). When both exceed their flange's thickness, ȳ lies in the web at every such point,
+   * where the shear stress is V·Q(ȳ)/(Iz·tw) with Q(ȳ) ≥ Zz/2 ((8)), and Zz, rising with d, bt
+   * and bb, is at least its value at (btMin(bb1), bbMin(bt1)). So Iz ≥ M·c/σ at each fibre and
+   * Iz ≥ V·Zz/(2·tw·τ): the larger requirement, at utilisation ≤ cap (cause set for a caller that
+   * finds it cannot be met).
+   */
+  private passReq(req: number, d: number, bt0: number, bt1: number, bb0: number, bb1: number, cap: number): number {
+    const fk = this.fk,
+      v = this.v,
+      sec = fk.second,
+      f = fk.free,
+      p = this.plates,
+      n = fk.nPlates,
+      ko = this.kout,
+      lp = this.lp,
+      ctx = this.ctx;
+    const bbAt = lp.cb > 0 ? Math.min(bb1, Math.max(bb0, bb0 + (req - lp.c00 - lp.ct * (bt1 - bt0)) / lp.cb)) : bb0,
+      btAt = lp.ct > 0 ? Math.min(bt1, Math.max(bt0, bt0 + (req - lp.c00 - lp.cb * (bb1 - bb0)) / lp.ct)) : bt0;
+    v[0] = d;
+    v[sec] = bt1;
+    v[f] = bbAt;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const cTop = ko[K_MAXY] - ko[K_CY];
+    v[sec] = btAt;
+    v[f] = bb1;
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const cBot = ko[K_CY] - ko[K_MINY];
+    const aC = ctx.aC * cap,
+      aT = ctx.aT * cap;
+    const rt = Math.max((ctx.Ms * cTop) / aC, (ctx.Mh * cTop) / aT),
+      rb = Math.max((ctx.Ms * cBot) / aT, (ctx.Mh * cBot) / aC);
+    let r = Math.max(rt, rb);
+    this.cause = ctx.Ms >= ctx.Mh === rt >= rb ? C_COMP : C_TENS;
+    if (ctx.hasShear && ctx.V > 0 && cTop > v[2] && cBot > v[4]) {
+      v[sec] = btAt;
+      v[f] = bbAt;
+      fk.fill(v, p);
+      compositeKernel(p, n, ko);
+      const zz = plateModulusAbout(p, n, plateNeutralAxis(p, n, ko[K_AREA], ko[K_CY]));
+      const rs = (ctx.V * zz) / (2 * v[5] * ctx.aS * cap);
+      if (rs > r) {
+        r = rs;
+        this.cause = C_SHEAR;
+      }
+    }
+    return r * (1 - REL);
   }
 
   /**
@@ -2240,9 +2401,11 @@ class FamilySearch {
     v[sec] = bt0;
     v[f] = bb0;
     let best = this.objectiveOf2();
-    const req = this.baseIreq(d1, cap) * (1 - REL);
+    let req = this.baseIreq(d1, cap) * (1 - REL);
     if (req > 0) {
-      let y0 = d2 / 2;
+      let y0 = d2 / 2,
+        yBest = y0,
+        oBest = -Infinity;
       for (let round = 0; round < 2; round++) {
         const obj = this.lpRange(false, y0, req, d2, d1, bt0, bt1, bb0, bb1);
         if (obj !== obj) {
@@ -2250,12 +2413,29 @@ class FamilySearch {
           return null;
         }
         if (obj > best) best = obj;
+        if (obj > oBest) (oBest = obj), (yBest = y0);
         v[0] = d2;
         v[sec] = lp.bt;
         v[f] = lp.bb;
         fk.fill(v, p);
         compositeKernel(p, n, this.kout);
         y0 = this.kout[K_CY];
+      }
+      if (!this.lim) {
+        // (2′), (8″) as superBound, over the depth range: c_top = d − ȳ, c_bot = ȳ and Zz never
+        // fall with d (R), so their least values over the range are at d1
+        this.lpRange(false, yBest, req, d2, d1, bt0, bt1, bb0, bb1); // the model at yBest, in lp
+        for (let round = 0; round < 4; round++) {
+          const r = this.passReq(req, d1, bt0, bt1, bb0, bb1, cap);
+          if (!(r > req * (1 + 1e-3))) break;
+          req = r;
+          const obj = this.lpRange(false, yBest, req, d2, d1, bt0, bt1, bb0, bb1);
+          if (obj !== obj) {
+            out[this.cause] += (dB - dA + 1) * (jHi - jLo + 1) * (kHi - kLo + 1);
+            return null;
+          }
+          if (obj > best) best = obj;
+        }
       }
     }
     if (this.lim) {
