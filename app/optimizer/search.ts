@@ -2839,7 +2839,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
 export function searchWithKnown(input: SearchProblemInput, options: SearchOptions, known: readonly SearchPoint[]): SearchResult {
   if (options.exhaustive) return bruteForceSearch(input, options);
   const problem = searchProblemSchema.parse(input);
-  const p = prepare(problem, options.depthIndexRange);
+  const p = prepare(problem, options.depthIndexRange, options.depthInterleave);
   const explore = Math.max(0, options.explore ?? 0);
   const gridMode = (options.front ?? (explore > 0 ? "evaluated" : "grid")) === "grid";
   const t = new Tally(p.families.length, gridMode ? p.depths.length : 0, options.stopWhen);
