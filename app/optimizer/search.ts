@@ -188,6 +188,35 @@
 //     the span of the slices that may pass (superBound does the same per depth in best mode).
 //   - (E4) and (E5) as for the super nodes.
 //   A popped range is halved; at DRANGE_LEAF depths or fewer each depth becomes its super node.
+// (R′) The row families but the rectangle (i, channel, tee, box, channel-down, angle), both passes:
+//   one node per thickness tuple and run of consecutive valid depths (the geometry rule is
+//   d > plates), over every free width: each family's rows (64,000 on a fine grid) were each
+//   bounded when seeded and held in the heap. rowRangeBound bounds d ∈ [d1, d2] × b:
+//   - The free width's least value (tw, t, 2·tw with the box clearance, 2·tf) involves no depth.
+//     (6): every ratio either involves no depth (the width's elements: one last width for every
+//     depth) or is (d − plates)/t, affine and rising in d (the web, stem, leg): a last depth, and
+//     one failing at d1 fails at every deeper depth.
+//   - The objective (plate areas × prices, plus a fixed weld term) is affine in d and b with
+//     positive slopes (no plate's area holds d·b; the rectangle's does, so it keeps its rows): its
+//     value at (d1, b) bounds the range's at b, and the incumbent cuts each coordinate at the
+//     other's least (best mode).
+//   - Depth monotonicity as (R): the section at d + Δ is the one at d cut across the band of fixed
+//     width that d lengthens (the web or webs at mid-depth; the stem, the legs, the vertical leg
+//     above the horizontal one), its upper part raised by Δ and the gap filled with that band. Iz
+//     never falls: each part keeps its area and own I while their centroids move apart (I = I1 +
+//     I2 + e²·A1·A2/(A1 + A2)), then material is added (1); Zz never falls by (R)'s argument.
+//   - (2), (3), (E1), (U1): the I requirement, M·d/(σc + σt) (M·d/2/min σ for the doubly
+//     symmetric), rises with d; deflection's and M·γ/fy (fy from the thickest plate, fixed with the
+//     thicknesses) do not involve d. A point (d, b) that passes has I_y0(d2, b) ≥ Iz(d2, b) ≥
+//     Iz(d, b) ≥ req(d1) for any y0, I_y0 affine in b ((4)): b is at least the closed-form width
+//     where I_y0 at d2 reaches req(d1) (likewise ∫|y − a| dA at d2 and the Zz requirement), and the
+//     objective at d1 and that width is the range's key. Every point of depths [d1, m] fails when
+//     Iz (or Zz) at depth m and the widest allowed width falls short of req(d1): monotone in m, so
+//     bisection raises d1, in rounds (req(d1) rises with it).
+//   A popped range is halved; at ROW_LEAF depths or fewer each depth becomes its raw row. Its
+//   children are keyed no lower than the range: every point that can still matter weighs at least
+//   the key (the points lighter than a key bounded at cap < 1 are beaten and heavier than each of
+//   its depths' context point so far, (D)).
 // (S) mono-i in best mode with a restraint (LTB checked), before the search: a local search from the heaviest grid point (and
 //   the same at ¾ and ½ of the depth axis) steps each dimension down, then one down and another
 //   up, keeping the lightest feasible point it meets (SEED_EVALS evaluations at most). It only
@@ -206,7 +235,7 @@
 //   tail, a mono-i node) with key o, a lower bound on the objective of its points, is needed:
 //   - for a context point (each family's lightest feasible per depth) only while o is within
 //     its (family, depth)'s lightest feasible so far (1e-9 margin for ties): then as above; a
-//     mono-i depth range (R) while o is within the lightest so far of any depth it holds;
+//     depth range ((R), (R′)) while o is within the lightest so far of any depth it holds;
 //   - for the front, otherwise. A point x is off the front when some feasible y has
 //     objective(y) < objective(x) and u(y) < u(x) (u = utilisation; front.ts's "beats").
 //     cap = the least utilisation among the evaluated feasible candidates strictly lighter
@@ -219,8 +248,8 @@
 //     that cannot reach u ≤ cap ((E1), (E2), (E4) likewise divide the demand by cap). So the
 //     entry is re-bounded at cap when it pops: a row tail whose first point cannot reach cap
 //     is re-queued at its first point that can, a mono-i node or depth range whose bound rose
-//     (by more than REKEY) is re-queued at it (dBound's bounds at cap are the same "demand ÷ cap"
-//     reading of (R)'s), anything else is expanded or its point evaluated. What is dropped stays
+//     (by more than REKEY) is re-queued at it (dBound's and rowRangeBound's bounds at cap are the
+//     same "demand ÷ cap" reading of (R)'s and (R′)'s), anything else is expanded or its point evaluated. What is dropped stays
 //     beaten: dominance is transitive (strictly lighter and strictly lower twice over), and only
 //     evaluated candidates enter the front.
 //   A feasible point does not end its row here: heavier points may reach lower utilisation.
@@ -283,23 +312,24 @@ const OUT_SHEAR = 0,
 const KIND_READY = 0,
   KIND_RAW = 1,
   KIND_SUPER = 2,
-  KIND_DRANGE = 4;
+  KIND_DRANGE = 4,
+  KIND_ROWRANGE = 5;
 /** mono-i depth-range nodes (R) this short or shorter are expanded into one super node per depth. */
 const DRANGE_LEAF = 2;
+/** (R′) row depth ranges this short or shorter are expanded into one raw row per depth. */
+const ROW_LEAF = 4;
 /** (R) bt slices a depth range's box is cut into for (E2) once an incumbent exists. */
 const SLICES = 8;
 /** (S) the most candidates the mono-i seed's local search evaluates. */
 const SEED_EVALS = 4000;
 
 /**
- * Binary min-heap on typed arrays. The heap orders only (key, slot); an entry's payload (row id,
- * k (next free-width index), kHi, kind, the family's index (one heap serves every family in the
- * grid-front search) and n, the number of grid shapes the entry stands for (progress)) stays in
- * its slot, so a sift moves two numbers a level instead of seven. `key[0]` is the least key.
+ * Binary min-heap on typed arrays: key, row id, k (next free-width index), kHi, kind, the
+ * family's index (one heap serves every family in the grid-front search) and n, the number of
+ * grid shapes the entry stands for (progress).
  */
 class Heap {
   key = new Float64Array(1024);
-  slot = new Int32Array(1024);
   id = new Float64Array(1024);
   k = new Int32Array(1024);
   hi = new Int32Array(1024);
@@ -307,9 +337,6 @@ class Heap {
   fam = new Int8Array(1024);
   n = new Float64Array(1024);
   size = 0;
-  private free = new Int32Array(1024);
-  private nFree = 0;
-  private nextSlot = 0;
   private grow() {
     const n = this.key.length * 2;
     const g = <T extends Float64Array | Int32Array | Int8Array>(a: T, C: new (n: number) => T): T => {
@@ -318,8 +345,6 @@ class Heap {
       return b;
     };
     this.key = g(this.key, Float64Array);
-    this.slot = g(this.slot, Int32Array);
-    this.free = g(this.free, Int32Array);
     this.id = g(this.id, Float64Array);
     this.k = g(this.k, Int32Array);
     this.hi = g(this.hi, Int32Array);
@@ -327,44 +352,43 @@ class Heap {
     this.fam = g(this.fam, Int8Array);
     this.n = g(this.n, Float64Array);
   }
-  private alloc(id: number, k: number, hi: number, kind: number, fam: number, n: number): number {
-    const s = this.nFree > 0 ? this.free[--this.nFree] : this.nextSlot++;
-    this.id[s] = id;
-    this.k[s] = k;
-    this.hi[s] = hi;
-    this.kind[s] = kind;
-    this.fam[s] = fam;
-    this.n[s] = n;
-    return s;
-  }
-  clear() {
-    this.size = this.nFree = this.nextSlot = 0;
-  }
-  /**
-   * Appends without ordering: the seed lists use a Heap as a plain buffer, read by position
-   * (a list only ever appended to has entry i in slot i).
-   */
+  /** Appends without ordering (the seed list uses the same arrays as a plain buffer). */
   append(key: number, id: number, k: number, hi: number, kind: number, fam: number, n: number) {
     if (this.size === this.key.length) this.grow();
     const i = this.size++;
     this.key[i] = key;
-    this.slot[i] = this.alloc(id, k, hi, kind, fam, n);
+    this.id[i] = id;
+    this.k[i] = k;
+    this.hi[i] = hi;
+    this.kind[i] = kind;
+    this.fam[i] = fam;
+    this.n[i] = n;
   }
   push(key: number, id: number, k: number, hi: number, kind: number, fam: number, n: number) {
     if (this.size === this.key.length) this.grow();
-    const s = this.alloc(id, k, hi, kind, fam, n);
-    const K = this.key,
-      S = this.slot;
     let i = this.size++;
     while (i > 0) {
       const p = (i - 1) >> 1;
-      if (K[p] <= key) break;
-      K[i] = K[p];
-      S[i] = S[p];
+      if (this.key[p] <= key) break;
+      this.move(p, i);
       i = p;
     }
-    K[i] = key;
-    S[i] = s;
+    this.key[i] = key;
+    this.id[i] = id;
+    this.k[i] = k;
+    this.hi[i] = hi;
+    this.kind[i] = kind;
+    this.fam[i] = fam;
+    this.n[i] = n;
+  }
+  private move(from: number, to: number) {
+    this.key[to] = this.key[from];
+    this.id[to] = this.id[from];
+    this.k[to] = this.k[from];
+    this.hi[to] = this.hi[from];
+    this.kind[to] = this.kind[from];
+    this.fam[to] = this.fam[from];
+    this.n[to] = this.n[from];
   }
   // pops the top into the out fields
   outKey = 0;
@@ -375,33 +399,26 @@ class Heap {
   outFam = 0;
   outN = 0;
   pop() {
-    const K = this.key,
-      S = this.slot;
-    const s = S[0];
-    this.outKey = K[0];
-    this.outId = this.id[s];
-    this.outK = this.k[s];
-    this.outHi = this.hi[s];
-    this.outKind = this.kind[s];
-    this.outFam = this.fam[s];
-    this.outN = this.n[s];
-    this.free[this.nFree++] = s;
+    this.outKey = this.key[0];
+    this.outId = this.id[0];
+    this.outK = this.k[0];
+    this.outHi = this.hi[0];
+    this.outKind = this.kind[0];
+    this.outFam = this.fam[0];
+    this.outN = this.n[0];
     const n = --this.size;
     if (n === 0) return;
-    const key = K[n],
-      last = S[n];
+    const key = this.key[n];
     let i = 0;
     for (;;) {
       let c = 2 * i + 1;
       if (c >= n) break;
-      if (c + 1 < n && K[c + 1] < K[c]) c++;
-      if (K[c] >= key) break;
-      K[i] = K[c];
-      S[i] = S[c];
+      if (c + 1 < n && this.key[c + 1] < this.key[c]) c++;
+      if (this.key[c] >= key) break;
+      this.move(c, i);
       i = c;
     }
-    K[i] = key;
-    S[i] = last;
+    this.move(n, i);
   }
 }
 
@@ -1403,7 +1420,8 @@ class FamilySearch {
       // bounded, so they are bounded with its cut. Grid mode has no incumbent's cut to feed.
       if (!this.gridMode && (this.en?.restraint || this.us?.restraint)) this.seedIncumbent();
       this.seedDepthRanges();
-    } else this.seedRows();
+    } else if (this.fk.family !== "rectangle") this.seedRowRanges();
+    else this.seedRows();
     const sd = this.seeds;
     for (let i = 0; i < sd.size; i++) this.pending += sd.n[i];
   }
@@ -1450,7 +1468,7 @@ class FamilySearch {
     }
     // Everything left (in the heap or never pushed) is pruned by the incumbent (unless the search
     // was stopped: then it is unsettled, and progress keeps counting it as left).
-    h.clear();
+    h.size = 0;
     this.seeds = new Heap();
     if (!this.t.stopped) this.pending = 0;
   }
@@ -1499,6 +1517,10 @@ class FamilySearch {
    * front strictly lighter than the key (D); every bound then runs at that cap.
    */
   step(key: number, id: number, k: number, kHi: number, kind: number, n: number): void {
+    if (kind === KIND_ROWRANGE) {
+      this.stepRowRange(key, id, k, kHi, n);
+      return;
+    }
     const fk = this.fk,
       W = this.W;
     this.decode(id);
@@ -1695,6 +1717,270 @@ class FamilySearch {
       }
       if (j < 0) break;
     }
+  }
+
+
+  // ---- row families: depth ranges (R′, both passes) -----------------------------------------
+
+  /** what rowRangeBound left: the depth range (indices into the depth axis) and the shapes it stands for */
+  private rr = { lo: 0, hi: 0, n: 0 };
+
+  /** index in v of the overall depth d */
+  private get dSlot(): number {
+    return this.fk.roles.indexOf("depth");
+  }
+
+  /** Every thickness tuple as one node per run of consecutive valid depths (R′), bounded at once. */
+  seedRowRanges(): void {
+    const fk = this.fk,
+      gd = this.groupDims,
+      rad = this.radix,
+      v = this.v,
+      W = this.W,
+      ds = this.dSlot,
+      D = this.pf.axes[ds];
+    const dPos = gd.indexOf(ds);
+    const outer = gd.map((_, j) => j).filter((j) => j !== dPos);
+    const idx = new Int32Array(gd.length);
+    for (let j = 0; j < gd.length; j++) v[gd[j]] = this.pf.axes[gd[j]][0];
+    for (;;) {
+      const base = this.encode(idx);
+      for (let i = 0; i < D.length; ) {
+        v[ds] = D[i];
+        if (!fk.groupValid(v)) {
+          i++;
+          continue;
+        }
+        let e = i;
+        while (e + 1 < D.length && ((v[ds] = D[e + 1]), fk.groupValid(v))) e++;
+        v[ds] = D[i];
+        // the free width's least value involves no depth (R′)
+        const kLo = firstAbove(W, fk.freeMin(v));
+        if (kLo < W.length) {
+          this.t.grid += (e - i + 1) * (W.length - kLo);
+          const key = this.rowRangeBound(base, i, e, 1);
+          if (key === key) this.seeds.append(key, base, this.rr.lo, this.rr.hi, KIND_ROWRANGE, this.fam, this.rr.n);
+          this.decode(base);
+        }
+        i = e + 1;
+      }
+      let o = outer.length - 1;
+      while (o >= 0) {
+        const j = outer[o];
+        idx[j]++;
+        if (idx[j] < rad[j]) {
+          v[gd[j]] = this.pf.axes[gd[j]][idx[j]];
+          break;
+        }
+        idx[j] = 0;
+        v[gd[j]] = this.pf.axes[gd[j]][0];
+        o--;
+      }
+      if (o < 0) break;
+    }
+  }
+
+  /**
+   * A popped row depth range (R′): in grid mode first re-keyed at the front's cap while no depth of
+   * it may still hold its context point (D); then halved, each half bounded on its own, or, once
+   * short, one raw row per depth. n: the shapes it stood for; its children stand for at most that
+   * many together, so progress never moves back. Every point of the range that can still matter
+   * weighs at least the key (D's argument: the ones lighter than a key bounded at cap are beaten or
+   * were never needed for context), so no child is keyed below it.
+   */
+  private stepRowRange(key: number, id: number, dA: number, dB: number, n: number): void {
+    let cap = this.gridMode ? this.rangeCapAt(key, dA, dB) : 1;
+    if (cap < 1) {
+      let o = key;
+      for (let it = 0; it < 8; it++) {
+        const b = this.rowRangeBound(id, dA, dB, cap);
+        if (b !== b) return;
+        dA = this.rr.lo;
+        dB = this.rr.hi;
+        if (!(b > o * (1 + REKEY))) break;
+        o = b;
+        cap = this.rangeCapAt(o, dA, dB);
+      }
+      if (o > key) {
+        this.push(o, id, dA, dB, KIND_ROWRANGE, Math.min(n, this.rr.n));
+        return;
+      }
+    }
+    const lim = this.limit();
+    if (dB - dA + 1 <= ROW_LEAF) {
+      const fk = this.fk,
+        W = this.W;
+      for (let i = dA; i <= dB; i++) {
+        const rid = id + i * this.depthStride;
+        this.decode(rid);
+        const kLo = firstAbove(W, fk.freeMin(this.v));
+        const kHi = this.rowHi(kLo, W.length - 1, cap);
+        if (kHi < 0) continue;
+        const rk = this.rowRawKey(kLo, kHi, cap);
+        if (rk !== rk || rk > lim) continue;
+        const m = Math.min(kHi - kLo + 1, n);
+        n -= m;
+        this.push(rk > key ? rk : key, rid, kLo, kHi, KIND_RAW, m);
+      }
+      return;
+    }
+    const mid = (dA + dB) >> 1;
+    for (let h = 0; h < 2; h++) {
+      const b = h === 0 ? this.rowRangeBound(id, dA, mid, cap) : this.rowRangeBound(id, mid + 1, dB, cap);
+      if (b === b && b <= lim) {
+        const m = Math.min(this.rr.n, n);
+        n -= m;
+        this.push(b > key ? b : key, id, this.rr.lo, this.rr.hi, KIND_ROWRANGE, m);
+      }
+    }
+  }
+
+  /**
+   * (R′) Lower bound on the objective over a row family's depth range: the thicknesses of row id
+   * (its depth index 0) fixed, depth indices [dA, dB] (all valid), every free width; NaN when no
+   * point can reach utilisation ≤ cap. Narrows the range (into rr): the depth elements of (6), the
+   * incumbent's cut (best mode), and the least depth whose widest allowed width can meet (2), (3),
+   * (E1), (U1).
+   */
+  rowRangeBound(id: number, dA: number, dB: number, cap: number): number {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      f = fk.free,
+      ds = this.dSlot,
+      D = this.pf.axes[ds],
+      p = this.plates,
+      n = fk.nPlates,
+      ko = this.kout,
+      out = this.t.ruledOut;
+    this.decode(id);
+    v[ds] = D[dA];
+    const kLo = firstAbove(W, fk.freeMin(v));
+    if (kLo >= W.length) return NaN;
+    // (6) the width's elements involve no depth; a depth element failing at D[dA] fails deeper
+    let kHi = this.rowHi(kLo, W.length - 1, cap);
+    if (kHi < 0) return NaN;
+    dB = this.rangeDepthHi(dA, dB, kLo, kHi, cap);
+    if (dB < dA) return NaN;
+    const lim = this.limit();
+    const zreq = this.lim ? this.enZreq(this.enFyMax(kLo, kHi), cap) * (1 - REL) : 0;
+    for (let round = 0; round < 8; round++) {
+      if (lim < Infinity) {
+        // best mode: the objective is affine in d and b with positive slopes (R′)
+        v[ds] = D[dA];
+        v[f] = W[kLo];
+        const o0 = this.objectiveOf2();
+        if (o0 > lim) return NaN;
+        kHi = this.cutAxis(f, W, kLo, kHi, o0, lim);
+        dB = this.cutAxis(ds, D, dA, dB, o0, lim);
+      }
+      // the least depth that can pass: every point of depths [dA, m] fails once the widest allowed
+      // width at depth m falls short of the requirement at dA (monotone in m)
+      const req = this.baseIreq(D[dA], cap) * (1 - REL);
+      if (!this.rangeReqOut(dA, req, zreq, kHi)) break;
+      if (dA === dB || this.rangeReqOut(dB, req, zreq, kHi)) {
+        out[this.cause] += (dB - dA + 1) * (kHi - kLo + 1);
+        return NaN;
+      }
+      let lo = dA,
+        hi = dB; // [dA, lo] fails as a whole, [dA, hi] does not
+      while (hi - lo > 1) {
+        const m = (lo + hi) >> 1;
+        if (this.rangeReqOut(m, req, zreq, kHi)) lo = m;
+        else hi = m;
+      }
+      out[this.cause] += (hi - dA) * (kHi - kLo + 1);
+      dA = hi;
+    }
+    const d1 = D[dA],
+      d2 = D[dB];
+    this.rr.lo = dA;
+    this.rr.hi = dB;
+    this.rr.n = (dB - dA + 1) * (kHi - kLo + 1);
+    // (4), (E1) at the deepest depth, about its centroid and equal-area axis at the least width:
+    // every point's Iz (Zz) is at most its value at d2 (R′), at most I (∫|y − a| dA) about any axis
+    // there, affine in b; the requirements at d1 hold (they do not fall with d); the objective at d1
+    const req = this.baseIreq(d1, cap) * (1 - REL);
+    v[ds] = d2;
+    v[f] = W[kLo];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    const y0 = ko[K_CY],
+      a = this.lim ? (this.sym ? 0.5 * d2 : plateNeutralAxis(p, n, ko[K_AREA], y0)) : 0;
+    const i0 = iAbout(p, n, y0),
+      z0 = this.lim ? plateModulusAbout(p, n, a) : 0;
+    v[f] = W[kHi];
+    fk.fill(v, p);
+    const i1 = iAbout(p, n, y0),
+      z1 = this.lim ? plateModulusAbout(p, n, a) : 0;
+    v[ds] = d1;
+    v[f] = W[kLo];
+    const o0 = this.objectiveOf2();
+    v[f] = W[kHi];
+    const o1 = this.objectiveOf2();
+    let x = 0;
+    if (i0 < req) x = i1 > i0 ? (req - i0) / (i1 - i0) : 1;
+    if (z0 < zreq) x = Math.max(x, z1 > z0 ? (zreq - z0) / (z1 - z0) : 1);
+    return (o0 + (o1 - o0) * Math.min(1, x)) * (1 - REL);
+  }
+
+  /**
+   * (R′) True when the widest allowed width kHi at depth index m cannot meet the I requirement req
+   * or the plastic modulus requirement zreq (sets cause): by (1) and (R′)'s depth monotonicity no
+   * point of a shallower depth or narrower width can either.
+   */
+  private rangeReqOut(m: number, req: number, zreq: number, kHi: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      p = this.plates,
+      n = fk.nPlates,
+      ko = this.kout,
+      ds = this.dSlot;
+    v[ds] = this.pf.axes[ds][m];
+    v[fk.free] = this.W[kHi];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    if (ko[K_IZ] < req) {
+      const ctx = this.ctx;
+      this.cause = this.Idefl >= req ? C_DEFL : ctx.aT <= ctx.aC ? C_TENS : C_COMP;
+      return true;
+    }
+    if (zreq > 0 && plateModulusAbout(p, n, this.sym ? 0.5 * ko[K_MAXY] : plateNeutralAxis(p, n, ko[K_AREA], ko[K_CY])) < zreq) {
+      this.cause = C_BEND;
+      return true;
+    }
+    return false;
+  }
+
+  /**
+   * (R′), (6) The last depth index in [dA, dB] whose depth elements can pass at cap: every
+   * slenderness ratio of the row families either involves no depth or is (d − plates)/t, affine and
+   * rising in d (the free width at kLo: the depth elements do not involve it).
+   */
+  private rangeDepthHi(dA: number, dB: number, kLo: number, kHi: number, cap: number): number {
+    const fk = this.fk;
+    if (dB === dA || fk.slenderKinds.length === 0) return dB;
+    const v = this.v,
+      ds = this.dSlot,
+      D = this.pf.axes[ds];
+    v[fk.free] = this.W[kLo];
+    v[ds] = D[dA];
+    fk.slender(v, this.slR1);
+    v[ds] = D[dB];
+    fk.slender(v, this.slR2);
+    for (let e = 0; e < fk.slenderKinds.length; e++) {
+      const c = fk.slenderKinds[e];
+      const lim = this.ctx.slenderLimit[c] * cap;
+      const r1 = this.slR1[e],
+        r2 = this.slR2[e];
+      if (lim !== lim || !(r2 > r1)) continue;
+      const h = lastAtMost(D, D[dA] + ((lim - r1) * (D[dB] - D[dA])) / (r2 - r1));
+      if (h < dB) {
+        this.t.ruledOut[c] += (dB - Math.max(h, dA - 1)) * (kHi - kLo + 1);
+        dB = h;
+      }
+    }
+    return dB;
   }
 
   // ---- mono-i: two widths ----------------------------------------------------------------
@@ -2839,7 +3125,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
 export function searchWithKnown(input: SearchProblemInput, options: SearchOptions, known: readonly SearchPoint[]): SearchResult {
   if (options.exhaustive) return bruteForceSearch(input, options);
   const problem = searchProblemSchema.parse(input);
-  const p = prepare(problem, options.depthIndexRange, options.depthInterleave);
+  const p = prepare(problem, options.depthIndexRange);
   const explore = Math.max(0, options.explore ?? 0);
   const gridMode = (options.front ?? (explore > 0 ? "evaluated" : "grid")) === "grid";
   const t = new Tally(p.families.length, gridMode ? p.depths.length : 0, options.stopWhen);
