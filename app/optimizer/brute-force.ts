@@ -16,7 +16,7 @@ export function bruteForceSearch(input: SearchProblemInput, options: SearchOptio
   const raw = rawGridSize(problem);
   if (raw > BRUTE_FORCE_MAX_GRID)
     throw new EngineInputError("grid", `grid: ${raw.toExponential(2)} candidates is too many for brute force (at most ${BRUTE_FORCE_MAX_GRID.toExponential(0)})`);
-  const p = prepare(problem, options.depthIndexRange);
+  const p = prepare(problem, options.depthIndexRange, options.depthInterleave);
   const t = new Tally(p.families.length, p.depths.length);
   const s = new Scratch();
   let enumerated = 0;

@@ -50,6 +50,12 @@ export interface SearchOptions {
   /** Search only depth-grid indices in [from, to) (used to split a search across threads). */
   depthIndexRange?: [number, number];
   /**
+   * Search only depth-grid indices i with i mod stride = offset, [offset, stride] (after
+   * depthIndexRange): the threads' split. Interleaved parts each hold depths from the whole range,
+   * so each part's front is near the whole grid's and its dominance bound (search.ts (D)) as strong.
+   */
+  depthInterleave?: [number, number];
+  /**
    * Fast search only: asked every few thousand heap steps and before each family; once it answers
    * true the search stops and returns what it has, marked `stoppedEarly` (the caller decides when:
    * a time budget passes a clock check here, so the engine itself reads no clock).
@@ -170,9 +176,13 @@ export function fabricationKernel(fk: FamilyKernel, fab: SearchProblem["fabricat
   };
 }
 
-export function prepare(problem: SearchProblem, depthIndexRange?: [number, number]): Prepared {
+export function prepare(problem: SearchProblem, depthIndexRange?: [number, number], depthInterleave?: [number, number]): Prepared {
   let depths = gridValues(problem.depth);
   if (depthIndexRange) depths = depths.slice(Math.max(0, depthIndexRange[0]), Math.min(depths.length, depthIndexRange[1]));
+  if (depthInterleave && depthInterleave[1] > 1) {
+    const [offset, stride] = depthInterleave;
+    depths = depths.filter((_, i) => i % stride === offset);
+  }
   const widths = gridValues(problem.width);
   const mt = problem.fabrication?.minThickness;
   const stock = [...new Set(problem.thicknesses)].filter((t) => mt === undefined || t >= mt * AT_LEAST);

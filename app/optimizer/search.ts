@@ -324,12 +324,14 @@ const SLICES = 8;
 const SEED_EVALS = 4000;
 
 /**
- * Binary min-heap on typed arrays: key, row id, k (next free-width index), kHi, kind, the
- * family's index (one heap serves every family in the grid-front search) and n, the number of
- * grid shapes the entry stands for (progress).
+ * Binary min-heap on typed arrays. The heap orders only (key, slot); an entry's payload (row id,
+ * k (next free-width index), kHi, kind, the family's index (one heap serves every family in the
+ * grid-front search) and n, the number of grid shapes the entry stands for (progress)) stays in
+ * its slot, so a sift moves two numbers a level instead of seven. `key[0]` is the least key.
  */
 class Heap {
   key = new Float64Array(1024);
+  slot = new Int32Array(1024);
   id = new Float64Array(1024);
   k = new Int32Array(1024);
   hi = new Int32Array(1024);
@@ -337,6 +339,9 @@ class Heap {
   fam = new Int8Array(1024);
   n = new Float64Array(1024);
   size = 0;
+  private free = new Int32Array(1024);
+  private nFree = 0;
+  private nextSlot = 0;
   private grow() {
     const n = this.key.length * 2;
     const g = <T extends Float64Array | Int32Array | Int8Array>(a: T, C: new (n: number) => T): T => {
@@ -345,6 +350,8 @@ class Heap {
       return b;
     };
     this.key = g(this.key, Float64Array);
+    this.slot = g(this.slot, Int32Array);
+    this.free = g(this.free, Int32Array);
     this.id = g(this.id, Float64Array);
     this.k = g(this.k, Int32Array);
     this.hi = g(this.hi, Int32Array);
@@ -352,43 +359,44 @@ class Heap {
     this.fam = g(this.fam, Int8Array);
     this.n = g(this.n, Float64Array);
   }
-  /** Appends without ordering (the seed list uses the same arrays as a plain buffer). */
+  private alloc(id: number, k: number, hi: number, kind: number, fam: number, n: number): number {
+    const s = this.nFree > 0 ? this.free[--this.nFree] : this.nextSlot++;
+    this.id[s] = id;
+    this.k[s] = k;
+    this.hi[s] = hi;
+    this.kind[s] = kind;
+    this.fam[s] = fam;
+    this.n[s] = n;
+    return s;
+  }
+  clear() {
+    this.size = this.nFree = this.nextSlot = 0;
+  }
+  /**
+   * Appends without ordering: the seed lists use a Heap as a plain buffer, read by position
+   * (a list only ever appended to has entry i in slot i).
+   */
   append(key: number, id: number, k: number, hi: number, kind: number, fam: number, n: number) {
     if (this.size === this.key.length) this.grow();
     const i = this.size++;
     this.key[i] = key;
-    this.id[i] = id;
-    this.k[i] = k;
-    this.hi[i] = hi;
-    this.kind[i] = kind;
-    this.fam[i] = fam;
-    this.n[i] = n;
+    this.slot[i] = this.alloc(id, k, hi, kind, fam, n);
   }
   push(key: number, id: number, k: number, hi: number, kind: number, fam: number, n: number) {
     if (this.size === this.key.length) this.grow();
+    const s = this.alloc(id, k, hi, kind, fam, n);
+    const K = this.key,
+      S = this.slot;
     let i = this.size++;
     while (i > 0) {
       const p = (i - 1) >> 1;
-      if (this.key[p] <= key) break;
-      this.move(p, i);
+      if (K[p] <= key) break;
+      K[i] = K[p];
+      S[i] = S[p];
       i = p;
     }
-    this.key[i] = key;
-    this.id[i] = id;
-    this.k[i] = k;
-    this.hi[i] = hi;
-    this.kind[i] = kind;
-    this.fam[i] = fam;
-    this.n[i] = n;
-  }
-  private move(from: number, to: number) {
-    this.key[to] = this.key[from];
-    this.id[to] = this.id[from];
-    this.k[to] = this.k[from];
-    this.hi[to] = this.hi[from];
-    this.kind[to] = this.kind[from];
-    this.fam[to] = this.fam[from];
-    this.n[to] = this.n[from];
+    K[i] = key;
+    S[i] = s;
   }
   // pops the top into the out fields
   outKey = 0;
@@ -399,26 +407,33 @@ class Heap {
   outFam = 0;
   outN = 0;
   pop() {
-    this.outKey = this.key[0];
-    this.outId = this.id[0];
-    this.outK = this.k[0];
-    this.outHi = this.hi[0];
-    this.outKind = this.kind[0];
-    this.outFam = this.fam[0];
-    this.outN = this.n[0];
+    const K = this.key,
+      S = this.slot;
+    const s = S[0];
+    this.outKey = K[0];
+    this.outId = this.id[s];
+    this.outK = this.k[s];
+    this.outHi = this.hi[s];
+    this.outKind = this.kind[s];
+    this.outFam = this.fam[s];
+    this.outN = this.n[s];
+    this.free[this.nFree++] = s;
     const n = --this.size;
     if (n === 0) return;
-    const key = this.key[n];
+    const key = K[n],
+      last = S[n];
     let i = 0;
     for (;;) {
       let c = 2 * i + 1;
       if (c >= n) break;
-      if (c + 1 < n && this.key[c + 1] < this.key[c]) c++;
-      if (this.key[c] >= key) break;
-      this.move(c, i);
+      if (c + 1 < n && K[c + 1] < K[c]) c++;
+      if (K[c] >= key) break;
+      K[i] = K[c];
+      S[i] = S[c];
       i = c;
     }
-    this.move(n, i);
+    K[i] = key;
+    S[i] = last;
   }
 }
 
@@ -1468,7 +1483,7 @@ class FamilySearch {
     }
     // Everything left (in the heap or never pushed) is pruned by the incumbent (unless the search
     // was stopped: then it is unsettled, and progress keeps counting it as left).
-    h.size = 0;
+    h.clear();
     this.seeds = new Heap();
     if (!this.t.stopped) this.pending = 0;
   }
@@ -3125,7 +3140,7 @@ export function searchSections(input: SearchProblemInput, options: SearchOptions
 export function searchWithKnown(input: SearchProblemInput, options: SearchOptions, known: readonly SearchPoint[]): SearchResult {
   if (options.exhaustive) return bruteForceSearch(input, options);
   const problem = searchProblemSchema.parse(input);
-  const p = prepare(problem, options.depthIndexRange);
+  const p = prepare(problem, options.depthIndexRange, options.depthInterleave);
   const explore = Math.max(0, options.explore ?? 0);
   const gridMode = (options.front ?? (explore > 0 ? "evaluated" : "grid")) === "grid";
   const t = new Tally(p.families.length, gridMode ? p.depths.length : 0, options.stopWhen);

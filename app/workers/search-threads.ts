@@ -1,8 +1,12 @@
 // Runs one exact search split across worker threads (node:worker_threads through comlink's
 // node adapter), so a long search leaves the caller's event loop free and uses every core.
 //
-// Split: the depth grid is cut into contiguous index ranges, one per thread; each thread runs
-// searchSections on its range (all families). Combined result, same as one thread:
+// Split: the depth grid is dealt out to the threads like cards (thread i takes every n-th depth
+// from the i-th, SearchOptions.depthInterleave); each thread runs searchSections on its depths
+// (all families). Interleaved, not contiguous: each part then holds light and heavy depths alike,
+// so its own front, which the grid-front search's dominance bound (search.ts (D)) prunes with, is
+// close to the whole grid's; a contiguous shallow part would have only heavy sections to prune
+// with and work nearly as long as the whole. Combined result, same as one thread:
 // - bestByFamily: the least of the parts' family bests by the contract's order and tie-breaks
 //   (every shape lies in exactly one range, and each part's family best is exact for it);
 // - best: the least of those, ties to the family listed first;
@@ -26,7 +30,7 @@ const WORKER_FLAG = "sparwise-search-thread";
 interface ThreadApi {
   run(
     problem: SearchProblemInput,
-    range: [number, number],
+    part: [number, number],
     options: Pick<SearchOptions, "exhaustive" | "explore" | "front">,
     onProgress?: (done: number, total: number, detail?: ProgressDetail) => void,
     deadline?: number,
@@ -35,10 +39,10 @@ interface ThreadApi {
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
   const api: ThreadApi = {
-    run: (problem, range, options, onProgress, deadline) =>
+    run: (problem, part, options, onProgress, deadline) =>
       searchSections(problem, {
         ...options,
-        depthIndexRange: range,
+        depthInterleave: part,
         onProgress: onProgress ? (d, t, detail) => void onProgress(d, t, detail) : undefined,
         // threads share the process's wall clock, so one deadline serves them all
         stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline,
@@ -109,8 +113,12 @@ export function combineResults(problemFamilies: string[], parts: SearchResult[])
   const frontScope = parts.length > 0 && parts.every((p) => p.frontScope === "grid") ? "grid" : "evaluated";
   const res: SearchResult = { best: best ? best.out : null, bestByFamily, front: frontOut, frontScope, counts };
   if (frontScope === "grid") {
-    // parts hold disjoint, ascending depth ranges: per family, their context points in part order
-    res.context = problemFamilies.flatMap((f) => parts.flatMap((p) => (p.context ?? []).filter((c) => c.family === f)));
+    // parts hold disjoint sets of depths: per family (in the brief's order), by depth
+    res.context = problemFamilies.flatMap((f) =>
+      parts
+        .flatMap((p) => (p.context ?? []).filter((c) => c.family === f))
+        .sort((a, b) => a.dimensions.d - b.dimensions.d),
+    );
   }
   const stopped = parts.some((p) => p.stoppedEarly);
   if (stopped) res.stoppedEarly = true;
@@ -129,7 +137,6 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
   options.signal?.throwIfAborted();
   const nDepths = axisCount(problem.depth);
   const n = Math.max(1, Math.min(options.threads ?? availableParallelism(), nDepths));
-  const cuts = Array.from({ length: n + 1 }, (_, i) => Math.round((i * nDepths) / n));
   const workers = Array.from({ length: n }, spawn);
   // Each thread reports shapes of its own grid part; the sum is the whole grid's only once every
   // part has counted its grid, so nothing is reported before then (the total never jumps).
@@ -165,7 +172,7 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
             report();
           })
         : undefined;
-      return api.run(input, [cuts[i], cuts[i + 1]], { exhaustive: options.exhaustive, explore: options.explore, front: options.front }, cb, options.deadline) as Promise<SearchResult>;
+      return api.run(input, [i, n], { exhaustive: options.exhaustive, explore: options.explore, front: options.front }, cb, options.deadline) as Promise<SearchResult>;
     });
     const parts = await Promise.race([Promise.all(runs), aborted]);
     return combineResults(problem.families, parts);
