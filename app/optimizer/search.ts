@@ -189,8 +189,9 @@
 //   - (E4) and (E5) as for the super nodes.
 //   A popped range is halved; at DRANGE_LEAF depths or fewer each depth becomes its super node.
 // (R′) The row families but the rectangle (i, channel, tee, box, channel-down, angle), both passes:
-//   one node per thickness tuple and run of consecutive valid depths (the geometry rule is
-//   d > plates), over every free width: each family's rows (64,000 on a fine grid) were each
+//   one node per thickness tuple over its valid depths (the geometry rule is d > plates, the
+//   fabrication rules involve the thicknesses alone: a run from the least valid depth, found by
+//   bisection), over every free width: each family's rows (64,000 on a fine grid) were each
 //   bounded when seeded and held in the heap. rowRangeBound bounds d ∈ [d1, d2] × b:
 //   - The free width's least value (tw, t, 2·tw with the box clearance, 2·tf) involves no depth.
 //     (6): every ratio either involves no depth (the width's elements: one last width for every
@@ -538,6 +539,8 @@ class FamilySearch {
   readonly ctxBase: number;
   readonly depthStride: number;
   readonly depthRadix: number;
+  /** index in v of the overall depth d */
+  readonly dSlot: number;
   readonly groupDims: number[];
   readonly radix: number[];
   readonly sym: boolean;
@@ -594,7 +597,8 @@ class FamilySearch {
     this.enGamma = ctx.en ? Math.max(ctx.en.gM0, ctx.en.restraint ? ctx.en.gM1 : 0) : ctx.us ? flexureGamma(ctx.us) : 0;
     this.mMax = Math.max(ctx.Ms, ctx.Mh);
     this.cand = { fi: pf.fi, fk: this.fk, v: this.v, objective: 0, area: 0, utilisation: 0, governing: -1 };
-    const dPos = this.groupDims.indexOf(pf.fk.roles.indexOf("depth"));
+    this.dSlot = pf.fk.roles.indexOf("depth");
+    const dPos = this.groupDims.indexOf(this.dSlot);
     let stride = 1;
     for (let j = this.groupDims.length - 1; j > dPos; j--) stride *= this.radix[j];
     this.depthStride = stride;
@@ -1740,12 +1744,8 @@ class FamilySearch {
   /** what rowRangeBound left: the depth range (indices into the depth axis) and the shapes it stands for */
   private rr = { lo: 0, hi: 0, n: 0 };
 
-  /** index in v of the overall depth d */
-  private get dSlot(): number {
-    return this.fk.roles.indexOf("depth");
-  }
 
-  /** Every thickness tuple as one node per run of consecutive valid depths (R′), bounded at once. */
+  /** Every thickness tuple as one node over its valid depths (R′), bounded at once. */
   seedRowRanges(): void {
     const fk = this.fk,
       gd = this.groupDims,
@@ -1760,14 +1760,20 @@ class FamilySearch {
     for (let j = 0; j < gd.length; j++) v[gd[j]] = this.pf.axes[gd[j]][0];
     for (;;) {
       const base = this.encode(idx);
-      for (let i = 0; i < D.length; ) {
-        v[ds] = D[i];
-        if (!fk.groupValid(v)) {
-          i++;
-          continue;
+      // the geometry rule is d > plates (R′), with the fabrication rules on the thicknesses alone:
+      // the valid depths are the ones from the first valid depth on, found by bisection
+      const e = D.length - 1;
+      v[ds] = D[e];
+      if (e >= 0 && fk.groupValid(v)) {
+        let lo = -1,
+          hi = e; // D[lo] invalid (or none), D[hi] valid
+        while (hi - lo > 1) {
+          const m = (lo + hi) >> 1;
+          v[ds] = D[m];
+          if (fk.groupValid(v)) hi = m;
+          else lo = m;
         }
-        let e = i;
-        while (e + 1 < D.length && ((v[ds] = D[e + 1]), fk.groupValid(v))) e++;
+        const i = hi;
         v[ds] = D[i];
         // the free width's least value involves no depth (R′)
         const kLo = firstAbove(W, fk.freeMin(v));
@@ -1777,7 +1783,6 @@ class FamilySearch {
           if (key === key) this.seeds.append(key, base, this.rr.lo, this.rr.hi, KIND_ROWRANGE, this.fam, this.rr.n);
           this.decode(base);
         }
-        i = e + 1;
       }
       let o = outer.length - 1;
       while (o >= 0) {
