@@ -4,6 +4,8 @@
 // off (the integration tests run their own workers; a deployment may run only `npm run worker`).
 import { isMainThread } from "node:worker_threads";
 import { SweepRunner } from "./runner.server";
+import { warmSearchThreads } from "./search-threads";
+import { sweepThreads } from "./sweep-search.server";
 
 const g = globalThis as unknown as { __sparwiseRunner?: SweepRunner };
 
@@ -16,6 +18,8 @@ export function startInProcessWorkers(): SweepRunner | null {
   if (g.__sparwiseRunner) return g.__sparwiseRunner;
   const runner = new SweepRunner().start();
   g.__sparwiseRunner = runner;
+  // the sweeps' search threads, started now so the first large sweep does not wait for them
+  warmSearchThreads(sweepThreads(runner.concurrency) * runner.concurrency);
   const stop = (signal: NodeJS.Signals) => {
     // Finish or release running sweeps, then exit the way the signal asked.
     void runner.stop().finally(() => process.exit(signal === "SIGINT" ? 130 : 0));

@@ -30,7 +30,7 @@ import {
   releaseSweep,
   type Claim,
 } from "./queue.server";
-import { runSweepSearch, type SweepProgress, type SweepSearchOptions } from "./sweep-search.server";
+import { defaultConcurrency, runSweepSearch, type SweepProgress, type SweepSearchOptions } from "./sweep-search.server";
 import { sweepTimeBudgetMs } from "./sweep-budget";
 
 export type SearchFn = (problem: SearchProblem, opts: SweepSearchOptions) => Promise<SearchResult>;
@@ -67,10 +67,7 @@ function intEnv(name: string, fallback: number): number {
   return process.env[name] !== undefined && process.env[name] !== "" && Number.isInteger(v) && v >= 0 ? v : fallback;
 }
 
-export function defaultConcurrency(): number {
-  const env = intEnv("SPARWISE_WORKER_CONCURRENCY", 0);
-  return env >= 1 ? env : Math.max(1, os.availableParallelism() - 1);
-}
+export { defaultConcurrency };
 
 const sleep = (ms: number, signal?: AbortSignal) =>
   new Promise<void>((resolve, reject) => {

@@ -16,8 +16,13 @@
 // - stoppedEarly: if any part was stopped (a deadline), the whole is not proven.
 // Abort: the threads are terminated at once (a synchronous search cannot read messages while
 // it runs, so terminating is the prompt way) and the promise rejects with the signal's reason.
+// Threads are kept warm: one that finished its part waits, unreferenced (it never keeps the
+// process alive), for the next search, so a sweep does not pay each thread's start-up (loading
+// the bundle, or tsx compiling the engine from source: up to a second or more on a busy machine);
+// warmSearchThreads starts them ahead (the runner does, as it starts). A thread that was
+// terminated (abort) or failed is never reused.
 import { availableParallelism } from "node:os";
-import { isMainThread, parentPort, workerData } from "node:worker_threads";
+import { MessageChannel, isMainThread, parentPort, workerData, type MessagePort, type Worker } from "node:worker_threads";
 import * as Comlink from "comlink";
 import { FAMILY_KERNELS } from "../optimizer/family-kernel";
 import { Front, compareAcross, type RawCandidate } from "../optimizer/front";
@@ -32,21 +37,27 @@ interface ThreadApi {
     problem: SearchProblemInput,
     part: [number, number],
     options: Pick<SearchOptions, "exhaustive" | "explore" | "front">,
-    onProgress?: (done: number, total: number, detail?: ProgressDetail) => void,
+    /** progress as [done, total, detail] messages; closed when the part ends */
+    progress?: MessagePort,
     deadline?: number,
   ): SearchResult;
 }
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
   const api: ThreadApi = {
-    run: (problem, part, options, onProgress, deadline) =>
-      searchSections(problem, {
-        ...options,
-        depthInterleave: part,
-        onProgress: onProgress ? (d, t, detail) => void onProgress(d, t, detail) : undefined,
-        // threads share the process's wall clock, so one deadline serves them all
-        stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline,
-      }),
+    run: (problem, part, options, progress, deadline) => {
+      try {
+        return searchSections(problem, {
+          ...options,
+          depthInterleave: part,
+          onProgress: progress ? (d, t, detail) => progress.postMessage([d, t, detail]) : undefined,
+          // threads share the process's wall clock, so one deadline serves them all
+          stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline,
+        });
+      } finally {
+        progress?.close();
+      }
+    },
   };
   Comlink.expose(api, nodeEndpoint(parentPort));
 }
@@ -67,7 +78,51 @@ export interface ThreadSearchOptions {
   deadline?: number;
 }
 
-const spawn = () => spawnThread(import.meta.url, WORKER_FLAG);
+/** At most this many idle threads are kept (more than the cores would only hold memory). */
+const MAX_IDLE = Math.max(1, availableParallelism());
+
+interface PooledThread {
+  worker: Worker;
+  api: Comlink.Remote<ThreadApi>;
+}
+const idle: PooledThread[] = [];
+
+function spawn(): PooledThread {
+  const worker = spawnThread(import.meta.url, WORKER_FLAG);
+  const t: PooledThread = { worker, api: Comlink.wrap<ThreadApi>(nodeEndpoint(worker)) };
+  // an idle thread that exits (it should not) leaves the pool
+  worker.once("exit", () => {
+    const i = idle.indexOf(t);
+    if (i >= 0) idle.splice(i, 1);
+  });
+  return t;
+}
+
+function acquire(): PooledThread {
+  const t = idle.pop() ?? spawn();
+  t.worker.ref();
+  return t;
+}
+
+function release(t: PooledThread): void {
+  t.worker.unref();
+  if (idle.length < MAX_IDLE) idle.push(t);
+  else void t.worker.terminate();
+}
+
+/** Idle search threads waiting for the next search (for tests and diagnostics). */
+export function idleSearchThreads(): number {
+  return idle.length;
+}
+
+/** Starts search threads ahead of the first search, up to n idle ones (default: one per core). */
+export function warmSearchThreads(n = availableParallelism()): void {
+  while (idle.length < Math.min(n, MAX_IDLE)) {
+    const t = spawn();
+    t.worker.unref();
+    idle.push(t);
+  }
+}
 
 function raw<T extends SearchPoint>(problemFamilies: string[], c: T): RawCandidate & { out: T } {
   const fk = FAMILY_KERNELS[c.family];
@@ -137,7 +192,9 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
   options.signal?.throwIfAborted();
   const nDepths = axisCount(problem.depth);
   const n = Math.max(1, Math.min(options.threads ?? availableParallelism(), nDepths));
-  const workers = Array.from({ length: n }, spawn);
+  const threads = Array.from({ length: n }, acquire);
+  const ports: MessagePort[] = [];
+  const portsDone: Promise<unknown>[] = [];
   // Each thread reports shapes of its own grid part; the sum is the whole grid's only once every
   // part has counted its grid, so nothing is reported before then (the total never jumps).
   const progress = new Array<[number, number, ProgressDetail | undefined]>(n).fill([0, -1, undefined]);
@@ -158,26 +215,38 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
   let onAbort: (() => void) | undefined;
   const aborted = new Promise<never>((_, reject) => {
     onAbort = () => {
-      for (const w of workers) void w.terminate();
+      for (const t of threads) void t.worker.terminate();
       reject(options.signal!.reason);
     };
     options.signal?.addEventListener("abort", onAbort, { once: true });
   });
+  let ok = false;
   try {
-    const runs = workers.map((w, i) => {
-      const api = Comlink.wrap<ThreadApi>(nodeEndpoint(w));
-      const cb = options.onProgress
-        ? Comlink.proxy((d: number, t: number, detail?: ProgressDetail) => {
-            progress[i] = [d, t, detail];
-            report();
-          })
-        : undefined;
-      return api.run(input, [i, n], { exhaustive: options.exhaustive, explore: options.explore, front: options.front }, cb, options.deadline) as Promise<SearchResult>;
+    const runs = threads.map((t, i) => {
+      let port: MessagePort | undefined;
+      if (options.onProgress) {
+        const ch = new MessageChannel();
+        ch.port1.on("message", ([d, tot, detail]: [number, number, ProgressDetail | undefined]) => {
+          progress[i] = [d, tot, detail];
+          report();
+        });
+        ports.push(ch.port1);
+        // the thread closes its end after its last report: 'close' comes after every message
+        portsDone.push(new Promise((r) => ch.port1.once("close", r)));
+        port = ch.port2;
+      }
+      const opts = { exhaustive: options.exhaustive, explore: options.explore, front: options.front };
+      return (port ? t.api.run(input, [i, n], opts, Comlink.transfer(port, [port]), options.deadline) : t.api.run(input, [i, n], opts, undefined, options.deadline)) as Promise<SearchResult>;
     });
     const parts = await Promise.race([Promise.all(runs), aborted]);
+    await Promise.race([Promise.all(portsDone), aborted]);
+    ok = true;
     return combineResults(problem.families, parts);
   } finally {
     if (onAbort) options.signal?.removeEventListener("abort", onAbort);
-    await Promise.all(workers.map((w) => w.terminate()));
+    for (const p of ports) p.close();
+    // finished threads wait for the next search; after an abort or a failure they are ended
+    if (ok) threads.forEach(release);
+    else await Promise.all(threads.map((t) => t.worker.terminate()));
   }
 }

@@ -28,6 +28,17 @@ export const IN_THREAD_MAX_GRID = 1e6;
 // at its time budget still returns the front over what it evaluated (frontScope "evaluated").
 export const SWEEP_SEARCH_OPTIONS = { front: "grid" } as const;
 
+/** Sweeps one runner runs at once: SPARWISE_WORKER_CONCURRENCY, else one core left for the web server. */
+export function defaultConcurrency(): number {
+  const v = Number(process.env.SPARWISE_WORKER_CONCURRENCY);
+  return Number.isInteger(v) && v >= 1 ? v : Math.max(1, os.availableParallelism() - 1);
+}
+
+/** Threads per sweep: the cores divided among the sweeps the process runs at once, at least 1. */
+export function sweepThreads(concurrency = defaultConcurrency()): number {
+  return Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, concurrency)));
+}
+
 export interface SweepSearchOptions {
   signal: AbortSignal;
   onProgress: (done: number, total: number, unit?: ProgressUnit, detail?: ProgressDetail) => void;
@@ -56,7 +67,7 @@ export async function runSweepSearch(problem: SearchProblem, opts: SweepSearchOp
   // the threads' shapes add up to the grid's, so the unit is the same either way
   const onProgress = (d: number, t: number, detail?: ProgressDetail) => opts.onProgress(d, t, PROGRESS_UNIT, detail);
   let result: SweepResult;
-  const threads = Math.max(1, Math.floor(os.availableParallelism() / Math.max(1, opts.concurrency ?? 1)));
+  const threads = sweepThreads(opts.concurrency ?? 1);
   if (rawGridSize(problem) <= IN_THREAD_MAX_GRID)
     result = searchSections(problem, { ...SWEEP_SEARCH_OPTIONS, signal: opts.signal, onProgress, stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline });
   else result = await searchInThreads(problem, { ...SWEEP_SEARCH_OPTIONS, threads, signal: opts.signal, deadline, onProgress });
