@@ -214,8 +214,10 @@
 //     objective at d1 and that width is the range's key. Every point of depths [d1, m] fails when
 //     Iz (or Zz) at depth m and the widest allowed width falls short of req(d1): monotone in m, so
 //     bisection raises d1, in rounds (req(d1) rises with it).
-//   A popped range is halved; at ROW_LEAF depths or fewer each depth becomes its raw row. Its
-//   children are keyed no lower than the range: every point that can still matter weighs at least
+//   A popped range is halved; at ROW_LEAF depths or fewer each depth becomes its raw row (in best
+//   mode before any incumbent exists, the row is settled at once instead, diveRow: the seeds'
+//   phases in run() used to give an early incumbent that way, and its cut shortens the LTB
+//   bisections of every later row). Its children are keyed no lower than the range: every point that can still matter weighs at least
 //   the key (the points lighter than a key bounded at cap < 1 are beaten and heavier than each of
 //   its depths' context point so far, (D)).
 // (S) mono-i in best mode with a restraint (LTB checked), before the search: a local search from the heaviest grid point (and
@@ -1838,6 +1840,11 @@ class FamilySearch {
         if (kHi < 0) continue;
         const rk = this.rowRawKey(kLo, kHi, cap);
         if (rk !== rk || rk > lim) continue;
+        if (lim === Infinity && !this.gridMode) {
+          // best mode, no incumbent yet: settle the row now (a dive) for an early incumbent's cut
+          this.diveRow(kLo, kHi);
+          continue;
+        }
         const m = Math.min(kHi - kLo + 1, n);
         n -= m;
         this.push(rk > key ? rk : key, rid, kLo, kHi, KIND_RAW, m);
@@ -1852,6 +1859,37 @@ class FamilySearch {
         n -= m;
         this.push(b > key ? b : key, id, this.rr.lo, this.rr.hi, KIND_ROWRANGE, m);
       }
+    }
+  }
+
+  /**
+   * Best mode: settles the row in v (its points [k, kHi]) at once, out of the heap's order: its
+   * points in objective order, each excluded by the bounds or evaluated, until the first feasible
+   * (the rest of the row is heavier) or the end. The heap's order would settle it the same way,
+   * only later: a feasible point found here is an incumbent (its cut then shortens every row the
+   * bounds look at, the LTB bisections first), never a wrong answer (an evaluated grid point).
+   */
+  private diveRow(k: number, kHi: number): void {
+    const fk = this.fk,
+      s = this.scratch;
+    for (;;) {
+      const k2 = this.boundRow(k, kHi, 1);
+      if (k2 < 0) return;
+      kHi = this.bHi;
+      this.v[fk.free] = this.W[k2];
+      this.t.evaluated++;
+      if (evaluate(fk, this.v, this.ctx, s, false)) {
+        const c = this.cand;
+        c.objective = s.objective;
+        c.area = s.area;
+        c.utilisation = s.utilisation;
+        c.governing = s.governing;
+        offerFeasible(this.t, c);
+        return;
+      }
+      this.t.ruledOut[s.governing]++;
+      if (k2 >= kHi || (this.en ? this.enFailEndsRow(s) : this.us !== null && this.usFailEndsRow(s))) return;
+      k = k2 + 1;
     }
   }
 
