@@ -306,7 +306,7 @@ const REL = 1e-9;
 /** Grid mode: a super node whose bound at the dominance cap rises by more than this (relative) is re-queued, not expanded. */
 const REKEY = 1e-3;
 /** mono-i super nodes spanning more bt values than this are split in two before expanding. */
-const SUPER_SPLIT = 16;
+const SUPER_SPLIT = 8;
 /** the range bounds skipOut bisects on: (5), (8), (E2), (U2) */
 const OUT_SHEAR = 0,
   OUT_RANGE = 1,
