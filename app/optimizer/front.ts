@@ -96,14 +96,15 @@ export class Front {
     return minU;
   }
 
-  offer(c: RawCandidate, copy: (c: RawCandidate) => RawCandidate): void {
+  /** Offers c; true when it became a member. */
+  offer(c: RawCandidate, copy: (c: RawCandidate) => RawCandidate): boolean {
     const { ok, at } = this.admits(c.objective, c.utilisation);
-    if (!ok) return;
+    if (!ok) return false;
     const it = this.items;
     let pos = at;
     while (pos < it.length && it[pos].objective === c.objective && it[pos].utilisation <= c.utilisation) {
       // the same candidate offered again (a search that already knew it): keep one
-      if (it[pos].utilisation === c.utilisation && it[pos].fi === c.fi && it[pos].v.every((x, i) => x === c.v[i])) return;
+      if (it[pos].utilisation === c.utilisation && it[pos].fi === c.fi && it[pos].v.every((x, i) => x === c.v[i])) return false;
       pos++;
     }
     // members strictly heavier and strictly more utilised are now beaten
@@ -117,5 +118,48 @@ export class Front {
     }
     it.length = w;
     it.splice(pos, 0, copy(c));
+    return true;
+  }
+}
+
+/**
+ * (objective, utilisation) pairs of feasible candidates found elsewhere (another thread's part of
+ * the same grid), kept only for minUtilBelow: a staircase, objectives ascending and utilisations
+ * strictly falling (a pair with a lighter-or-equal, no more utilised pair before it can never give
+ * a smaller answer).
+ */
+export class Staircase {
+  private o: number[] = [];
+  private u: number[] = [];
+
+  add(objective: number, utilisation: number): void {
+    const o = this.o,
+      u = this.u;
+    let lo = 0,
+      hi = o.length;
+    while (lo < hi) {
+      const m = (lo + hi) >> 1;
+      if (o[m] <= objective) lo = m + 1;
+      else hi = m;
+    }
+    // o[0..lo) are at or below objective: the last has their least utilisation
+    if (lo > 0 && u[lo - 1] <= utilisation) return;
+    let e = lo;
+    while (e < o.length && u[e] >= utilisation) e++;
+    o.splice(lo, e - lo, objective);
+    u.splice(lo, e - lo, utilisation);
+  }
+
+  /** The least utilisation among the pairs strictly lighter than objective (Infinity when none). */
+  minUtilBelow(objective: number): number {
+    const o = this.o;
+    let lo = 0,
+      hi = o.length;
+    while (lo < hi) {
+      const m = (lo + hi) >> 1;
+      if (o[m] < objective) lo = m + 1;
+      else hi = m;
+    }
+    return lo === 0 ? Infinity : this.u[lo - 1];
   }
 }

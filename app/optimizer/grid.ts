@@ -3,7 +3,7 @@
 // the contract's SearchResult.
 import { candidateChecks, makeCheckContext, type CheckContext, type CheckResult } from "./checks";
 import { FAMILY_KERNELS, N_CHECKS, dimsObject, type FamilyKernel } from "./family-kernel";
-import { Front, compareAcross, compareInFamily, type RawCandidate } from "./front";
+import { Front, Staircase, compareAcross, compareInFamily, type RawCandidate } from "./front";
 import type { Family } from "./geometry";
 import type { AiscDesign, DesignBlock } from "./design-types";
 import { sectionProperties, type SectionProperties } from "./properties";
@@ -56,11 +56,27 @@ export interface SearchOptions {
    */
   depthInterleave?: [number, number];
   /**
+   * Grid front only: a channel to the other parts of the same grid searched at the same time
+   * (search-threads.ts). The search publishes each candidate that joins its front and takes the
+   * other parts' in: they are feasible candidates of the grid too, so they bound dominance ((D))
+   * as its own do, and a part no longer proves off the front what another part's members beat.
+   * The parts' fronts still combine to the grid's (a grid front member is beaten by nothing, so
+   * no part drops it).
+   */
+  frontShare?: FrontShare;
+  /**
    * Fast search only: asked every few thousand heap steps and before each family; once it answers
    * true the search stops and returns what it has, marked `stoppedEarly` (the caller decides when:
    * a time budget passes a clock check here, so the engine itself reads no clock).
    */
   stopWhen?: () => boolean;
+}
+
+/** See SearchOptions.frontShare. */
+export interface FrontShare {
+  publish(objective: number, utilisation: number): void;
+  /** hands over the pairs published by the other parts since the last poll */
+  poll(take: (objective: number, utilisation: number) => void): void;
 }
 
 /** A candidate as the front and the context points carry it (no check table, no properties). */
@@ -207,6 +223,9 @@ export class Tally {
   ruledOut = new Float64Array(N_CHECKS);
   bestByFamily: (RawCandidate | null)[];
   front = new Front();
+  /** other parts' front members (SearchOptions.frontShare), for the dominance bound only */
+  ext = new Staircase();
+  share: FrontShare | null = null;
   /** lightest feasible per (family, depth index): family·nDepths + depth index; empty when not tracked */
   ctxBest: (RawCandidate | null)[];
   /** their objectives (Infinity while none), read in the search's hot loop */
@@ -351,7 +370,7 @@ export function offerFeasible(t: Tally, c: RawCandidate, di = -1): void {
   t.feasible++;
   const cur = t.bestByFamily[c.fi];
   if (!cur || compareAcross(c, cur) < 0) t.bestByFamily[c.fi] = copyCandidate(c);
-  t.front.offer(c, copyCandidate);
+  if (t.front.offer(c, copyCandidate) && t.share) t.share.publish(c.objective, c.utilisation);
   if (di >= 0 && t.nDepths > 0) {
     const j = c.fi * t.nDepths + di;
     const cc = t.ctxBest[j];

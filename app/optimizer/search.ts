@@ -255,6 +255,9 @@
 //     same "demand ÷ cap" reading of (R)'s and (R′)'s), anything else is expanded or its point evaluated. What is dropped stays
 //     beaten: dominance is transitive (strictly lighter and strictly lower twice over), and only
 //     evaluated candidates enter the front.
+//   A search that is one thread's part of a grid (SearchOptions.frontShare) also takes the other
+//   parts' front members into cap (Tally.ext): they are feasible grid candidates too, so whatever
+//   they beat is off the grid's front; the parts' fronts combine to the grid's (search-threads.ts).
 //   A feasible point does not end its row here: heavier points may reach lower utilisation.
 //   The heap empties, so every grid point is evaluated or proven off the front and heavier
 //   than its depth's context point: the front and context equal brute force's.
@@ -303,6 +306,8 @@ const evaluate = evaluateCandidate,
   objectiveOf = plateObjective;
 
 const REL = 1e-9;
+/** Grid mode with SearchOptions.frontShare: the other parts' front members are taken in every this many heap steps. */
+const SHARE_EVERY = 256;
 /** Grid mode: a super node whose bound at the dominance cap rises by more than this (relative) is re-queued, not expanded. */
 const REKEY = 1e-3;
 /** mono-i super nodes spanning more bt values than this are split in two before expanding. */
@@ -1519,7 +1524,7 @@ class FamilySearch {
    */
   capAt(o: number, slot: number): number {
     if (!this.gridMode || o <= this.t.ctxObj[slot] * (1 + REL)) return 1;
-    const u = this.t.front.minUtilBelow(o);
+    const u = Math.min(this.t.front.minUtilBelow(o), this.t.ext.minUtilBelow(o));
     return u < 1 && u > 1e-9 ? u : 1;
   }
 
@@ -3223,7 +3228,11 @@ export function searchWithKnown(input: SearchProblemInput, options: SearchOption
     fs.seeds = new Heap();
   }
   let steps = 0;
+  const share = options.frontShare ?? null;
+  t.share = share;
+  const take = (o: number, u: number) => t.ext.add(o, u);
   while (h.size > 0 && !(steps === 0 && t.shouldStop())) {
+    if (share !== null && (steps & (SHARE_EVERY - 1)) === 0) share.poll(take);
     if (++steps % ABORT_EVERY === 0) {
       checkAbort(options.signal);
       report();

@@ -26,7 +26,7 @@ import { MessageChannel, isMainThread, parentPort, workerData, type MessagePort,
 import * as Comlink from "comlink";
 import { FAMILY_KERNELS } from "../optimizer/family-kernel";
 import { Front, compareAcross, type RawCandidate } from "../optimizer/front";
-import type { ProgressDetail, SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "../optimizer/grid";
+import type { FrontShare, ProgressDetail, SearchCandidate, SearchOptions, SearchPoint, SearchResult } from "../optimizer/grid";
 import { searchSections } from "../optimizer/search";
 import { axisCount, searchProblemSchema, type SearchProblemInput } from "../optimizer/search-schema";
 import { nodeEndpoint, spawnThread } from "./thread-spawn";
@@ -40,16 +40,19 @@ interface ThreadApi {
     /** progress as [done, total, detail] messages; closed when the part ends */
     progress?: MessagePort,
     deadline?: number,
+    /** the parts' shared front (sharedFront), grid front only */
+    shared?: SharedArrayBuffer,
   ): SearchResult;
 }
 
 if (!isMainThread && parentPort && (workerData as { kind?: string } | undefined)?.kind === WORKER_FLAG) {
   const api: ThreadApi = {
-    run: (problem, part, options, progress, deadline) => {
+    run: (problem, part, options, progress, deadline, shared) => {
       try {
         return searchSections(problem, {
           ...options,
           depthInterleave: part,
+          frontShare: shared ? sharedFront(shared, part[0], part[1]) : undefined,
           onProgress: progress ? (d, t, detail) => progress.postMessage([d, t, detail]) : undefined,
           // threads share the process's wall clock, so one deadline serves them all
           stopWhen: deadline === undefined ? undefined : () => Date.now() >= deadline,
@@ -76,6 +79,46 @@ export interface ThreadSearchOptions {
   onProgress?: SearchOptions["onProgress"];
   /** Date.now() after which every thread stops and returns what it has (SearchResult.stoppedEarly) */
   deadline?: number;
+}
+
+/** Front members each part can publish (16 bytes each); past it a part keeps its further ones to itself (still exact, only less pruning). */
+const SHARE_CAP = 1 << 16;
+
+/** The memory the parts share their front members through: per part a count, then its (objective, utilisation) pairs. */
+function sharedFrontBuffer(parts: number): SharedArrayBuffer {
+  return new SharedArrayBuffer(8 * parts + 16 * SHARE_CAP * parts);
+}
+
+/**
+ * Part i's view of the shared front (SearchOptions.frontShare): it writes its own pairs, then
+ * publishes the count with Atomics.store; a reader's Atomics.load of that count makes the pairs
+ * before it visible (JS memory model: the store synchronises with the load that reads it).
+ */
+function sharedFront(buf: SharedArrayBuffer, i: number, parts: number): FrontShare {
+  const counts = new Int32Array(buf, 0, parts);
+  const data = new Float64Array(buf, 8 * parts);
+  const seen = new Int32Array(parts);
+  let mine = 0;
+  return {
+    publish(objective, utilisation) {
+      if (mine >= SHARE_CAP) return;
+      const o = 2 * (i * SHARE_CAP + mine);
+      data[o] = objective;
+      data[o + 1] = utilisation;
+      Atomics.store(counts, i, ++mine);
+    },
+    poll(take) {
+      for (let j = 0; j < parts; j++) {
+        if (j === i) continue;
+        const c = Atomics.load(counts, j);
+        for (let k = seen[j]; k < c; k++) {
+          const o = 2 * (j * SHARE_CAP + k);
+          take(data[o], data[o + 1]);
+        }
+        seen[j] = c;
+      }
+    },
+  };
 }
 
 /** At most this many idle threads are kept (more than the cores would only hold memory). */
@@ -221,6 +264,8 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
     options.signal?.addEventListener("abort", onAbort, { once: true });
   });
   let ok = false;
+  // the grid-front search shares front members between the parts (frontShare); best only and brute force need not
+  const shared = n > 1 && !options.exhaustive && (options.front ?? (options.explore ? "evaluated" : "grid")) === "grid" ? sharedFrontBuffer(n) : undefined;
   try {
     const runs = threads.map((t, i) => {
       let port: MessagePort | undefined;
@@ -236,7 +281,7 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
         port = ch.port2;
       }
       const opts = { exhaustive: options.exhaustive, explore: options.explore, front: options.front };
-      return (port ? t.api.run(input, [i, n], opts, Comlink.transfer(port, [port]), options.deadline) : t.api.run(input, [i, n], opts, undefined, options.deadline)) as Promise<SearchResult>;
+      return (port ? t.api.run(input, [i, n], opts, Comlink.transfer(port, [port]), options.deadline, shared) : t.api.run(input, [i, n], opts, undefined, options.deadline, shared)) as Promise<SearchResult>;
     });
     const parts = await Promise.race([Promise.all(runs), aborted]);
     await Promise.race([Promise.all(portsDone), aborted]);

@@ -3,7 +3,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { FAMILY_KERNELS } from "~/optimizer/family-kernel";
-import { Front, compareInFamily, type RawCandidate } from "~/optimizer/front";
+import { Front, Staircase, compareInFamily, type RawCandidate } from "~/optimizer/front";
 
 const fk = FAMILY_KERNELS.rectangle;
 const cand = (obj: number, util: number, i: number): RawCandidate => ({
@@ -35,5 +35,23 @@ describe("front", () => {
     const a: RawCandidate = { ...cand(4000, 0.9, 0), v: Float64Array.of(50, 80) }; // b 50, d 80
     const b: RawCandidate = { ...cand(4000, 0.9, 0), v: Float64Array.of(40, 100) }; // b 40, d 100
     expect(compareInFamily(a, b)).toBeLessThan(0);
+  });
+});
+
+describe("staircase of other parts' front members (search threads' shared front)", () => {
+  it("answers minUtilBelow as the least utilisation among the pairs strictly lighter, in any insertion order", () => {
+    const pair = fc.tuple(fc.integer({ min: 1, max: 30 }), fc.integer({ min: 1, max: 30 }).map((u) => u / 10));
+    fc.assert(
+      fc.property(fc.array(pair, { maxLength: 40 }), fc.array(fc.integer({ min: 0, max: 32 }), { minLength: 1, maxLength: 10 }), (pairs, queries) => {
+        const s = new Staircase();
+        for (const [o, u] of pairs) s.add(o, u);
+        for (const q of queries) {
+          // the definition, by brute force
+          const want = Math.min(Infinity, ...pairs.filter(([o]) => o < q).map(([, u]) => u));
+          expect(s.minUtilBelow(q)).toBe(want);
+        }
+      }),
+      { numRuns: 300 },
+    );
   });
 });
