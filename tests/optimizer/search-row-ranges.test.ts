@@ -88,3 +88,33 @@ describe("row families' depth ranges against brute force (best only and the grid
   it("EN 1993 as drawn (with or without a restraint, fabrication rules)", () => check(rowArb(en1993Arb, EN_RANGED), 7204, 80), 600_000);
   it("AISC 360", () => check(rowArb(aisc360Arb, EN_RANGED), 7203, 80), 600_000);
 });
+
+// Progress (shapes settled, reported every few thousand heap steps) never moves back and ends at the
+// grid: a range's children stand for no more shapes than it did. A grid large enough for many
+// reports, so no brute force beside it.
+it("progress over depth ranges never moves back and ends at the grid", () => {
+  for (const front of ["grid", "evaluated"] as const) {
+    const calls: [number, number][] = [];
+    const r = searchSections(
+      {
+        moment: { sagging: 300, hogging: 120 },
+        shear: 400,
+        allowable: { tension: 165, compression: 150, shear: 100 },
+        slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
+        depth: { min: 150, max: 899, step: 1 },
+        width: { min: 100, max: 300, step: 2 },
+        thicknesses: [6, 8, 10, 12, 15, 20],
+        families: ["i", "channel", "box", "tee", "channel-down", "angle"],
+      },
+      { front, onProgress: (d, t) => void calls.push([d, t]) },
+    );
+    if (front === "grid") expect(calls.length).toBeGreaterThan(4);
+    for (const [d, t] of calls) {
+      expect(t).toBe(r.counts.grid);
+      expect(d).toBeGreaterThanOrEqual(0);
+      expect(d).toBeLessThanOrEqual(t);
+    }
+    for (let i = 1; i < calls.length; i++) expect(calls[i][0]).toBeGreaterThanOrEqual(calls[i - 1][0]);
+    expect(calls.at(-1)).toEqual([r.counts.grid, r.counts.grid]);
+  }
+}, 60_000);
