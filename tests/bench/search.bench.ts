@@ -293,7 +293,8 @@ delete (en as { allowable?: unknown }).allowable;
 // 150–452 by 1, eight thicknesses; 4.7·10^10 shapes with mono-i), allowable stresses. The sweep
 // needs the exact best and the grid's front (with its context points): one pass, which a sweep
 // runs as runSweepSearch does, on sweepThreads() worker threads (the cores divided among the
-// sweeps a runner runs at once; 2 on a 2-core machine), each taking every n-th depth. Timed that
+// sweeps a runner runs at once; 2 on a 2-core machine), each taking every n-th depth and sharing
+// its front members with the others (search-threads.ts; the answer is the same). Timed that
 // way, wall from the call to the combined result: with the threads already started, as in a
 // running server (its runner starts them with itself; search-threads.ts keeps them warm), and
 // once cold, start-up included (under tsx, which compiles the engine in each thread); and on one
