@@ -1844,8 +1844,10 @@ class FamilySearch {
         const kHi = this.rowHi(kLo, W.length - 1, cap);
         if (kHi < 0) continue;
         const rk = this.rowRawKey(kLo, kHi, cap);
-        if (rk !== rk || rk > lim) continue;
-        if (lim === Infinity && !this.gridMode) {
+        // (a dive below may have found an incumbent: the limit is asked for each row)
+        const inc = this.limit();
+        if (rk !== rk || rk > inc) continue;
+        if (inc === Infinity && !this.gridMode) {
           // best mode, no incumbent yet: settle the row now (a dive) for an early incumbent's cut
           this.diveRow(kLo, kHi);
           continue;

@@ -83,10 +83,10 @@ const enLtbArb = fc
   .filter((p) => searchProblemSchema.safeParse(p).success);
 
 describe("row families' depth ranges against brute force (best only and the grid front)", () => {
-  it("allowable stresses", () => check(rowArb(problemArb, RANGED), 7201, 120), 600_000);
-  it("EN 1993 with a restraint", () => check(enLtbArb, 7202, 100), 600_000);
-  it("EN 1993 as drawn (with or without a restraint, fabrication rules)", () => check(rowArb(en1993Arb, EN_RANGED), 7204, 80), 600_000);
-  it("AISC 360", () => check(rowArb(aisc360Arb, EN_RANGED), 7203, 80), 600_000);
+  it("allowable stresses", () => check(rowArb(problemArb, RANGED), 7201, 300), 600_000);
+  it("EN 1993 with a restraint", () => check(enLtbArb, 7202, 250), 600_000);
+  it("EN 1993 as drawn (with or without a restraint, fabrication rules)", () => check(rowArb(en1993Arb, EN_RANGED), 7204, 200), 600_000);
+  it("AISC 360", () => check(rowArb(aisc360Arb, EN_RANGED), 7203, 200), 600_000);
 });
 
 // Progress (shapes settled, reported every few thousand heap steps) never moves back and ends at the
