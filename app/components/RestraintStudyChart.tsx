@@ -1,7 +1,7 @@
 // The restraint study on the sweep page (member-checks.md §3): the lightest section at the
 // restraint spacings L, L/2 … L/6, charted as mass per length against the number of
 // intermediate lateral restraints, with the same figures as a table (the chart's text form).
-import { checkLabel, familyLabel } from "~/lib/labels";
+import { checkLabel, familyLabel, fieldLabel } from "~/lib/labels";
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { fromSI, unitLabel, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/components/PropertyTable";
@@ -20,6 +20,13 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
   const yAxis = niceTicks(masses.length ? Math.min(...masses) : 0, masses.length ? Math.max(...masses) : 1, 5);
   // AISC 360 studies carry the Cb each spacing was searched with (engine restraint-study.ts)
   const aisc = study.points.some((p) => p.Cb !== undefined);
+  // EN 1993 studies carry the C1 each spacing was searched with; one stored before they did
+  // (neither Cb nor C1) kept the brief's C1 at every spacing, which over-estimates Mcr between
+  // intermediate restraints, so the page says so rather than show it as current
+  const en = study.points.some((p) => p.C1 !== undefined);
+  const legacyEn = !aisc && !en && study.points.length > 0;
+  const c1L = study.points[0]?.C1 ?? 1,
+    c1Between = study.points[1]?.C1 ?? Math.min(c1L, 1);
   return (
     <div className="space-y-2" data-testid="restraint-study">
       <figure className="rounded-lg border border-ink/15 bg-white p-3" aria-label="Restraint study: lightest mass per length against the number of intermediate restraints">
@@ -43,6 +50,12 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
           {aisc
             ? ` AISC 360-16: the unbraced length Lb is the spacing; Cb is the brief's at L (${formatNumber(study.points[0]?.Cb ?? 1, 4)}) and 1.0 between intermediate braces, the conservative value §F1 permits, since the brief's Cb belongs to the moment diagram over the whole of L.`
             : ""}
+          {en
+            ? c1Between < 1
+              ? ` EN 1993: C1 is the brief's (${formatNumber(c1L, 4)}) at every spacing, already below 1.0, the uniform-moment value taken between intermediate restraints; C2 and C3 are the brief's.`
+              : ` EN 1993: C1 is the brief's at L (${formatNumber(c1L, 4)}) and 1.0 between intermediate restraints, the uniform-moment value (common practice), since the brief's C1 belongs to the moment diagram over the whole of L; C2 and C3 are the brief's.`
+            : ""}
+          {legacyEn ? " This study was computed before the study took C1 = 1.0 between intermediate restraints: its spacings below L kept the brief's C1, which over-estimates Mcr there (unconservative); run the brief again for a current study." : ""}{" "}
           Computed with the sweep ({formatNumber(study.elapsedMs / 1000, 2)} s).
         </figcaption>
       </figure>
@@ -53,6 +66,7 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
             <th className="p-2 text-right">Intermediate restraints</th>
             <th className="p-2 text-right">{aisc ? "Spacing Lb" : "Spacing"}</th>
             {aisc ? <th className="p-2 text-right">Cb</th> : null}
+            {en ? <th className="p-2 text-right">{fieldLabel("restraint.C1")}</th> : null}
             <th className="p-2">Lightest section</th>
             <th className="p-2 text-right">Mass ({massUnit})</th>
             <th className="p-2 text-right">Saving against none</th>
@@ -67,6 +81,7 @@ export function RestraintStudyChart({ study, units, height = 280 }: { study: Res
                 <td className="p-2 text-right tabular-nums">{p.restraints}</td>
                 <td className="p-2 text-right tabular-nums">{span(p.lengthM)}</td>
                 {aisc ? <td className="p-2 text-right tabular-nums" data-col="cb">{p.Cb === undefined ? "—" : formatNumber(p.Cb, 4)}</td> : null}
+                {en ? <td className="p-2 text-right tabular-nums" data-col="c1">{p.C1 === undefined ? "—" : formatNumber(p.C1, 4)}</td> : null}
                 <td className="p-2">{p.best ? `${familyLabel(p.best.family)} ${describeDimensions(p.best.dimensions, units)}` : `none passes${p.reason ? `: ${p.reason}` : ""}`}</td>
                 <td className="p-2 text-right tabular-nums">{p.best ? formatNumber(fromSI("massPerLength", p.best.massPerMetre, units)) : "—"}</td>
                 <td className="p-2 text-right tabular-nums">{p.best && none ? `${formatNumber((100 * (none - p.best.massPerMetre)) / none, 3)} %` : "—"}</td>

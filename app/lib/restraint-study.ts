@@ -14,6 +14,8 @@ export interface StudyPoint {
   lengthM: number;
   /** AISC 360 only: the Cb searched with at this spacing (the brief's at L, 1.0 at L/2 … L/6; engine restraint-study.ts says why) */
   Cb?: number;
+  /** EN 1993 only: the C1 searched with at this spacing (the brief's at L, 1.0 at L/2 … L/6, or the brief's if lower; C2, C3 the brief's; engine restraint-study.ts says why). Studies stored before it carry none: they kept the brief's C1 throughout. */
+  C1?: number;
   /** the lightest (or cheapest, objective "cost") section at that spacing; null when none passes */
   best: { family: string; dimensions: Record<string, number>; massPerMetre: number; utilisation: number; governing: string; cost?: number } | null;
   /** why nothing passed, in the engine's words */

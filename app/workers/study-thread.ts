@@ -33,6 +33,7 @@ export function restraintStudyJob(input: SearchProblemInput): RestraintStudy {
       restraints: q.intermediateRestraints,
       lengthM: q.spacing,
       ...(q.Cb !== undefined ? { Cb: q.Cb } : {}),
+      ...(q.C1 !== undefined ? { C1: q.C1 } : {}),
       best: b ? { family: b.family, dimensions: b.dimensions, massPerMetre: b.massPerMetre, utilisation: b.utilisation, governing: b.governing, ...(b.cost !== undefined ? { cost: b.cost } : {}) } : null,
     };
     if (!b && q.reason) point.reason = q.reason;

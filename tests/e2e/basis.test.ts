@@ -66,6 +66,10 @@ test("EN 1993 floor beam: brief → sweep with class, Mcr, χLT and the restrain
   // The restraint study: 0 … 5 intermediate restraints, charted and tabled.
   await eng.getByTestId("restraint-study").scrollIntoViewIfNeeded();
   await expect(eng.getByTestId("restraint-study-table").locator("tbody tr").count()).resolves.toBe(6);
+  // with the C1 each spacing used: the brief's at L, 1.0 (uniform moment) between restraints
+  await expect(eng.getByTestId("restraint-study-table").locator("thead").textContent()).resolves.toMatch(/Spacing\s*Moment factor C1/);
+  await expect(eng.getByTestId("restraint-study-table").locator('td[data-col="c1"]').allTextContents()).resolves.toEqual(["1.132", "1", "1", "1", "1", "1"]);
+  await expect(eng.getByTestId("restraint-study").locator("figcaption").textContent()).resolves.toContain("C1 is the brief's at L (1.132) and 1.0 between intermediate restraints");
   await eng.locator('[data-testid="restraint-study"] .recharts-line-dot, [data-testid="restraint-study"] .recharts-dot').first().waitFor();
   await screenshot(eng, "basis-sweep");
 

@@ -162,6 +162,7 @@ describe("AISC 360 sweep: results in AISC terms", () => {
     expect(study.points.map((p) => p.restraints)).toEqual([0, 1, 2, 3, 4, 5]);
     expect(study.points.map((p) => p.lengthM)).toEqual([6.096, 3.048, 2.032, 1.524, 1.2192, 1.016]);
     expect(study.points.map((p) => p.Cb)).toEqual([1.136, 1, 1, 1, 1, 1]);
+    expect(study.points.every((p) => p.C1 === undefined)).toBe(true);
     expect(study.points[0].best!.massPerMetre).toBeCloseTo(sweep.best.massPerMetre, 9);
     expect(study.points[5].best!.massPerMetre).toBeLessThan(study.points[0].best!.massPerMetre);
   });

@@ -84,13 +84,18 @@ describe("EN 1993 brief → sweep → results", () => {
     // With lateral-torsional buckling inside the search, the 34 kg/m stress-only answer is gone (issue 10: about 50–60 kg/m).
     expect(data.sweep.best!.massPerMetre).toBeGreaterThan(40);
 
-    // Restraint study: L, L/2 … L/6, and more restraints never need more steel (a shorter segment only raises Mcr).
+    // Restraint study: L, L/2 … L/6 with the brief's C1 at L and C1 = 1.0 between intermediate
+    // restraints (uniform moment, ENV 1993-1-1:1992 Annex F, Table F.1.1, ψ = +1, mem.; engine
+    // restraint-study.ts says why); at the same C1 more restraints never need more steel (a
+    // shorter segment only raises Mcr).
     const study = data.sweep.restraintStudy!;
     expect(study.error).toBeUndefined();
     expect(study.points.map((p) => p.restraints)).toEqual([0, 1, 2, 3, 4, 5]);
     expect(study.points.map((p) => p.lengthM)).toEqual([6, 3, 2, 1.5, 1.2, 1]);
+    expect(study.points.map((p) => p.C1)).toEqual([1.132, 1, 1, 1, 1, 1]);
+    expect(study.points.every((p) => p.Cb === undefined)).toBe(true);
     const masses = study.points.map((p) => p.best!.massPerMetre);
-    for (let i = 1; i < masses.length; i++) expect(masses[i]).toBeLessThanOrEqual(masses[i - 1]);
+    for (let i = 2; i < masses.length; i++) expect(masses[i]).toBeLessThanOrEqual(masses[i - 1]);
     expect(masses[0]).toBeCloseTo(data.sweep.best!.massPerMetre, 9); // no intermediate restraint = the sweep itself
     expect(masses[5]).toBeLessThan(masses[0]);
 

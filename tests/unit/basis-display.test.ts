@@ -1,12 +1,13 @@
 // What the results pages show for a design basis, rendered to HTML on the server: the property
-// table's stability rows with units, the caution's wording per basis, the check table's clauses
-// and the "stresses only" words under the allowable basis.
+// table's stability rows with units, the caution's wording per basis, the check table's clauses,
+// the "stresses only" words under the allowable basis and the EN 1993 restraint study's C1 column.
 import { describe, expect, test } from "vitest";
 import { createElement } from "react";
 import { renderToString } from "react-dom/server";
 import { PropertyTable, STABILITY_ROWS, formatNumber } from "~/components/PropertyTable";
 import { CheckTable } from "~/components/CheckTable";
 import { Caution } from "~/components/Caution";
+import { RestraintStudyChart } from "~/components/RestraintStudyChart";
 import { En1993Checks, En1993Inputs } from "~/components/En1993Record";
 import { cautionText } from "~/lib/caution";
 import { clauseLabel } from "~/lib/labels";
@@ -133,5 +134,33 @@ describe("the record's EN 1993 part sets out the engine's own numbers", () => {
     expect(html).toContain("“Simply supported, uniform load”");
     expect(html).toContain("bearing stiffeners are required at both supports");
     for (const n of d.notes) expect(html).toContain(n);
+  });
+});
+
+// The restraint study under EN 1993 (engine restraint-study.ts): the brief's C1 at L and C1 = 1.0
+// between intermediate restraints, the uniform-moment value (ENV 1993-1-1:1992 Annex F,
+// Table F.1.1, ψ = +1, mem.); each point's C1 shown as AISC points show their Cb.
+describe("the restraint study under EN 1993", () => {
+  const best = { family: "i", dimensions: { d: 400, b: 200, tf: 12, tw: 8 }, massPerMetre: 50, utilisation: 0.9, governing: "ltb" };
+  const study = (c1: number[]) => ({ lengthM: 6, elapsedMs: 10, points: c1.map((C1, k) => ({ restraints: k, lengthM: 6 / (k + 1), C1, best: { ...best, massPerMetre: 50 - 5 * k } })) });
+  test("a C1 column by the field's label and the caption's choice: the brief's C1 at L, 1.0 between restraints", () => {
+    const t = text(renderToString(createElement(RestraintStudyChart, { study: study([1.132, 1, 1]), units: "si" })));
+    expect(t).toContain("Spacing Moment factor C1 Lightest section");
+    expect(t).toMatch(/6 m 1\.132 I \(equal flanges\)/);
+    expect(t).toMatch(/3 m 1 I \(equal flanges\)/);
+    expect(t).toContain("EN 1993: C1 is the brief's at L (1.132) and 1.0 between intermediate restraints, the uniform-moment value");
+    expect(t).toContain("C2 and C3 are the brief's");
+    expect(t).not.toContain("Cb");
+    expect(t).not.toContain("computed before");
+  });
+  test("a brief's C1 below 1.0 is kept throughout, and the caption says so", () => {
+    const t = text(renderToString(createElement(RestraintStudyChart, { study: study([0.9, 0.9]), units: "si" })));
+    expect(t).toContain("C1 is the brief's (0.9) at every spacing, already below 1.0");
+  });
+  test("a study stored before points carried C1 kept the brief's C1 throughout: the page says it is unconservative", () => {
+    const old = study([1.132, 1]);
+    const t = text(renderToString(createElement(RestraintStudyChart, { study: { ...old, points: old.points.map(({ C1: _c, ...p }) => p) }, units: "si" })));
+    expect(t).toContain("kept the brief's C1, which over-estimates Mcr there (unconservative)");
+    expect(t).not.toContain("Moment factor C1");
   });
 });
