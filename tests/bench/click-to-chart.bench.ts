@@ -1,0 +1,333 @@
+// Click-to-chart benchmark (issue 15): `npx tsx tests/bench/click-to-chart.bench.ts` (or `npm run bench click`).
+// The walkthrough's all-families fine-grid brief (the brief of search.bench.ts (6b)) timed as a user
+// meets it, not the search alone: the brief's Run action enqueues the sweep (enqueueSweep), the
+// runner in this process claims it, searches on its warm threads, stores the result (finishSweep:
+// front rows, context points, per-depth bests, the sweep row, the notices), and the sweep page then
+// answers with the chart. Against a fresh database of its own (BENCH_DB_NAME, default
+// sparwise_bench_click) and the production build, started as load.bench.ts starts it.
+// Prints, each with the load average beside it (the machine is shared):
+//  - baseline: the search alone (searchInThreads, as runSweepSearch calls it, on the same warm
+//    threads), median of 3 after one warm-up;
+//  - enqueue → finished sweep stored: wall time in this process (enqueueSweep called → the queue's
+//    "ended" event) and on the database clock (queued_at → finished_at), split into the claim
+//    (queued_at → started_at), the search (as the runner ran it) and the storing (search returned →
+//    ended); median of 3 after one warm-up;
+//  - the sweep page of each finished sweep: its first answer (nothing cached yet: what the page's
+//    reload after the end costs), as the document (loader + render) and as the route data the page's
+//    revalidation fetches; then the document again a few times (the process keeps a finished
+//    sweep's result parts), medians;
+//  - the total click-to-chart figure (enqueue → finished + the page's first document), against the
+//    2 s target, and its ratio to the search alone;
+//  - as the open page sees it: the page polls the sweep every second (700 ms after it loads, then
+//    1 s after each answer; sweeps.$sweepId.tsx) and fetches its data once the sweep has ended, so
+//    the chart arrives at that poll, not at the end itself; timed with the same polls.
+import { execFileSync, spawn, type ChildProcess } from "node:child_process";
+import { existsSync, readdirSync, statSync } from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+const DB_NAME = process.env.BENCH_DB_NAME ?? "sparwise_bench_click";
+process.env.DB_NAME = DB_NAME;
+execFileSync("bash", ["db/start.sh"], { cwd: ROOT, stdio: "ignore" });
+execFileSync("bash", ["db/create-database.sh", DB_NAME, "--fresh"], { cwd: ROOT, stdio: "inherit" });
+execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { cwd: ROOT, stdio: "ignore", env: { ...process.env, DB_NAME } });
+
+// ---- the build: rebuilt when any file under app/ is newer than it (as load.bench.ts)
+function newest(dir: string): number {
+  let t = 0;
+  for (const e of readdirSync(dir, { withFileTypes: true })) {
+    const p = path.join(dir, e.name);
+    t = Math.max(t, e.isDirectory() ? newest(p) : statSync(p).mtimeMs);
+  }
+  return t;
+}
+const built = path.join(ROOT, "build/server/index.js");
+if (!existsSync(built) || statSync(built).mtimeMs < newest(path.join(ROOT, "app"))) {
+  console.log("building (app/ is newer than build/) …");
+  execFileSync("npm", ["run", "build"], { cwd: ROOT, stdio: "ignore" });
+}
+
+const { db, closeDb, parseJson } = await import("~/lib/db.server");
+const { sessionCookieFor } = await import("~/lib/session.server");
+const { enqueueSweep, queueEvents } = await import("~/workers/queue.server");
+const { SweepRunner } = await import("~/workers/runner.server");
+const { searchInThreads, warmSearchThreads, idleSearchThreads } = await import("~/workers/search-threads");
+const { SWEEP_SEARCH_OPTIONS, runSweepSearch, sweepThreads } = await import("~/workers/sweep-search.server");
+const { searchProblemSchema } = await import("~/optimizer");
+type SearchProblemInput = import("~/optimizer").SearchProblemInput;
+
+// the walkthrough brief, as search.bench.ts (6b) writes it
+const walk: SearchProblemInput = {
+  moment: { sagging: 900, hogging: 0 },
+  shear: 600,
+  allowable: { tension: 165, compression: 165, shear: 100 },
+  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
+  depth: { min: 200, max: 1199, step: 1 },
+  width: { min: 150, max: 452, step: 1 },
+  thicknesses: [8, 10, 12, 15, 20, 25, 30, 35],
+  families: ["i", "channel", "tee", "box", "channel-down", "angle", "rectangle", "mono-i"],
+};
+
+const load = () =>
+  os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(" / ");
+const ms = (x: number) => `${x.toFixed(0)} ms`;
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[xs.length >> 1]!;
+const verdict = (ok: boolean) => (ok ? "MET" : "MISSED");
+
+// ---- fixtures: the demo engineer, a project of the team and the brief saved in it
+const eng = await db("users").join("memberships", "memberships.user_id", "users.id").where("users.email", "engineer@tallowfield.example").first("users.id", "users.session_version", "memberships.team_id");
+const cookie = (await sessionCookieFor(eng.id, eng.session_version)).split(";")[0]!;
+const project = await db("projects").where({ team_id: eng.team_id }).orderBy("id").first("id");
+const problem = searchProblemSchema.parse(walk);
+const [briefId] = await db("briefs").insert({
+  project_id: project.id,
+  name: "All families, fine grid (bench)",
+  problem: JSON.stringify(problem),
+  units: "si",
+  member_length_m: 9,
+  member_count: 4,
+  created_by: eng.id,
+});
+
+// ---- the server: the production build (node server.ts), its own runner off (this process runs the sweeps)
+const freePort = () =>
+  new Promise<number>((resolve, reject) => {
+    const s = net.createServer();
+    s.once("error", reject);
+    s.listen(0, "127.0.0.1", () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+const port = await freePort();
+const base = `http://127.0.0.1:${port}`;
+let server: ChildProcess | undefined = spawn(process.execPath, ["--import", "tsx", "server.ts"], {
+  cwd: ROOT,
+  env: { ...process.env, DB_NAME, PORT: String(port), NODE_ENV: "production", VITEST: "", APP_URL: base, SPARWISE_INPROCESS_WORKERS: "0", SPARWISE_API_POINTS_PER_MINUTE: "100000000" },
+  stdio: ["ignore", "ignore", "inherit"],
+  detached: true,
+});
+const stopServer = () => {
+  if (server?.pid)
+    try {
+      process.kill(-server.pid, "SIGTERM");
+    } catch {
+      // already gone
+    }
+  server = undefined;
+};
+process.on("exit", stopServer);
+for (const ev of ["uncaughtException", "unhandledRejection"] as const)
+  process.on(ev, (e) => {
+    stopServer();
+    console.error(e);
+    process.exit(1);
+  });
+for (const deadline = Date.now() + 60_000; ;) {
+  try {
+    if ((await fetch(`${base}/healthz`)).ok) break;
+  } catch {
+    // not up yet
+  }
+  if (Date.now() > deadline) throw new Error("the app server did not start");
+  await new Promise((r) => setTimeout(r, 250));
+}
+
+async function timed(url: string, init?: RequestInit): Promise<{ ms: number; status: number; bytes: number; text: string }> {
+  const t0 = performance.now();
+  const res = await fetch(url, { ...init, headers: { Cookie: cookie, ...init?.headers } });
+  const text = await res.text();
+  return { ms: performance.now() - t0, status: res.status, bytes: text.length, text };
+}
+const pageDoc = (id: number) => timed(`${base}/sweeps/${id}`);
+// what the page's revalidation fetches (React Router's single fetch: the route's loader data, no markup)
+const pageData = (id: number) => timed(`${base}/sweeps/${id}.data`);
+const apiSweep = (id: number) => timed(`${base}/api/v1/sweeps/${id}`, { headers: { Accept: "application/json" } });
+
+// ---- the runner, as app/workers/in-process.server.ts starts it: default concurrency, threads warmed
+const searchEnd = new Map<number, number>();
+const searchMs = new Map<number, number>();
+let current = 0;
+const runner = new SweepRunner({
+  workerId: "bench-click",
+  log: () => {},
+  // runSweepSearch itself, only timed: when it returned is when the storing began
+  search: async (p, o) => {
+    const t0 = performance.now();
+    const r = await runSweepSearch(p, o);
+    searchEnd.set(current, performance.now());
+    searchMs.set(current, performance.now() - t0);
+    return r;
+  },
+}).start();
+const threads = sweepThreads(runner.concurrency);
+warmSearchThreads(threads * runner.concurrency);
+
+console.log(
+  `click-to-chart benchmark, node ${process.version}, ${new Date().toISOString()}, ${os.availableParallelism()} cores, database ${DB_NAME}, server ${base}; runner concurrency ${runner.concurrency}, ${threads} search thread(s) a sweep`,
+);
+
+// ---- baseline: the search alone, on the same threads, as runSweepSearch calls it
+let baseline = 0;
+{
+  const ts: number[] = [];
+  for (let i = 0; i < 4; i++) {
+    const t0 = performance.now();
+    await searchInThreads(walk, { ...SWEEP_SEARCH_OPTIONS, threads });
+    if (i > 0) ts.push(performance.now() - t0);
+  }
+  baseline = median(ts);
+  console.log(`\nbaseline: the search alone (searchInThreads, ${threads} warm threads, front "grid"): ${ms(baseline)} wall (median of 3 after one warm-up; each ${ts.map(ms).join(", ")}), ${idleSearchThreads()} threads idle after; load average ${load()}`);
+}
+
+// ---- enqueue → stored → page, four times (the first a warm-up)
+interface Run {
+  wall: number;
+  db: number;
+  claim: number;
+  search: number;
+  store: number;
+  first: { doc: number; data: number };
+  docWarm: number;
+  dataWarm: number;
+  docBytes: number;
+  dataBytes: number;
+  front: number;
+  stored: number;
+  load: string;
+}
+const runs: Run[] = [];
+for (let i = 0; i < 4; i++) {
+  let endedAt = 0;
+  let id = 0;
+  const ended = new Promise<void>((resolve) => {
+    const on = (sid: number) => {
+      if (sid !== id) return;
+      endedAt = performance.now();
+      queueEvents.off("ended", on);
+      resolve();
+    };
+    queueEvents.on("ended", on);
+  });
+  const t0 = performance.now();
+  ({ id } = await enqueueSweep({ teamId: eng.team_id, ownerId: eng.id, projectId: project.id, briefId: Number(briefId), problem: walk, member: { lengthM: 9, count: 4 } }));
+  current = id;
+  await ended;
+  const wall = endedAt - t0;
+  const row = await db("sweeps")
+    .where({ id })
+    .first(
+      "status",
+      "counts",
+      db.raw("TIMESTAMPDIFF(MICROSECOND, queued_at, finished_at) / 1000 AS total_ms"),
+      db.raw("TIMESTAMPDIFF(MICROSECOND, queued_at, started_at) / 1000 AS claim_ms"),
+    );
+  if (row.status !== "succeeded") throw new Error(`sweep ${id} ended ${row.status}`);
+  const stored = Number((await db("candidates").where({ sweep_id: id }).count({ n: "*" }).first())!.n);
+  // the first answers for the finished sweep (nothing of it cached in the server yet): the document, then the route data
+  // (alternating which goes first, so each is measured cold in half the runs)
+  const first = { doc: 0, data: 0 };
+  let docBytes = 0,
+    dataBytes = 0;
+  for (const which of i % 2 === 0 ? (["doc", "data"] as const) : (["data", "doc"] as const)) {
+    const r = which === "doc" ? await pageDoc(id) : await pageData(id);
+    if (r.status !== 200) throw new Error(`sweep page ${which}: ${r.status}`);
+    first[which] = r.ms;
+    if (which === "doc") docBytes = r.bytes;
+    else dataBytes = r.bytes;
+  }
+  const docs: number[] = [],
+    datas: number[] = [];
+  for (let k = 0; k < 5; k++) {
+    docs.push((await pageDoc(id)).ms);
+    datas.push((await pageData(id)).ms);
+  }
+  const run: Run = {
+    wall,
+    db: Number(row.total_ms),
+    claim: Number(row.claim_ms),
+    search: searchMs.get(id)!,
+    store: endedAt - searchEnd.get(id)!,
+    first,
+    docWarm: median(docs),
+    dataWarm: median(datas),
+    docBytes,
+    dataBytes,
+    front: parseJson<{ front: number }>(row.counts).front,
+    stored,
+    load: load(),
+  };
+  runs.push(run);
+  const cold = i % 2 === 0 ? "document first" : "data first";
+  console.log(
+    `${i === 0 ? "\nwarm-up" : `run ${i}`}: sweep ${id}: enqueue → finished ${ms(run.wall)} wall, ${ms(run.db)} database clock (claim ${ms(run.claim)}, search ${ms(run.search)}, storing ${ms(run.store)}); ` +
+      `${run.stored.toLocaleString("en")} rows stored (front ${run.front.toLocaleString("en")}); page first answers (${cold}): document ${ms(first.doc)}, data ${ms(first.data)}; then document ${ms(run.docWarm)}, data ${ms(run.dataWarm)} (medians of 5); load average ${run.load}`,
+  );
+}
+
+const measured = runs.slice(1);
+const m = (f: (r: Run) => number) => median(measured.map(f));
+const wall = m((r) => r.wall),
+  dbClock = m((r) => r.db),
+  search = m((r) => r.search),
+  store = m((r) => r.store),
+  claim = m((r) => r.claim);
+// cold document: the runs that asked for the document first (1, 3), else every run's first answer
+const docFirst = median(measured.filter((_, k) => (k + 1) % 2 === 0).map((r) => r.first.doc));
+const dataFirst = median(measured.filter((_, k) => (k + 1) % 2 === 1).map((r) => r.first.data));
+const docWarm = m((r) => r.docWarm),
+  dataWarm = m((r) => r.dataWarm);
+const total = wall + docFirst;
+console.log(`\nthe walkthrough brief (all eight families, depth 200–1199 by 1, widths 150–452 by 1, eight thicknesses), medians of 3 after one warm-up; load average ${load()}`);
+console.log(`  enqueue → finished sweep stored: ${ms(wall)} wall (${ms(dbClock)} on the database clock, queued_at → finished_at)`);
+console.log(`    claim ${ms(claim)} (database clock), search ${ms(search)} (runSweepSearch in the runner), storing ${ms(store)} (search returned → sweep ended)`);
+console.log(`  the sweep page, first answer once finished: document ${ms(docFirst)} (${(measured[0]!.docBytes / 1024).toFixed(0)} kB), route data ${ms(dataFirst)} (${(measured[0]!.dataBytes / 1024).toFixed(0)} kB); answered again: document ${ms(docWarm)}, data ${ms(dataWarm)}`);
+console.log(`  click to chart (enqueue → finished + the page's first document): ${ms(total)} (target < 2000 ms: ${verdict(total < 2000)})`);
+console.log(`  against the search alone (${ms(baseline)}, same run): click to chart = ${(total / baseline).toFixed(2)}×; enqueue → finished = ${(wall / baseline).toFixed(2)}×; storing + page = ${(((store + docFirst) / baseline) * 100).toFixed(0)} % of the search`);
+
+// ---- as the open page sees it: its polls (700 ms after loading, then 1 s after each answer), then its data
+{
+  const seen: number[] = [],
+    ends: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    let endedAt = 0,
+      id = 0;
+    const on = (sid: number) => {
+      if (sid === id) endedAt = performance.now();
+    };
+    queueEvents.on("ended", on);
+    const t0 = performance.now();
+    ({ id } = await enqueueSweep({ teamId: eng.team_id, ownerId: eng.id, projectId: project.id, briefId: Number(briefId), problem: walk, member: { lengthM: 9, count: 4 } }));
+    current = id;
+    // the Run action's redirect: the page of the sweep, still queued or running
+    await pageDoc(id);
+    let wait = 700;
+    for (;;) {
+      await new Promise((r) => setTimeout(r, wait));
+      const s = JSON.parse((await apiSweep(id)).text) as { status: string };
+      if (s.status !== "queued" && s.status !== "running") break;
+      wait = 1000;
+    }
+    await pageData(id);
+    seen.push(performance.now() - t0);
+    ends.push(endedAt - t0);
+    queueEvents.off("ended", on);
+  }
+  const s = median(seen),
+    e = median(ends);
+  console.log(
+    `\nas the open page sees it (its own polls, then its data): chart data in hand ${ms(s)} after the enqueue (each ${seen.map(ms).join(", ")}); the sweep had ended at ${ms(e)}: ${ms(s - e)} waiting for the poll and the data; target < 2000 ms: ${verdict(s < 2000)}; load average ${load()}`,
+  );
+}
+
+console.log(`\n(the machine: ${os.availableParallelism()} cores; load average at the end ${load()} (1 / 5 / 15 min); the figures depend on what else runs on the cores)`);
+await runner.stop();
+stopServer();
+await closeDb();
+process.exit(0);
