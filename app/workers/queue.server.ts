@@ -459,10 +459,19 @@ export function candidatesToStore(result: SweepResult, objective: "mass" | "cost
     const i = problem?.families.indexOf(f as never) ?? -1;
     return i < 0 ? Number.MAX_SAFE_INTEGER : i;
   };
-  const keyOf = (c: SearchPoint) => geometryKey(c.family, c.dimensions) ?? `${c.family}|${JSON.stringify(c.dimensions)}`;
+  // Each point's key and sort figures are worked out once: the walkthrough's fine-grid brief stores
+  // about 11,700 rows, and worked out inside the sort's comparisons (two keys each) they were most of
+  // the half second this took (tests/bench/click-to-chart.bench.ts).
+  const keys = new Map<SearchPoint, string>();
+  const keyOf = (c: SearchPoint) => {
+    let k = keys.get(c);
+    if (k === undefined) keys.set(c, (k = geometryKey(c.family, c.dimensions) ?? `${c.family}|${JSON.stringify(c.dimensions)}`));
+    return k;
+  };
   const familyBest = new Set<string>();
   for (const c of Object.values(result.bestByFamily)) if (c) familyBest.add(keyOf(c));
-  const front = new Set(result.front.slice(0, STORED_FRONT_CAP).map(keyOf));
+  const frontKept = result.front.length > STORED_FRONT_CAP ? result.front.slice(0, STORED_FRONT_CAP) : result.front;
+  const front = new Set(frontKept.map(keyOf));
   const perDepth = problem && depthBestsInfo(problem, result).state === "none" ? [] : storedDepthBests(result);
   // for each section, the families whose lightest at its depth it is (more than one when two
   // families found the same section), so a filter by either family still finds it
@@ -472,37 +481,47 @@ export function candidatesToStore(result: SweepResult, objective: "mass" | "cost
     if (!depthBestFor.has(k)) depthBestFor.set(k, new Set());
     depthBestFor.get(k)!.add(c.family);
   }
-  const all = new Map<string, SearchPoint>();
-  for (const c of [...(result.best ? [result.best] : []), ...result.front.slice(0, STORED_FRONT_CAP), ...Object.values(result.bestByFamily), ...perDepth]) {
-    if (!c) continue;
+  const all = new Map<string, { c: SearchPoint; order: number }>();
+  const take = (c: SearchPoint | null | undefined) => {
+    if (!c) return;
     const k = keyOf(c);
     const had = all.get(k);
+    const o = order(c.family);
     // (a replaced row's design figures are worked out again from its own family by storedDesign)
-    if (!had || order(c.family) < order(had.family)) all.set(k, c);
-  }
+    if (!had || o < had.order) all.set(k, { c, order: o });
+  };
+  take(result.best);
+  for (const c of frontKept) take(c);
+  for (const c of Object.values(result.bestByFamily)) take(c);
+  for (const c of perDepth) take(c);
   const bestKey = result.best ? keyOf(result.best) : null;
   const obj = (c: SearchPoint) => (objective === "cost" && c.cost !== undefined ? c.cost : c.area);
-  const list = [...all.values()].sort((a, b) => {
-    if (bestKey && keyOf(a) === bestKey) return -1;
-    if (bestKey && keyOf(b) === bestKey) return 1;
-    return obj(a) - obj(b) || a.area - b.area || a.utilisation - b.utilisation || order(a.family) - order(b.family);
+  const list = [...all].map(([k, { c, order }]) => ({ k, c, order, obj: obj(c) }));
+  list.sort((a, b) => {
+    if (bestKey && a.k === bestKey) return -1;
+    if (bestKey && b.k === bestKey) return 1;
+    return a.obj - b.obj || a.c.area - b.c.area || a.c.utilisation - b.c.utilisation || a.order - b.order;
   });
-  return list.map((c, i) => ({
-    rank: i + 1,
-    family: c.family,
-    dimensions: JSON.stringify(c.dimensions),
-    area: c.area,
-    mass_per_metre: c.massPerMetre,
-    cost: c.cost ?? null,
-    utilisation: c.utilisation,
-    governing: c.governing,
-    on_front: front.has(keyOf(c)),
-    family_best: familyBest.has(keyOf(c)),
-    depth_best: depthBestFor.has(keyOf(c)),
-    depth_best_for: depthBestFor.has(keyOf(c)) ? [...depthBestFor.get(keyOf(c))!].sort((a, b) => order(a) - order(b)).join(",") : null,
-    // the code bases' figures (EN 1993 or AISC 360); the allowable basis has none
-    design: problem && isCodeBasis(problem.basis) ? storedDesign(c, problem) : null,
-  }));
+  const code = problem && isCodeBasis(problem.basis);
+  return list.map(({ k, c }, i) => {
+    const depthFor = depthBestFor.get(k);
+    return {
+      rank: i + 1,
+      family: c.family,
+      dimensions: JSON.stringify(c.dimensions),
+      area: c.area,
+      mass_per_metre: c.massPerMetre,
+      cost: c.cost ?? null,
+      utilisation: c.utilisation,
+      governing: c.governing,
+      on_front: front.has(k),
+      family_best: familyBest.has(k),
+      depth_best: depthFor !== undefined,
+      depth_best_for: depthFor ? [...depthFor].sort((a, b) => order(a) - order(b)).join(",") : null,
+      // the code bases' figures (EN 1993 or AISC 360); the allowable basis has none
+      design: code ? storedDesign(c, problem) : null,
+    };
+  });
 }
 
 /**
