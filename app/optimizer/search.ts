@@ -326,6 +326,12 @@ const KIND_READY = 0,
 const DRANGE_LEAF = 2;
 /** (R′) row depth ranges this short or shorter are expanded into one raw row per depth. */
 const ROW_LEAF = 4;
+/**
+ * Grid mode: a row depth range whose bound at the cap rises by more than this (relative) is
+ * re-queued, not split. Coarser than REKEY: a range's bound costs a few rows' keys, and a range
+ * re-queued for a small rise is mostly split at its next pop anyway (measured on the (6b) brief).
+ */
+const ROW_REKEY = 1e-2;
 /** (R) bt slices a depth range's box is cut into for (E2) once an incumbent exists. */
 const SLICES = 8;
 /** (S) the most candidates the mono-i seed's local search evaluates. */
@@ -1824,7 +1830,7 @@ class FamilySearch {
         if (b !== b) return;
         dA = this.rr.lo;
         dB = this.rr.hi;
-        if (!(b > o * (1 + REKEY))) break;
+        if (!(b > o * (1 + ROW_REKEY))) break;
         o = b;
         cap = this.rangeCapAt(o, dA, dB);
       }
