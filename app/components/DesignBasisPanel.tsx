@@ -9,6 +9,7 @@ import { getInputProps, type FieldMetadata } from "@conform-to/react";
 import { AISC_GRADE_NAMES, DEFAULT_AISC_GRADE, DEFAULT_GRADE, EN1993_GRADE_NAMES, FY_BAND_ROWS, aiscGradeFill, gradeFill } from "~/lib/brief-form-basis";
 import { MOMENT_DIAGRAMS, MOMENT_DIAGRAM_SOURCE, cbOf, matchMomentDiagram, momentDiagram } from "~/lib/moment-diagrams";
 import { STRESSES_ONLY } from "~/lib/caution";
+import { fieldLabel } from "~/lib/labels";
 import type { Basis, En1993Grade } from "~/optimizer/search-schema";
 import { fromSI, unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { TableScroll } from "~/components/DataTable";
@@ -351,7 +352,7 @@ export function BasisPanels({ fields, units, basis, defaultValue, onChange }: { 
         <Errors meta={fields.restraintThroughout} />
         {/* Disabled while restrained throughout: the restraint block is then left out of the brief. */}
         <fieldset disabled={throughout} className="mt-3 grid grid-cols-1 gap-3 disabled:opacity-60 sm:grid-cols-3">
-          <UnitInput meta={restraint.length} label={us ? "Unbraced length Lb" : "Restraint length"} quantity="span" units={units} hint="longest segment between restraints" />
+          <UnitInput meta={restraint.length} label={fieldLabel("restraint.length", basis)} quantity="span" units={units} hint="longest segment between restraints" />
           <fieldset disabled={!us} hidden={!us} className="contents">
             <div className="space-y-1">
               <label htmlFor="cb-diagram" className="block text-sm font-semibold">

@@ -383,7 +383,8 @@ export const briefFormSchema = formFields.transform((raw, ctx): { meta: BriefMet
     else meta.elasticModulus = E;
   }
   if (issues.length || !r.success) {
-    for (const i of issues) ctx.addIssue({ code: "custom", path: i.path, message: plainMessage(i.message) });
+    // named as the basis's panel names them (labels.ts: "restraint.length" is "Unbraced length Lb" under AISC 360)
+    for (const i of issues) ctx.addIssue({ code: "custom", path: i.path, message: plainMessage(i.message, f.basis) });
     return z.NEVER;
   }
   return { meta, problem: r.data };

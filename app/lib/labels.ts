@@ -2,13 +2,18 @@
 // and table names a field, a family or a check through here, so no page shows the engine's
 // field paths ("allowable.tension", "plates[3]") and every page calls a family by the same name.
 import type { Family } from "~/optimizer/geometry";
-import type { CheckName } from "~/optimizer/search-schema";
+import type { Basis, CheckName } from "~/optimizer/search-schema";
 import type { LimitBreach } from "~/optimizer/limits";
 import type { CheckUnit } from "~/optimizer/checks";
 import { unitLabel, type Quantity, type UnitSystem } from "~/optimizer/units";
 import { formatNumber, formatQuantity } from "~/lib/format";
 
-/** Problem and brief fields by their dotted path. */
+/**
+ * Problem and brief fields by their dotted path. A field the editor names per basis has a
+ * "path@basis" entry beside its own (the AISC 360 panel calls the restraint length the unbraced
+ * length Lb, Chapter F's term), read by fieldLabel and plainMessage when given the brief's basis,
+ * so a refusal names the field as the form in front of the engineer does.
+ */
 export const FIELD_LABELS: Record<string, string> = {
   name: "Brief name",
   units: "Units",
@@ -79,6 +84,7 @@ export const FIELD_LABELS: Record<string, string> = {
   "steel.betaW": "Weld correlation factor βw",
   restraint: "Lateral restraint",
   "restraint.length": "Restraint length",
+  "restraint.length@aisc360": "Unbraced length Lb",
   "restraint.C1": "Moment factor C1",
   "restraint.C2": "Moment factor C2",
   "restraint.C3": "Moment factor C3",
@@ -97,8 +103,10 @@ export const FIELD_LABELS: Record<string, string> = {
   decision: "Decision",
 };
 
-export function fieldLabel(path: string): string {
-  return FIELD_LABELS[path] ?? FIELD_LABELS[path.replace(/\[\d+\]/g, "[]")] ?? path;
+/** A field's label; with the brief's basis, the basis's own name for it where it has one ("restraint.length@aisc360"). */
+export function fieldLabel(path: string, basis?: Basis): string {
+  const general = path.replace(/\[\d+\]/g, "[]");
+  return (basis && (FIELD_LABELS[`${path}@${basis}`] ?? FIELD_LABELS[`${general}@${basis}`])) ?? FIELD_LABELS[path] ?? FIELD_LABELS[general] ?? path;
 }
 
 /** Family names, the same on the bench, the brief, the sweep, the comparison and the record. */
@@ -203,7 +211,9 @@ export function describeBreach(b: LimitBreach, units: UnitSystem): string {
  * indices read as the row numbers a person sees ("plates[3] overlaps plates[2]" → "plate 4
  * overlaps plate 3"). Longest paths first, so "depth.max" is not read as "depth" + ".max".
  */
-const PATHS = Object.keys(FIELD_LABELS).sort((a, b) => b.length - a.length);
+const PATHS = Object.keys(FIELD_LABELS)
+  .filter((p) => !p.includes("@"))
+  .sort((a, b) => b.length - a.length);
 // (used by plainMessage below)
 const PLATE_DIMENSIONS: Record<string, string> = { b: "width b", h: "height h", z: "left edge z", y: "bottom edge y" };
 const ROW_NOUNS: Record<string, string> = { plates: "plate", polygons: "polygon", points: "point", thicknesses: "thickness", families: "family", prices: "price", rows: "row" };
@@ -213,13 +223,14 @@ function midSentence(label: string): string {
   return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
 }
 
-/** Dotted and list paths anywhere ("allowable.tension", "thicknesses[]", "prices[].pricePerKg") → their labels. */
-function labelPaths(text: string): string {
+/** Dotted and list paths anywhere ("allowable.tension", "thicknesses[]", "prices[].pricePerKg") → their labels (the basis's own where it has one). */
+function labelPaths(text: string, basis?: Basis): string {
   let out = text;
   for (const p of PATHS) {
     if (!p.includes(".") && !p.includes("[")) continue;
     const re = new RegExp(`(^|[^\\w.\\[])${p.replace(/[.[\]]/g, (c) => `\\${c}`)}(?![\\w\\[])`, "g");
-    out = out.replace(re, (_, pre: string) => `${pre}${pre === "" ? FIELD_LABELS[p] : midSentence(FIELD_LABELS[p])}`);
+    const label = fieldLabel(p, basis);
+    out = out.replace(re, (_, pre: string) => `${pre}${pre === "" ? label : midSentence(label)}`);
   }
   return out;
 }
@@ -245,9 +256,10 @@ export function checkTitle(name: string): string {
   return l.charAt(0).toUpperCase() + l.slice(1);
 }
 
-export function plainMessage(message: string): string {
+/** An engine or form message in the editor's words; with the brief's basis, fields the basis names its own way are named so ("restraint.length" under AISC 360 → "Unbraced length Lb"). */
+export function plainMessage(message: string, basis?: Basis): string {
   // fy bands by the row the editor shows ("steel.fy[1].maxThickness" → "band 2, plates up to")
-  let out = labelPaths(message.replace(/steel\.fy\[(\d+)\]\.(maxThickness|fy)/g, (_, i: string, k: string) => `band ${Number(i) + 1}, ${k === "fy" ? "fy" : "plates up to"}`));
+  let out = labelPaths(message.replace(/steel\.fy\[(\d+)\]\.(maxThickness|fy)/g, (_, i: string, k: string) => `band ${Number(i) + 1}, ${k === "fy" ? "fy" : "plates up to"}`), basis);
   // a plate's own dimension ("plates[2].b" → "plate 3, width b")
   out = out.replace(/\bplates\[(\d+)\]\.(b|h|z|y)\b/g, (_, i: string, k: string) => `plate ${Number(i) + 1}, ${PLATE_DIMENSIONS[k]}`);
   out = out.replace(/\]\.points\[/g, "], points[");
@@ -258,7 +270,7 @@ export function plainMessage(message: string): string {
   // A family named in quotes by its engine name ("mono-i") → its label.
   out = out.replace(/"([a-z-]+)"/g, (m: string, f: string) => (f in FAMILY_LABELS ? `“${FAMILY_LABELS[f as Family]}”` : m));
   // A one-word field opening the message ("shear must be ≥ 0", "grid: …").
-  out = out.replace(/^([a-zA-Z]+)(?=[: ])/, (w: string) => FIELD_LABELS[w] ?? w);
+  out = out.replace(/^([a-zA-Z]+)(?=[: ])/, (w: string) => (w in FIELD_LABELS ? fieldLabel(w, basis) : w));
   return out.charAt(0).toUpperCase() + out.slice(1);
 }
 

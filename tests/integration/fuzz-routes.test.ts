@@ -396,12 +396,13 @@ const jsonValue = (): fc.Arbitrary<unknown> =>
 
 /**
  * A message (the form's field errors, or the API's error and errors) that names `field` in its
- * words: by its path, or on a form page by the label the brief editor shows (labels.ts), any case.
+ * words: by its path, or on a form page by the label the brief editor shows on these briefs'
+ * AISC 360 basis (labels.ts: the restraint length is "Unbraced length Lb" there), any case.
  */
 function namesField(res: RouteResult, field: string): boolean {
   const d = res.data as { errors?: Record<string, string | string[]>; error?: string } | undefined;
   const words = [...Object.values(d?.errors ?? {}).flat(), d?.error ?? ""].map((w) => String(w).toLowerCase());
-  return words.some((w) => w.includes(field.toLowerCase()) || w.includes(fieldLabel(field).toLowerCase()));
+  return words.some((w) => w.includes(field.toLowerCase()) || w.includes(fieldLabel(field, "aisc360").toLowerCase()));
 }
 
 interface BasisRoute {

@@ -6,6 +6,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { briefFormSchema, DEFAULT_PROBLEM, problemToFormDefaults } from "~/lib/brief-form";
 import { FAMILY_LABELS, describeBreach, familyLabel, fieldLabel, plainMessage } from "~/lib/labels";
 import { FAMILIES } from "~/optimizer/geometry";
+import { searchProblemSchema } from "~/optimizer/search-schema";
 import { formData } from "./form-data";
 
 const errorsOf = (s: unknown) => (s as { error?: Record<string, string[] | null> }).error ?? {};
@@ -56,5 +57,44 @@ describe("labels", () => {
   it("words a broken limit with the page's units (300 mm = 11.81 in)", () => {
     expect(describeBreach({ kind: "above", limit: "depth.max", dim: "d", value: 300, bound: 250 }, "si")).toBe("depth 300 mm is above depth, max 250 mm");
     expect(describeBreach({ kind: "above", limit: "depth.max", dim: "d", value: 300, bound: 254 }, "us")).toBe("depth 11.811 in is above depth, max 10 in");
+  });
+});
+
+// The restraint length is named as the basis's panel names it (DesignBasisPanel.tsx, from the same
+// table): "Restraint length" under EN 1993 and allowable stresses, "Unbraced length Lb" under
+// AISC 360 (Chapter F's Lb), so a refusal names the field the engineer sees.
+describe("a field the basis names its own way", () => {
+  it("fieldLabel and plainMessage with the brief's basis", () => {
+    expect(fieldLabel("restraint.length")).toBe("Restraint length");
+    expect(fieldLabel("restraint.length", "en1993")).toBe("Restraint length");
+    expect(fieldLabel("restraint.length", "allowable")).toBe("Restraint length");
+    expect(fieldLabel("restraint.length", "aisc360")).toBe("Unbraced length Lb");
+    // fields without a basis's own name keep theirs
+    expect(fieldLabel("restraint.Cb", "aisc360")).toBe("Cb (lateral-torsional buckling modification factor)");
+    expect(plainMessage("restraint.length must be ≥ 0.001 m", "aisc360")).toBe("Unbraced length Lb must be ≥ 0.001 m");
+    expect(plainMessage("restraint.length must be ≥ 0.001 m", "en1993")).toBe("Restraint length must be ≥ 0.001 m");
+    expect(plainMessage("the brief's restraint.length is short", "aisc360")).toBe("The brief's unbraced length Lb is short");
+  });
+
+  const AISC = searchProblemSchema.parse({ ...DEFAULT_PROBLEM, allowable: undefined, slenderness: undefined, families: ["i"], basis: "aisc360", method: "ASD", aisc: { grade: "A572 Gr 50" }, restraint: { length: 6, Cb: 1.136 } });
+  const refusal = (edit: (d: Record<string, any>) => void) => {
+    const d = problemToFormDefaults(AISC, { units: "si", name: "B" }) as Record<string, any>;
+    edit(d);
+    return errorsOf(parseWithZod(formData(d), { schema: briefFormSchema }))["restraint.length"];
+  };
+  it("an AISC 360 brief refused for its unbraced length says “Unbraced length Lb”, never “Restraint length”", () => {
+    expect(refusal(() => {})).toBeUndefined();
+    expect(refusal((d) => (d.restraint.length = undefined))).toEqual(["Unbraced length Lb: enter the unbraced length Lb of the compression flange, or tick “braced throughout”"]);
+    const zero = refusal((d) => (d.restraint.length = 0));
+    expect(zero?.[0]).toMatch(/^Unbraced length Lb\b/);
+    const text = refusal((d) => (d.restraint.length = "six"));
+    expect(text).toEqual(["Unbraced length Lb must be a number"]);
+    for (const m of [...zero!, ...text!]) expect(m).not.toMatch(/restraint length/i);
+  });
+  it("an EN 1993 brief's keeps “Restraint length”", () => {
+    const en = searchProblemSchema.parse({ ...AISC, basis: "en1993", method: undefined, aisc: undefined, steel: { grade: "S355" }, restraint: { length: 6 } });
+    const d = problemToFormDefaults(en, { units: "si", name: "B" }) as Record<string, any>;
+    d.restraint.length = 0;
+    expect(errorsOf(parseWithZod(formData(d), { schema: briefFormSchema }))["restraint.length"]?.[0]).toMatch(/^Restraint length\b/);
   });
 });
