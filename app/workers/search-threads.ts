@@ -264,6 +264,7 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
     options.signal?.addEventListener("abort", onAbort, { once: true });
   });
   let ok = false;
+  let onError: ((e: unknown) => void) | undefined, onExit: ((code: number) => void) | undefined;
   // the grid-front search shares front members between the parts (frontShare); best only and brute force need not
   const shared = n > 1 && !options.exhaustive && (options.front ?? (options.explore ? "evaluated" : "grid")) === "grid" ? sharedFrontBuffer(n) : undefined;
   try {
@@ -283,12 +284,23 @@ export async function searchInThreads(input: SearchProblemInput, options: Thread
       const opts = { exhaustive: options.exhaustive, explore: options.explore, front: options.front };
       return (port ? t.api.run(input, [i, n], opts, Comlink.transfer(port, [port]), options.deadline, shared) : t.api.run(input, [i, n], opts, undefined, options.deadline, shared)) as Promise<SearchResult>;
     });
-    const parts = await Promise.race([Promise.all(runs), aborted]);
-    await Promise.race([Promise.all(portsDone), aborted]);
+    // a thread that dies mid-search (out of memory, a crash) would leave its call unanswered: fail instead
+    const died = new Promise<never>((_, reject) => {
+      onError = reject;
+      onExit = (code: number) => reject(new Error(`a search thread exited (code ${code}) before its part was done`));
+      for (const t of threads) t.worker.on("error", onError).on("exit", onExit);
+    });
+    died.catch(() => undefined);
+    const parts = await Promise.race([Promise.all(runs), aborted, died]);
+    await Promise.race([Promise.all(portsDone), aborted, died]);
     ok = true;
     return combineResults(problem.families, parts);
   } finally {
     if (onAbort) options.signal?.removeEventListener("abort", onAbort);
+    for (const t of threads) {
+      if (onError) t.worker.off("error", onError);
+      if (onExit) t.worker.off("exit", onExit);
+    }
     for (const p of ports) p.close();
     // finished threads wait for the next search; after an abort or a failure they are ended
     if (ok) threads.forEach(release);
