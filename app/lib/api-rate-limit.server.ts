@@ -13,7 +13,7 @@ export const API_WINDOW_SECONDS = 60;
  * Points per user per minute (SPARWISE_API_POINTS_PER_MINUTE, default 600). A request costs 1; the
  * one endpoint that runs the engine on demand (POST /api/v1/properties) costs API_ENGINE_COST,
  * so one user gets at most 150 sections a minute, about ten seconds of the engine thread at the
- * worst section the caps allow. The sweep page polls its sweep once a second: 60 a minute.
+ * worst section the caps allow. The sweep page polls its sweep four times a second for its first 5 s, then once a second: 60 a minute (sweep-poll.ts).
  */
 export function apiPointsPerMinute(): number {
   const v = Number(process.env.SPARWISE_API_POINTS_PER_MINUTE);

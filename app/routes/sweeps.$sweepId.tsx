@@ -29,6 +29,7 @@ import { RolledAndWelded } from "~/components/RolledAndWelded";
 import { isAiscRow, isEnRow } from "~/lib/design-summary";
 import type { UnitSystem } from "~/optimizer/units";
 import { idParam } from "~/lib/route-params";
+import { sweepPollDelay } from "~/lib/sweep-poll";
 
 export function meta({ data }: Route.MetaArgs) {
   return [{ title: `Sweep ${data ? sweepNo(data.numbers, data.sweep.id) : ""} · Sparwise` }];
@@ -110,13 +111,17 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
     if (selected === null && points.length) setSelected(points[0].rank);
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [points, table]);
-  // Poll the API while the sweep runs; once it ends, reload this route's data (results) in place.
+  // Poll the API while the sweep runs (quickly at first: sweep-poll.ts); once it ends, reload this
+  // route's data (results) in place.
   useEffect(() => {
     if (!running) return;
     let stop = false;
+    const started = Date.now();
     const tick = async () => {
+      let ok = false;
       try {
         const res = await fetch(`/api/v1/sweeps/${sweep.id}`, { headers: { Accept: "application/json" } });
+        ok = res.ok;
         if (res.ok) {
           const s = await res.json();
           if (stop) return;
@@ -129,9 +134,9 @@ export default function SweepPage({ loaderData, actionData }: Route.ComponentPro
       } catch {
         // a dropped poll is retried on the next tick
       }
-      if (!stop) timer = setTimeout(tick, 1000);
+      if (!stop) timer = setTimeout(tick, sweepPollDelay(Date.now() - started, ok));
     };
-    let timer = setTimeout(tick, 700);
+    let timer = setTimeout(tick, sweepPollDelay(0));
     return () => {
       stop = true;
       clearTimeout(timer);
