@@ -214,6 +214,15 @@
 //     objective at d1 and that width is the range's key. Every point of depths [d1, m] fails when
 //     Iz (or Zz) at depth m and the widest allowed width falls short of req(d1): monotone in m, so
 //     bisection raises d1, in rounds (req(d1) rises with it).
+//   - (E2) over the range (i, channel, box under EN 1993 with a restraint; ltbOutRange): Iy, Cw,
+//     J and Zz are at most their values at (d2, b2): none falls with b ((E2)) nor with d (the cut
+//     adds web, which raises Iy by (1) and J by its longer web plate, long·short³/3 rising in
+//     each side; Cw: the i's tf·b³·h0²/24 and the channel's h0²·(3a + 2h0·tw)/(6a + h0·tw)
+//     (the ratio's derivative in h0 has the sign of 9a·tw > 0) rise with h0, the box's is 0; the
+//     box's Bredt J = 4A²/∮ds/t with A and ∮ affine in h0 rises with it); betaX = 0 and the shear
+//     centre at mid-depth, so zg = loadHeight(d/2) is monotone in d, bounded by its ends; curve c
+//     if d1/b2 ≤ 2; (E6) for i with c = d1/2 and the least flange width. The bound grows with
+//     the range, so "every point of [d1, m] fails" is monotone in m: bisection raises d1 too.
 //   A popped range is halved; at ROW_LEAF depths or fewer each depth becomes its raw row (in best
 //   mode before any incumbent exists, the row is settled at once instead, diveRow: the seeds'
 //   phases in run() used to give an early incumbent that way, and its cut shortens the LTB
@@ -1945,23 +1954,47 @@ class FamilySearch {
         kHi = this.cutAxis(f, W, kLo, kHi, o0, lim);
         dB = this.cutAxis(ds, D, dA, dB, o0, lim);
       }
+      const d0 = dA;
       // the least depth that can pass: every point of depths [dA, m] fails once the widest allowed
       // width at depth m falls short of the requirement at dA (monotone in m)
       const req = this.baseIreq(D[dA], cap) * (1 - REL);
-      if (!this.rangeReqOut(dA, req, zreq, kHi)) break;
-      if (dA === dB || this.rangeReqOut(dB, req, zreq, kHi)) {
-        out[this.cause] += (dB - dA + 1) * (kHi - kLo + 1);
-        return NaN;
+      if (this.rangeReqOut(dA, req, zreq, kHi)) {
+        if (dA === dB || this.rangeReqOut(dB, req, zreq, kHi)) {
+          out[this.cause] += (dB - dA + 1) * (kHi - kLo + 1);
+          return NaN;
+        }
+        let lo = dA,
+          hi = dB; // [dA, lo] fails as a whole, [dA, hi] does not
+        while (hi - lo > 1) {
+          const m = (lo + hi) >> 1;
+          if (this.rangeReqOut(m, req, zreq, kHi)) lo = m;
+          else hi = m;
+        }
+        out[this.cause] += (hi - dA) * (kHi - kLo + 1);
+        dA = hi;
       }
-      let lo = dA,
-        hi = dB; // [dA, lo] fails as a whole, [dA, hi] does not
-      while (hi - lo > 1) {
-        const m = (lo + hi) >> 1;
-        if (this.rangeReqOut(m, req, zreq, kHi)) lo = m;
-        else hi = m;
+      if (this.ltbRange) {
+        // (E2) over the box [dA, m] × [kLo, kHi]: every point fails when the box bound does, and
+        // the bound grows with the box, so bisection raises the least depth
+        this.cause = C_LTB;
+        if (this.ltbOutRange(dA, dB, kLo, kHi, cap)) {
+          out[C_LTB] += (dB - dA + 1) * (kHi - kLo + 1);
+          return NaN;
+        }
+        if (dA < dB && this.ltbOutRange(dA, dA, kLo, kHi, cap)) {
+          let lo = dA,
+            hi = dB;
+          while (hi - lo > 1) {
+            const m = (lo + hi) >> 1;
+            if (this.ltbOutRange(dA, m, kLo, kHi, cap)) lo = m;
+            else hi = m;
+          }
+          out[C_LTB] += (hi - dA) * (kHi - kLo + 1);
+          dA = hi;
+        }
       }
-      out[this.cause] += (hi - dA) * (kHi - kLo + 1);
-      dA = hi;
+      // a raised least depth lowers the incumbent's reach in b and raises the requirement: again
+      if (dA === d0) break;
     }
     const d1 = D[dA],
       d2 = D[dB];
@@ -1993,6 +2026,56 @@ class FamilySearch {
     if (i0 < req) x = i1 > i0 ? (req - i0) / (i1 - i0) : 1;
     if (z0 < zreq) x = Math.max(x, z1 > z0 ? (zreq - z0) / (z1 - z0) : 1);
     return (o0 + (o1 - o0) * Math.min(1, x)) * (1 - REL);
+  }
+
+  /** (R′), (E2) the LTB bound over depth ranges applies: i, channel and box under EN 1993 with a restraint */
+  private get ltbRange(): boolean {
+    const fam = this.fk.family;
+    return this.en !== null && this.en.restraint && (fam === "i" || fam === "channel" || fam === "box");
+  }
+
+  /**
+   * (R′), (E2) True when no point of depth indices [dA, dB] and width indices [k1, k2] (the
+   * thicknesses in v; i, channel, box) can have every LTB utilisation ≤ cap: Iy, Cw, J and Zz at
+   * the deepest, widest corner (none falls with d or b: (R′), (E2)); betaX = 0 and the shear
+   * centre at mid-depth (stability.ts), so zg = loadHeight at ysc = d/2 is monotone in d and its
+   * two ends bound it; curve c if d1/b2 ≤ 2; (E6) for i with c = d1/2 and the least flange width;
+   * fy the thickest plate's. enLtbOut at these bounds, as ltbOutRow does for one row.
+   */
+  private ltbOutRange(dA: number, dB: number, k1: number, k2: number, cap: number): boolean {
+    const fk = this.fk,
+      v = this.v,
+      W = this.W,
+      ds = this.dSlot,
+      D = this.pf.axes[ds],
+      n = fk.nPlates,
+      ko = this.kout,
+      st = this.st,
+      p = this.pHi,
+      e = this.en!;
+    const d1 = D[dA],
+      d2 = D[dB];
+    v[ds] = d1;
+    v[fk.free] = W[k1];
+    stabilityKernel(fk.family, v, st);
+    const z1 = loadHeight(e, d1, st[ST_SCY]);
+    v[ds] = d2;
+    v[fk.free] = W[k2];
+    fk.fill(v, p);
+    compositeKernel(p, n, ko);
+    stabilityKernel(fk.family, v, st);
+    const z2 = loadHeight(e, d2, st[ST_SCY]);
+    const iy = ko[K_IY],
+      izHi = ko[K_IZ];
+    let zz = plateModulusAbout(p, n, 0.5 * d2);
+    if (fk.family === "i") zz = this.enWUpper(zz, izHi, 0.5 * d1, 0.5 * d1, W[k1], v[2], W[k1], v[2], v[3]);
+    const aLT = ltbCurveC(fk.family, d1, W[k2]) ? ALPHA_LT_C : ALPHA_LT_D;
+    const r = this.rng,
+      zs = REL * (Math.abs(z1) + Math.abs(z2) + d2);
+    r[0] = Math.min(z1, z2) - zs;
+    r[1] = Math.max(z1, z2) + zs;
+    r[2] = r[3] = st[ST_BETA];
+    return this.enLtbOut(iy, st[ST_CW], st[ST_J], zz, this.enFyMax(k1, k2), aLT, cap);
   }
 
   /**
