@@ -97,10 +97,16 @@ export class SweepRunner {
   private stopping = false;
   private started = false;
   private wake: (() => void) | null = null;
+  /**
+   * A wake that came while the loop was not idle (an enqueue committed while a claim's query ran, or
+   * a slot freed then): that claim may not have seen the new work, so the next idle() returns at once
+   * instead of sleeping a whole poll (the click-to-chart bench caught one such sweep waiting 250 ms).
+   */
+  private wakePending = false;
   private loopDone: Promise<void> | null = null;
   private controlTimer: NodeJS.Timeout | null = null;
   private controlBusy = false;
-  private readonly onEnqueued = () => this.wake?.();
+  private readonly onEnqueued = () => this.poke();
   private readonly onCancel = (id: number) => this.running.get(id)?.ac.abort("cancel" satisfies StopReason);
   /** sweeps this runner finished, by outcome (for tests, benchmarks and logs) */
   readonly stats = { claimed: 0, succeeded: 0, timedOut: 0, failed: 0, cancelled: 0, lost: 0, released: 0 };
@@ -163,6 +169,8 @@ export class SweepRunner {
       let claimed = 0;
       if (free > 0) {
         try {
+          // this claim sees every enqueue committed before it; a wake from here on may be one it missed
+          this.wakePending = false;
           const claims = await claimNextSweeps(this.workerId, free);
           backoff = 0;
           claimed = claims.length;
@@ -182,17 +190,27 @@ export class SweepRunner {
     }
   }
 
+  /** Wakes the loop: at once when it is idle, else as soon as it would go idle (wakePending). */
+  private poke(): void {
+    if (this.wake) this.wake();
+    else this.wakePending = true;
+  }
+
   private idle(ms: number): Promise<void> {
+    if (this.wakePending) {
+      this.wakePending = false;
+      return Promise.resolve();
+    }
     return new Promise((resolve) => {
-      const t = setTimeout(done, ms);
-      function done() {
+      // however the wait ends, its wake goes with it: a wake left behind after a timeout would take
+      // the next poke while the loop claims, and that poke would be lost
+      const done = () => {
         clearTimeout(t);
+        if (this.wake === done) this.wake = null;
         resolve();
-      }
-      this.wake = () => {
-        this.wake = null;
-        done();
       };
+      const t = setTimeout(done, ms);
+      this.wake = done;
     });
   }
 
@@ -202,7 +220,7 @@ export class SweepRunner {
     const r = { claim, ac: new AbortController(), progress: undefined, lastBeat: now, lastHeld: now } as Running;
     r.done = this.pq.add(() => this.execute(r)).then(() => {
       this.running.delete(claim.id);
-      this.wake?.();
+      this.poke();
     });
     this.running.set(claim.id, r);
   }
