@@ -1768,10 +1768,29 @@ class FamilySearch {
 
 
   /** Every thickness tuple as one node over its valid depths (R′), bounded at once. */
+  /**
+   * The seeds' odometer over the group dimensions at positions `outer` (the last turns fastest):
+   * advances idx and the matching values in v; false once every combination has been visited.
+   */
+  private nextCombination(outer: readonly number[], idx: Int32Array): boolean {
+    const gd = this.groupDims,
+      rad = this.radix,
+      v = this.v;
+    for (let o = outer.length - 1; o >= 0; o--) {
+      const j = outer[o];
+      if (++idx[j] < rad[j]) {
+        v[gd[j]] = this.pf.axes[gd[j]][idx[j]];
+        return true;
+      }
+      idx[j] = 0;
+      v[gd[j]] = this.pf.axes[gd[j]][0];
+    }
+    return false;
+  }
+
   seedRowRanges(): void {
     const fk = this.fk,
       gd = this.groupDims,
-      rad = this.radix,
       v = this.v,
       W = this.W,
       ds = this.dSlot,
@@ -1806,19 +1825,7 @@ class FamilySearch {
           this.decode(base);
         }
       }
-      let o = outer.length - 1;
-      while (o >= 0) {
-        const j = outer[o];
-        idx[j]++;
-        if (idx[j] < rad[j]) {
-          v[gd[j]] = this.pf.axes[gd[j]][idx[j]];
-          break;
-        }
-        idx[j] = 0;
-        v[gd[j]] = this.pf.axes[gd[j]][0];
-        o--;
-      }
-      if (o < 0) break;
+      if (!this.nextCombination(outer, idx)) break;
     }
   }
 
@@ -2659,7 +2666,6 @@ class FamilySearch {
   seedDepthRanges(): void {
     const fk = this.fk,
       gd = this.groupDims,
-      rad = this.radix,
       v = this.v,
       W = this.W,
       D = this.pf.axes[0];
@@ -2688,19 +2694,7 @@ class FamilySearch {
           i = e + 1;
         }
       }
-      let o = outer.length - 1;
-      while (o >= 0) {
-        const j = outer[o];
-        idx[j]++;
-        if (idx[j] < rad[j]) {
-          v[gd[j]] = this.pf.axes[gd[j]][idx[j]];
-          break;
-        }
-        idx[j] = 0;
-        v[gd[j]] = this.pf.axes[gd[j]][0];
-        o--;
-      }
-      if (o < 0) break;
+      if (!this.nextCombination(outer, idx)) break;
     }
   }
 
