@@ -22,36 +22,15 @@
 //  - as the open page sees it: the page polls the sweep (on the schedule of app/lib/sweep-poll.ts)
 //    and fetches its data once a poll sees the sweep ended, so the chart arrives at that poll, not
 //    at the end itself; timed with the same polls.
-import { execFileSync, spawn, type ChildProcess } from "node:child_process";
-import { existsSync, readdirSync, statSync } from "node:fs";
+import { spawn, type ChildProcess } from "node:child_process";
 import net from "node:net";
 import os from "node:os";
-import path from "node:path";
-import { fileURLToPath } from "node:url";
 import v8 from "node:v8";
 import vm from "node:vm";
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-const DB_NAME = process.env.BENCH_DB_NAME ?? "sparwise_bench_click";
-process.env.DB_NAME = DB_NAME;
-execFileSync("bash", ["db/start.sh"], { cwd: ROOT, stdio: "ignore" });
-execFileSync("bash", ["db/create-database.sh", DB_NAME, "--fresh"], { cwd: ROOT, stdio: "inherit" });
-execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { cwd: ROOT, stdio: "ignore", env: { ...process.env, DB_NAME } });
-
-// ---- the build: rebuilt when any file under app/ is newer than it (as load.bench.ts)
-function newest(dir: string): number {
-  let t = 0;
-  for (const e of readdirSync(dir, { withFileTypes: true })) {
-    const p = path.join(dir, e.name);
-    t = Math.max(t, e.isDirectory() ? newest(p) : statSync(p).mtimeMs);
-  }
-  return t;
-}
-const built = path.join(ROOT, "build/server/index.js");
-if (!existsSync(built) || statSync(built).mtimeMs < newest(path.join(ROOT, "app"))) {
-  console.log("building (app/ is newer than build/) …");
-  execFileSync("npm", ["run", "build"], { cwd: ROOT, stdio: "ignore" });
-}
+import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freshBenchDatabase } from "./bench-setup";
+const DB_NAME = freshBenchDatabase("sparwise_bench_click");
+ensureBuild();
 
 const { db, closeDb, parseJson } = await import("~/lib/db.server");
 const { sessionCookieFor } = await import("~/lib/session.server");
@@ -63,17 +42,8 @@ const { searchProblemSchema } = await import("~/optimizer");
 const { sweepPollDelay } = await import("~/lib/sweep-poll");
 type SearchProblemInput = import("~/optimizer").SearchProblemInput;
 
-// the walkthrough brief, as search.bench.ts (6b) writes it
-const walk: SearchProblemInput = {
-  moment: { sagging: 900, hogging: 0 },
-  shear: 600,
-  allowable: { tension: 165, compression: 165, shear: 100 },
-  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
-  depth: { min: 200, max: 1199, step: 1 },
-  width: { min: 150, max: 452, step: 1 },
-  thicknesses: [8, 10, 12, 15, 20, 25, 30, 35],
-  families: ["i", "channel", "tee", "box", "channel-down", "angle", "rectangle", "mono-i"],
-};
+// the walkthrough brief, as search.bench.ts (6b) times it
+const walk: SearchProblemInput = WALKTHROUGH_BRIEF;
 
 // a full garbage collection on demand (the flag set at run time, so `npm run bench` needs no node option)
 v8.setFlagsFromString("--expose-gc");

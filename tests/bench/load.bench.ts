@@ -14,40 +14,14 @@
 // Settings: BENCH_DB_NAME (sparwise_bench_load), BENCH_ROUNDS (8), BENCH_ONLY=8 (item 8 alone),
 // BENCH_CPU_PROF=DIR (the server's CPU profile, written there when the bench stops it).
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
-import { existsSync, readFileSync, readdirSync, statSync } from "node:fs";
+import { readFileSync } from "node:fs";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
-import { fileURLToPath } from "node:url";
+import { ROOT, ensureBuild, freshBenchDatabase } from "./bench-setup";
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-const DB_NAME = process.env.BENCH_DB_NAME ?? "sparwise_bench_load";
-process.env.DB_NAME = DB_NAME;
-execFileSync("bash", ["db/start.sh"], { cwd: ROOT, stdio: "ignore" });
-execFileSync("bash", ["db/create-database.sh", DB_NAME, "--fresh"], {
-  cwd: ROOT,
-  stdio: "inherit",
-});
-execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], {
-  cwd: ROOT,
-  stdio: "ignore",
-  env: { ...process.env, DB_NAME },
-});
-
-// ---- the build: rebuilt when any file under app/ is newer than it
-function newest(dir: string): number {
-  let t = 0;
-  for (const e of readdirSync(dir, { withFileTypes: true })) {
-    const p = path.join(dir, e.name);
-    t = Math.max(t, e.isDirectory() ? newest(p) : statSync(p).mtimeMs);
-  }
-  return t;
-}
-const built = path.join(ROOT, "build/server/index.js");
-if (!existsSync(built) || statSync(built).mtimeMs < newest(path.join(ROOT, "app"))) {
-  console.log("building (app/ is newer than build/) …");
-  execFileSync("npm", ["run", "build"], { cwd: ROOT, stdio: "ignore" });
-}
+const DB_NAME = freshBenchDatabase("sparwise_bench_load");
+ensureBuild();
 
 const { db, closeDb } = await import("~/lib/db.server");
 const { sessionCookieFor } = await import("~/lib/session.server");

@@ -9,17 +9,10 @@
 //    at once by the enqueue);
 //  - sweeps per second for trivial problems with 1 and with 2 worker processes (each running
 //    one sweep at a time), from the first queued_at to the last finished_at.
-import { execFileSync } from "node:child_process";
-import path from "node:path";
-import { fileURLToPath } from "node:url";
+import { freshBenchDatabase } from "./bench-setup";
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
-const DB_NAME = process.env.BENCH_DB_NAME ?? "sparwise_bench_queue";
-process.env.DB_NAME = DB_NAME;
 process.env.SPARWISE_MAX_QUEUED_PER_USER = "100000";
-execFileSync("bash", ["db/start.sh"], { cwd: ROOT, stdio: "ignore" });
-execFileSync("bash", ["db/create-database.sh", DB_NAME, "--fresh"], { cwd: ROOT, stdio: "inherit" });
-execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { cwd: ROOT, stdio: "ignore", env: { ...process.env, DB_NAME } });
+const DB_NAME = freshBenchDatabase("sparwise_bench_queue");
 
 const { db, closeDb } = await import("~/lib/db.server");
 const { enqueueSweep } = await import("~/workers/queue.server");

@@ -10,6 +10,7 @@ import { searchInThreads } from "../../app/workers/search-threads";
 import { SWEEP_SEARCH_OPTIONS, sweepThreads } from "../../app/workers/sweep-search.server";
 import type { SearchProblemInput } from "../../app/optimizer/search-schema";
 import type { SearchResult } from "../../app/optimizer/grid";
+import { WALKTHROUGH_BRIEF } from "./bench-setup";
 
 const THICK = [6, 8, 10, 12, 15, 18, 20, 25, 30, 35];
 
@@ -302,16 +303,7 @@ delete (en as { allowable?: unknown }).allowable;
 // against both, the sweep's former explore-based search (explore 0.25: rows within 25 % of each
 // family's best, a front over what was evaluated), timed in the same run.
 {
-  const walk: SearchProblemInput = {
-    moment: { sagging: 900, hogging: 0 },
-    shear: 600,
-    allowable: { tension: 165, compression: 165, shear: 100 },
-    slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
-    depth: { min: 200, max: 1199, step: 1 },
-    width: { min: 150, max: 452, step: 1 },
-    thicknesses: [8, 10, 12, 15, 20, 25, 30, 35],
-    families: ["i", "channel", "tee", "box", "channel-down", "angle", "rectangle", "mono-i"],
-  };
+  const walk: SearchProblemInput = WALKTHROUGH_BRIEF;
   const threads = sweepThreads();
   const [g, tg, cg] = timeC(() => searchSections(walk));
   // the sweep's way: first cold (the threads start), then three times warm, the median reported

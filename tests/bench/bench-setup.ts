@@ -1,0 +1,52 @@
+// What the benchmarks share: the walkthrough brief, a fresh database of their own and an up-to-date
+// production build. Imports nothing of the app, so a bench can set DB_NAME before it loads the app.
+import { execFileSync } from "node:child_process";
+import { existsSync, readdirSync, statSync } from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import type { SearchProblemInput } from "../../app/optimizer/search-schema";
+
+export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+
+/**
+ * Issue 15's walkthrough brief: all eight families on fine grids (depth 200–1199 by 1, widths
+ * 150–452 by 1, eight thicknesses; 4.7·10^10 shapes with mono-i), allowable stresses.
+ */
+export const WALKTHROUGH_BRIEF: SearchProblemInput = {
+  moment: { sagging: 900, hogging: 0 },
+  shear: 600,
+  allowable: { tension: 165, compression: 165, shear: 100 },
+  slenderness: { outstand: 15, internal: 40, web: 120, stem: 20 },
+  depth: { min: 200, max: 1199, step: 1 },
+  width: { min: 150, max: 452, step: 1 },
+  thicknesses: [8, 10, 12, 15, 20, 25, 30, 35],
+  families: ["i", "channel", "tee", "box", "channel-down", "angle", "rectangle", "mono-i"],
+};
+
+/** A fresh database (BENCH_DB_NAME, else `fallback`) on the project's MariaDB, migrated and seeded; sets DB_NAME. */
+export function freshBenchDatabase(fallback: string): string {
+  const name = process.env.BENCH_DB_NAME ?? fallback;
+  process.env.DB_NAME = name;
+  execFileSync("bash", ["db/start.sh"], { cwd: ROOT, stdio: "ignore" });
+  execFileSync("bash", ["db/create-database.sh", name, "--fresh"], { cwd: ROOT, stdio: "inherit" });
+  execFileSync("npx", ["tsx", "db/migrate.ts", "--seed"], { cwd: ROOT, stdio: "ignore", env: { ...process.env, DB_NAME: name } });
+  return name;
+}
+
+function newest(dir: string): number {
+  let t = 0;
+  for (const e of readdirSync(dir, { withFileTypes: true })) {
+    const p = path.join(dir, e.name);
+    t = Math.max(t, e.isDirectory() ? newest(p) : statSync(p).mtimeMs);
+  }
+  return t;
+}
+
+/** Rebuilds the production build when any file under app/ is newer than it. */
+export function ensureBuild(): void {
+  const built = path.join(ROOT, "build/server/index.js");
+  if (!existsSync(built) || statSync(built).mtimeMs < newest(path.join(ROOT, "app"))) {
+    console.log("building (app/ is newer than build/) …");
+    execFileSync("npm", ["run", "build"], { cwd: ROOT, stdio: "ignore" });
+  }
+}
