@@ -50,3 +50,16 @@ export function ensureBuild(): void {
     execFileSync("npm", ["run", "build"], { cwd: ROOT, stdio: "ignore" });
   }
 }
+
+/** Waits until the app server at base answers /healthz (at most a minute). */
+export async function waitUntilUp(base: string): Promise<void> {
+  for (const deadline = Date.now() + 60_000; ; ) {
+    try {
+      if ((await fetch(`${base}/healthz`)).ok) return;
+    } catch {
+      // not up yet
+    }
+    if (Date.now() > deadline) throw new Error("the app server did not start");
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}

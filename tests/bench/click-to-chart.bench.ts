@@ -28,7 +28,7 @@ import os from "node:os";
 import v8 from "node:v8";
 import vm from "node:vm";
 
-import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freshBenchDatabase } from "./bench-setup";
+import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freshBenchDatabase, waitUntilUp } from "./bench-setup";
 const DB_NAME = freshBenchDatabase("sparwise_bench_click");
 ensureBuild();
 
@@ -106,15 +106,7 @@ for (const ev of ["uncaughtException", "unhandledRejection"] as const)
     console.error(e);
     process.exit(1);
   });
-for (const deadline = Date.now() + 60_000; ;) {
-  try {
-    if ((await fetch(`${base}/healthz`)).ok) break;
-  } catch {
-    // not up yet
-  }
-  if (Date.now() > deadline) throw new Error("the app server did not start");
-  await new Promise((r) => setTimeout(r, 250));
-}
+await waitUntilUp(base);
 
 async function timed(url: string, init?: RequestInit): Promise<{ ms: number; status: number; bytes: number; text: string }> {
   const t0 = performance.now();

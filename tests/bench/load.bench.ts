@@ -18,7 +18,7 @@ import { readFileSync } from "node:fs";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
-import { ROOT, ensureBuild, freshBenchDatabase } from "./bench-setup";
+import { ROOT, ensureBuild, freshBenchDatabase, waitUntilUp } from "./bench-setup";
 
 const DB_NAME = freshBenchDatabase("sparwise_bench_load");
 ensureBuild();
@@ -102,15 +102,7 @@ process.on("unhandledRejection", (e) => {
   console.error(e);
   process.exit(1);
 });
-for (const deadline = Date.now() + 60_000; ;) {
-  try {
-    if ((await fetch(`${base}/healthz`)).ok) break;
-  } catch {
-    // not up yet
-  }
-  if (Date.now() > deadline) throw new Error("the app server did not start");
-  await new Promise((r) => setTimeout(r, 250));
-}
+await waitUntilUp(base);
 
 function stats(xs: number[]) {
   const s = [...xs].sort((a, b) => a - b);
