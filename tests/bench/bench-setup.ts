@@ -2,6 +2,7 @@
 // production build. Imports nothing of the app, so a bench can set DB_NAME before it loads the app.
 import { execFileSync } from "node:child_process";
 import { existsSync, readdirSync, statSync } from "node:fs";
+import net from "node:net";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { SearchProblemInput } from "../../app/optimizer/search-schema";
@@ -62,4 +63,16 @@ export async function waitUntilUp(base: string): Promise<void> {
     if (Date.now() > deadline) throw new Error("the app server did not start");
     await new Promise((r) => setTimeout(r, 250));
   }
+}
+
+/** A TCP port free on the loopback now, for a server the bench starts. */
+export function freePort(): Promise<number> {
+  return new Promise<number>((resolve, reject) => {
+    const s = net.createServer();
+    s.once("error", reject);
+    s.listen(0, "127.0.0.1", () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
 }

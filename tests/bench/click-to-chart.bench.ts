@@ -23,12 +23,11 @@
 //    and fetches its data once a poll sees the sweep ended, so the chart arrives at that poll, not
 //    at the end itself; timed with the same polls.
 import { spawn, type ChildProcess } from "node:child_process";
-import net from "node:net";
 import os from "node:os";
 import v8 from "node:v8";
 import vm from "node:vm";
 
-import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freshBenchDatabase, waitUntilUp } from "./bench-setup";
+import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freePort, freshBenchDatabase, waitUntilUp } from "./bench-setup";
 const DB_NAME = freshBenchDatabase("sparwise_bench_click");
 ensureBuild();
 
@@ -73,15 +72,6 @@ const [briefId] = await db("briefs").insert({
 });
 
 // ---- the server: the production build (node server.ts), its own runner off (this process runs the sweeps)
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = net.createServer();
-    s.once("error", reject);
-    s.listen(0, "127.0.0.1", () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
 const port = await freePort();
 const base = `http://127.0.0.1:${port}`;
 let server: ChildProcess | undefined = spawn(process.execPath, ["--import", "tsx", "server.ts"], {

@@ -15,10 +15,9 @@
 // BENCH_CPU_PROF=DIR (the server's CPU profile, written there when the bench stops it).
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import { readFileSync } from "node:fs";
-import net from "node:net";
 import os from "node:os";
 import path from "node:path";
-import { ROOT, ensureBuild, freshBenchDatabase, waitUntilUp } from "./bench-setup";
+import { ROOT, ensureBuild, freePort, freshBenchDatabase, waitUntilUp } from "./bench-setup";
 
 const DB_NAME = freshBenchDatabase("sparwise_bench_load");
 ensureBuild();
@@ -30,15 +29,6 @@ const { createApiToken } = await import("~/lib/api-tokens.server");
 const { insertBigSweep } = await import("../integration/big-sweep");
 const { MAX_SECTION_POINTS, MAX_SECTION_POLYGONS, findInputViolation } = await import("~/optimizer/validate");
 
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = net.createServer();
-    s.once("error", reject);
-    s.listen(0, "127.0.0.1", () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
 const port = await freePort();
 const base = `http://127.0.0.1:${port}`;
 
