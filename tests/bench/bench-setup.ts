@@ -1,6 +1,6 @@
 // What the benchmarks share: the walkthrough brief, a fresh database of their own and an up-to-date
 // production build. Imports nothing of the app, so a bench can set DB_NAME before it loads the app.
-import { execFileSync } from "node:child_process";
+import { execFileSync, type ChildProcess } from "node:child_process";
 import { existsSync, readdirSync, statSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
@@ -75,4 +75,29 @@ export function freePort(): Promise<number> {
       s.close(() => resolve(port));
     });
   });
+}
+
+/**
+ * Ends a server the bench started detached (its whole process group) when this process exits or
+ * fails; returns the stop, for the bench's own end.
+ */
+export function stopOnExit(child: ChildProcess): () => void {
+  let live: ChildProcess | undefined = child;
+  const stop = () => {
+    if (live?.pid)
+      try {
+        process.kill(-live.pid, "SIGTERM");
+      } catch {
+        // already gone
+      }
+    live = undefined;
+  };
+  process.on("exit", stop);
+  for (const ev of ["uncaughtException", "unhandledRejection"] as const)
+    process.on(ev, (e) => {
+      stop();
+      console.error(e);
+      process.exit(1);
+    });
+  return stop;
 }

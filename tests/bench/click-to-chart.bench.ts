@@ -22,12 +22,12 @@
 //  - as the open page sees it: the page polls the sweep (on the schedule of app/lib/sweep-poll.ts)
 //    and fetches its data once a poll sees the sweep ended, so the chart arrives at that poll, not
 //    at the end itself; timed with the same polls.
-import { spawn, type ChildProcess } from "node:child_process";
+import { spawn } from "node:child_process";
 import os from "node:os";
 import v8 from "node:v8";
 import vm from "node:vm";
 
-import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freePort, freshBenchDatabase, waitUntilUp } from "./bench-setup";
+import { ROOT, WALKTHROUGH_BRIEF, ensureBuild, freePort, freshBenchDatabase, stopOnExit, waitUntilUp } from "./bench-setup";
 const DB_NAME = freshBenchDatabase("sparwise_bench_click");
 ensureBuild();
 
@@ -74,28 +74,13 @@ const [briefId] = await db("briefs").insert({
 // ---- the server: the production build (node server.ts), its own runner off (this process runs the sweeps)
 const port = await freePort();
 const base = `http://127.0.0.1:${port}`;
-let server: ChildProcess | undefined = spawn(process.execPath, ["--import", "tsx", "server.ts"], {
+const server = spawn(process.execPath, ["--import", "tsx", "server.ts"], {
   cwd: ROOT,
   env: { ...process.env, DB_NAME, PORT: String(port), NODE_ENV: "production", VITEST: "", APP_URL: base, SPARWISE_INPROCESS_WORKERS: "0", SPARWISE_API_POINTS_PER_MINUTE: "100000000" },
   stdio: ["ignore", "ignore", "inherit"],
   detached: true,
 });
-const stopServer = () => {
-  if (server?.pid)
-    try {
-      process.kill(-server.pid, "SIGTERM");
-    } catch {
-      // already gone
-    }
-  server = undefined;
-};
-process.on("exit", stopServer);
-for (const ev of ["uncaughtException", "unhandledRejection"] as const)
-  process.on(ev, (e) => {
-    stopServer();
-    console.error(e);
-    process.exit(1);
-  });
+const stopServer = stopOnExit(server);
 await waitUntilUp(base);
 
 async function timed(url: string, init?: RequestInit): Promise<{ ms: number; status: number; bytes: number; text: string }> {

@@ -17,7 +17,7 @@ import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import { readFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { ROOT, ensureBuild, freePort, freshBenchDatabase, waitUntilUp } from "./bench-setup";
+import { ROOT, ensureBuild, freePort, freshBenchDatabase, stopOnExit, waitUntilUp } from "./bench-setup";
 
 const DB_NAME = freshBenchDatabase("sparwise_bench_load");
 ensureBuild();
@@ -51,7 +51,7 @@ const sweepId = await insertBigSweep(db, {
 // node itself (what `npm run start` runs), so the server's own CPU time can be read by its pid;
 // BENCH_CPU_PROF=DIR also writes the server's CPU profile there when it stops (node --cpu-prof).
 const profileDir = process.env.BENCH_CPU_PROF;
-let server: ChildProcess | undefined = spawn(
+const server = spawn(
   process.execPath,
   [...(profileDir ? ["--cpu-prof", `--cpu-prof-dir=${path.resolve(profileDir)}`] : []), "--import", "tsx", "server.ts"],
   {
@@ -72,26 +72,7 @@ let server: ChildProcess | undefined = spawn(
   },
 );
 const serverPid = server.pid!;
-const stopServer = () => {
-  if (server?.pid)
-    try {
-      process.kill(-server.pid, "SIGTERM");
-    } catch {
-      // already gone
-    }
-  server = undefined;
-};
-process.on("exit", stopServer);
-process.on("uncaughtException", (e) => {
-  stopServer();
-  console.error(e);
-  process.exit(1);
-});
-process.on("unhandledRejection", (e) => {
-  stopServer();
-  console.error(e);
-  process.exit(1);
-});
+const stopServer = stopOnExit(server);
 await waitUntilUp(base);
 
 function stats(xs: number[]) {
